@@ -1,0 +1,40 @@
+using System.CommandLine;
+using WindingNotes.Report;
+using WindingNotes.Workspace;
+
+namespace WindingNotes.Cli;
+
+/// <summary><c>windingnotes check FILE...</c>: every diagnostic and failed check, and a status for CI.</summary>
+internal static class CheckCommand
+{
+    public static Command Create(ConsoleIo io)
+    {
+        var files = new Argument<string[]>("files") { Description = "calculation files ('-' reads standard input)", Arity = ArgumentArity.OneOrMore };
+        var command = new Command("check", "Evaluate files; print diagnostics and failed checks; exit 1 on any error or failed check.") { files };
+        command.SetAction(parsed => Run(io, parsed.GetValue(files)!));
+        return command;
+    }
+
+    private static int Run(ConsoleIo io, string[] files)
+    {
+        int errors = 0, warnings = 0, checks = 0, passed = 0;
+        var unreadable = false;
+        foreach (var path in files)
+        {
+            var text = io.Read(path);
+            if (text is null)
+            {
+                unreadable = true;
+                continue;
+            }
+            var evaluation = Evaluator.Evaluate(text, ConsoleIo.DisplayName(path));
+            foreach (var d in evaluation.Diagnostics) io.Output.WriteLine(DiagnosticLines.Format(evaluation, d));
+            errors += evaluation.Diagnostics.Count(d => d.IsError);
+            warnings += evaluation.Diagnostics.Count(d => d.Severity == Text.Severity.Warning);
+            checks += evaluation.Checks.Length;
+            passed += evaluation.Checks.Count(c => c.Passed);
+        }
+        io.Output.WriteLine($"{files.Length} file{(files.Length == 1 ? "" : "s")}: {errors} error{(errors == 1 ? "" : "s")}, {warnings} warning{(warnings == 1 ? "" : "s")}, {passed} of {checks} check{(checks == 1 ? "" : "s")} passed");
+        return unreadable ? Cli.Usage : errors > 0 || passed < checks ? Cli.Failed : Cli.Ok;
+    }
+}

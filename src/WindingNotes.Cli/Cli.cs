@@ -1,0 +1,56 @@
+using System.CommandLine;
+
+namespace WindingNotes.Cli;
+
+/// <summary>
+/// The <c>windingnotes</c> command. Thin: it reads files, calls the Workspace and the Report, writes
+/// what they return. Exit codes: 0 all well, 1 an error or a failed check, 2 bad usage or an unreadable file.
+/// </summary>
+public static class Cli
+{
+    public const int Ok = 0, Failed = 1, Usage = 2;
+
+    public static int Run(string[] args, TextWriter output, TextWriter error, TextReader input)
+    {
+        var io = new ConsoleIo(output, error, input);
+        var root = new RootCommand("Evaluate tapped-winding calculation files (*.wn): voltages, currents, losses, ratings and checks.");
+        root.Subcommands.Add(CheckCommand.Create(io));
+        root.Subcommands.Add(ReportCommand.Create(io));
+        var parsed = root.Parse(args);
+        if (parsed.Errors.Count > 0)
+        {
+            foreach (var e in parsed.Errors) error.WriteLine($"windingnotes: {e.Message}");
+            error.WriteLine("try 'windingnotes --help'");
+            return Usage;
+        }
+        try
+        {
+            return parsed.Invoke(new InvocationConfiguration { Output = output, Error = error, EnableDefaultExceptionHandler = false });
+        }
+        catch (Exception e) when (e is not OutOfMemoryException)
+        {
+            error.WriteLine($"windingnotes: internal error: {e.Message}");
+            return Usage;
+        }
+    }
+}
+
+/// <summary>Where a command reads and writes; tests pass their own.</summary>
+public sealed record ConsoleIo(TextWriter Output, TextWriter Error, TextReader Input)
+{
+    /// <summary>A file's text, or standard input for "-"; null after a message when it cannot be read.</summary>
+    public string? Read(string path)
+    {
+        try
+        {
+            return path == "-" ? Input.ReadToEnd() : File.ReadAllText(path);
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
+        {
+            Error.WriteLine($"windingnotes: cannot read '{path}': {e.Message}");
+            return null;
+        }
+    }
+
+    public static string DisplayName(string path) => path == "-" ? "<stdin>" : path;
+}

@@ -1,0 +1,28 @@
+using System.CommandLine;
+using WindingNotes.Report;
+using WindingNotes.Workspace;
+
+namespace WindingNotes.Cli;
+
+/// <summary><c>windingnotes report FILE [--format text|json]</c>: the full results.</summary>
+internal static class ReportCommand
+{
+    public static Command Create(ConsoleIo io)
+    {
+        var file = new Argument<string>("file") { Description = "a calculation file ('-' reads standard input)" };
+        var format = new Option<string>("--format", "-f") { Description = "text or json", DefaultValueFactory = _ => "text" };
+        format.AcceptOnlyFromAmong("text", "json");
+        var command = new Command("report", "Evaluate a file and print every result.") { file, format };
+        command.SetAction(parsed => Run(io, parsed.GetValue(file)!, parsed.GetValue(format)!));
+        return command;
+    }
+
+    private static int Run(ConsoleIo io, string path, string format)
+    {
+        var text = io.Read(path);
+        if (text is null) return Cli.Usage;
+        var evaluation = Evaluator.Evaluate(text, ConsoleIo.DisplayName(path));
+        io.Output.Write(format == "json" ? JsonReport.Write(evaluation) : TextReport.Write(evaluation));
+        return evaluation.HasErrors || !evaluation.AllChecksPass ? Cli.Failed : Cli.Ok;
+    }
+}

@@ -1,0 +1,414 @@
+using System.Collections.Immutable;
+using WindingNotes.Syntax;
+using WindingNotes.Text;
+
+namespace WindingNotes.Model;
+
+// One method a statement: each reads its clauses and adds what it means to the model.
+internal sealed partial class BindRun
+{
+    private readonly Dictionary<StatementKind, TextSpan> singletons = [];
+
+    private void Bind(StatementSyntax s)
+    {
+        switch (s.Kind)
+        {
+            case StatementKind.Frequency:
+                if (Once(s) && Real(s.Head.Value(), Dimension.Frequency, "the frequency", positive: true) is { } f)
+                    model = model with { Frequency = f };
+                break;
+            case StatementKind.Temperature:
+                if (Once(s) && Real(s.Head.Value(), Dimension.TemperatureDim, "the temperature", positive: true) is { } t)
+                    model = model with { Temperature = t };
+                break;
+            case StatementKind.Core: BindCore(s); break;
+            case StatementKind.Winding: BindWinding(s); break;
+            case StatementKind.Tap or StatementKind.Brush: BindTap(s); break;
+            case StatementKind.Impedance: BindImpedance(s); break;
+            case StatementKind.NoLoad: BindNoLoad(s); break;
+            case StatementKind.Join:
+                var joined = s.Head.Names.Select(n => Node(n, s)).OfType<NodeRef>().ToImmutableArray();
+                model = model with { Joins = model.Joins.Add(joined) };
+                break;
+            case StatementKind.Ground:
+                if (Node(s.Head.Name(0), s) is { } g) model = model with { Grounds = model.Grounds.Add(g) };
+                break;
+            case StatementKind.Supply: BindSupply(s); break;
+            case StatementKind.Load: BindLoad(s); break;
+            case StatementKind.Fault: BindFault(s); break;
+            case StatementKind.Sweep: BindSweep(s); break;
+            case StatementKind.Expect: BindExpect(s); break;
+        }
+    }
+
+    private bool Once(StatementSyntax s)
+    {
+        if (singletons.TryGetValue(s.Kind, out var first))
+        {
+            diagnostics.ReportDuplicateStatement(s.Keyword, first);
+            return false;
+        }
+        singletons[s.Kind] = s.Keyword.Span;
+        return true;
+    }
+
+    private static string Label(StatementSyntax s) => $"{s.Keyword.Text} {s.Head.Name(0)?.Text}".TrimEnd();
+
+    private void BindCore(StatementSyntax s)
+    {
+        var name = s.Head.Name(0)!;
+        model = model with
+        {
+            Cores = model.Cores.Add(new CoreModel(name.Text, name.Name.Span, s.Span)
+            {
+                Rating = Real(s.Value("rating"), Dimension.ApparentPower, $"the rating of {name.Text}", positive: true),
+                Area = Real(s.Value("area"), Dimension.Area, $"the area of {name.Text}", positive: true),
+                FluxLimit = Real(s.Value("flux-limit"), Dimension.FluxDensity, $"the flux limit of {name.Text}", positive: true),
+            }),
+        };
+    }
+
+    private void BindWinding(StatementSyntax s)
+    {
+        var name = s.Head.Name(0)!;
+        var core = Resolve(s.Clause("on")?.Name(0), "a core", SymbolKind.Core);
+        var ends = s.Clause("from");
+        var turns = Turns(s.Value("turns"), $"the turns of {name.Text}");
+        var rated = Real(s.Value("rated"), Dimension.Voltage, $"the rated voltage of {name.Text}", positive: true);
+        if (s.Clause("turns") is null && s.Clause("rated") is null) diagnostics.ReportNoTurnsOrVoltage(name.Name);
+        var resistance = s.Clause("resistance");
+        var winding = new WindingModel(name.Text, name.Name.Span, s.Span, core?.Name ?? "",
+            EndRef(ends?.Name(0)), EndRef(ends?.Name(1)))
+        {
+            Turns = turns,
+            Rated = rated,
+            Rating = Real(s.Value("rating"), Dimension.ApparentPower, $"the rating of {name.Text}", positive: true),
+            RatedCurrent = Real(s.Value("rated-current"), Dimension.CurrentDim, $"the rated current of {name.Text}", positive: true),
+            Resistance = NonNegative(resistance?.Value(0), Dimension.Impedance, $"the resistance of {name.Text}"),
+            ResistanceTemperature = Real(resistance?.Value(1), Dimension.TemperatureDim, "the measuring temperature", positive: true),
+            Conductor = Conductor(s.Clause("conductor"), name.Text),
+        };
+        if (core is null || ends is null || winding.From.Name.Length == 0 || winding.To.Name.Length == 0) return;
+        model = model with { Windings = model.Windings.Add(winding) };
+    }
+
+    private static NodeRef EndRef(NameSyntax? name) => name is null ? new NodeRef("", default) : new NodeRef(name.Text, name.Name.Span);
+
+    private double? Turns(ValueSyntax? value, string description)
+    {
+        if (Value(value, description) is not { } q) return null;
+        if (!q.Dimension.IsNone || q.IsPercent || !q.IsReal || q.Real <= 0)
+        {
+            diagnostics.ReportOutOfBounds(value!.Span, description, "a positive number of turns");
+            return null;
+        }
+        return q.Real;
+    }
+
+    private double? NonNegative(ValueSyntax? value, Dimension dimension, string description)
+    {
+        var x = Real(value, dimension, description);
+        if (x < 0)
+        {
+            diagnostics.ReportOutOfBounds(value!.Span, description, "zero or more");
+            return null;
+        }
+        return x;
+    }
+
+    private ConductorModel? Conductor(ClauseSyntax? clause, string winding)
+    {
+        if (clause is null) return null;
+        var material = clause.Word(w => w is "copper" or "aluminium")?.Text == "aluminium" ? ConductorMaterial.Aluminium : ConductorMaterial.Copper;
+        var isGauge = clause.Word(w => w == "AWG") is not null;
+        double? area;
+        if (isGauge)
+        {
+            var gauge = Real(clause.Value(0), Dimension.None, $"the wire gauge of {winding}");
+            area = gauge is { } n ? Conductors.AwgArea(n) : null;
+            if (gauge is { } g && (g < -3 || g > 56))
+            {
+                diagnostics.ReportOutOfBounds(clause.Value(0)!.Span, "an AWG size", "between 0000 (-3) and 56");
+                area = null;
+            }
+        }
+        else area = Real(clause.Value(0), Dimension.Area, $"the conductor size of {winding}", positive: true);
+        var length = Real(clause.Value(1), Dimension.LengthDim, $"the conductor length of {winding}", positive: true);
+        if (area is null || length is null) return null;
+        var perTurn = clause.Word(w => w == "mean-turn") is not null;
+        return new ConductorModel(material, area.Value, length.Value, perTurn, clause.Span);
+    }
+
+    private void BindTap(StatementSyntax s)
+    {
+        var name = s.Head.Name(0)!;
+        var isBrush = s.Kind == StatementKind.Brush;
+        var winding = Resolve(s.Clause("on")?.Name(0), "a winding", SymbolKind.Winding);
+        var at = s.Value("at");
+        var position = overrides.Values.TryGetValue(name.Text, out var moved) ? moved : Value(at, $"the position of {name.Text}");
+        if (winding is null || position is null || TapPosition(position.Value, at!.Span, name.Text) is not { } place) return;
+        (double, double)? range = null;
+        if (s.Clause("range") is { } r && Value(r.Value(0), "the start of the range") is { } a && Value(r.Value(1), "the end of the range") is { } b
+            && TapPosition(a, r.Value(0)!.Span, name.Text) is { } from && TapPosition(b, r.Value(1)!.Span, name.Text) is { } to)
+            range = (from.Position, to.Position);
+        model = model with
+        {
+            Taps = model.Taps.Add(new TapModel(name.Text, name.Name.Span, s.Span, winding.Name, place.Position, place.Unit, isBrush)
+            {
+                Range = range,
+                CurrentLimit = Real(s.Value("current-limit"), Dimension.CurrentDim, $"the current limit of {name.Text}", positive: true),
+                PositionSpan = at.Span,
+            }),
+        };
+    }
+
+    /// <summary>A position in turns (or a bare number), in % of the winding, or in volts.</summary>
+    private (double Position, TapUnit Unit)? TapPosition(Quantity q, TextSpan span, string tap)
+    {
+        if (q.IsPercent && q.Dimension.IsNone) return (q.Real, TapUnit.Fraction);
+        if (q.Dimension.IsNone) return (q.Real, TapUnit.Turns);
+        if (q.Dimension == Dimension.Voltage) return (q.Real, TapUnit.Volts);
+        diagnostics.ReportWrongDimension(span, $"turns, % or a voltage for the position of {tap}", q.Dimension);
+        return null;
+    }
+
+    private void BindImpedance(StatementSyntax s)
+    {
+        var parts = s.Head.Names.Select(WindingPartOf).ToList();
+        var valueSyntax = s.Head.Value();
+        var value = Value(valueSyntax, $"the impedance {string.Join(" ", s.Head.Names.Select(n => n.Text))}");
+        var xr = Real(s.Value("xr"), Dimension.None, "the X/R ratio", positive: true);
+        if (parts.Count < 2 || parts[0] is null || parts[1] is null || value is not { } z) return;
+        bool perUnit;
+        if (z.Dimension == Dimension.Impedance) perUnit = false;
+        else if (z.Dimension.IsNone && z.IsPercent) perUnit = true;
+        else
+        {
+            diagnostics.ReportWrongDimension(valueSyntax!.Span, "an impedance in %, pu or ohm", z.Dimension);
+            return;
+        }
+        if (!z.IsReal && xr is not null)
+        {
+            diagnostics.ReportOutOfBounds(s.Clause("xr")!.Span, "'xr'", "left out when the impedance is complex");
+            return;
+        }
+        model = model with { Impedances = model.Impedances.Add(new ImpedanceModel(parts[0]!, parts[1]!, z.Value, perUnit, xr, s.Span, valueSyntax!.Span)) };
+    }
+
+    private WindingPart? WindingPartOf(NameSyntax name)
+    {
+        var winding = Resolve(name, "a winding", SymbolKind.Winding);
+        if (winding is null) return null;
+        if (name.SectionFrom is null || name.SectionTo is null) return new WindingPart(winding.Name, null, null, name.Span);
+        foreach (var end in new[] { name.SectionFrom, name.SectionTo })
+        {
+            var point = symbols.Find(end.Text);
+            if (point is null || !point.IsConnectionPoint || point.Owner != winding.Name)
+            {
+                var candidates = symbols.Symbols.Where(p => p.IsConnectionPoint && p.Owner == winding.Name).Select(p => p.Name);
+                diagnostics.ReportUnknownName(end, $"point of winding {winding.Name}", Spelling.Nearest(end.Text, candidates));
+                return null;
+            }
+            symbols.Reference(end.Span, point);
+        }
+        return new WindingPart(winding.Name, name.SectionFrom.Text, name.SectionTo.Text, name.Span);
+    }
+
+    private void BindNoLoad(StatementSyntax s)
+    {
+        var core = Resolve(s.Head.Name(0), "a core", SymbolKind.Core);
+        var currentSyntax = s.Value("current");
+        var current = Value(currentSyntax, "the no-load current");
+        var loss = NonNegative(s.Value("loss"), Dimension.ActivePower, "the no-load loss");
+        var at = s.Clause("at");
+        var winding = Resolve(at?.Name(0), "a winding", SymbolKind.Winding);
+        var voltage = Real(at?.Value(), Dimension.Voltage, "the test voltage", positive: true);
+        if (core is null || current is not { } i || loss is null || winding is null || voltage is null) return;
+        var fraction = i.IsPercent && i.Dimension.IsNone;
+        if (!fraction && !i.Dimension.Fits(Dimension.CurrentDim))
+        {
+            diagnostics.ReportWrongDimension(currentSyntax!.Span, "a current or a percentage of rated current", i.Dimension);
+            return;
+        }
+        model = model with { NoLoads = model.NoLoads.Add(new NoLoadModel(core.Name, s.Span, i.Real, fraction, loss.Value, new NodeRef(winding.Name, at!.Name(0)!.Span), voltage.Value)) };
+    }
+
+    private void BindSupply(StatementSyntax s)
+    {
+        var name = s.Head.Name(0)!;
+        var plus = Node(s.Head.Name(1), s);
+        var minus = Node(s.Head.Name(2), s);
+        var voltage = Complex(s.Head.Value(), Dimension.Voltage, $"the voltage of {name.Text}");
+        var impedance = Complex(s.Value("impedance"), Dimension.Impedance, $"the impedance of {name.Text}");
+        var levelSyntax = s.Value("fault-level");
+        var level = Value(levelSyntax, $"the fault level of {name.Text}");
+        double? faultCurrent = null, faultPower = null;
+        if (level is { } l)
+        {
+            if (l.Dimension.Fits(Dimension.CurrentDim) && l.IsReal && l.Real > 0) faultCurrent = l.Real;
+            else if (l.Dimension.Fits(Dimension.ApparentPower) && l.IsReal && l.Real > 0) faultPower = l.Real;
+            else diagnostics.ReportWrongDimension(levelSyntax!.Span, "a positive current or apparent power", l.Dimension);
+        }
+        if (impedance is not null && level is not null)
+            diagnostics.ReportExclusiveClauses(s.Clause("fault-level")!.Keyword!, s.Clause("impedance")!.Keyword!);
+        if (plus is null || minus is null || voltage is null) return;
+        model = model with
+        {
+            Supplies = model.Supplies.Add(new SupplyModel(name.Text, name.Name.Span, s.Span, plus, minus, voltage.Value)
+            {
+                Impedance = impedance,
+                FaultCurrent = faultCurrent,
+                FaultPower = faultPower,
+                XR = Real(s.Value("xr"), Dimension.None, "the X/R ratio", positive: true),
+            }),
+        };
+    }
+
+    private void BindLoad(StatementSyntax s)
+    {
+        var name = s.Head.Name(0)!;
+        var a = Node(s.Head.Name(1), s);
+        var b = Node(s.Head.Name(2), s);
+        var pfClause = s.Clause("pf");
+        var pf = Real(pfClause?.Value(), Dimension.None, "the power factor");
+        if (pf is { } p && (p <= 0 || p > 1))
+        {
+            diagnostics.ReportPowerFactor(pfClause!.Value()!.Span);
+            pf = null;
+            return;
+        }
+        var leading = pfClause?.Word(w => w == "leading") is not null;
+        var angle = Math.Acos(pf ?? 1) * (leading ? -1 : 1);
+        var what = $"the demand of {name.Text}";
+        (LoadBehaviour Behaviour, System.Numerics.Complex S0, double V0)? load = null;
+        if (s.Clause("power") is { } power && Real(power.Value(), Dimension.ActivePower, what) is { } watts)
+            load = (LoadBehaviour.ConstantPower, new System.Numerics.Complex(watts, watts * Math.Tan(angle)), double.NaN);
+        else if (s.Clause("apparent") is { } apparent && Real(apparent.Value(), Dimension.ApparentPower, what) is { } va)
+            load = (LoadBehaviour.ConstantPower, System.Numerics.Complex.FromPolarCoordinates(va, angle), double.NaN);
+        else if (s.Clause("current") is { } current && Real(current.Value(), Dimension.CurrentDim, what) is { } amperes)
+            load = (LoadBehaviour.ConstantCurrent, System.Numerics.Complex.FromPolarCoordinates(amperes, angle), 1);
+        else if (s.Clause("impedance") is { } imp && Complex(imp.Value(), Dimension.Impedance, what) is { } z)
+        {
+            if (z == System.Numerics.Complex.Zero)
+            {
+                diagnostics.ReportOutOfBounds(imp.Value()!.Span, "a load's impedance", "above zero; a short circuit is a 'join' or a 'fault'");
+                return;
+            }
+            if (pf is not null && z.Imaginary == 0) z = System.Numerics.Complex.FromPolarCoordinates(z.Real, angle);
+            // S drawn at 1 V by a constant impedance: |V|² conj(Y).
+            load = (LoadBehaviour.ConstantImpedance, System.Numerics.Complex.Conjugate(1 / z), 1);
+        }
+        if (a is null || b is null || load is not { } l) return;
+
+        if (s.Clause("model") is { } modelClause)
+        {
+            var behaviour = modelClause.Word(w => w.StartsWith("constant-"))?.Text switch
+            {
+                "constant-impedance" => LoadBehaviour.ConstantImpedance,
+                "constant-current" => LoadBehaviour.ConstantCurrent,
+                _ => LoadBehaviour.ConstantPower,
+            };
+            var at = Real(modelClause.Value(), Dimension.Voltage, "the voltage of the load model", positive: true);
+            if (behaviour != l.Behaviour)
+            {
+                if (at is not { } v)
+                {
+                    if (modelClause.Value() is null) diagnostics.ReportOutOfBounds(modelClause.Span, "a change of load model", "given 'at' a voltage");
+                    return;
+                }
+                // The demand at the stated voltage, then the new behaviour from there.
+                var exponent = new LoadModel("", default, default, a, b, l.Behaviour, l.S0, l.V0).Exponent;
+                var sAtV = exponent == 0 ? l.S0 : l.S0 * Math.Pow(v / l.V0, exponent);
+                l = (behaviour, sAtV, v);
+            }
+        }
+        model = model with { Loads = model.Loads.Add(new LoadModel(name.Text, name.Name.Span, s.Span, a, b, l.Behaviour, l.S0, l.V0)) };
+    }
+
+    private void BindFault(StatementSyntax s)
+    {
+        var name = s.Head.Name(0)!;
+        var a = Node(s.Head.Name(1), s);
+        var b = Node(s.Head.Name(2), s);
+        var z = s.Clause("impedance") is { } imp ? Complex(imp.Value(), Dimension.Impedance, $"the impedance of {name.Text}") : 0;
+        if (a is null || b is null || z is null) return;
+        model = model with { Faults = model.Faults.Add(new FaultModel(name.Text, name.Name.Span, s.Span, a, b, z.Value)) };
+    }
+
+    private void BindSweep(StatementSyntax s)
+    {
+        var target = Resolve(s.Head.Name(0), "a let or brush", SymbolKind.Let, SymbolKind.Brush);
+        var range = s.Clause("from");
+        var from = Value(range?.Value(0), "the start of the sweep");
+        var to = Value(range?.Value(1), "the end of the sweep");
+        var step = Value(s.Value("step"), "the step of the sweep");
+        var points = Real(s.Value("points"), Dimension.None, "the number of points", positive: true);
+        if (target is null || from is null || to is null || (step is null && points is null)) return;
+        model = model with { Sweeps = model.Sweeps.Add(new SweepModel(target, s.Span, from.Value, to.Value, step, points is { } n ? (int)Math.Round(n) : null)) };
+    }
+
+    private void BindExpect(StatementSyntax s)
+    {
+        var measureClause = s.Clauses.FirstOrDefault(c => c.Form?.Group == "measure");
+        var conditionClause = s.Clauses.FirstOrDefault(c => c.Form?.Group == "condition");
+        if (measureClause is null || conditionClause is null) return;
+        var measure = Enum.Parse<MeasureKind>(measureClause.Keyword!.Text, ignoreCase: true);
+        var targets = ImmutableArray.CreateBuilder<NodeRef>();
+        var names = measureClause.Names.ToList();
+        for (var i = 0; i < names.Count; i++)
+        {
+            var isPoint = measure == MeasureKind.Voltage || i > 0;
+            var symbol = isPoint
+                ? Resolve(names[i], "a terminal or node", SymbolKind.Terminal, SymbolKind.Node)
+                : Resolve(names[i], names[i].Role.Label, names[i].Role.Kinds);
+            if (symbol is null) return;
+            targets.Add(new NodeRef(symbol.Name, names[i].Name.Span));
+        }
+        var (dimension, unit) = measure switch
+        {
+            MeasureKind.Voltage => (Dimension.Voltage, "V"),
+            MeasureKind.Current => (Dimension.CurrentDim, "A"),
+            MeasureKind.Flux => (Dimension.FluxDensity, "T"),
+            MeasureKind.Power => (Dimension.ActivePower, "W"),
+            _ => (Dimension.None, "%"),
+        };
+        var what = $"a bound on {measureClause.Keyword.Text}";
+        double low = double.NegativeInfinity, high = double.PositiveInfinity, target = double.NaN;
+        switch (conditionClause.Keyword!.Text)
+        {
+            case "between":
+                if (Real(conditionClause.Value(0), dimension, what) is not { } lo || Real(conditionClause.Value(1), dimension, what) is not { } hi) return;
+                (low, high) = (Math.Min(lo, hi), Math.Max(lo, hi));
+                break;
+            case "below":
+                if (Real(conditionClause.Value(0), dimension, what) is not { } below) return;
+                high = below;
+                break;
+            case "above":
+                if (Real(conditionClause.Value(0), dimension, what) is not { } above) return;
+                low = above;
+                break;
+            default:
+                if (Real(conditionClause.Value(0), dimension, what) is not { } near) return;
+                var withinSyntax = conditionClause.Value(1);
+                if (Value(withinSyntax, "the tolerance of the check") is not { } within) return;
+                double band;
+                if (within.IsPercent && !dimension.IsNone) band = Math.Abs(near) * within.Real;
+                else if (within.Dimension.Fits(dimension) && within.IsReal) band = Math.Abs(within.Real);
+                else
+                {
+                    diagnostics.ReportToleranceDimension(withinSyntax!.Span, dimension, within.Dimension);
+                    return;
+                }
+                (low, high, target) = (near - band, near + band, near);
+                break;
+        }
+        var text = tree.Text[s.Span];
+        model = model with { Expects = model.Expects.Add(new ExpectModel(s.Span, text, measure, targets.ToImmutable(), Enum.Parse<ConditionKind>(conditionClause.Keyword.Text, true), low, high, unit)
+        {
+            Target = target,
+            MeasureText = tree.Text[measureClause.Span],
+            ConditionText = tree.Text[conditionClause.Span],
+        }) };
+    }
+}

@@ -1,0 +1,205 @@
+using System.Collections.Immutable;
+using WindingNotes.Syntax;
+using WindingNotes.Text;
+
+namespace WindingNotes.Model;
+
+/// <summary>Resolves names, evaluates values with their dimensions, and builds the <see cref="Model"/>.</summary>
+public static class Binder
+{
+    public static Model Bind(SyntaxTree tree, BindOverrides? overrides = null) =>
+        new BindRun(tree, overrides ?? BindOverrides.None).Run();
+}
+
+/// <summary>
+/// One binding pass. Definitions are collected first, so statements may name what a later line
+/// defines; let values are evaluated in source order, so a let may use only the lets above it.
+/// </summary>
+internal sealed partial class BindRun
+{
+    private readonly SyntaxTree tree;
+    private readonly BindOverrides overrides;
+    private readonly DiagnosticBag diagnostics = new();
+    private readonly SymbolTable symbols = new();
+    private readonly Dictionary<string, Quantity> lets = new(StringComparer.Ordinal);
+    private readonly Dictionary<Symbol, HashSet<int>> nodeUses = [];
+    private readonly ValueEvaluator evaluator;
+    private Model model;
+
+    public BindRun(SyntaxTree tree, BindOverrides overrides)
+    {
+        this.tree = tree;
+        this.overrides = overrides;
+        evaluator = new ValueEvaluator(diagnostics, ResolveValueName, IsLet, overrides.Deviations);
+        model = new Model(tree, symbols, []);
+    }
+
+    public Model Run()
+    {
+        var statements = tree.Statements.ToList();
+        foreach (var statement in statements) Declare(statement);
+        foreach (var statement in statements.Where(s => s.Kind == StatementKind.Let)) BindLet(statement);
+        foreach (var statement in statements.Where(s => s.Kind != StatementKind.Let)) Bind(statement);
+        if (!statements.Any(s => s.Kind == StatementKind.Frequency) && statements.Count > 0)
+            diagnostics.ReportNoFrequency(tree.Lines[0].Span);
+        CheckLonelyNodes();
+        var points = symbols.References
+            .Where(r => r.Symbol.IsConnectionPoint)
+            .OrderBy(r => r.Span.Start)
+            .Select(r => r.Symbol)
+            .Distinct()
+            .ToImmutableArray();
+        return model with
+        {
+            Points = points,
+            Tolerances = [.. evaluator.Tolerances],
+            Diagnostics = [.. tree.Diagnostics, .. diagnostics],
+        };
+    }
+
+    private void Declare(StatementSyntax statement)
+    {
+        var owner = statement.Kind switch
+        {
+            StatementKind.Winding => statement.Head.Name(0)?.Text,
+            StatementKind.Tap or StatementKind.Brush => statement.Clause("on")?.Name(0)?.Text,
+            _ => null,
+        };
+        foreach (var name in statement.AllNames.Where(n => n.Role.Defines))
+        {
+            var symbol = new Symbol(name.Text, name.Role.Kinds[0], name.Name.Span, statement.Span, owner);
+            if (!symbols.TryDefine(symbol, out var existing))
+                diagnostics.ReportDuplicateName(name.Name, existing.Span, existing.Describe());
+        }
+    }
+
+    // ---- names ----
+
+    /// <summary>
+    /// A name that must be one of some kinds. A connection point that is nowhere defined is a free
+    /// node, defined where first used; a name of another kind is an error at the name.
+    /// </summary>
+    private Symbol? Resolve(NameSyntax? name, string expected, params SymbolKind[] kinds)
+    {
+        if (name is null) return null;
+        var acceptsPoint = kinds.Contains(SymbolKind.Node);
+        var symbol = symbols.Find(name.Text);
+        if (symbol is null)
+        {
+            if (!acceptsPoint)
+            {
+                diagnostics.ReportUnknownName(name.Name, KindWord(kinds[0]), Spelling.Nearest(name.Text, symbols.NamesOf(kinds)));
+                return null;
+            }
+            symbol = new Symbol(name.Text, SymbolKind.Node, name.Name.Span, default);
+            symbols.TryDefine(symbol, out _);
+        }
+        else if (!(kinds.Contains(symbol.Kind) || (acceptsPoint && symbol.IsConnectionPoint)))
+        {
+            diagnostics.ReportWrongKind(name.Name, symbol.Describe(), expected);
+            return null;
+        }
+        symbols.Reference(name.Name.Span, symbol);
+        return symbol;
+    }
+
+    private NodeRef? Node(NameSyntax? name, StatementSyntax statement)
+    {
+        var symbol = Resolve(name, "a terminal or node", SymbolKind.Terminal, SymbolKind.Node);
+        if (symbol is null) return null;
+        if (!nodeUses.TryGetValue(symbol, out var uses)) nodeUses[symbol] = uses = [];
+        uses.Add(statement.Span.Start);
+        return new NodeRef(symbol.Name, name!.Name.Span);
+    }
+
+    private static string KindWord(SymbolKind kind) => kind switch
+    {
+        SymbolKind.Let => "name",
+        SymbolKind.Core => "core",
+        SymbolKind.Winding => "winding",
+        SymbolKind.Supply => "supply",
+        SymbolKind.Load => "load",
+        _ => "name",
+    };
+
+    private void CheckLonelyNodes()
+    {
+        foreach (var (symbol, uses) in nodeUses)
+        {
+            if (symbol.Kind != SymbolKind.Node || uses.Count > 1) continue;
+            var others = symbols.Symbols.Where(s => s.IsConnectionPoint && s != symbol).Select(s => s.Name);
+            diagnostics.ReportLonelyNode(symbol.Span, symbol.Name, Spelling.Nearest(symbol.Name, others));
+        }
+    }
+
+    // ---- values ----
+
+    private bool IsLet(string name) => symbols.Find(name)?.Kind == SymbolKind.Let;
+
+    /// <summary>A name in a value: a let, evaluated in source order among the lets.</summary>
+    private Quantity? ResolveValueName(Token token)
+    {
+        var symbol = symbols.Find(token.Text);
+        if (symbol is null)
+        {
+            diagnostics.ReportUnknownName(token, "name", Spelling.Nearest(token.Text, symbols.NamesOf(SymbolKind.Let)));
+            return null;
+        }
+        if (symbol.Kind != SymbolKind.Let)
+        {
+            diagnostics.ReportWrongKind(token, symbol.Describe(), "a let value");
+            return null;
+        }
+        symbols.Reference(token.Span, symbol);
+        if (overrides.Values.TryGetValue(token.Text, out var replaced)) return replaced;
+        if (lets.TryGetValue(token.Text, out var value)) return value;
+        // A let that failed was reported at its own line; one not bound yet comes later in the file.
+        if (!boundLets.Contains(token.Text)) diagnostics.ReportLetUsedEarly(token, symbol.Span);
+        return null;
+    }
+
+    private readonly HashSet<string> boundLets = [];
+
+    private Quantity? Value(ValueSyntax? value, string description) => value is null ? null : evaluator.Evaluate(value, description);
+
+    /// <summary>A real value of the given dimension, or null after a diagnostic.</summary>
+    private double? Real(ValueSyntax? value, Dimension dimension, string description, bool positive = false)
+    {
+        if (Value(value, description) is not { } q) return null;
+        if (!q.Dimension.Fits(dimension))
+        {
+            diagnostics.ReportWrongDimension(value!.Span, dimension.Describe(), q.Dimension);
+            return null;
+        }
+        if (!q.IsReal)
+        {
+            diagnostics.ReportWrongDimension(value!.Span, $"a real {dimension.Describe()[(dimension.Describe().IndexOf(' ') + 1)..]}", q.Dimension);
+            return null;
+        }
+        if (positive && q.Real <= 0)
+        {
+            diagnostics.ReportOutOfBounds(value!.Span, description, "above zero");
+            return null;
+        }
+        return q.Real;
+    }
+
+    private System.Numerics.Complex? Complex(ValueSyntax? value, Dimension dimension, string description)
+    {
+        if (Value(value, description) is not { } q) return null;
+        if (!q.Dimension.Fits(dimension))
+        {
+            diagnostics.ReportWrongDimension(value!.Span, dimension.Describe(), q.Dimension);
+            return null;
+        }
+        return q.Value;
+    }
+
+    private void BindLet(StatementSyntax statement)
+    {
+        var name = statement.Head.Name(0)!;
+        if (overrides.Values.TryGetValue(name.Text, out var replaced)) lets[name.Text] = replaced;
+        else if (Value(statement.Head.Value(), $"let {name.Text}") is { } value) lets[name.Text] = value;
+        boundLets.Add(name.Text);
+    }
+}

@@ -1,0 +1,156 @@
+using System.Collections.Immutable;
+using System.Numerics;
+using WindingNotes.Syntax;
+using WindingNotes.Text;
+
+namespace WindingNotes.Model;
+
+/// <summary>A connection point named in the document, where it was named.</summary>
+public sealed record NodeRef(string Name, TextSpan Span);
+
+public sealed record CoreModel(string Name, TextSpan NameSpan, TextSpan Line)
+{
+    /// <summary>VA.</summary>
+    public double? Rating { get; init; }
+
+    /// <summary>m².</summary>
+    public double? Area { get; init; }
+
+    /// <summary>Peak tesla.</summary>
+    public double? FluxLimit { get; init; }
+}
+
+/// <summary>An open-circuit test: no-load current (a fraction of rated, or amperes) and loss, at a winding's voltage.</summary>
+public sealed record NoLoadModel(string Core, TextSpan Line, double Current, bool CurrentIsFraction, double Loss, NodeRef Winding, double Voltage);
+
+public enum ConductorMaterial { Copper, Aluminium }
+
+/// <summary>A winding's conductor: cross-section in m², and its length or the length of a mean turn.</summary>
+public sealed record ConductorModel(ConductorMaterial Material, double Area, double Length, bool PerTurn, TextSpan Span);
+
+public sealed record WindingModel(string Name, TextSpan NameSpan, TextSpan Line, string Core, NodeRef From, NodeRef To)
+{
+    public double? Turns { get; init; }
+
+    /// <summary>Rated voltage, V.</summary>
+    public double? Rated { get; init; }
+
+    /// <summary>The winding's own rating, VA.</summary>
+    public double? Rating { get; init; }
+
+    public double? RatedCurrent { get; init; }
+
+    /// <summary>Resistance in ohms as stated, and the temperature (K) it was measured at when stated.</summary>
+    public double? Resistance { get; init; }
+
+    public double? ResistanceTemperature { get; init; }
+
+    public ConductorModel? Conductor { get; init; }
+}
+
+public enum TapUnit { Turns, Fraction, Volts }
+
+/// <summary>A fixed tap or a brush: a connection point on a winding at a position from its from end.</summary>
+public sealed record TapModel(string Name, TextSpan NameSpan, TextSpan Line, string Winding, double Position, TapUnit Unit, bool IsBrush)
+{
+    public (double From, double To)? Range { get; init; }
+
+    public double? CurrentLimit { get; init; }
+
+    public TextSpan PositionSpan { get; init; }
+}
+
+/// <summary>A winding, or the part of it between two of its points (<c>HV:H1-T60</c>).</summary>
+public sealed record WindingPart(string Winding, string? From, string? To, TextSpan Span)
+{
+    public override string ToString() => From is null ? Winding : $"{Winding}:{From}-{To}";
+}
+
+/// <summary>A short-circuit impedance between two windings: per unit on the core rating, or ohms referred to the first.</summary>
+public sealed record ImpedanceModel(WindingPart First, WindingPart Second, Complex Value, bool PerUnit, double? XR, TextSpan Line, TextSpan ValueSpan);
+
+public sealed record SupplyModel(string Name, TextSpan NameSpan, TextSpan Line, NodeRef Positive, NodeRef Negative, Complex Voltage)
+{
+    public Complex? Impedance { get; init; }
+
+    /// <summary>Prospective fault current (A) or fault power (VA) at the supply terminals.</summary>
+    public double? FaultCurrent { get; init; }
+
+    public double? FaultPower { get; init; }
+
+    public double? XR { get; init; }
+}
+
+public enum LoadBehaviour { ConstantPower, ConstantCurrent, ConstantImpedance }
+
+/// <summary>
+/// A load as S0 drawn at V0 and an exponent: S(V) = S0·(|V|/V0)^n with n = 0 for constant power,
+/// 1 for constant current and 2 for constant impedance. Every way of writing a load becomes this.
+/// </summary>
+public sealed record LoadModel(string Name, TextSpan NameSpan, TextSpan Line, NodeRef A, NodeRef B, LoadBehaviour Behaviour, Complex S0, double V0)
+{
+    public int Exponent => Behaviour switch { LoadBehaviour.ConstantPower => 0, LoadBehaviour.ConstantCurrent => 1, _ => 2 };
+}
+
+public sealed record FaultModel(string Name, TextSpan NameSpan, TextSpan Line, NodeRef A, NodeRef B, Complex Impedance);
+
+public sealed record SweepModel(Symbol Target, TextSpan Line, Quantity From, Quantity To, Quantity? Step, int? Points);
+
+public enum MeasureKind { Voltage, Current, Loading, Flux, Power, Efficiency, Regulation }
+
+public enum ConditionKind { Between, Below, Above, Near }
+
+/// <summary>A check: what is measured, on what, and the bounds in SI (or as fractions).</summary>
+public sealed record ExpectModel(TextSpan Line, string Text, MeasureKind Measure, ImmutableArray<NodeRef> Targets, ConditionKind Condition, double Low, double High, string Unit)
+{
+    /// <summary>The measure and the condition as written, for messages.</summary>
+    public string MeasureText { get; init; } = "";
+
+    public string ConditionText { get; init; } = "";
+
+    /// <summary>For 'near': the target, and the tolerance as a fraction when it was given in %.</summary>
+    public double Target { get; init; }
+}
+
+/// <summary>
+/// The bound model: every statement resolved, every value in SI, every name in the symbol table.
+/// It is what the document says; the network the solver needs is built from it.
+/// </summary>
+public sealed record Model(SyntaxTree Syntax, SymbolTable Symbols, ImmutableArray<Diagnostic> Diagnostics)
+{
+    public double Frequency { get; init; } = 50;
+
+    /// <summary>Kelvin.</summary>
+    public double Temperature { get; init; } = 348.15;
+
+    public ImmutableArray<CoreModel> Cores { get; init; } = [];
+    public ImmutableArray<NoLoadModel> NoLoads { get; init; } = [];
+    public ImmutableArray<WindingModel> Windings { get; init; } = [];
+    public ImmutableArray<TapModel> Taps { get; init; } = [];
+    public ImmutableArray<ImpedanceModel> Impedances { get; init; } = [];
+    public ImmutableArray<ImmutableArray<NodeRef>> Joins { get; init; } = [];
+    public ImmutableArray<NodeRef> Grounds { get; init; } = [];
+    public ImmutableArray<SupplyModel> Supplies { get; init; } = [];
+    public ImmutableArray<LoadModel> Loads { get; init; } = [];
+    public ImmutableArray<FaultModel> Faults { get; init; } = [];
+    public ImmutableArray<SweepModel> Sweeps { get; init; } = [];
+    public ImmutableArray<ExpectModel> Expects { get; init; } = [];
+    public ImmutableArray<ToleranceSite> Tolerances { get; init; } = [];
+
+    /// <summary>Every connection point in the order the document first names it.</summary>
+    public ImmutableArray<Symbol> Points { get; init; } = [];
+
+    public bool HasErrors => Diagnostics.Any(d => d.IsError);
+}
+
+/// <summary>Values that replace what the document says: a sweep point, a tolerance corner.</summary>
+public sealed record BindOverrides
+{
+    public static readonly BindOverrides None = new();
+
+    /// <summary>Let values and brush positions by name.</summary>
+    public ImmutableDictionary<string, Quantity> Values { get; init; } = ImmutableDictionary<string, Quantity>.Empty;
+
+    /// <summary>Deviation in [-1, 1] of each toleranced value, by the value's start offset.</summary>
+    public ImmutableDictionary<int, double> Deviations { get; init; } = ImmutableDictionary<int, double>.Empty;
+}

@@ -1,0 +1,60 @@
+using System.Collections.Immutable;
+using System.Numerics;
+using WindingNotes.Text;
+
+namespace WindingNotes.Model;
+
+/// <summary>An electrical node: the connection points joined into it. Earth is the node of all grounded points.</summary>
+public sealed record NetworkNode(int Index, ImmutableArray<string> Points, bool IsEarth)
+{
+    public string Name => Points.IsEmpty ? "earth" : Points[0];
+}
+
+/// <summary>A winding as the network sees it: turns (derived where the document gave only voltages) and ratings.</summary>
+public sealed record WindingNet(int Index, WindingModel Source, int Core, double Turns, bool TurnsKnown, double? RatedVoltage, double? RatedCurrent, double Resistance)
+{
+    public string Name => Source.Name;
+}
+
+/// <summary>
+/// A section: the part of a winding between two neighbouring points. Node A is the end nearer the
+/// winding's polarity end; the section's current is the current entering it there.
+/// </summary>
+public sealed record Section(int Index, string Name, int Winding, int Core, int NodeA, int NodeB, string FromPoint, string ToPoint, double Turns, double Resistance);
+
+/// <summary>
+/// A core: its sections, the impedance matrix among them (ohms: resistances on the diagonal plus
+/// the leakage matrix in per-turn form scaled by the turns), and its magnetising admittance
+/// referred to one turn (zero for an ideal core).
+/// </summary>
+public sealed record CoreNet(int Index, CoreModel Source, ImmutableArray<int> Sections, Complex[,] Impedance, Complex Admittance, double? FluxLimit)
+{
+    public string Name => Source.Name;
+}
+
+public sealed record SupplyNet(int Index, SupplyModel Source, int NodeP, int NodeQ, Complex Voltage, Complex Impedance)
+{
+    public string Name => Source.Name;
+}
+
+public sealed record LoadNet(int Index, LoadModel Source, int NodeA, int NodeB)
+{
+    public string Name => Source.Name;
+}
+
+/// <summary>The network the solver works on, built from the model. Indices into its arrays are the solver's names.</summary>
+public sealed record Network(
+    Model Model,
+    ImmutableArray<NetworkNode> Nodes,
+    ImmutableDictionary<string, int> NodeOfPoint,
+    ImmutableArray<WindingNet> Windings,
+    ImmutableArray<Section> Sections,
+    ImmutableArray<CoreNet> Cores,
+    ImmutableArray<SupplyNet> Supplies,
+    ImmutableArray<LoadNet> Loads,
+    ImmutableArray<Diagnostic> Diagnostics)
+{
+    public int Node(string point) => NodeOfPoint.TryGetValue(point, out var n) ? n : -1;
+
+    public int EarthNode => Nodes.FirstOrDefault(n => n.IsEarth)?.Index ?? -1;
+}

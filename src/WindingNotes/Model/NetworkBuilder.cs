@@ -1,0 +1,258 @@
+using System.Collections.Immutable;
+using System.Numerics;
+using WindingNotes.Text;
+
+namespace WindingNotes.Model;
+
+/// <summary>
+/// Builds the solver's network from the model: nodes from joins and grounds, turns from ratings,
+/// sections from taps and brushes, resistances, the leakage matrix of each core, magnetising
+/// admittances and supply impedances.
+/// </summary>
+public static class NetworkBuilder
+{
+    public static Network Build(Model model) => new BuildRun(model).Run();
+
+    private sealed class BuildRun(Model model)
+    {
+        private readonly DiagnosticBag diagnostics = new();
+        private readonly Dictionary<string, int> nodeOf = new(StringComparer.Ordinal);
+        private ImmutableArray<NetworkNode> nodes = [];
+
+        public Network Run()
+        {
+            BuildNodes();
+            var windings = BuildWindings();
+            var sections = BuildSections(windings);
+            var cores = model.Cores.Select((c, i) => BuildCore(c, i, windings, sections)).ToImmutableArray();
+            var supplies = BuildSupplies();
+            var loads = model.Loads.Select((l, i) => new LoadNet(i, l, nodeOf[l.A.Name], nodeOf[l.B.Name])).ToImmutableArray();
+            var network = new Network(model, nodes, nodeOf.ToImmutableDictionary(), windings, sections, cores, supplies, loads, []);
+            WarnUngrounded(network);
+            return network with { Diagnostics = diagnostics.ToImmutable() };
+        }
+
+        private void BuildNodes()
+        {
+            var points = model.Points.Select(p => p.Name).ToList();
+            var index = points.Select((p, i) => (p, i)).ToDictionary(x => x.p, x => x.i, StringComparer.Ordinal);
+            // One extra set stands for earth, so that all grounded points become one node.
+            var earth = points.Count;
+            var sets = new DisjointSets(points.Count + 1);
+            foreach (var join in model.Joins)
+                for (var i = 1; i < join.Length; i++) sets.Union(index[join[0].Name], index[join[i].Name]);
+            foreach (var ground in model.Grounds) sets.Union(index[ground.Name], earth);
+
+            var rootToNode = new Dictionary<int, int>();
+            var members = new List<List<string>>();
+            var isEarth = new List<bool>();
+            int NodeFor(int root)
+            {
+                if (!rootToNode.TryGetValue(root, out var n))
+                {
+                    rootToNode[root] = n = members.Count;
+                    members.Add([]);
+                    isEarth.Add(false);
+                }
+                return n;
+            }
+            for (var i = 0; i < points.Count; i++)
+            {
+                var n = NodeFor(sets.Find(i));
+                members[n].Add(points[i]);
+                nodeOf[points[i]] = n;
+            }
+            if (model.Grounds.Length > 0) isEarth[nodeOf[model.Grounds[0].Name]] = true;
+            nodes = members.Select((m, i) => new NetworkNode(i, [.. m], isEarth[i])).ToImmutableArray();
+        }
+
+        /// <summary>
+        /// Turns and rated voltages. On each core the first winding that gives both sets the volts
+        /// per turn; the others must agree within the ratio tolerance of IEC 60076-1 (0.5 %). Where no
+        /// winding gives turns, turns are taken equal to rated volts: ratios are right, absolute
+        /// turns (and so flux density) unknown.
+        /// </summary>
+        private ImmutableArray<WindingNet> BuildWindings()
+        {
+            var result = new WindingNet[model.Windings.Length];
+            foreach (var group in model.Windings.Select((w, i) => (w, i)).GroupBy(x => x.w.Core))
+            {
+                var core = model.Cores.FirstOrDefault(c => c.Name == group.Key);
+                var reference = group.FirstOrDefault(x => x.w.Turns is not null && x.w.Rated is not null).w;
+                var perTurn = reference is null ? (double?)null : reference.Rated!.Value / reference.Turns!.Value;
+                var anyTurns = group.Any(x => x.w.Turns is not null);
+                foreach (var (w, i) in group)
+                {
+                    if (w.Turns is { } t && w.Rated is { } v && perTurn is { } vpt && reference != w && Math.Abs(v / t / vpt - 1) > 0.005)
+                        diagnostics.ReportVoltsPerTurnMismatch(w.NameSpan, w.Name, v / t, reference!.Name, vpt);
+                    double turns;
+                    var known = true;
+                    if (w.Turns is { } given) turns = given;
+                    else if (w.Rated is { } rated && perTurn is { } known1) turns = rated / known1;
+                    else if (w.Rated is { } ratedOnly && !anyTurns)
+                    {
+                        turns = ratedOnly;
+                        known = false;
+                    }
+                    else
+                    {
+                        diagnostics.ReportRatioUnknown(w.NameSpan, w.Name);
+                        turns = w.Rated ?? 1;
+                        known = false;
+                    }
+                    var ratedVoltage = w.Rated ?? turns * perTurn;
+                    var ratedCurrent = w.RatedCurrent ?? (w.Rating ?? core?.Rating) / ratedVoltage;
+                    result[i] = new WindingNet(i, w, model.Cores.IndexOf(core!), turns, known, ratedVoltage, ratedCurrent, Resistance(w, turns));
+                }
+            }
+            return [.. result];
+        }
+
+        /// <summary>The winding's resistance at the reference temperature: stated, measured at a temperature, or from its conductor.</summary>
+        private double Resistance(WindingModel w, double turns)
+        {
+            var material = w.Conductor?.Material ?? ConductorMaterial.Copper;
+            if (w.Resistance is { } r)
+                return w.ResistanceTemperature is { } measuredAt ? Conductors.Correct(r, measuredAt, model.Temperature, material) : r;
+            if (w.Conductor is { } c)
+            {
+                var length = c.PerTurn ? c.Length * turns : c.Length;
+                var r20 = Conductors.Resistivity20(c.Material) * length / c.Area;
+                return Conductors.Correct(r20, 293.15, model.Temperature, c.Material);
+            }
+            return 0;
+        }
+
+        private ImmutableArray<Section> BuildSections(ImmutableArray<WindingNet> windings)
+        {
+            var sections = ImmutableArray.CreateBuilder<Section>();
+            foreach (var w in windings)
+            {
+                var points = new List<(string Name, double Position)> { (w.Source.From.Name, 0) };
+                foreach (var tap in model.Taps.Where(t => t.Winding == w.Name))
+                {
+                    var position = tap.Unit switch
+                    {
+                        TapUnit.Turns => tap.Position,
+                        TapUnit.Fraction => tap.Position * w.Turns,
+                        _ => w.RatedVoltage is { } v ? tap.Position / v * w.Turns : double.NaN,
+                    };
+                    if (double.IsNaN(position)) diagnostics.ReportTapNeedsRating(tap.PositionSpan, w.Name);
+                    else if (position < -1e-9 || position > w.Turns * (1 + 1e-9)) diagnostics.ReportTapOutside(tap.PositionSpan, tap.Name, position, w.Turns);
+                    else points.Add((tap.Name, Math.Clamp(position, 0, w.Turns)));
+                }
+                points.Add((w.Source.To.Name, w.Turns));
+                // Stable: taps at one position keep their source order.
+                var ordered = points.Select((p, i) => (p, i)).OrderBy(x => x.p.Position).ThenBy(x => x.i).Select(x => x.p).ToList();
+                for (var k = 0; k + 1 < ordered.Count; k++)
+                {
+                    var (a, b) = (ordered[k], ordered[k + 1]);
+                    var turns = b.Position - a.Position;
+                    var name = ordered.Count == 2 ? w.Name : $"{w.Name}:{a.Name}-{b.Name}";
+                    sections.Add(new Section(sections.Count, name, w.Index, w.Core, nodeOf[a.Name], nodeOf[b.Name], a.Name, b.Name, turns,
+                        w.Turns > 0 ? w.Resistance * turns / w.Turns : 0));
+                }
+            }
+            return sections.ToImmutable();
+        }
+
+        private CoreNet BuildCore(CoreModel core, int index, ImmutableArray<WindingNet> windings, ImmutableArray<Section> sections)
+        {
+            var onCore = windings.Where(w => w.Core == index).ToList();
+            var coreSections = sections.Where(s => s.Core == index).Select(s => s.Index).ToImmutableArray();
+            var leakage = Leakage.PerTurnMatrix(model, core, onCore, diagnostics, out var extraResistance);
+            var z = new Complex[coreSections.Length, coreSections.Length];
+            var position = onCore.Select((w, i) => (w.Index, i)).ToDictionary(x => x.Index, x => x.i);
+            for (var r = 0; r < coreSections.Length; r++)
+            {
+                var a = sections[coreSections[r]];
+                var wa = windings[a.Winding];
+                for (var c = 0; c < coreSections.Length; c++)
+                {
+                    var b = sections[coreSections[c]];
+                    z[r, c] = a.Turns * b.Turns * leakage[position[a.Winding], position[b.Winding]];
+                }
+                // The winding's own resistance, or its share (per turn²) of the pair resistances of the
+                // impedance lines; either way split among its sections by turns.
+                z[r, r] += a.Resistance + extraResistance[position[a.Winding]] * wa.Turns * a.Turns;
+            }
+            return new CoreNet(index, core, coreSections, z, MagnetisingAdmittance(core, windings), core.FluxLimit);
+        }
+
+        /// <summary>
+        /// The magnetising admittance referred to one turn, from an open-circuit test on winding W:
+        /// G = P/V², |Y| = I/V, B = √(|Y|² − G²), each times N_W² (a winding of N turns sees Y/N²).
+        /// </summary>
+        private Complex MagnetisingAdmittance(CoreModel core, ImmutableArray<WindingNet> windings)
+        {
+            var test = model.NoLoads.FirstOrDefault(n => n.Core == core.Name);
+            if (test is null) return Complex.Zero;
+            var w = windings.FirstOrDefault(x => x.Name == test.Winding.Name);
+            if (w is null) return Complex.Zero;
+            var current = test.CurrentIsFraction
+                ? test.Current * (w.RatedCurrent ?? double.NaN)
+                : test.Current;
+            if (double.IsNaN(current))
+            {
+                diagnostics.ReportNoLoadNeedsRating(test.Line, w.Name);
+                return Complex.Zero;
+            }
+            var g = test.Loss / (test.Voltage * test.Voltage);
+            var y = current / test.Voltage;
+            if (y < g)
+            {
+                diagnostics.ReportNoLoadInconsistent(test.Line);
+                return Complex.Zero;
+            }
+            var b = Math.Sqrt(y * y - g * g);
+            return new Complex(g, -b) * w.Turns * w.Turns;
+        }
+
+        private ImmutableArray<SupplyNet> BuildSupplies()
+        {
+            var result = ImmutableArray.CreateBuilder<SupplyNet>();
+            foreach (var s in model.Supplies)
+            {
+                var (p, q) = (nodeOf[s.Positive.Name], nodeOf[s.Negative.Name]);
+                if (p == q)
+                {
+                    diagnostics.ReportSupplyShorted(s.NameSpan, s.Name, s.Positive.Name, s.Negative.Name);
+                    continue;
+                }
+                result.Add(new SupplyNet(result.Count, s, p, q, s.Voltage, SupplyImpedance(s)));
+            }
+            return result.ToImmutable();
+        }
+
+        /// <summary>
+        /// The internal impedance: stated, or from the fault level (|Z| = |E|/I_f, or |E|²/S_f) split by
+        /// X/R. Without an X/R the impedance is taken as pure reactance, the conservative case for peaks.
+        /// </summary>
+        private static Complex SupplyImpedance(SupplyModel s)
+        {
+            if (s.Impedance is { } z) return z;
+            var e = s.Voltage.Magnitude;
+            double? magnitude = s.FaultCurrent is { } i ? e / i : s.FaultPower is { } sf ? e * e / sf : null;
+            if (magnitude is not { } m) return Complex.Zero;
+            if (s.XR is not { } xr) return new Complex(0, m);
+            var r = m / Math.Sqrt(1 + xr * xr);
+            return new Complex(r, r * xr);
+        }
+
+        private void WarnUngrounded(Network network)
+        {
+            var references = Islands.References(network, []);
+            var used = new HashSet<int>();
+            foreach (var s in network.Sections) { used.Add(s.NodeA); used.Add(s.NodeB); }
+            foreach (var s in network.Supplies) { used.Add(s.NodeP); used.Add(s.NodeQ); }
+            foreach (var l in network.Loads) { used.Add(l.NodeA); used.Add(l.NodeB); }
+            foreach (var island in used.GroupBy(n => references[n]).OrderBy(g => g.Key))
+            {
+                if (nodes[island.Key].IsEarth) continue;
+                var members = island.OrderBy(n => n).SelectMany(n => nodes[n].Points).ToList();
+                var span = model.Points.First(p => p.Name == members[0]).Span;
+                diagnostics.ReportNoGround(span, nodes[island.Key].Name, members);
+            }
+        }
+    }
+}

@@ -1,0 +1,65 @@
+using System.Collections.Immutable;
+using WindingNotes.Syntax;
+using WindingNotes.Text;
+
+namespace WindingNotes.Model;
+
+/// <summary>A defined name. Terminals know the winding they end; free nodes are defined where first used.</summary>
+public sealed record Symbol(string Name, SymbolKind Kind, TextSpan Span, TextSpan StatementSpan, string? Owner = null)
+{
+    public string Describe() => Kind switch
+    {
+        SymbolKind.Let => "a let value",
+        SymbolKind.Core => "a core",
+        SymbolKind.Winding => "a winding",
+        SymbolKind.Terminal => $"a terminal of {Owner}",
+        SymbolKind.Tap => "a tap",
+        SymbolKind.Brush => "a brush",
+        SymbolKind.Node => "a node",
+        SymbolKind.Supply => "a supply",
+        SymbolKind.Load => "a load",
+        SymbolKind.Fault => "a fault",
+        _ => "a name",
+    };
+
+    /// <summary>Terminals, taps, brushes and free nodes are all points a wire can go to.</summary>
+    public bool IsConnectionPoint => Kind is SymbolKind.Terminal or SymbolKind.Tap or SymbolKind.Brush or SymbolKind.Node;
+}
+
+/// <summary>One occurrence of a name in the document.</summary>
+public sealed record SymbolReference(TextSpan Span, Symbol Symbol, bool IsDefinition);
+
+/// <summary>Every name and every place it occurs: hover, definition, references and rename read this.</summary>
+public sealed class SymbolTable
+{
+    private readonly Dictionary<string, Symbol> byName = new(StringComparer.Ordinal);
+    private readonly List<SymbolReference> references = [];
+
+    public IEnumerable<Symbol> Symbols => byName.Values;
+
+    public IReadOnlyList<SymbolReference> References => references;
+
+    public Symbol? Find(string name) => byName.GetValueOrDefault(name);
+
+    internal bool TryDefine(Symbol symbol, out Symbol existing)
+    {
+        if (byName.TryGetValue(symbol.Name, out existing!)) return false;
+        byName[symbol.Name] = symbol;
+        references.Add(new SymbolReference(symbol.Span, symbol, true));
+        existing = symbol;
+        return true;
+    }
+
+    internal void Reference(TextSpan span, Symbol symbol)
+    {
+        if (span != symbol.Span) references.Add(new SymbolReference(span, symbol, false));
+    }
+
+    public SymbolReference? At(int offset) => references.FirstOrDefault(r => r.Span.Touches(offset));
+
+    public IEnumerable<SymbolReference> ReferencesTo(Symbol symbol) =>
+        references.Where(r => r.Symbol == symbol).OrderBy(r => r.Span.Start);
+
+    public IEnumerable<string> NamesOf(params SymbolKind[] kinds) =>
+        byName.Values.Where(s => kinds.Contains(s.Kind)).Select(s => s.Name);
+}

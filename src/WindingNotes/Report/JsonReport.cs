@@ -1,0 +1,182 @@
+using System.Numerics;
+using System.Text;
+using System.Text.Json;
+using WindingNotes.Solve;
+using WindingNotes.Text;
+using WindingNotes.Workspace;
+
+namespace WindingNotes.Report;
+
+/// <summary>
+/// The results as JSON in the shape NOTATION.md fixes (schema "windingnotes/results/1"): SI values
+/// as plain numbers, phasors as {"rms", "deg"}, ratios as fractions, keys in source order, lines and
+/// characters zero-based. Numbers are written with ten significant figures, so the bytes are stable.
+/// </summary>
+public static class JsonReport
+{
+    public const string Schema = "windingnotes/results/1";
+
+    public static string Write(Evaluation evaluation)
+    {
+        using var stream = new MemoryStream();
+        using (var w = new Utf8JsonWriter(stream, new JsonWriterOptions { Indented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping }))
+        {
+            w.WriteStartObject();
+            w.WriteString("schema", Schema);
+            w.WriteString("file", evaluation.Path);
+            w.WriteStartArray("diagnostics");
+            foreach (var d in evaluation.Diagnostics) WriteDiagnostic(w, evaluation.Text, d);
+            w.WriteEndArray();
+            w.WriteStartArray("cases");
+            foreach (var c in evaluation.Cases) WriteCase(w, evaluation, c);
+            w.WriteEndArray();
+            w.WriteEndObject();
+        }
+        return Encoding.UTF8.GetString(stream.ToArray()) + "\n";
+    }
+
+    public static void WriteDiagnostic(Utf8JsonWriter w, SourceText text, Diagnostic d)
+    {
+        w.WriteStartObject();
+        w.WriteString("severity", d.Severity switch
+        {
+            Severity.Error => "error",
+            Severity.Warning => "warning",
+            Severity.Information => "information",
+            _ => "hint",
+        });
+        w.WriteString("code", d.Code);
+        w.WriteString("message", d.Message);
+        WriteRange(w, "range", text.GetRange(d.Span));
+        w.WriteEndObject();
+    }
+
+    private static void WriteRange(Utf8JsonWriter w, string name, TextRange range)
+    {
+        w.WriteStartObject(name);
+        w.WriteStartObject("start");
+        w.WriteNumber("line", range.Start.Line);
+        w.WriteNumber("character", range.Start.Character);
+        w.WriteEndObject();
+        w.WriteStartObject("end");
+        w.WriteNumber("line", range.End.Line);
+        w.WriteNumber("character", range.End.Character);
+        w.WriteEndObject();
+        w.WriteEndObject();
+    }
+
+    private static void WriteCase(Utf8JsonWriter w, Evaluation evaluation, CaseResult c)
+    {
+        w.WriteStartObject();
+        w.WriteString("name", c.Case.Name);
+        w.WriteStartObject("nodes");
+        foreach (var (point, v) in c.Points)
+        {
+            w.WriteStartObject(point);
+            Phasor(w, "v", v);
+            w.WriteEndObject();
+        }
+        w.WriteEndObject();
+
+        w.WriteStartObject("sections");
+        foreach (var s in c.Sections)
+        {
+            w.WriteStartObject(s.Section.Name);
+            w.WriteString("winding", s.Winding.Name);
+            w.WriteString("from", s.Section.FromPoint);
+            w.WriteString("to", s.Section.ToPoint);
+            Number(w, "turns", s.Section.Turns);
+            Phasor(w, "i", s.Current);
+            Number(w, "s", s.Apparent);
+            if (s.Loading is { } loading) Number(w, "loading", loading);
+            w.WriteEndObject();
+        }
+        w.WriteEndObject();
+
+        w.WriteStartObject("cores");
+        foreach (var k in c.Cores)
+        {
+            w.WriteStartObject(k.Core.Name);
+            if (k.VoltsPerTurn is { } e) Phasor(w, "voltsPerTurn", e);
+            if (k.Flux is { } flux) Number(w, "flux", flux);
+            w.WriteEndObject();
+        }
+        w.WriteEndObject();
+
+        w.WriteStartObject("supplies");
+        foreach (var s in c.Supplies)
+        {
+            w.WriteStartObject(s.Supply.Name);
+            Phasor(w, "i", s.Current);
+            Number(w, "p", s.Power.Real);
+            Number(w, "q", s.Power.Imaginary);
+            Number(w, "s", s.Power.Magnitude);
+            Number(w, "pf", s.PowerFactor);
+            w.WriteEndObject();
+        }
+        w.WriteEndObject();
+
+        if (c.Case.Fault is { } fault)
+        {
+            w.WriteStartObject("faults");
+            w.WriteStartObject(fault.Name);
+            Phasor(w, "i", c.Solution.FaultCurrent);
+            w.WriteEndObject();
+            w.WriteEndObject();
+            w.WriteEndObject();
+            return;
+        }
+
+        w.WriteStartObject("loads");
+        foreach (var l in c.Loads)
+        {
+            w.WriteStartObject(l.Load.Name);
+            Phasor(w, "v", l.Voltage);
+            Phasor(w, "i", l.Current);
+            Number(w, "p", l.Power.Real);
+            Number(w, "q", l.Power.Imaginary);
+            if (l.Regulation is { } r) Number(w, "regulation", r);
+            w.WriteEndObject();
+        }
+        w.WriteEndObject();
+
+        w.WriteStartObject("totals");
+        Number(w, "copperLoss", c.Totals.CopperLoss);
+        Number(w, "coreLoss", c.Totals.CoreLoss);
+        if (c.Totals.Efficiency is { } eff) Number(w, "efficiency", eff);
+        Number(w, "throughput", c.Totals.Throughput);
+        Number(w, "transformed", c.Totals.Transformed);
+        w.WriteEndObject();
+
+        if (c.Case == CaseSpec.Normal)
+        {
+            w.WriteStartArray("checks");
+            foreach (var check in evaluation.Checks)
+            {
+                w.WriteStartObject();
+                w.WriteNumber("line", evaluation.Text.GetPosition(check.Expect.Line.Start).Line);
+                w.WriteBoolean("passed", check.Passed);
+                if (check.Value is { } v) Number(w, "value", v);
+                w.WriteString("text", check.Expect.Text);
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
+        }
+        w.WriteEndObject();
+    }
+
+    private static void Number(Utf8JsonWriter w, string name, double value)
+    {
+        w.WritePropertyName(name);
+        w.WriteRawValue(Numbers.Json(value));
+    }
+
+    private static void Phasor(Utf8JsonWriter w, string name, Complex v)
+    {
+        w.WriteStartObject(name);
+        Number(w, "rms", v.Magnitude);
+        var degrees = TextReport.Degrees(v);
+        Number(w, "deg", Math.Abs(degrees) < 1e-9 ? 0 : degrees);
+        w.WriteEndObject();
+    }
+}

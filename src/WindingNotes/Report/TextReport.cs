@@ -1,0 +1,136 @@
+using System.Numerics;
+using System.Text;
+using WindingNotes.Solve;
+using WindingNotes.Text;
+using WindingNotes.Workspace;
+
+namespace WindingNotes.Report;
+
+/// <summary>
+/// The plain report. One result a line, in source order, every number in engineering notation
+/// with four significant figures. Names are padded to a fixed width, never to the widest name, so a
+/// changed value rewrites its own line and no other.
+/// </summary>
+public static class TextReport
+{
+    private const int NameWidth = 12;
+
+    public static string Write(Evaluation evaluation)
+    {
+        var o = new StringBuilder();
+        o.Append("Results for ").Append(evaluation.Path.Length == 0 ? "(standard input)" : evaluation.Path).Append('\n');
+        if (!evaluation.Diagnostics.IsEmpty)
+        {
+            o.Append("\nDiagnostics\n");
+            foreach (var d in evaluation.Diagnostics.Where(d => !d.Code.StartsWith("caution")))
+                o.Append("  ").Append(Location(evaluation, d)).Append(' ').Append(Severity(d.Severity)).Append(' ').Append(d.Code).Append(": ").Append(d.Message).Append('\n');
+        }
+        if (evaluation.Cases.IsEmpty) o.Append("\nNo results: the network was not solved.\n");
+        foreach (var c in evaluation.Cases) WriteCase(o, c);
+        WriteChecks(o, evaluation);
+        o.Append("\nCautions\n");
+        foreach (var d in evaluation.Diagnostics.Where(d => d.Code.StartsWith("caution")))
+            o.Append("  ").Append(Location(evaluation, d)).Append(' ').Append(d.Message).Append('\n');
+        o.Append("  ").Append(Cautions.Judgement).Append('\n');
+        return o.ToString();
+    }
+
+    private static void WriteCase(StringBuilder o, CaseResult c)
+    {
+        o.Append("\nCase ").Append(c.Case.Name).Append('\n');
+        Heading(o, "Nodes");
+        foreach (var (point, v) in c.Points) Line(o, point, Phasor(v, "V"));
+        Heading(o, "Sections");
+        foreach (var s in c.Sections)
+        {
+            var text = $"{s.Section.FromPoint} to {s.Section.ToPoint}, {Numbers.Plain(s.Section.Turns)} turns: {Phasor(s.Current, "A")}, {Numbers.Format(s.Apparent, "VA")}";
+            if (s.Loading is { } loading) text += $", loading {Percent(loading)}";
+            if (s.Loss > 0) text += $", loss {Numbers.Format(s.Loss, "W")}";
+            Line(o, s.Section.Name, text);
+        }
+        if (!c.Cores.IsEmpty)
+        {
+            Heading(o, "Cores");
+            foreach (var k in c.Cores)
+            {
+                var parts = new List<string>();
+                if (k.VoltsPerTurn is { } e) parts.Add($"{Numbers.Format(e.Magnitude, "V")}/turn");
+                if (k.Flux is { } b) parts.Add($"peak flux {Numbers.Format(b, "T")}" + (k.Core.FluxLimit is { } limit ? $" (limit {Numbers.Format(limit, "T")})" : ""));
+                if (k.Loss > 0) parts.Add($"core loss {Numbers.Format(k.Loss, "W")}");
+                Line(o, k.Core.Name, parts.Count == 0 ? "turns not given: volts per turn unknown" : string.Join(", ", parts));
+            }
+        }
+        Heading(o, "Supplies");
+        foreach (var s in c.Supplies)
+            Line(o, s.Supply.Name, $"{Numbers.Format(s.Voltage.Magnitude, "V")}, {Phasor(s.Current, "A")}: {Powers(s.Power)}");
+        if (!c.Loads.IsEmpty && c.Case.Fault is null)
+        {
+            Heading(o, "Loads");
+            foreach (var l in c.Loads)
+            {
+                var text = $"{Phasor(l.Voltage, "V")}, {Phasor(l.Current, "A")}: {Powers(l.Power)}";
+                if (l.Regulation is { } r) text += $", regulation {Percent(r)}";
+                Line(o, l.Load.Name, text);
+            }
+        }
+        if (c.Case.Fault is { } fault)
+        {
+            Heading(o, "Fault");
+            Line(o, fault.Name, $"{fault.A.Name} to {fault.B.Name}: {Phasor(c.Solution.FaultCurrent, "A")}");
+            return;
+        }
+        Heading(o, "Totals");
+        Line(o, "copper loss", Numbers.Format(c.Totals.CopperLoss, "W"));
+        Line(o, "core loss", Numbers.Format(c.Totals.CoreLoss, "W"));
+        if (c.Totals.Efficiency is { } eff) Line(o, "efficiency", Percent(eff));
+        Line(o, "throughput", Numbers.Format(c.Totals.Throughput, "VA"));
+        Line(o, "transformed", Numbers.Format(c.Totals.Transformed, "VA"));
+    }
+
+    private static void WriteChecks(StringBuilder o, Evaluation evaluation)
+    {
+        if (evaluation.Checks.IsEmpty) return;
+        o.Append("\nChecks\n");
+        foreach (var check in evaluation.Checks)
+        {
+            var line = evaluation.Text.GetPosition(check.Expect.Line.Start).Line + 1;
+            var value = check.Value is { } v ? $" ({DiagnosticBag.Show(v, check.Expect.Unit)})" : "";
+            o.Append("  ").Append(check.Passed ? "pass" : "FAIL").Append("  line ").Append(line).Append(": ").Append(check.Expect.Text).Append(value).Append('\n');
+        }
+    }
+
+    private static void Heading(StringBuilder o, string title) => o.Append("  ").Append(title).Append('\n');
+
+    private static void Line(StringBuilder o, string name, string text) =>
+        o.Append("    ").Append(name.PadRight(NameWidth)).Append(' ').Append(text).Append('\n');
+
+    public static string Location(Evaluation evaluation, Diagnostic d)
+    {
+        var p = evaluation.Text.GetPosition(d.Span.Start);
+        return $"{p.Line + 1}:{p.Character + 1}";
+    }
+
+    public static string Severity(Severity s) => s switch
+    {
+        Text.Severity.Error => "error",
+        Text.Severity.Warning => "warning",
+        Text.Severity.Information => "info",
+        _ => "hint",
+    };
+
+    /// <summary>"228.1 V angle -0.04 deg": the notation's own polar form, so a reader can paste it back.</summary>
+    public static string Phasor(Complex v, string unit) =>
+        $"{Numbers.Format(v.Magnitude, unit)} angle {Degrees(v):F2} deg".Replace("angle -0.00", "angle 0.00");
+
+    public static double Degrees(Complex v) => v == Complex.Zero ? 0 : v.Phase * 180 / Math.PI;
+
+    public static string Percent(double fraction) => Numbers.Format(fraction * 100, "%");
+
+    /// <summary>P, Q, S and the power factor with its sense.</summary>
+    public static string Powers(Complex s)
+    {
+        var pf = s.Magnitude == 0 ? 1 : Math.Abs(s.Real) / s.Magnitude;
+        var sense = s.Imaginary > 1e-9 * s.Magnitude ? " lagging" : s.Imaginary < -1e-9 * s.Magnitude ? " leading" : "";
+        return $"P {Numbers.Format(s.Real, "W")}, Q {Numbers.Format(s.Imaginary, "var")}, S {Numbers.Format(s.Magnitude, "VA")}, pf {Numbers.Fixed(pf)}{sense}";
+    }
+}

@@ -1,0 +1,205 @@
+using System.Numerics;
+using WindingNotes.Model;
+using WindingNotes.Text;
+
+namespace WindingNotes.Solve;
+
+/// <summary>An unknown or an equation of the system, named for diagnostics.</summary>
+internal readonly record struct Element(string Kind, string Name, TextSpan Span);
+
+/// <summary>A constant-power or constant-current load, by the columns of its two nodes (−1 for a reference).</summary>
+internal readonly record struct NonlinearLoad(int Load, int ColumnA, int ColumnB, Complex S0, double V0, int Exponent);
+
+/// <summary>
+/// The linear system of one independent part of the network (nodes linked galvanically or through
+/// cores). Unknowns: node voltages (references left out), section currents, supply currents, the
+/// fault current, and per core its volts per turn e. Rows, in the same order:
+/// KCL at each node; for each section V_a − V_b − N·e − Σ Z·I = 0; for each supply
+/// V_p − V_q + Z_s·I = E; for the fault V_a − V_b − Z_f·I = 0; for each core Σ N·I − Y·e = 0.
+/// Constant-impedance loads are stamped as admittances; the others are left to Newton's method.
+/// </summary>
+internal sealed class MnaSystem
+{
+    public int Size;
+    public Complex[,] A = null!;
+    public Complex[] B = null!;
+    public readonly List<Element> Unknowns = [];
+    public readonly List<Element> Equations = [];
+    public readonly Dictionary<int, int> NodeColumn = [];
+    public readonly Dictionary<int, int> SectionColumn = [];
+    public readonly Dictionary<int, int> SupplyColumn = [];
+    public readonly Dictionary<int, int> CoreColumn = [];
+    public int FaultColumn = -1;
+    public readonly List<NonlinearLoad> NonlinearLoads = [];
+    public readonly List<(int Load, int ColumnA, int ColumnB)> LinearLoads = [];
+    public bool HasSource;
+
+    public int Column(int node) => NodeColumn.TryGetValue(node, out var c) ? c : -1;
+
+    public static MnaSystem Assemble(Network network, SolveGroup group, int[] reference, CaseSpec spec)
+    {
+        var m = new MnaSystem();
+        var model = network.Model;
+        foreach (var n in group.Nodes.Where(n => reference[n] != n))
+        {
+            m.NodeColumn[n] = m.Unknowns.Count;
+            m.Unknowns.Add(new Element("node", network.Nodes[n].Name, PointSpan(model, network.Nodes[n].Name)));
+            m.Equations.Add(new Element("node", network.Nodes[n].Name, PointSpan(model, network.Nodes[n].Name)));
+        }
+        foreach (var k in group.Sections)
+        {
+            var w = network.Windings[network.Sections[k].Winding].Source;
+            m.SectionColumn[k] = m.Unknowns.Count;
+            m.Unknowns.Add(new Element("section", network.Sections[k].Name, w.Line));
+            m.Equations.Add(new Element("section", network.Sections[k].Name, w.Line));
+        }
+        foreach (var s in group.Supplies)
+        {
+            m.SupplyColumn[s] = m.Unknowns.Count;
+            m.Unknowns.Add(new Element("supply", network.Supplies[s].Name, network.Supplies[s].Source.Line));
+            m.Equations.Add(new Element("supply", network.Supplies[s].Name, network.Supplies[s].Source.Line));
+        }
+        if (group.HasFault)
+        {
+            m.FaultColumn = m.Unknowns.Count;
+            m.Unknowns.Add(new Element("fault", spec.Fault!.Name, spec.Fault.Line));
+            m.Equations.Add(new Element("fault", spec.Fault.Name, spec.Fault.Line));
+        }
+        foreach (var c in group.Cores)
+        {
+            m.CoreColumn[c] = m.Unknowns.Count;
+            m.Unknowns.Add(new Element("core", network.Cores[c].Name, network.Cores[c].Source.Line));
+            m.Equations.Add(new Element("core", network.Cores[c].Name, network.Cores[c].Source.Line));
+        }
+        m.Size = m.Unknowns.Count;
+        m.A = new Complex[m.Size, m.Size];
+        m.B = new Complex[m.Size];
+        m.Stamp(network, group, spec);
+        return m;
+    }
+
+    private void Stamp(Network network, SolveGroup group, CaseSpec spec)
+    {
+        // Branch current leaving node a and entering node b.
+        void Branch(int column, int a, int b)
+        {
+            if (Column(a) is var ra and >= 0) A[ra, column] += 1;
+            if (Column(b) is var rb and >= 0) A[rb, column] -= 1;
+        }
+        // Row gets +V_a − V_b.
+        void Across(int row, int a, int b)
+        {
+            if (Column(a) is var ca and >= 0) A[row, ca] += 1;
+            if (Column(b) is var cb and >= 0) A[row, cb] -= 1;
+        }
+
+        foreach (var k in group.Sections)
+        {
+            var s = network.Sections[k];
+            var row = SectionColumn[k];
+            Branch(row, s.NodeA, s.NodeB);
+            Across(row, s.NodeA, s.NodeB);
+            var core = network.Cores[s.Core];
+            A[row, CoreColumn[s.Core]] -= s.Turns;
+            A[CoreColumn[s.Core], row] += s.Turns;
+            var r = core.Sections.IndexOf(k);
+            for (var c = 0; c < core.Sections.Length; c++)
+                A[row, SectionColumn[core.Sections[c]]] -= core.Impedance[r, c];
+        }
+        foreach (var c in group.Cores)
+            A[CoreColumn[c], CoreColumn[c]] -= network.Cores[c].Admittance;
+        foreach (var i in group.Supplies)
+        {
+            var s = network.Supplies[i];
+            var row = SupplyColumn[i];
+            // The supply's current leaves its positive terminal into the network.
+            Branch(row, s.NodeQ, s.NodeP);
+            Across(row, s.NodeP, s.NodeQ);
+            A[row, row] += s.Impedance;
+            B[row] = s.Voltage;
+            HasSource |= s.Voltage != Complex.Zero;
+        }
+        if (FaultColumn >= 0)
+        {
+            var (a, b) = (network.Node(spec.Fault!.A.Name), network.Node(spec.Fault.B.Name));
+            Branch(FaultColumn, a, b);
+            Across(FaultColumn, a, b);
+            A[FaultColumn, FaultColumn] -= spec.Fault.Impedance;
+        }
+        if (spec.WithoutLoads) return;
+        foreach (var i in group.Loads)
+        {
+            var l = network.Loads[i];
+            var (ca, cb) = (Column(l.NodeA), Column(l.NodeB));
+            if (l.Source.Exponent == 2)
+            {
+                // Constant impedance: the S drawn at 1 V is |V|²·conj(Y), so Y = conj(S0)/V0².
+                var y = Complex.Conjugate(l.Source.S0) / (l.Source.V0 * l.Source.V0);
+                if (ca >= 0) { A[ca, ca] += y; if (cb >= 0) A[ca, cb] -= y; }
+                if (cb >= 0) { A[cb, cb] += y; if (ca >= 0) A[cb, ca] -= y; }
+                LinearLoads.Add((i, ca, cb));
+            }
+            else NonlinearLoads.Add(new NonlinearLoad(i, ca, cb, l.Source.S0, l.Source.V0, l.Source.Exponent));
+        }
+    }
+
+    private static TextSpan PointSpan(Model.Model model, string point) =>
+        model.Symbols.Find(point)?.Span ?? default;
+}
+
+/// <summary>An independent part of the network: what is linked by wires or by a core is solved together.</summary>
+internal sealed record SolveGroup(List<int> Nodes, List<int> Sections, List<int> Supplies, List<int> Loads, List<int> Cores, bool HasFault)
+{
+    /// <summary>
+    /// Earth is the reference of every grounded part but carries no unknown and no KCL row, so it
+    /// links nothing: two grounded units stay two small systems instead of one large one.
+    /// </summary>
+    public static List<SolveGroup> Find(Network network, CaseSpec spec)
+    {
+        var nodeCount = network.Nodes.Length;
+        var earth = network.EarthNode;
+        // Cores take part as extra vertices after the nodes.
+        var sets = new DisjointSets(nodeCount + network.Cores.Length);
+        void Link(int a, int b)
+        {
+            if (a != earth && b != earth) sets.Union(a, b);
+        }
+        int Anchor(int a, int b) => a != earth ? a : b;
+        foreach (var s in network.Sections)
+        {
+            Link(s.NodeA, nodeCount + s.Core);
+            Link(s.NodeB, nodeCount + s.Core);
+        }
+        foreach (var s in network.Supplies) Link(s.NodeP, s.NodeQ);
+        var loads = spec.WithoutLoads ? [] : network.Loads.Where(l => l.NodeA != l.NodeB).ToList();
+        foreach (var l in loads) Link(l.NodeA, l.NodeB);
+        int faultA = -1, faultB = -1;
+        if (spec.Fault is { } f)
+        {
+            (faultA, faultB) = (network.Node(f.A.Name), network.Node(f.B.Name));
+            Link(faultA, faultB);
+        }
+        var groups = new Dictionary<int, SolveGroup>();
+        SolveGroup Of(int vertex)
+        {
+            var root = sets.Find(vertex);
+            if (!groups.TryGetValue(root, out var g)) groups[root] = g = new SolveGroup([], [], [], [], [], false);
+            return g;
+        }
+        for (var n = 0; n < nodeCount; n++)
+            if (n != earth) Of(n).Nodes.Add(n);
+        foreach (var s in network.Sections) Of(nodeCount + s.Core).Sections.Add(s.Index);
+        foreach (var s in network.Supplies) Of(Anchor(s.NodeP, s.NodeQ)).Supplies.Add(s.Index);
+        foreach (var l in loads.Where(l => Anchor(l.NodeA, l.NodeB) != earth)) Of(Anchor(l.NodeA, l.NodeB)).Loads.Add(l.Index);
+        for (var c = 0; c < network.Cores.Length; c++)
+            if (network.Cores[c].Sections.Length > 0) Of(nodeCount + c).Cores.Add(c);
+        var result = groups.OrderBy(g => g.Key).Select(g => g.Value).ToList();
+        if (faultA >= 0 && Anchor(faultA, faultB) != earth)
+        {
+            var anchor = sets.Find(Anchor(faultA, faultB));
+            var index = result.IndexOf(groups[anchor]);
+            result[index] = result[index] with { HasFault = true };
+        }
+        return result;
+    }
+}

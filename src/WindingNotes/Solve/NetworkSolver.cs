@@ -1,0 +1,123 @@
+using System.Collections.Immutable;
+using System.Numerics;
+using WindingNotes.Model;
+using WindingNotes.Text;
+
+namespace WindingNotes.Solve;
+
+/// <summary>
+/// Solves one case of a network: each independent part on its own (a file of many units stays many
+/// small systems), linear parts by one LU solve, parts with constant-power or constant-current loads
+/// by Newton's method. Failures are diagnostics naming the elements involved, never exceptions.
+/// </summary>
+public static class NetworkSolver
+{
+    public static Solution Solve(Network network, CaseSpec spec, CancellationToken cancel = default)
+    {
+        var diagnostics = new DiagnosticBag();
+        var prefix = spec == CaseSpec.Normal ? "" : $"in case '{spec.Name}': ";
+        (int, int)[] extra = spec.Fault is { } f ? [(network.Node(f.A.Name), network.Node(f.B.Name))] : [];
+        var reference = Islands.References(network, extra);
+        var voltages = new Complex[network.Nodes.Length];
+        var sections = new Complex[network.Sections.Length];
+        var cores = new Complex[network.Cores.Length];
+        var supplies = new Complex[network.Supplies.Length];
+        var loads = new Complex[network.Loads.Length];
+        var fault = Complex.Zero;
+        var solved = true;
+
+        foreach (var group in SolveGroup.Find(network, spec))
+        {
+            cancel.ThrowIfCancellationRequested();
+            // A part with no source carries no current and no voltage.
+            if (group.Supplies.Count == 0) continue;
+            var m = MnaSystem.Assemble(network, group, reference, spec);
+            var x = SolveSystem(m, network, diagnostics, prefix, cancel);
+            if (x is null)
+            {
+                solved = false;
+                continue;
+            }
+            foreach (var (node, column) in m.NodeColumn) voltages[node] = x[column];
+            foreach (var (k, column) in m.SectionColumn) sections[k] = x[column];
+            foreach (var (c, column) in m.CoreColumn) cores[c] = x[column];
+            foreach (var (s, column) in m.SupplyColumn) supplies[s] = x[column];
+            if (m.FaultColumn >= 0) fault = x[m.FaultColumn];
+            Complex At(int column) => column >= 0 ? x[column] : Complex.Zero;
+            foreach (var (load, a, b) in m.LinearLoads)
+            {
+                var l = network.Loads[load].Source;
+                loads[load] = Complex.Conjugate(l.S0) / (l.V0 * l.V0) * (At(a) - At(b));
+            }
+            foreach (var load in m.NonlinearLoads)
+                loads[load.Load] = NewtonSolver.LoadCurrent(load, NewtonSolver.Across(load, x));
+        }
+        Chop(voltages);
+        Chop(sections, supplies, loads);
+        Chop(cores);
+        return new Solution(network, spec, voltages, sections, cores, supplies, loads, fault, solved, diagnostics.ToImmutable());
+    }
+
+    private static Complex[]? SolveSystem(MnaSystem m, Network network, DiagnosticBag diagnostics, string prefix, CancellationToken cancel)
+    {
+        var first = DenseSolver.Solve(m.A, m.B);
+        if (!Accept(first, m, diagnostics, prefix)) return null;
+        if (m.NonlinearLoads.Count == 0) return first.X;
+
+        // Start Newton from the loads as impedances that draw their demand at the open-circuit voltage.
+        var scale = m.B.Select(b => b.Magnitude).DefaultIfEmpty(0).Max();
+        var a = (Complex[,])m.A.Clone();
+        foreach (var load in m.NonlinearLoads.ToList())
+        {
+            var v = NewtonSolver.Across(load, first.X);
+            if (v.Magnitude <= 1e-9 * scale)
+            {
+                diagnostics.ReportLoadWithoutVoltage(network.Loads[load.Load].Source, prefix);
+                m.NonlinearLoads.Remove(load);
+                continue;
+            }
+            var s = load.Exponent == 0 ? load.S0 : load.S0 * (v.Magnitude / load.V0);
+            var y = Complex.Conjugate(s) / (v.Magnitude * v.Magnitude);
+            if (load.ColumnA >= 0) { a[load.ColumnA, load.ColumnA] += y; if (load.ColumnB >= 0) a[load.ColumnA, load.ColumnB] -= y; }
+            if (load.ColumnB >= 0) { a[load.ColumnB, load.ColumnB] += y; if (load.ColumnA >= 0) a[load.ColumnB, load.ColumnA] -= y; }
+        }
+        var start = DenseSolver.Solve(a, m.B);
+        var newton = NewtonSolver.Solve(m, start.Status == SolveStatus.Solved ? start.X : first.X, cancel);
+        if (newton.Converged) return newton.X;
+        diagnostics.ReportNoConvergence(m.NonlinearLoads.Select(l => network.Loads[l.Load].Source).ToList(), NewtonSolver.MaxIterations, prefix);
+        return null;
+    }
+
+    private static bool Accept(DenseSolver.Result result, MnaSystem m, DiagnosticBag diagnostics, string prefix)
+    {
+        switch (result.Status)
+        {
+            case SolveStatus.Singular:
+                var elements = result.NullEquations.Select(i => m.Equations[i])
+                    .Concat(result.NullUnknowns.Select(i => m.Unknowns[i]))
+                    .DistinctBy(e => (e.Kind, e.Name))
+                    .OrderBy(e => e.Kind == "node" ? 1 : 0)
+                    .ToList();
+                diagnostics.ReportSingular(elements.Select(e => (e.Kind, e.Name, e.Span)).ToList(), prefix);
+                return false;
+            case SolveStatus.IllConditioned:
+                diagnostics.ReportIllConditioned(m.Unknowns.Where(u => u.Kind != "node").Select(u => (u.Kind, u.Name, u.Span)).ToList(), result.Residual, prefix);
+                return true;
+            default:
+                return true;
+        }
+    }
+
+    /// <summary>Rounding leaves values like 1e-17 where the answer is zero; they would print as noise.</summary>
+    private static void Chop(params Complex[][] groups)
+    {
+        var max = groups.SelectMany(g => g).Select(v => v.Magnitude).DefaultIfEmpty(0).Max();
+        var limit = 1e-12 * max;
+        foreach (var values in groups)
+            for (var i = 0; i < values.Length; i++)
+            {
+                var v = values[i];
+                values[i] = new Complex(Math.Abs(v.Real) <= limit ? 0 : v.Real, Math.Abs(v.Imaginary) <= limit ? 0 : v.Imaginary);
+            }
+    }
+}

@@ -1,0 +1,204 @@
+using System.Collections.Frozen;
+
+namespace WindingNotes.Syntax;
+
+public enum StatementKind { Frequency, Temperature, Let, Core, Winding, Tap, Brush, Impedance, NoLoad, Join, Ground, Supply, Load, Fault, Sweep, Expect }
+
+/// <summary>What a name stands for. One namespace holds them all.</summary>
+public enum SymbolKind { Let, Core, Winding, Terminal, Tap, Brush, Node, Supply, Load, Fault }
+
+/// <summary>How a name in a statement is used: it defines a symbol or refers to one of some kinds.</summary>
+public sealed record NameRole(bool Defines, SymbolKind[] Kinds, string Label, bool AllowsSection = false);
+
+/// <summary>One element of a statement's form.</summary>
+public abstract record Part;
+
+public sealed record NamePart(NameRole Role) : Part;
+
+/// <summary>One or more names.</summary>
+public sealed record NameListPart(NameRole Role) : Part;
+
+public sealed record ValuePart(string Label) : Part;
+
+public sealed record WordPart(string Word) : Part;
+
+public sealed record ChoicePart(string Label, params string[] Words) : Part;
+
+/// <summary>Parts that may be left out; the first one decides, so no backtracking is needed.</summary>
+public sealed record OptionalPart(params Part[] Parts) : Part;
+
+/// <summary>A clause: a keyword and its parts. Clauses of one group exclude each other.</summary>
+public sealed record ClauseForm(string Keyword, Part[] Parts, bool Required = false, string? Group = null, string Summary = "");
+
+/// <summary>A statement: its keyword, its head (parts before any clause), its clauses in canonical order.</summary>
+public sealed record StatementForm(
+    StatementKind Kind,
+    string Keyword,
+    Part[] Head,
+    ClauseForm[] Clauses,
+    string Example,
+    string Summary,
+    string[]? RequiredGroups = null)
+{
+    public ClauseForm? FindClause(string keyword) => Array.Find(Clauses, c => c.Keyword == keyword);
+}
+
+/// <summary>
+/// The notation's statements as data. The parser, the EBNF in grammar/, completion, formatting
+/// and semantic colouring all read this one table, so they cannot drift apart.
+/// </summary>
+public static class Grammar
+{
+    private static NameRole Def(SymbolKind kind, string label) => new(true, [kind], label);
+
+    private static NameRole Use(string label, params SymbolKind[] kinds) => new(false, kinds, label);
+
+    private static readonly NameRole NodeRef = Use("a terminal or node", SymbolKind.Terminal, SymbolKind.Node);
+    private static readonly NameRole CoreRef = Use("a core name", SymbolKind.Core);
+    private static readonly NameRole WindingRef = Use("a winding name", SymbolKind.Winding);
+    private static readonly NameRole WindingOrSection = new(false, [SymbolKind.Winding], "a winding or section", AllowsSection: true);
+    private static readonly ValuePart Value = new("a value");
+
+    private static ClauseForm Clause(string keyword, string summary, params Part[] parts) => new(keyword, parts, Summary: summary);
+
+    public static readonly StatementForm[] Statements =
+    [
+        new(StatementKind.Frequency, "frequency", [new ValuePart("a frequency")], [],
+            "frequency 60 Hz", "the system frequency"),
+        new(StatementKind.Temperature, "temperature", [new ValuePart("a temperature")], [],
+            "temperature 75 degC", "the reference temperature to which winding resistances are corrected"),
+        new(StatementKind.Let, "let", [new NamePart(Def(SymbolKind.Let, "a new name")), new WordPart("="), Value], [],
+            "let vin = 208 V", "a named value; sweeps and tolerances act on these"),
+        new(StatementKind.Core, "core", [new NamePart(Def(SymbolKind.Core, "a new core name"))],
+            [
+                Clause("rating", "the core's kVA rating", Value),
+                Clause("area", "the net cross-section of the core", Value),
+                Clause("flux-limit", "the highest peak flux density allowed", Value),
+            ],
+            "core K1 rating 0.5 kVA area 26 cm2 flux-limit 1.6 T", "a magnetic core: all windings on it link the same flux"),
+        new(StatementKind.Winding, "winding", [new NamePart(Def(SymbolKind.Winding, "a new winding name"))],
+            [
+                new("on", [new NamePart(CoreRef)], Required: true, Summary: "the core the winding is on"),
+                Clause("turns", "the number of turns", Value),
+                Clause("rated", "the rated voltage", Value),
+                Clause("rating", "the winding's own kVA rating", Value),
+                Clause("rated-current", "the winding's own rated current", Value),
+                new("from", [new NamePart(Def(SymbolKind.Terminal, "a terminal name")), new WordPart("to"), new NamePart(Def(SymbolKind.Terminal, "a terminal name"))],
+                    Required: true, Summary: "the polarity-marked end, then the other end"),
+                Clause("resistance", "the winding's resistance, optionally as measured at a temperature", Value, new OptionalPart(new WordPart("at"), new ValuePart("a temperature"))),
+                Clause("conductor", "resistance from the conductor: material, size, length or mean turn",
+                    new ChoicePart("a conductor material", "copper", "aluminium"),
+                    new OptionalPart(new WordPart("AWG")), new ValuePart("a conductor size"),
+                    new ChoicePart("'length' or 'mean-turn'", "length", "mean-turn"), new ValuePart("a length")),
+            ],
+            "winding HV on K1 turns 240 rated 240 V from H1 to H2 resistance 1.4 ohm", "a winding between two terminals"),
+        new(StatementKind.Tap, "tap", [new NamePart(Def(SymbolKind.Tap, "a new tap name"))],
+            [
+                new("on", [new NamePart(WindingRef)], Required: true, Summary: "the winding the tap is on"),
+                new("at", [new ValuePart("a position")], Required: true, Summary: "turns, percent or volts from the winding's from end"),
+            ],
+            "tap T60 on HV at 60 turns", "a fixed tap, counted from the winding's from end"),
+        new(StatementKind.Brush, "brush", [new NamePart(Def(SymbolKind.Brush, "a new brush name"))],
+            [
+                new("on", [new NamePart(WindingRef)], Required: true, Summary: "the winding the brush slides on"),
+                new("at", [new ValuePart("a position")], Required: true, Summary: "the brush position from the from end"),
+                Clause("range", "the travel of the brush", Value, new WordPart("to"), Value),
+                Clause("current-limit", "the current the brush may carry", Value),
+            ],
+            "brush B on W at 75 % range 0 % to 100 % current-limit 4 A", "a sliding contact on a winding"),
+        new(StatementKind.Impedance, "impedance", [new NamePart(WindingOrSection), new NamePart(WindingOrSection), new ValuePart("an impedance")],
+            [Clause("xr", "the X/R ratio of the impedance", Value)],
+            "impedance HV LV 3.6 % xr 1.1", "short-circuit impedance between two windings or sections"),
+        new(StatementKind.NoLoad, "no-load", [new NamePart(CoreRef)],
+            [
+                new("current", [Value], Required: true, Summary: "the no-load current, in percent of rated or in amperes"),
+                new("loss", [Value], Required: true, Summary: "the no-load loss"),
+                new("at", [new NamePart(WindingRef), new ValuePart("a voltage")], Required: true, Summary: "the winding and voltage of the test"),
+            ],
+            "no-load K1 current 1.8 % loss 11 W at HV 240 V", "the magnetising branch from an open-circuit test"),
+        new(StatementKind.Join, "join", [new NameListPart(NodeRef)], [],
+            "join H2 X1", "connect terminals into one node"),
+        new(StatementKind.Ground, "ground", [new NamePart(NodeRef)], [],
+            "ground N", "the reference node"),
+        new(StatementKind.Supply, "supply", [new NamePart(Def(SymbolKind.Supply, "a new supply name")), new NamePart(NodeRef), new NamePart(NodeRef), new ValuePart("a voltage")],
+            [
+                Clause("fault-level", "the prospective fault current or fault power at the supply", Value),
+                Clause("xr", "the X/R ratio of the supply's internal impedance", Value),
+                Clause("impedance", "the supply's internal impedance", Value),
+            ],
+            "supply mains H1 N 208 V angle 0 deg fault-level 10 kA", "an AC source between two nodes, the first positive"),
+        new(StatementKind.Load, "load", [new NamePart(Def(SymbolKind.Load, "a new load name")), new NamePart(NodeRef), new NamePart(NodeRef)],
+            [
+                new("power", [Value], Group: "demand", Summary: "active power drawn (constant power)"),
+                new("apparent", [Value], Group: "demand", Summary: "apparent power drawn (constant power)"),
+                new("impedance", [Value], Group: "demand", Summary: "a constant impedance"),
+                new("current", [Value], Group: "demand", Summary: "a constant current"),
+                Clause("pf", "the power factor, lagging unless said", Value, new OptionalPart(new ChoicePart("'lagging' or 'leading'", "lagging", "leading"))),
+                Clause("model", "how the load responds to its voltage",
+                    new ChoicePart("a load model", "constant-impedance", "constant-current", "constant-power"),
+                    new OptionalPart(new WordPart("at"), new ValuePart("a voltage"))),
+            ],
+            "load planer X1 N power 3.2 kW pf 0.82 lagging", "a load between two nodes", ["demand"]),
+        new(StatementKind.Fault, "fault", [new NamePart(Def(SymbolKind.Fault, "a new fault name")), new NamePart(NodeRef), new NamePart(NodeRef)],
+            [Clause("impedance", "the fault impedance (0 ohm when left out)", Value)],
+            "fault F1 X1 N impedance 0 ohm", "a short-circuit case, solved apart from the normal case"),
+        new(StatementKind.Sweep, "sweep", [new NamePart(Use("a let or brush name", SymbolKind.Let, SymbolKind.Brush))],
+            [
+                new("from", [Value, new WordPart("to"), Value], Required: true, Summary: "the range of the sweep"),
+                new("step", [Value], Group: "spacing", Summary: "the step between points"),
+                new("points", [Value], Group: "spacing", Summary: "the number of points"),
+            ],
+            "sweep B from 0 % to 100 % step 5 %", "vary a brush position or a let value", ["spacing"]),
+        new(StatementKind.Expect, "expect", [],
+            [
+                new("voltage", [new NamePart(NodeRef), new NamePart(NodeRef)], Group: "measure", Summary: "the voltage between two nodes"),
+                new("current", [new NamePart(Use("a winding, supply or load", SymbolKind.Winding, SymbolKind.Supply, SymbolKind.Load)), new OptionalPart(new NamePart(NodeRef), new NamePart(NodeRef))],
+                    Group: "measure", Summary: "the current of a winding, a section, a supply or a load"),
+                new("loading", [new NamePart(WindingRef), new OptionalPart(new NamePart(NodeRef), new NamePart(NodeRef))], Group: "measure", Summary: "a winding's or section's current over its rated current"),
+                new("flux", [new NamePart(CoreRef)], Group: "measure", Summary: "the peak flux density of a core"),
+                new("power", [new NamePart(Use("a supply or load", SymbolKind.Supply, SymbolKind.Load))], Group: "measure", Summary: "the active power of a supply or load"),
+                new("efficiency", [], Group: "measure", Summary: "load power over supply power"),
+                new("regulation", [new NamePart(Use("a load name", SymbolKind.Load))], Group: "measure", Summary: "the rise of a load's voltage when all loads are removed"),
+                new("between", [Value, new WordPart("and"), Value], Group: "condition", Summary: "both bounds included"),
+                new("below", [Value], Group: "condition", Summary: "an upper bound"),
+                new("above", [Value], Group: "condition", Summary: "a lower bound"),
+                new("near", [Value, new WordPart("within"), Value], Group: "condition", Summary: "a target with a tolerance"),
+            ],
+            "expect voltage X1 N between 225 V and 235 V", "a check that must hold", ["measure", "condition"]),
+    ];
+
+    public static readonly FrozenDictionary<string, StatementForm> ByKeyword = Statements.ToFrozenDictionary(s => s.Keyword);
+
+    /// <summary>Words with a fixed meaning; they cannot be used as names.</summary>
+    public static readonly FrozenSet<string> Keywords = CollectKeywords().ToFrozenSet();
+
+    /// <summary>Keywords written with a hyphen; the lexer reads them as one word.</summary>
+    public static readonly FrozenSet<string> HyphenatedKeywords = Keywords.Where(k => k.Contains('-')).ToFrozenSet();
+
+    /// <summary>Words with a fixed meaning inside values.</summary>
+    public static readonly FrozenSet<string> ValueWords = new[] { "angle", "sqrt" }.ToFrozenSet();
+
+    private static IEnumerable<string> CollectKeywords()
+    {
+        foreach (var statement in Statements)
+        {
+            yield return statement.Keyword;
+            foreach (var word in statement.Head.SelectMany(Words)) yield return word;
+            foreach (var clause in statement.Clauses)
+            {
+                yield return clause.Keyword;
+                foreach (var word in clause.Parts.SelectMany(Words)) yield return word;
+            }
+        }
+        yield return "angle";
+        yield return "sqrt";
+    }
+
+    private static IEnumerable<string> Words(Part part) => part switch
+    {
+        WordPart w when char.IsLetter(w.Word[0]) => [w.Word],
+        ChoicePart c => c.Words,
+        OptionalPart o => o.Parts.SelectMany(Words),
+        _ => [],
+    };
+}

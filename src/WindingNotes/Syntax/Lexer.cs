@@ -1,0 +1,132 @@
+using System.Globalization;
+using WindingNotes.Text;
+
+namespace WindingNotes.Syntax;
+
+/// <summary>
+/// Splits a document into tokens, trivia included, so the tokens print back to the exact text.
+/// Never fails: a character it cannot place becomes a <see cref="TokenKind.Bad"/> token.
+/// </summary>
+public static class Lexer
+{
+    public static List<Token> Lex(string text)
+    {
+        var tokens = new List<Token>(text.Length / 3);
+        var i = 0;
+        while (i < text.Length)
+        {
+            var start = i;
+            var c = text[i];
+            TokenKind kind;
+            double number = 0;
+            if (c is '\r' or '\n')
+            {
+                i += c == '\r' && i + 1 < text.Length && text[i + 1] == '\n' ? 2 : 1;
+                kind = TokenKind.Newline;
+            }
+            else if (char.IsWhiteSpace(c))
+            {
+                while (i < text.Length && char.IsWhiteSpace(text[i]) && text[i] is not ('\r' or '\n')) i++;
+                kind = TokenKind.Whitespace;
+            }
+            else if (c == '#')
+            {
+                while (i < text.Length && text[i] is not ('\r' or '\n')) i++;
+                kind = TokenKind.Comment;
+            }
+            else if (c == '\\' && IsContinuation(text, i, out var end))
+            {
+                i = end;
+                kind = TokenKind.Continuation;
+            }
+            else if (char.IsAsciiDigit(c) || (c == '.' && i + 1 < text.Length && char.IsAsciiDigit(text[i + 1])))
+            {
+                i = ScanNumber(text, i, out number);
+                kind = TokenKind.Number;
+            }
+            else if (c == 'j' && i + 1 < text.Length && (char.IsAsciiDigit(text[i + 1]) || text[i + 1] == '.'))
+            {
+                i = ScanNumber(text, i + 1, out number);
+                kind = TokenKind.Imaginary;
+            }
+            else if (IsWordStart(c))
+            {
+                i = ScanWord(text, i);
+                kind = TokenKind.Word;
+            }
+            else if (c == '±' || (c == '+' && i + 1 < text.Length && text[i + 1] == '-'))
+            {
+                i += c == '±' ? 1 : 2;
+                kind = TokenKind.PlusMinus;
+            }
+            else if (c is '+' or '-' or '*' or '/' or '(' or ')' or '=' or ':' or ',')
+            {
+                i++;
+                kind = TokenKind.Symbol;
+            }
+            else
+            {
+                i += char.IsSurrogatePair(text, i) ? 2 : 1;
+                kind = TokenKind.Bad;
+            }
+            tokens.Add(new Token(kind, TextSpan.FromBounds(start, i), text[start..i]) { Number = number });
+        }
+        return tokens;
+    }
+
+    private static bool IsWordStart(char c) => char.IsLetter(c) || c is '_' or '%' or 'Ω' or '°' or 'µ';
+
+    private static bool IsWordPart(char c) => char.IsLetterOrDigit(c) || c is '_' or 'Ω' or '°' or 'µ' or '²' or '³';
+
+    private static int ScanWord(string text, int i)
+    {
+        if (text[i] == '%') return i + 1;
+        var start = i;
+        while (i < text.Length && IsWordPart(text[i])) i++;
+        // A hyphenated keyword such as flux-limit is one word; elsewhere '-' is an operator.
+        while (i + 1 < text.Length && text[i] == '-' && char.IsLetter(text[i + 1]))
+        {
+            var end = i + 1;
+            while (end < text.Length && IsWordPart(text[end])) end++;
+            if (!Grammar.HyphenatedKeywords.Contains(text[start..end])) break;
+            i = end;
+        }
+        return i;
+    }
+
+    private static int ScanNumber(string text, int i, out double value)
+    {
+        var start = i;
+        while (i < text.Length && (char.IsAsciiDigit(text[i]) || text[i] == '_')) i++;
+        if (i < text.Length && text[i] == '.')
+        {
+            i++;
+            while (i < text.Length && (char.IsAsciiDigit(text[i]) || text[i] == '_')) i++;
+        }
+        if (i < text.Length && text[i] is 'e' or 'E')
+        {
+            var j = i + 1;
+            if (j < text.Length && text[j] is '+' or '-') j++;
+            if (j < text.Length && char.IsAsciiDigit(text[j]))
+            {
+                i = j;
+                while (i < text.Length && char.IsAsciiDigit(text[i])) i++;
+            }
+        }
+        var digits = text[start..i].Replace("_", "");
+        if (!double.TryParse(digits, NumberStyles.Float, CultureInfo.InvariantCulture, out value)) value = double.NaN;
+        return i;
+    }
+
+    /// <summary>A backslash continues the line when only spaces stand between it and the line break.</summary>
+    private static bool IsContinuation(string text, int i, out int end)
+    {
+        end = i + 1;
+        while (end < text.Length && text[end] is ' ' or '\t') end++;
+        if (end >= text.Length) return true;
+        if (text[end] == '\r') end += end + 1 < text.Length && text[end + 1] == '\n' ? 2 : 1;
+        else if (text[end] == '\n') end++;
+        else return false;
+        return true;
+    }
+}

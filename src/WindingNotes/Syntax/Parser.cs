@@ -1,0 +1,107 @@
+using System.Collections.Immutable;
+using Pidgin;
+using WindingNotes.Text;
+
+namespace WindingNotes.Syntax;
+
+/// <summary>
+/// Parses a document one logical line at a time. A line that fails becomes an error with its
+/// range and what was expected, and parsing goes on with the next line: one mistake spoils one line.
+/// </summary>
+public static class Parser
+{
+    public static SyntaxTree Parse(string text)
+    {
+        var source = new SourceText(text);
+        var diagnostics = new DiagnosticBag();
+        var lines = ImmutableArray.CreateBuilder<LineSyntax>();
+        var tokens = Lexer.Lex(text);
+        var start = 0;
+        for (var i = 0; i <= tokens.Count; i++)
+        {
+            if (i < tokens.Count && tokens[i].Kind != TokenKind.Newline) continue;
+            var end = Math.Min(i + 1, tokens.Count);
+            if (end > start || lines.Count == 0 || i == tokens.Count && start < tokens.Count)
+                lines.Add(ParseLine(lines.Count, tokens.GetRange(start, end - start), diagnostics));
+            start = end;
+        }
+        if (lines.Count == 0 || tokens is [.., { Kind: TokenKind.Newline }])
+            lines.Add(ParseLine(lines.Count, [], diagnostics, text.Length));
+        return new SyntaxTree(source, lines.ToImmutable(), diagnostics.ToImmutable());
+    }
+
+    private static LineSyntax ParseLine(int index, List<Token> tokens, DiagnosticBag diagnostics, int? emptyAt = null)
+    {
+        var content = tokens.Where(t => t.Kind != TokenKind.Newline).ToList();
+        var span = content.Count == 0
+            ? new TextSpan(emptyAt ?? tokens.FirstOrDefault()?.Span.Start ?? 0, 0)
+            : TextSpan.FromBounds(content[0].Span.Start, content[^1].Span.End);
+        var significant = tokens.Where(t => !t.IsTrivia).ToArray();
+        var all = tokens.ToImmutableArray();
+        if (significant.Length == 0) return new LineSyntax(index, span, all, null, null);
+
+        var keyword = significant[0];
+        if (!(keyword.Kind == TokenKind.Word && Grammar.ByKeyword.TryGetValue(keyword.Text, out var form)))
+        {
+            var error = diagnostics.ReportUnknownStatement(keyword);
+            return new LineSyntax(index, span, all, null, error);
+        }
+
+        var rest = significant.AsSpan(1);
+        var result = StatementParsers.ByKind[form.Kind].Parse(rest);
+        if (!result.Success)
+        {
+            var error = ReportParseError(diagnostics, result.Error!, rest, keyword);
+            return new LineSyntax(index, span, all, null, error);
+        }
+
+        var (head, clauses) = result.Value;
+        var statement = new StatementSyntax(form, keyword, head, clauses);
+        CheckClauses(statement, diagnostics);
+        return new LineSyntax(index, span, all, statement, null);
+    }
+
+    private static Diagnostic ReportParseError(DiagnosticBag diagnostics, ParseError<Token> error, ReadOnlySpan<Token> tokens, Token keyword)
+    {
+        var expected = error.Expected
+            .Select(e => e.IsEof ? "end of line" : e.Label ?? string.Join(" ", e.Tokens.Select(t => $"'{t.Text}'")))
+            .Where(label => label.Length > 0)
+            .Distinct()
+            .ToList();
+        var offset = Math.Min(error.ErrorOffset, tokens.Length);
+        if (offset < tokens.Length)
+        {
+            var found = tokens[offset];
+            var words = expected.Where(e => e.StartsWith('\'')).Select(e => e.Trim('\''));
+            var suggestion = found.Kind == TokenKind.Word ? Spelling.Nearest(found.Text, words) : null;
+            return diagnostics.ReportUnexpected(found, expected, suggestion);
+        }
+        var last = tokens.Length > 0 ? tokens[^1] : keyword;
+        return diagnostics.ReportUnexpectedEnd(last, expected);
+    }
+
+    /// <summary>Clauses once each, groups exclusive, required clauses and groups present.</summary>
+    private static void CheckClauses(StatementSyntax statement, DiagnosticBag diagnostics)
+    {
+        var seen = new Dictionary<string, ClauseSyntax>();
+        var groups = new Dictionary<string, ClauseSyntax>();
+        foreach (var clause in statement.Clauses)
+        {
+            var form = clause.Form!;
+            if (seen.TryGetValue(form.Keyword, out var first))
+                diagnostics.ReportDuplicateClause(clause.Keyword!, first.Keyword!);
+            else if (form.Group is not null && groups.TryGetValue(form.Group, out var other))
+                diagnostics.ReportExclusiveClauses(clause.Keyword!, other.Keyword!);
+            seen.TryAdd(form.Keyword, clause);
+            if (form.Group is not null) groups.TryAdd(form.Group, clause);
+        }
+        foreach (var form in statement.Form.Clauses.Where(c => c.Required && !seen.ContainsKey(c.Keyword)))
+            diagnostics.ReportMissingClause(statement, form.Keyword);
+        foreach (var group in statement.Form.RequiredGroups ?? [])
+        {
+            if (groups.ContainsKey(group)) continue;
+            var choices = statement.Form.Clauses.Where(c => c.Group == group).Select(c => c.Keyword).ToList();
+            diagnostics.ReportMissingGroup(statement, group, choices);
+        }
+    }
+}

@@ -1,0 +1,97 @@
+using System.Collections.Immutable;
+using WindingNotes.Text;
+
+namespace WindingNotes.Syntax;
+
+/// <summary>One element of a clause, as the statement's form laid it out.</summary>
+public abstract record ElementSyntax
+{
+    public abstract TextSpan Span { get; }
+}
+
+/// <summary>A name. Where a section may stand, <c>HV:H1-T60</c> names the part of HV between H1 and T60.</summary>
+public sealed record NameSyntax(Token Name, NameRole Role, Token? SectionFrom = null, Token? SectionTo = null) : ElementSyntax
+{
+    public override TextSpan Span => SectionTo is null ? Name.Span : Name.Span.Cover(SectionTo.Span);
+
+    public string Text => Name.Text;
+}
+
+/// <summary>A fixed word of the form, or one of a choice.</summary>
+public sealed record WordSyntax(Token Word) : ElementSyntax
+{
+    public override TextSpan Span => Word.Span;
+
+    public string Text => Word.Text;
+}
+
+/// <summary>A value: an expression, an optional polar angle, an optional tolerance.</summary>
+public sealed record ValueSyntax(ExpressionSyntax Expression, ExpressionSyntax? Angle, Token? PlusMinus, ExpressionSyntax? Tolerance) : ElementSyntax
+{
+    public override TextSpan Span => (Tolerance ?? Angle ?? Expression).Span.Cover(Expression.Span);
+
+    /// <summary>The value without its tolerance.</summary>
+    public TextSpan NominalSpan => (Angle ?? Expression).Span.Cover(Expression.Span);
+}
+
+/// <summary>A clause: its keyword (none for a statement's head) and its elements in order.</summary>
+public sealed record ClauseSyntax(ClauseForm? Form, Token? Keyword, ImmutableArray<ElementSyntax> Elements)
+{
+    public TextSpan Span
+    {
+        get
+        {
+            var span = Keyword?.Span ?? (Elements.IsEmpty ? default : Elements[0].Span);
+            return Elements.IsEmpty ? span : span.Cover(Elements[^1].Span);
+        }
+    }
+
+    public IEnumerable<NameSyntax> Names => Elements.OfType<NameSyntax>();
+
+    public IEnumerable<ValueSyntax> Values => Elements.OfType<ValueSyntax>();
+
+    public NameSyntax? Name(int index) => Names.ElementAtOrDefault(index);
+
+    public ValueSyntax? Value(int index = 0) => Values.ElementAtOrDefault(index);
+
+    /// <summary>The word chosen where the form offers a choice or an optional word.</summary>
+    public WordSyntax? Word(Func<string, bool> predicate) => Elements.OfType<WordSyntax>().FirstOrDefault(w => predicate(w.Text));
+}
+
+/// <summary>A parsed statement: its form, its keyword, its head and its clauses in the order written.</summary>
+public sealed record StatementSyntax(StatementForm Form, Token Keyword, ClauseSyntax Head, ImmutableArray<ClauseSyntax> Clauses)
+{
+    public StatementKind Kind => Form.Kind;
+
+    public TextSpan Span => Clauses.IsEmpty ? Keyword.Span.Cover(Head.Span) : Keyword.Span.Cover(Clauses[^1].Span);
+
+    public ClauseSyntax? Clause(string keyword) => Clauses.FirstOrDefault(c => c.Keyword?.Text == keyword);
+
+    public ValueSyntax? Value(string keyword) => Clause(keyword)?.Value();
+
+    /// <summary>Every name in the statement, in the order written.</summary>
+    public IEnumerable<NameSyntax> AllNames => Head.Names.Concat(Clauses.SelectMany(c => c.Names));
+}
+
+/// <summary>
+/// A logical line: physical lines joined by continuations. It holds every token, trivia
+/// included, so the line prints back to its exact text, and either a statement, or an error,
+/// or nothing (a blank or comment-only line).
+/// </summary>
+public sealed record LineSyntax(int Index, TextSpan Span, ImmutableArray<Token> Tokens, StatementSyntax? Statement, Diagnostic? Error)
+{
+    public Token? Comment => Tokens.FirstOrDefault(t => t.Kind == TokenKind.Comment);
+
+    public IEnumerable<Token> Significant => Tokens.Where(t => !t.IsTrivia);
+
+    public bool IsBlank => Statement is null && Error is null && Comment is null;
+}
+
+/// <summary>A parsed document: its text and its logical lines. Parsing never fails.</summary>
+public sealed record SyntaxTree(SourceText Text, ImmutableArray<LineSyntax> Lines, ImmutableArray<Diagnostic> Diagnostics)
+{
+    public IEnumerable<StatementSyntax> Statements => Lines.Select(l => l.Statement).OfType<StatementSyntax>();
+
+    /// <summary>The tokens printed back; equal to the text it was parsed from.</summary>
+    public string ToFullString() => string.Concat(Lines.SelectMany(l => l.Tokens).Select(t => t.Text));
+}

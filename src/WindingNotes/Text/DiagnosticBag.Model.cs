@@ -1,0 +1,126 @@
+using WindingNotes.Model;
+using WindingNotes.Syntax;
+
+namespace WindingNotes.Text;
+
+// Messages of the binding stage: names, units, dimensions and the network they describe.
+public sealed partial class DiagnosticBag
+{
+    public Diagnostic ReportUnknownUnit(Token unit, string? suggestion, bool isName)
+    {
+        var d = Error("unknown-unit", unit.Span, $"unknown unit '{unit.Text}'");
+        if (isName)
+            return Amend(d, x => x with { Hints = [new DiagnosticHint($"to multiply by '{unit.Text}', write '* {unit.Text}'", unit.Span, $"* {unit.Text}")] });
+        return WithSuggestion(d, suggestion, unit.Span);
+    }
+
+    public Diagnostic ReportWrongDimension(TextSpan span, string expected, Dimension found) =>
+        Error("wrong-dimension", span, $"expected {expected}, found {found.Describe()}");
+
+    public Diagnostic ReportMixedDimensions(Token op, Dimension left, Dimension right) =>
+        Error("mixed-dimensions", op.Span,
+            $"cannot {(op.Text == "+" ? "add" : "subtract")} {right.Describe()} {(op.Text == "+" ? "to" : "from")} {left.Describe()}");
+
+    public Diagnostic ReportToleranceDimension(TextSpan span, Dimension value, Dimension tolerance) =>
+        Error("wrong-dimension", span, $"a tolerance on {value.Describe()} must be in % or in the same unit, found {tolerance.Describe()}");
+
+    public Diagnostic ReportSqrtDimension(TextSpan span, Dimension dimension) =>
+        Error("wrong-dimension", span, $"the square root of {dimension.Describe()} has no unit");
+
+    public Diagnostic ReportDivisionByZero(Token op) => Error("division-by-zero", op.Span, "division by zero");
+
+    public Diagnostic ReportOutOfRange(TextSpan span) => Error("out-of-range", span, "the value is out of range");
+
+    public Diagnostic ReportTooDeep(TextSpan span) =>
+        Error("too-deep", span, $"the expression nests deeper than {ValueEvaluator.MaxDepth} levels");
+
+    public Diagnostic ReportAngleWithoutUnit(TextSpan span) =>
+        Warning("angle-unit", span, "an angle without a unit is read as degrees; write 'deg' or 'rad'");
+
+    public Diagnostic ReportOutOfBounds(TextSpan span, string what, string bounds) =>
+        Error("out-of-bounds", span, $"{what} must be {bounds}");
+
+    public Diagnostic ReportUnknownName(Token name, string kind, string? suggestion) =>
+        WithSuggestion(Error("unknown-name", name.Span, $"unknown {kind} '{name.Text}'"), suggestion, name.Span);
+
+    public Diagnostic ReportLetUsedEarly(Token name, TextSpan definition) =>
+        Amend(Error("used-before-let", name.Span, $"'{name.Text}' is used before its let; a let can use only the lets above it"),
+            d => d with { Related = [new RelatedSpan("defined here", definition)] });
+
+    public Diagnostic ReportWrongKind(Token name, string found, string expected) =>
+        Error("wrong-kind", name.Span, $"'{name.Text}' is {found}, not {expected}");
+
+    public Diagnostic ReportDuplicateName(Token second, TextSpan first, string kind) =>
+        Amend(Error("duplicate-name", second.Span, $"'{second.Text}' is already defined as {kind}"),
+            d => d with { Related = [new RelatedSpan("first defined here", first)] });
+
+    public Diagnostic ReportDuplicateStatement(Token keyword, TextSpan first) =>
+        Amend(Error("duplicate-statement", keyword.Span, $"'{keyword.Text}' is given twice"),
+            d => d with { Related = [new RelatedSpan("first given here", first)] });
+
+    public Diagnostic ReportLonelyNode(TextSpan span, string name, string? suggestion) =>
+        WithSuggestion(Warning("lonely-node", span, $"node '{name}' connects nothing else"), suggestion, span);
+
+    public Diagnostic ReportNoFrequency(TextSpan span) =>
+        Info("default-frequency", span, "no 'frequency' line: 50 Hz is assumed");
+
+    public Diagnostic ReportNoTurnsOrVoltage(Token name) =>
+        Error("winding-size", name.Span, $"winding '{name.Text}' needs 'turns', 'rated' or both");
+
+    public Diagnostic ReportVoltsPerTurnMismatch(TextSpan span, string name, double perTurn, string other, double otherPerTurn) =>
+        Warning("volts-per-turn", span,
+            $"winding '{name}' has {Numbers.Format(perTurn, "V")}/turn but '{other}' on the same core has {Numbers.Format(otherPerTurn, "V")}/turn");
+
+    public Diagnostic ReportTapOutside(TextSpan span, string tap, double turns, double total) =>
+        Error("tap-outside", span, $"'{tap}' is at {Numbers.Plain(turns)} turns, outside the winding's 0 to {Numbers.Plain(total)}");
+
+    public Diagnostic ReportTapNeedsRating(TextSpan span, string winding) =>
+        Error("tap-position", span, $"a tap in volts needs the rated voltage of '{winding}'");
+
+    public Diagnostic ReportSameWinding(TextSpan span) =>
+        Error("same-winding", span, "an impedance needs two different windings or sections");
+
+    public Diagnostic ReportDifferentCores(TextSpan span, string a, string b) =>
+        Error("different-cores", span, $"'{a}' and '{b}' are on different cores; leakage impedance links windings of one core");
+
+    public Diagnostic ReportDuplicatePair(TextSpan span, string a, string b, TextSpan first) =>
+        Amend(Error("duplicate-impedance", span, $"the impedance between '{a}' and '{b}' is given twice"),
+            d => d with { Related = [new RelatedSpan("first given here", first)] });
+
+    public Diagnostic ReportPercentNeedsRating(TextSpan span, string core) =>
+        Error("needs-rating", span, $"an impedance in % or pu needs the rating of core '{core}' and the first winding's rated voltage");
+
+    public Diagnostic ReportResistanceMismatch(TextSpan span, double fromLine, double fromWindings) =>
+        Warning("resistance-mismatch", span,
+            $"this impedance implies {Numbers.Format(fromLine, "ohm")} of resistance but the windings' resistances give {Numbers.Format(fromWindings, "ohm")} (referred to the first winding)");
+
+    public Diagnostic ReportPowerFactor(TextSpan span) => Error("out-of-bounds", span, "a power factor must be above 0 and at most 1");
+
+    public Diagnostic ReportSupplyShorted(TextSpan span, string name, string a, string b) =>
+        Error("supply-shorted", span, $"supply '{name}' is shorted: '{a}' and '{b}' are one node");
+
+    public Diagnostic ReportNoGround(TextSpan span, string reference, IEnumerable<string> members) =>
+        Warning("no-ground", span,
+            $"no ground in the part with {string.Join(", ", members.Take(4).Select(m => $"'{m}'"))}{(members.Count() > 4 ? ", …" : "")}: voltages are given against '{reference}'");
+
+}
+
+// Messages of the network builder.
+public sealed partial class DiagnosticBag
+{
+    public Diagnostic ReportRatioUnknown(TextSpan span, string winding) =>
+        Error("ratio-unknown", span, $"the turns ratio of '{winding}' to the other windings on its core is unknown: give 'turns' and 'rated' together on one winding of the core");
+
+    public Diagnostic ReportNoLoadNeedsRating(TextSpan span, string winding) =>
+        Error("needs-rating", span, $"a no-load current in % needs the rated current of '{winding}'");
+
+    public Diagnostic ReportNoLoadInconsistent(TextSpan span) =>
+        Error("no-load-inconsistent", span, "the no-load loss is more than the no-load current can carry at this voltage (P > V·I)");
+
+    public Diagnostic ReportResistanceExceedsImpedance(TextSpan span, double resistance, double impedance) =>
+        Error("resistance-exceeds-impedance", span,
+            $"the windings' resistances ({Numbers.Format(resistance, "ohm")} referred) exceed this impedance ({Numbers.Format(impedance, "ohm")})");
+
+    public Diagnostic ReportNotEvaluated(TextSpan span, string what) =>
+        Info("not-evaluated", span, $"{what} is read but not evaluated yet");
+}

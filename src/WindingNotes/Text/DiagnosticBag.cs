@@ -1,0 +1,54 @@
+using System.Collections;
+using System.Collections.Immutable;
+
+namespace WindingNotes.Text;
+
+/// <summary>
+/// Collects diagnostics. The wording of every message lives in the partial files beside this one,
+/// one <c>ReportX</c> method a message, grouped by the stage that reports it.
+/// </summary>
+public sealed partial class DiagnosticBag : IEnumerable<Diagnostic>
+{
+    private readonly List<Diagnostic> items = [];
+
+    public int Count => items.Count;
+
+    public bool HasErrors => items.Exists(d => d.IsError);
+
+    public void Add(Diagnostic diagnostic) => items.Add(diagnostic);
+
+    public void AddRange(IEnumerable<Diagnostic> diagnostics) => items.AddRange(diagnostics);
+
+    public ImmutableArray<Diagnostic> ToImmutable() => [.. items];
+
+    public IEnumerator<Diagnostic> GetEnumerator() => items.GetEnumerator();
+
+    IEnumerator IEnumerable.GetEnumerator() => GetEnumerator();
+
+    private Diagnostic Error(string code, TextSpan span, string message) => Put(Severity.Error, code, span, message);
+
+    private Diagnostic Warning(string code, TextSpan span, string message) => Put(Severity.Warning, code, span, message);
+
+    private Diagnostic Info(string code, TextSpan span, string message) => Put(Severity.Information, code, span, message);
+
+    private Diagnostic Put(Severity severity, string code, TextSpan span, string message)
+    {
+        var diagnostic = new Diagnostic(severity, code, message, span);
+        items.Add(diagnostic);
+        return diagnostic;
+    }
+
+    /// <summary>Replaces the last diagnostic with a copy (to attach hints or related spans).</summary>
+    private Diagnostic Amend(Diagnostic diagnostic, Func<Diagnostic, Diagnostic> change)
+    {
+        var index = items.LastIndexOf(diagnostic);
+        var changed = change(diagnostic);
+        items[index] = changed;
+        return changed;
+    }
+
+    private Diagnostic WithSuggestion(Diagnostic diagnostic, string? suggestion, TextSpan span) =>
+        suggestion is null
+            ? diagnostic
+            : Amend(diagnostic, d => d with { Hints = [new DiagnosticHint($"did you mean '{suggestion}'?", span, suggestion)] });
+}

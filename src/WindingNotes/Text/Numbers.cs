@@ -1,0 +1,70 @@
+using System.Globalization;
+
+namespace WindingNotes.Text;
+
+/// <summary>
+/// Formats numbers the one way every report and message uses: engineering notation (an SI prefix,
+/// exponent a multiple of three) with a fixed number of significant figures, culture-free.
+/// </summary>
+public static class Numbers
+{
+    public const int Figures = 4;
+
+    private static readonly string[] Prefixes = ["p", "n", "µ", "m", "", "k", "M", "G", "T"];
+
+    // Units written without a prefix.
+    private static readonly HashSet<string> Unprefixed = ["%", "deg", "pu", "turns", "degC", "", "x"];
+
+    /// <summary>"228.1 V", "3.207 kW", "17.11 mA", "82.10 %".</summary>
+    public static string Format(double value, string unit, int figures = Figures)
+    {
+        if (Unprefixed.Contains(unit)) return Join(Fixed(value, figures), unit);
+        if (value == 0 || !double.IsFinite(value)) return Join(Fixed(value, figures), unit);
+        var exponent = (int)Math.Floor(Math.Log10(Math.Abs(value)));
+        var group = (int)Math.Floor(exponent / 3.0);
+        var mantissa = value / Math.Pow(10, 3 * group);
+        // Rounding can carry into the next group: 999.96 with four figures is 1.000 k.
+        if (Math.Abs(Math.Round(mantissa, Math.Max(0, figures - 1 - (exponent - 3 * group)))) >= 1000)
+        {
+            group++;
+            mantissa /= 1000;
+        }
+        group = Math.Clamp(group, -4, 4);
+        mantissa = value / Math.Pow(10, 3 * group);
+        var prefix = Prefixes[group + 4];
+        return Join(Fixed(mantissa, figures), prefix + unit);
+    }
+
+    /// <summary>A number with the given significant figures and no prefix, trailing zeros kept.</summary>
+    public static string Fixed(double value, int figures = Figures)
+    {
+        if (!double.IsFinite(value)) return value.ToString(CultureInfo.InvariantCulture);
+        if (value == 0) return 0.0.ToString("F" + (figures - 1), CultureInfo.InvariantCulture);
+        var magnitude = Math.Abs(value);
+        if (magnitude >= 1e9 || magnitude < 1e-9) return value.ToString("E" + (figures - 1), CultureInfo.InvariantCulture);
+        var exponent = (int)Math.Floor(Math.Log10(magnitude));
+        var decimals = Math.Max(0, figures - 1 - exponent);
+        var rounded = Math.Round(value, Math.Min(decimals, 15));
+        if (rounded != 0 && (int)Math.Floor(Math.Log10(Math.Abs(rounded))) > exponent) decimals = Math.Max(0, decimals - 1);
+        return rounded.ToString("F" + decimals, CultureInfo.InvariantCulture);
+    }
+
+    /// <summary>A number for a sentence: significant figures, trailing zeros dropped.</summary>
+    public static string Plain(double value, int figures = Figures)
+    {
+        var text = Fixed(value, figures);
+        if (text.Contains('.') && !text.Contains('E')) text = text.TrimEnd('0').TrimEnd('.');
+        return text == "-0" ? "0" : text;
+    }
+
+    /// <summary>A number as JSON writes it: ten significant figures, round-trip safe, no exponent for ordinary sizes.</summary>
+    public static string Json(double value)
+    {
+        if (!double.IsFinite(value)) return "null";
+        if (value == 0) return "0";
+        var text = value.ToString("G10", CultureInfo.InvariantCulture);
+        return text.Contains('E') ? text.Replace("E+", "e").Replace("E-", "e-") : text;
+    }
+
+    private static string Join(string number, string unit) => unit.Length == 0 ? number : $"{number} {unit}";
+}
