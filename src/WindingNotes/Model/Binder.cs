@@ -38,8 +38,8 @@ internal sealed partial class BindRun
     {
         var statements = tree.Statements.ToList();
         foreach (var statement in statements) Declare(statement);
-        foreach (var statement in statements.Where(s => s.Kind == StatementKind.Let)) BindLet(statement);
-        foreach (var statement in statements.Where(s => s.Kind != StatementKind.Let)) Bind(statement);
+        foreach (var statement in statements.Where(s => s.Kind == StatementKind.Let && !rejected.Contains(s))) BindLet(statement);
+        foreach (var statement in statements.Where(s => s.Kind != StatementKind.Let && !rejected.Contains(s))) Bind(statement);
         if (!statements.Any(s => s.Kind == StatementKind.Frequency) && statements.Count > 0)
             diagnostics.ReportNoFrequency(tree.Lines[0].Span);
         CheckLonelyNodes();
@@ -53,6 +53,7 @@ internal sealed partial class BindRun
         {
             Points = points,
             Tolerances = [.. evaluator.Tolerances],
+            Lets = lets.ToImmutableDictionary(),
             Diagnostics = [.. tree.Diagnostics, .. diagnostics],
         };
     }
@@ -68,10 +69,14 @@ internal sealed partial class BindRun
         foreach (var name in statement.AllNames.Where(n => n.Role.Defines))
         {
             var symbol = new Symbol(name.Text, name.Role.Kinds[0], name.Name.Span, statement.Span, owner);
-            if (!symbols.TryDefine(symbol, out var existing))
-                diagnostics.ReportDuplicateName(name.Name, existing.Span, existing.Describe());
+            if (symbols.TryDefine(symbol, out var existing)) continue;
+            diagnostics.ReportDuplicateName(name.Name, existing.Span, existing.Describe());
+            rejected.Add(statement);
         }
     }
+
+    /// <summary>Statements that define a name already taken; they are reported once and not bound.</summary>
+    private readonly HashSet<StatementSyntax> rejected = [];
 
     // ---- names ----
 

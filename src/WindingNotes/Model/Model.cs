@@ -137,6 +137,9 @@ public sealed record Model(SyntaxTree Syntax, SymbolTable Symbols, ImmutableArra
     public ImmutableArray<ExpectModel> Expects { get; init; } = [];
     public ImmutableArray<ToleranceSite> Tolerances { get; init; } = [];
 
+    /// <summary>The value of every let that evaluated.</summary>
+    public ImmutableDictionary<string, Quantity> Lets { get; init; } = ImmutableDictionary<string, Quantity>.Empty;
+
     /// <summary>Every connection point in the order the document first names it.</summary>
     public ImmutableArray<Symbol> Points { get; init; } = [];
 

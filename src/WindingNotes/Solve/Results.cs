@@ -69,7 +69,7 @@ public static class Results
         {
             var v = solution.SupplyVoltage(s);
             var i = solution.SupplyCurrents[s.Index];
-            return new SupplyResult(s, v, i, v * Complex.Conjugate(i));
+            return new SupplyResult(s, v, i, Clean(v * Complex.Conjugate(i)));
         }).ToImmutableArray();
 
         var loads = network.Loads.Select(l =>
@@ -77,7 +77,7 @@ public static class Results
             var v = solution.LoadVoltage(l);
             var i = solution.LoadCurrents[l.Index];
             double? regulation = noLoad is not null && v.Magnitude > 0 ? (noLoad.LoadVoltage(l).Magnitude - v.Magnitude) / v.Magnitude : null;
-            return new LoadResult(l, v, i, v * Complex.Conjugate(i), regulation);
+            return new LoadResult(l, v, i, Clean(v * Complex.Conjugate(i)), regulation);
         }).ToImmutableArray();
 
         var supplied = supplies.Sum(s => s.Power.Real);
@@ -89,6 +89,13 @@ public static class Results
             loads.Sum(l => l.Power.Magnitude),
             sections.Sum(s => s.Apparent) / 2);
         return new CaseResult(solution.Case, solution, points, sections, cores, supplies, loads, totals);
+    }
+
+    /// <summary>A product of phasors carries rounding of 1e-16 of its size; a part that small is zero.</summary>
+    private static Complex Clean(Complex s)
+    {
+        var limit = 1e-12 * s.Magnitude;
+        return new Complex(Math.Abs(s.Real) <= limit ? 0 : s.Real, Math.Abs(s.Imaginary) <= limit ? 0 : s.Imaginary);
     }
 
     /// <summary>Copper loss of a section: the real power into its resistance, Re(I*·R·I) with R the diagonal of its impedance.</summary>

@@ -18,11 +18,22 @@ internal static class StatementParsers
     private static Parser<Token, (ClauseSyntax, ImmutableArray<ClauseSyntax>)> Build(StatementForm form)
     {
         var head = Sequence(form.Head).Select(elements => new ClauseSyntax(null, null, elements));
-        var clauses = form.Clauses.Length == 0
+        return Map((h, c) => (h, c), head, ClausesToEnd(form));
+    }
+
+    /// <summary>
+    /// Clauses until the end of the line, each step one alternative among the clauses and the end,
+    /// so that a stray word is reported against all of them ("expected 'turns', 'rated' … or end of line").
+    /// </summary>
+    private static Parser<Token, ImmutableArray<ClauseSyntax>> ClausesToEnd(StatementForm form)
+    {
+        var end = Parser<Token>.End.Labelled("end of line").Select(_ => (ClauseSyntax?)null);
+        var step = OneOf(form.Clauses.Select(c => BuildClause(c).Select(x => (ClauseSyntax?)x)).Append(end));
+        Parser<Token, ImmutableArray<ClauseSyntax>>? list = null;
+        list = step.Then(clause => clause is null
             ? Parser<Token>.Return(ImmutableArray<ClauseSyntax>.Empty)
-            : OneOf(form.Clauses.Select(BuildClause)).Many().Select(c => c.ToImmutableArray());
-        var end = Parser<Token>.End.Labelled("end of line");
-        return Map((h, c, _) => (h, c), head, clauses, end);
+            : Rec(() => list!).Select(rest => rest.Insert(0, clause)));
+        return list;
     }
 
     private static Parser<Token, ClauseSyntax> BuildClause(ClauseForm form) =>
@@ -40,7 +51,7 @@ internal static class StatementParsers
     {
         NamePart n => NameParser(n.Role).Select(e => (IEnumerable<ElementSyntax>)[e]),
         NameListPart n => NameParser(n.Role).AtLeastOnce().Select(e => e.Cast<ElementSyntax>()),
-        ValuePart v => ValueParser.Value.Labelled(v.Label).Select(e => (IEnumerable<ElementSyntax>)[e]),
+        ValuePart v => ValueParser.LabelledValue(v.Label).Select(e => (IEnumerable<ElementSyntax>)[e]),
         WordPart w => WordParser(w.Word, $"'{w.Word}'").Select(e => (IEnumerable<ElementSyntax>)[e]),
         ChoicePart c => OneOf(c.Words.Select(w => WordParser(w, c.Label))).Labelled(c.Label).Select(e => (IEnumerable<ElementSyntax>)[e]),
         OptionalPart o => Sequence(o.Parts).Optional().Select(e => e.HasValue ? (IEnumerable<ElementSyntax>)e.Value : []),

@@ -43,24 +43,38 @@ internal static class ValueParser
         Parser<Token>.Token(t => t.Kind == TokenKind.Word && !Grammar.Keywords.Contains(t.Text)),
         Try(Keyword("turns").Before(Not(NumberToken)))).Labelled("a unit");
 
+    /// <summary>
+    /// What may follow a number that has no unit. Written as an alternative to the unit, not as an
+    /// optional unit, so that a stray token is reported as "expected a unit, …" and not as a character.
+    /// </summary>
+    private static readonly Parser<Token, Unit> NoUnit = Lookahead(OneOf(
+        Parser<Token>.Token(t => t.Kind == TokenKind.Symbol && t.Text is "+" or "-" or "*" or "/" or ")").Labelled("an operator"),
+        Parser<Token>.Token(t => t.Kind == TokenKind.PlusMinus).Labelled("'+-'"),
+        Parser<Token>.Token(t => t.Kind == TokenKind.Word && Grammar.Keywords.Contains(t.Text)).Labelled("a keyword"),
+        Parser<Token>.End.Select(_ => (Token)null!).Labelled("end of line"))).Select(_ => Pidgin.Unit.Value);
+
+    private static Parser<Token, Token?> UnitOrNothing =>
+        OneOf(Unit.Select(t => (Token?)t), NoUnit.Select(_ => (Token?)null));
+
     private static readonly Parser<Token, ExpressionSyntax> NumberLiteral =
-        Map((n, u) => (ExpressionSyntax)new NumberSyntax(n, u.GetValueOrDefault()), NumberToken, Unit.Optional());
+        Map((n, u) => (ExpressionSyntax)new NumberSyntax(n, u), NumberToken, UnitOrNothing);
 
     private static readonly Parser<Token, ImaginarySyntax> ImaginaryLiteral =
-        Map((n, u) => new ImaginarySyntax(n, u.GetValueOrDefault()),
-            Parser<Token>.Token(t => t.Kind == TokenKind.Imaginary).Labelled("an imaginary number"), Unit.Optional());
+        Map((n, u) => new ImaginarySyntax(n, u),
+            Parser<Token>.Token(t => t.Kind == TokenKind.Imaginary).Labelled("an imaginary number"), UnitOrNothing);
 
     public static readonly Parser<Token, ExpressionSyntax> Expression = ExpressionParser.Build<Token, ExpressionSyntax>(
         expression => (
-            OneOf(
+            // Labelled by a look at the first token only: a label on the whole would also replace
+            // what a half-read literal expected ("a unit") with "a value".
+            Lookahead(Parser<Token>.Token(CanStartValue)).Labelled("a value").Then(OneOf(
                 NumberLiteral,
                 ImaginaryLiteral.Cast<ExpressionSyntax>(),
                 Map((f, open, arg, close) => (ExpressionSyntax)new CallSyntax(f, arg, f.Span.Cover(close.Span)),
                     Keyword("sqrt"), Symbol("("), expression, Symbol(")")),
                 Name.Select(n => (ExpressionSyntax)new NameSyntaxExpression(n)),
                 Map((open, inner, close) => (ExpressionSyntax)new ParenthesisedSyntax(inner, open.Span.Cover(close.Span)),
-                    Symbol("("), expression, Symbol(")"))
-            ).Labelled("a value"),
+                    Symbol("("), expression, Symbol(")")))),
             [
                 Operator.PrefixChainable(
                     Symbol("-").Select<Func<ExpressionSyntax, ExpressionSyntax>>(op => e => new UnarySyntax(op, e)),
@@ -68,6 +82,18 @@ internal static class ValueParser
                 Operator.InfixL(OneOf(Binary("*"), Binary("/"))),
                 Operator.InfixL(OneOf(Additive("+"), Additive("-"))),
             ]));
+
+    /// <summary>
+    /// A value described by its place ("expected a frequency") when nothing of it is there; once it
+    /// has begun, errors inside it say what the value itself expected ("expected a unit").
+    /// </summary>
+    public static Parser<Token, ValueSyntax> LabelledValue(string label) =>
+        Lookahead(Parser<Token>.Token(CanStartValue)).Labelled(label).Then(Value);
+
+    private static bool CanStartValue(Token t) =>
+        t.Kind is TokenKind.Number or TokenKind.Imaginary
+        || (t.Kind == TokenKind.Symbol && t.Text is "(" or "-" or "+")
+        || t.IsWord("sqrt") || IsName(t);
 
     public static readonly Parser<Token, ValueSyntax> Value = Map(
         (e, angle, tolerance) => new ValueSyntax(

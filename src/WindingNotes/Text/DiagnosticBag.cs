@@ -4,8 +4,8 @@ using System.Collections.Immutable;
 namespace WindingNotes.Text;
 
 /// <summary>
-/// Collects diagnostics. The wording of every message lives in the partial files beside this one,
-/// one <c>ReportX</c> method a message, grouped by the stage that reports it.
+/// Collects diagnostics. The wording of every message lives in a <c>Messages.cs</c> of the stage that
+/// reports it (Syntax/, Model/, Solve/), one <c>ReportX</c> method a message, all in this one class.
 /// </summary>
 public sealed partial class DiagnosticBag : IEnumerable<Diagnostic>
 {

@@ -32,7 +32,38 @@ public sealed record Evaluation(
 /// <summary>The pipeline: text → syntax → model → network → solutions → results and checks.</summary>
 public static class Evaluator
 {
+    /// <summary>
+    /// Never throws but for cancellation: a fault of the tool itself becomes an error diagnostic, so
+    /// the editor and the command line stay up and say what happened.
+    /// </summary>
     public static Evaluation Evaluate(string text, string path = "", CancellationToken cancel = default)
+    {
+        try
+        {
+            return Run(text, path, cancel);
+        }
+        catch (Exception e) when (e is not OperationCanceledException)
+        {
+            var syntax = SafeParse(text);
+            var diagnostics = new DiagnosticBag();
+            diagnostics.ReportInternalError(e);
+            return Finish(path, syntax, new Model.Model(syntax, new SymbolTable(), []), null, [], [], diagnostics);
+        }
+    }
+
+    private static SyntaxTree SafeParse(string text)
+    {
+        try
+        {
+            return Parser.Parse(text);
+        }
+        catch (Exception e) when (e is not OperationCanceledException)
+        {
+            return new SyntaxTree(new SourceText(text), [], []);
+        }
+    }
+
+    private static Evaluation Run(string text, string path, CancellationToken cancel)
     {
         var syntax = Parser.Parse(text);
         cancel.ThrowIfCancellationRequested();

@@ -2,7 +2,7 @@ using WindingNotes.Syntax;
 
 namespace WindingNotes.Text;
 
-// Messages of the syntax stage.
+// Messages of the syntax stage. The class is one; each stage keeps its wording in its own folder.
 public sealed partial class DiagnosticBag
 {
     public Diagnostic ReportUnknownStatement(Token token)

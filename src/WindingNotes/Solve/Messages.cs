@@ -2,7 +2,7 @@ using WindingNotes.Model;
 
 namespace WindingNotes.Text;
 
-// Messages of the solver.
+// Messages of the solver and the checks. The class is one; each stage keeps its wording in its own folder.
 public sealed partial class DiagnosticBag
 {
     public Diagnostic ReportSingular(IReadOnlyList<(string Kind, string Name, TextSpan Span)> elements, string prefix)
@@ -32,4 +32,16 @@ public sealed partial class DiagnosticBag
 
     public Diagnostic ReportLoadWithoutVoltage(LoadModel load, string prefix) =>
         Warning("load-without-voltage", load.NameSpan, $"{prefix}load '{load.Name}' has no voltage across it and draws nothing");
+
+    public Diagnostic ReportInternalError(Exception e) =>
+        Error("internal-error", default, $"internal error, please report it: {e.GetType().Name}: {e.Message}");
+
+    public Diagnostic ReportCheckFailed(ExpectModel expect, double value) =>
+        Error("expect-failed", expect.Line, $"{expect.MeasureText} is {Show(value, expect.Unit)}: expected {expect.ConditionText}");
+
+    public Diagnostic ReportCannotCheck(ExpectModel expect, string problem) =>
+        Error("expect-unknown", expect.Line, $"cannot check {expect.MeasureText}: {problem}");
+
+    /// <summary>A measured value in the unit of its check; fractions as percent.</summary>
+    public static string Show(double value, string unit) => unit == "%" ? Numbers.Format(value * 100, "%") : Numbers.Format(value, unit);
 }
