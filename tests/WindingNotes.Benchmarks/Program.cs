@@ -1,0 +1,12 @@
+using BenchmarkDotNet.Running;
+
+namespace WindingNotes.Benchmarks;
+
+/// <summary>
+/// Benchmarks, measured and recorded (RESULTS.md beside this file), never asserted in unit tests.
+/// Run: dotnet run -c Release --project tests/WindingNotes.Benchmarks -- --filter '*'
+/// </summary>
+public static class Program
+{
+    public static void Main(string[] args) => BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
+}
