@@ -4,14 +4,14 @@ using WindingNotes.Workspace;
 
 namespace WindingNotes.Cli;
 
-/// <summary><c>windingnotes report FILE [--format text|json]</c>: the full results.</summary>
+/// <summary><c>windingnotes report FILE [--format text|md|json]</c>: the full results.</summary>
 internal static class ReportCommand
 {
     public static Command Create(ConsoleIo io)
     {
         var file = new Argument<string>("file") { Description = "a calculation file ('-' reads standard input)" };
-        var format = new Option<string>("--format", "-f") { Description = "text or json", DefaultValueFactory = _ => "text" };
-        format.AcceptOnlyFromAmong("text", "json");
+        var format = new Option<string>("--format", "-f") { Description = "text, md (Markdown) or json", DefaultValueFactory = _ => "text" };
+        format.AcceptOnlyFromAmong("text", "md", "json");
         var command = new Command("report", "Evaluate a file and print every result.") { file, format };
         command.SetAction(parsed => Run(io, parsed.GetValue(file)!, parsed.GetValue(format)!));
         return command;
@@ -22,7 +22,12 @@ internal static class ReportCommand
         var text = io.Read(path);
         if (text is null) return Cli.Usage;
         var evaluation = Evaluator.Evaluate(text, ConsoleIo.DisplayName(path));
-        io.Output.Write(format == "json" ? JsonReport.Write(evaluation) : TextReport.Write(evaluation));
+        io.Output.Write(format switch
+        {
+            "json" => JsonReport.Write(evaluation),
+            "md" => MarkdownReport.Write(evaluation),
+            _ => TextReport.Write(evaluation),
+        });
         return evaluation.HasErrors || !evaluation.AllChecksPass ? Cli.Failed : Cli.Ok;
     }
 }

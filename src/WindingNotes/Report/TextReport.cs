@@ -127,10 +127,14 @@ public static class TextReport
     public static string Percent(double fraction) => Numbers.Format(fraction * 100, "%");
 
     /// <summary>P, Q, S and the power factor with its sense.</summary>
-    public static string Powers(Complex s)
+    public static string Powers(Complex s) =>
+        $"P {Numbers.Format(s.Real, "W")}, Q {Numbers.Format(s.Imaginary, "var")}, S {Numbers.Format(s.Magnitude, "VA")}, pf {PowerFactor(s)}";
+
+    /// <summary>"0.8200 lagging": the power factor with its sense (none at unity).</summary>
+    public static string PowerFactor(Complex s)
     {
         var pf = s.Magnitude == 0 ? 1 : Math.Abs(s.Real) / s.Magnitude;
         var sense = s.Imaginary > 1e-9 * s.Magnitude ? " lagging" : s.Imaginary < -1e-9 * s.Magnitude ? " leading" : "";
-        return $"P {Numbers.Format(s.Real, "W")}, Q {Numbers.Format(s.Imaginary, "var")}, S {Numbers.Format(s.Magnitude, "VA")}, pf {Numbers.Fixed(pf)}{sense}";
+        return Numbers.Fixed(pf) + sense;
     }
 }

@@ -45,7 +45,7 @@ public class CliTests
     [Fact]
     public void Report_prints_the_same_bytes_twice()
     {
-        foreach (var format in new[] { "text", "json" })
+        foreach (var format in new[] { "text", "md", "json" })
         {
             var first = Run("", "report", Example("alder-creek-boost.wn"), "--format", format).Out;
             var second = Run("", "report", Example("alder-creek-boost.wn"), "--format", format).Out;

@@ -5,7 +5,7 @@ using Xunit;
 
 namespace WindingNotes.Tests.Report;
 
-/// <summary>Each example's text and JSON reports, kept beside the tests and reviewed in the diff when they change.</summary>
+/// <summary>Each example's text, JSON and Markdown reports, kept beside the tests and reviewed in the diff when they change.</summary>
 public class ExampleSnapshotTests
 {
     public static TheoryData<string> Examples()
@@ -24,5 +24,6 @@ public class ExampleSnapshotTests
         var evaluation = Evaluator.Evaluate(text, $"examples/{name}");
         Snapshot.Match(TextReport.Write(evaluation), $"Data/reports/{Path.GetFileNameWithoutExtension(name)}.txt");
         Snapshot.Match(JsonReport.Write(evaluation), $"Data/reports/{Path.GetFileNameWithoutExtension(name)}.json");
+        Snapshot.Match(MarkdownReport.Write(evaluation), $"Data/reports/{Path.GetFileNameWithoutExtension(name)}.md");
     }
 }

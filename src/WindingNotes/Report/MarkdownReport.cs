@@ -1,0 +1,142 @@
+using System.Numerics;
+using System.Text;
+using WindingNotes.Solve;
+using WindingNotes.Text;
+using WindingNotes.Workspace;
+
+namespace WindingNotes.Report;
+
+/// <summary>
+/// The text report's content as Markdown tables, for a pull request comment or a design record.
+/// Cells are never padded, so a changed value rewrites its own row and no other.
+/// </summary>
+public static class MarkdownReport
+{
+    public static string Write(Evaluation evaluation)
+    {
+        var o = new StringBuilder();
+        o.Append("## Results: ").Append(Code(evaluation.Path.Length == 0 ? "(standard input)" : evaluation.Path)).Append("\n\n");
+        o.Append(Summary(evaluation)).Append('\n');
+        var diagnostics = evaluation.Diagnostics.Where(d => !IsCaution(d)).ToList();
+        if (diagnostics.Count > 0)
+        {
+            o.Append("\n### Diagnostics\n\n");
+            Table(o, 4, ["at", "severity", "code", "message"], diagnostics.Select(d =>
+                new[] { TextReport.Location(evaluation, d), TextReport.Severity(d.Severity), Code(d.Code), d.Message }));
+        }
+        if (evaluation.Cases.IsEmpty) o.Append("\nNo results: the network was not solved.\n");
+        foreach (var c in evaluation.Cases) WriteCase(o, c);
+        WriteChecks(o, evaluation);
+        o.Append("\n### Cautions\n\n");
+        var cautions = evaluation.Diagnostics.Where(IsCaution).ToList();
+        foreach (var d in cautions)
+            o.Append("- line ").Append(TextReport.Location(evaluation, d)).Append(": ").Append(Cell(d.Message)).Append('\n');
+        if (cautions.Count > 0) o.Append('\n');
+        o.Append("> ").Append(Cautions.Judgement).Append('\n');
+        return o.ToString();
+    }
+
+    /// <summary>One line a reviewer reads first: the checks and the count of errors and warnings.</summary>
+    public static string Summary(Evaluation evaluation)
+    {
+        var errors = evaluation.Diagnostics.Count(d => d.IsError);
+        var warnings = evaluation.Diagnostics.Count(d => d.Severity == Severity.Warning);
+        var passed = evaluation.Checks.Count(c => c.Passed);
+        var state = evaluation.Checks.Length == 0 ? "no checks" : $"{passed} of {evaluation.Checks.Length} checks pass";
+        return $"**{state}**; {Count(errors, "error")}, {Count(warnings, "warning")}";
+    }
+
+    private static string Count(int n, string what) => $"{n} {what}{(n == 1 ? "" : "s")}";
+
+    private static bool IsCaution(Diagnostic d) => d.Code.StartsWith("caution");
+
+    private static void WriteCase(StringBuilder o, CaseResult c)
+    {
+        o.Append("\n### Case ").Append(c.Case.Name).Append("\n\n");
+        Table(o, 1, ["node", "voltage", "angle"], c.Points.Select(p => new[] { p.Point, V(p.Voltage.Magnitude, "V"), Angle(p.Voltage) }));
+        o.Append('\n');
+        Table(o, 3, ["section", "from", "to", "turns", "current", "angle", "apparent", "loading", "loss"], c.Sections.Select(s => new[]
+        {
+            s.Section.Name, s.Section.FromPoint, s.Section.ToPoint, Numbers.Plain(s.Section.Turns),
+            V(s.Current.Magnitude, "A"), Angle(s.Current), V(s.Apparent, "VA"),
+            s.Loading is { } l ? TextReport.Percent(l) : "", s.Loss > 0 ? V(s.Loss, "W") : "",
+        }));
+        if (!c.Cores.IsEmpty)
+        {
+            o.Append('\n');
+            Table(o, 1, ["core", "volts per turn", "peak flux", "flux limit", "core loss"], c.Cores.Select(k => new[]
+            {
+                k.Core.Name, k.VoltsPerTurn is { } e ? V(e.Magnitude, "V") : "unknown", k.Flux is { } b ? V(b, "T") : "",
+                k.Core.FluxLimit is { } limit ? V(limit, "T") : "", k.Loss > 0 ? V(k.Loss, "W") : "",
+            }));
+        }
+        o.Append('\n');
+        Table(o, 1, ["supply", "voltage", "current", "angle", "P", "Q", "S", "pf"], c.Supplies.Select(s => new[]
+        {
+            s.Supply.Name, V(s.Voltage.Magnitude, "V"), V(s.Current.Magnitude, "A"), Angle(s.Current),
+            V(s.Power.Real, "W"), V(s.Power.Imaginary, "var"), V(s.Power.Magnitude, "VA"), TextReport.PowerFactor(s.Power),
+        }));
+        if (c.Case.Fault is { } fault)
+        {
+            o.Append('\n');
+            Table(o, 2, ["fault", "between", "current", "angle"],
+                [[fault.Name, $"{fault.A.Name} and {fault.B.Name}", V(c.Solution.FaultCurrent.Magnitude, "A"), Angle(c.Solution.FaultCurrent)]]);
+            return;
+        }
+        if (!c.Loads.IsEmpty)
+        {
+            o.Append('\n');
+            Table(o, 1, ["load", "voltage", "angle", "current", "P", "Q", "S", "pf", "regulation"], c.Loads.Select(l => new[]
+            {
+                l.Load.Name, V(l.Voltage.Magnitude, "V"), Angle(l.Voltage), V(l.Current.Magnitude, "A"),
+                V(l.Power.Real, "W"), V(l.Power.Imaginary, "var"), V(l.Power.Magnitude, "VA"), TextReport.PowerFactor(l.Power),
+                l.Regulation is { } r ? TextReport.Percent(r) : "",
+            }));
+        }
+        o.Append('\n');
+        var t = c.Totals;
+        Table(o, 0, ["copper loss", "core loss", "efficiency", "throughput", "transformed"],
+            [[V(t.CopperLoss, "W"), V(t.CoreLoss, "W"), t.Efficiency is { } eff ? TextReport.Percent(eff) : "", V(t.Throughput, "VA"), V(t.Transformed, "VA")]]);
+    }
+
+    private static void WriteChecks(StringBuilder o, Evaluation evaluation)
+    {
+        if (evaluation.Checks.IsEmpty) return;
+        o.Append("\n### Checks\n\n");
+        Table(o, 3, ["", "line", "expectation", "value"], evaluation.Checks.Select(check => new[]
+        {
+            check.Passed ? "pass" : "**FAIL**",
+            (evaluation.Text.GetPosition(check.Expect.Line.Start).Line + 1).ToString(System.Globalization.CultureInfo.InvariantCulture),
+            Code(check.Expect.Text),
+            check.Value is { } v ? DiagnosticBag.Show(v, check.Expect.Unit) : "not measured",
+        }));
+    }
+
+    /// <summary>
+    /// A table with its header: the first <paramref name="textColumns"/> columns left-aligned, the
+    /// numbers after them right-aligned by the header's colons, never by padding.
+    /// </summary>
+    public static void Table(StringBuilder o, int textColumns, string[] header, IEnumerable<string[]> rows)
+    {
+        o.Append('|');
+        foreach (var h in header) o.Append(' ').Append(h).Append(" |");
+        o.Append("\n|");
+        for (var i = 0; i < header.Length; i++) o.Append(i < textColumns ? "---|" : "--:|");
+        o.Append('\n');
+        foreach (var row in rows)
+        {
+            o.Append('|');
+            foreach (var cell in row) o.Append(' ').Append(Cell(cell)).Append(" |");
+            o.Append('\n');
+        }
+    }
+
+    /// <summary>Markdown tables break on a bare '|' and on line breaks.</summary>
+    public static string Cell(string text) => text.Replace("|", "\\|").Replace("\r", "").Replace("\n", " ");
+
+    public static string Code(string text) => $"`{text.Replace("`", "'")}`";
+
+    private static string V(double value, string unit) => Numbers.Format(value, unit);
+
+    private static string Angle(Complex v) => $"{TextReport.Degrees(v):F2}°".Replace("-0.00°", "0.00°");
+}
