@@ -16,6 +16,7 @@ public static class Cli
         var root = new RootCommand("Evaluate tapped-winding calculation files (*.wn): voltages, currents, losses, ratings and checks.");
         root.Subcommands.Add(CheckCommand.Create(io));
         root.Subcommands.Add(ReportCommand.Create(io));
+        root.Subcommands.Add(FmtCommand.Create(io));
         var parsed = root.Parse(args);
         if (parsed.Errors.Count > 0)
         {
@@ -36,7 +37,7 @@ public static class Cli
 }
 
 /// <summary>Where a command reads and writes; tests pass their own.</summary>
-public sealed record ConsoleIo(TextWriter Output, TextWriter Error, TextReader Input)
+public sealed partial record ConsoleIo(TextWriter Output, TextWriter Error, TextReader Input)
 {
     /// <summary>A file's text, or standard input for "-"; null after a message when it cannot be read.</summary>
     public string? Read(string path)

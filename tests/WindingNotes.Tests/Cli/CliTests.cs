@@ -7,15 +7,9 @@ namespace WindingNotes.Tests.Cli;
 
 public class CliTests
 {
-    private static string Example(string name) => Path.Combine(Snapshot.RepositoryRoot, "examples", name);
+    private static string Example(string name) => Command.Example(name);
 
-    private static (int Code, string Out, string Err) Run(string input, params string[] args)
-    {
-        var output = new StringWriter();
-        var error = new StringWriter();
-        var code = WindingNotes.Cli.Cli.Run(args, output, error, new StringReader(input));
-        return (code, output.ToString(), error.ToString());
-    }
+    private static (int Code, string Out, string Err) Run(string input, params string[] args) => Command.Run(input, args);
 
     [Fact]
     public void Every_example_passes_check()
