@@ -1,0 +1,67 @@
+using System.Text.Json;
+using System.Text.Json.Nodes;
+using Json.Schema;
+using WindingNotes.Report;
+using WindingNotes.Tests.Solve;
+using WindingNotes.Tests.Support;
+using Xunit;
+
+namespace WindingNotes.Tests.Report;
+
+/// <summary>The JSON report keeps to its documented schema, grammar/results.schema.json (checked with JsonSchema.Net 8.0.5).</summary>
+public class ResultsSchemaTests
+{
+    private static readonly Lazy<JsonSchema> Schema = new(() =>
+        JsonSchema.FromText(File.ReadAllText(Path.Combine(Snapshot.RepositoryRoot, "grammar", "results.schema.json"))));
+
+    private static EvaluationResults Validate(string json)
+    {
+        using var document = JsonDocument.Parse(json);
+        return Schema.Value.Evaluate(document.RootElement, new EvaluationOptions { OutputFormat = OutputFormat.List });
+    }
+
+    private static void AssertValid(string json, string what)
+    {
+        var result = Validate(json);
+        var errors = (result.Details ?? []).Where(d => d.Errors is not null)
+            .SelectMany(d => d.Errors!.Select(e => $"{d.InstanceLocation}: {e.Key}: {e.Value}"));
+        Assert.True(result.IsValid, $"{what} breaks the schema:\n{string.Join("\n", errors)}");
+    }
+
+    private static string Example(string name) => File.ReadAllText(Path.Combine(Snapshot.RepositoryRoot, "examples", name));
+
+    [Theory]
+    [MemberData(nameof(ExampleSnapshotTests.Examples), MemberType = typeof(ExampleSnapshotTests))]
+    public void Every_examples_json_report_keeps_to_the_schema(string name)
+    {
+        AssertValid(JsonReport.Write(Wn.Eval(Example(name))), name);
+    }
+
+    [Fact]
+    public void Reports_with_faults_failed_checks_errors_and_no_solution_keep_to_the_schema()
+    {
+        var alder = Example("alder-creek-boost.wn");
+        AssertValid(JsonReport.Write(Wn.Eval(alder + "fault F1 X1 H2 impedance 0 ohm\n")), "a fault case");
+        AssertValid(JsonReport.Write(Wn.Eval(alder.Replace("225 V", "230 V") + "expect flux K9 below 1 T\n")), "failed and unmeasurable checks");
+        AssertValid(JsonReport.Write(Wn.Eval("core K1 rating (\nwinding W on K1 from A to B\n")), "a file that is not solved");
+        AssertValid(JsonReport.Write(Wn.Eval("")), "an empty file");
+        for (var seed = 0; seed < 10; seed++) AssertValid(JsonReport.Write(Wn.Eval(RandomNetworks.Write(seed))), $"random network {seed}");
+    }
+
+    [Fact]
+    public void The_schema_rejects_a_report_that_drifts_from_it()
+    {
+        var report = JsonNode.Parse(JsonReport.Write(Wn.Eval(Example("alder-creek-boost.wn"))))!;
+        var normal = report["cases"]![0]!;
+        normal["nodes"]!["X1"]!["v"]!.AsObject().Remove("deg");
+        normal["loads"]!["planer"]!["kw"] = 3.2;
+        report["diagnostics"]!.AsArray().Add(new JsonObject { ["severity"] = "fatal", ["code"] = "Bad Code", ["message"] = "m" });
+        var result = Validate(report.ToJsonString());
+        Assert.False(result.IsValid);
+        var locations = (result.Details ?? []).Where(d => d.Errors is not null).Select(d => d.InstanceLocation.ToString()).ToList();
+        Assert.Contains("/cases/0/nodes/X1/v", locations);
+        Assert.Contains("/cases/0/loads/planer/kw", locations);
+        Assert.Contains("/diagnostics/0/severity", locations);
+        Assert.Contains("/diagnostics/0/code", locations);
+    }
+}
