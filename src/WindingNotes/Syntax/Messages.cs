@@ -27,6 +27,12 @@ public sealed partial class DiagnosticBag
     public Diagnostic ReportUnexpectedEnd(Token last, IReadOnlyList<string> expected) =>
         Error("syntax", last.Span, $"expected {Alternatives(expected)} after '{last.Text}'");
 
+    public Diagnostic ReportStatementTooLong(Token at, int limit) =>
+        Error("statement-too-long", at.Span, $"a statement may have at most {limit} tokens; split the value with 'let'");
+
+    public Diagnostic ReportNestingTooDeep(Token at, int limit) =>
+        Error("nesting-too-deep", at.Span, $"parentheses nest deeper than {limit} levels");
+
     public Diagnostic ReportDuplicateClause(Token second, Token first) =>
         Amend(Error("duplicate-clause", second.Span, $"'{second.Text}' is given twice"),
             d => d with { Related = [new RelatedSpan("first given here", first.Span)] });

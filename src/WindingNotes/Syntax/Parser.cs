@@ -10,6 +10,12 @@ namespace WindingNotes.Syntax;
 /// </summary>
 public static class Parser
 {
+    /// <summary>Deeper nesting is refused before parsing: the parser and the tree recurse, and a stack overflow cannot be caught.</summary>
+    public const int MaxNesting = 64;
+
+    /// <summary>A statement longer than this is refused for the same reason.</summary>
+    public const int MaxTokens = 2000;
+
     public static SyntaxTree Parse(string text)
     {
         var source = new SourceText(text);
@@ -47,6 +53,8 @@ public static class Parser
             return new LineSyntax(index, span, all, null, error);
         }
 
+        if (TooComplex(significant, diagnostics) is { } refused) return new LineSyntax(index, span, all, null, refused);
+
         var rest = significant.AsSpan(1);
         var result = StatementParsers.ByKind[form.Kind].Parse(rest);
         if (!result.Success)
@@ -78,6 +86,19 @@ public static class Parser
         }
         var last = tokens.Length > 0 ? tokens[^1] : keyword;
         return diagnostics.ReportUnexpectedEnd(last, expected);
+    }
+
+    private static Diagnostic? TooComplex(Token[] tokens, DiagnosticBag diagnostics)
+    {
+        if (tokens.Length > MaxTokens) return diagnostics.ReportStatementTooLong(tokens[MaxTokens], MaxTokens);
+        var depth = 0;
+        foreach (var t in tokens)
+        {
+            if (t.Kind != TokenKind.Symbol) continue;
+            if (t.Text == "(" && ++depth > MaxNesting) return diagnostics.ReportNestingTooDeep(t, MaxNesting);
+            if (t.Text == ")") depth--;
+        }
+        return null;
     }
 
     /// <summary>Clauses once each, groups exclusive, required clauses and groups present.</summary>

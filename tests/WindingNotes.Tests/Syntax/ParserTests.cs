@@ -138,4 +138,16 @@ public class ParserTests
         foreach (var form in Grammar.Statements)
             Assert.Contains(form.Example, File.ReadAllText(path));
     }
+
+    [Fact]
+    public void Deep_nesting_and_huge_statements_are_refused_with_a_diagnostic_not_a_crash()
+    {
+        var deep = Parser.Parse("let x = " + new string('(', 500) + "1" + new string(')', 500) + "\nground N");
+        Assert.Equal("nesting-too-deep", Assert.Single(deep.Diagnostics).Code);
+        Assert.Single(deep.Statements);
+        var huge = Parser.Parse("let x = 1" + string.Concat(Enumerable.Repeat(" + 1", 100_000)));
+        Assert.Equal("statement-too-long", Assert.Single(huge.Diagnostics).Code);
+        var nested = WindingNotes.Workspace.Evaluator.Evaluate("let x = " + new string('(', 60) + "1 V" + new string(')', 60) + "\n");
+        Assert.DoesNotContain(nested.Diagnostics, d => d.IsError);
+    }
 }
