@@ -12,41 +12,70 @@ public sealed record Document(string Uri, string Path, int Version, string Text)
 /// </summary>
 public sealed class DocumentWorkspace
 {
-    private readonly ConcurrentDictionary<string, Document> documents = new();
-    private readonly ConcurrentDictionary<string, (int Version, Lazy<Evaluation> Evaluation)> cache = new();
-    private readonly ConcurrentDictionary<string, CancellationTokenSource> running = new();
+    /// <summary>
+    /// A version and its one evaluation, shared by every caller that asks for it (the publisher of
+    /// diagnostics and a request for hints evaluate once between them). Its token is cancelled
+    /// when the version is overtaken or closed, so the evaluation of a stale version stops early.
+    /// </summary>
+    private sealed class Entry
+    {
+        private readonly CancellationTokenSource stale = new();
 
-    public IEnumerable<Document> Documents => documents.Values;
+        public Entry(Document document)
+        {
+            Document = document;
+            Evaluation = new Lazy<Evaluation>(() => Evaluator.Evaluate(document.Text, document.Path, stale.Token), LazyThreadSafetyMode.ExecutionAndPublication);
+        }
 
-    public Document? Find(string uri) => documents.GetValueOrDefault(uri);
+        public Document Document { get; }
+
+        public Lazy<Evaluation> Evaluation { get; }
+
+        // Never disposed: a token source without timers holds nothing, and disposing it would race with Cancel.
+        public void Overtake() => stale.Cancel();
+    }
+
+    private readonly ConcurrentDictionary<string, Entry> entries = new();
+
+    public IEnumerable<Document> Documents => entries.Values.Select(e => e.Document);
+
+    public Document? Find(string uri) => entries.GetValueOrDefault(uri)?.Document;
 
     public void Open(string uri, string path, int version, string text) => Update(uri, version, text, path);
 
     public void Update(string uri, int version, string text, string? path = null)
     {
-        var previous = documents.GetValueOrDefault(uri);
-        documents[uri] = new Document(uri, path ?? previous?.Path ?? uri, version, text);
-        if (running.TryRemove(uri, out var stale)) stale.Cancel();
+        Entry? previous = null;
+        entries.AddOrUpdate(uri,
+            _ => new Entry(new Document(uri, path ?? uri, version, text)),
+            (_, old) =>
+            {
+                previous = old;
+                return new Entry(new Document(uri, path ?? old.Document.Path, version, text));
+            });
+        previous?.Overtake();
     }
 
     public void Close(string uri)
     {
-        documents.TryRemove(uri, out _);
-        cache.TryRemove(uri, out _);
-        if (running.TryRemove(uri, out var stale)) stale.Cancel();
+        if (entries.TryRemove(uri, out var entry)) entry.Overtake();
     }
 
-    /// <summary>The evaluation of the document's current version, computed once per version.</summary>
+    /// <summary>
+    /// The evaluation of the document's current version, computed once per version; null when the
+    /// document is not open. Throws <see cref="OperationCanceledException"/> when the version is
+    /// overtaken while it is evaluated, or when <paramref name="cancel"/> is cancelled first.
+    /// </summary>
     public Evaluation? Evaluate(string uri, CancellationToken cancel = default)
     {
-        if (!documents.TryGetValue(uri, out var document)) return null;
-        if (cache.TryGetValue(uri, out var cached) && cached.Version == document.Version && cached.Evaluation.IsValueCreated)
-            return cached.Evaluation.Value;
-        using var source = CancellationTokenSource.CreateLinkedTokenSource(cancel);
-        running[uri] = source;
-        var evaluation = Evaluator.Evaluate(document.Text, document.Path, source.Token);
-        running.TryRemove(new KeyValuePair<string, CancellationTokenSource>(uri, source));
-        cache[uri] = (document.Version, new Lazy<Evaluation>(evaluation));
-        return evaluation;
+        cancel.ThrowIfCancellationRequested();
+        return entries.TryGetValue(uri, out var entry) ? entry.Evaluation.Value : null;
+    }
+
+    /// <summary>The evaluation of one version, or null when that version is no longer the current one.</summary>
+    public Evaluation? Evaluate(string uri, int version, CancellationToken cancel = default)
+    {
+        cancel.ThrowIfCancellationRequested();
+        return entries.TryGetValue(uri, out var entry) && entry.Document.Version == version ? entry.Evaluation.Value : null;
     }
 }

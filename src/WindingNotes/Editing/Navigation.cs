@@ -1,0 +1,55 @@
+using WindingNotes.Model;
+using WindingNotes.Syntax;
+using WindingNotes.Text;
+using WindingNotes.Workspace;
+
+namespace WindingNotes.Editing;
+
+/// <summary>The name a rename would change, and its text as the editor's placeholder.</summary>
+public sealed record RenameTarget(TextRange Range, string Placeholder);
+
+/// <summary>The edits of a rename, or why it cannot be done.</summary>
+public sealed record RenameResult(IReadOnlyList<TextEdit> Edits, string? Error = null);
+
+/// <summary>Go to definition, find references and rename, over the symbol table every name occurrence is in.</summary>
+public static class Navigation
+{
+    public static TextRange? Definition(Evaluation evaluation, Position position) =>
+        SymbolAt(evaluation, position) is { } symbol ? evaluation.Text.GetRange(symbol.Span) : null;
+
+    public static IReadOnlyList<TextRange> References(Evaluation evaluation, Position position, bool includeDefinition)
+    {
+        if (SymbolAt(evaluation, position) is not { } symbol) return [];
+        return evaluation.Model.Symbols.ReferencesTo(symbol)
+            .Where(r => includeDefinition || !r.IsDefinition)
+            .Select(r => evaluation.Text.GetRange(r.Span))
+            .ToList();
+    }
+
+    public static RenameTarget? PrepareRename(Evaluation evaluation, Position position)
+    {
+        var reference = evaluation.Model.Symbols.At(evaluation.Text.GetOffset(position));
+        return reference is null ? null : new RenameTarget(evaluation.Text.GetRange(reference.Span), reference.Symbol.Name);
+    }
+
+    public static RenameResult Rename(Evaluation evaluation, Position position, string newName)
+    {
+        if (SymbolAt(evaluation, position) is not { } symbol) return new RenameResult([], "there is no name here to rename");
+        if (newName == symbol.Name) return new RenameResult([]);
+        if (!IsName(newName)) return new RenameResult([], $"'{newName}' is not a name: a letter or '_', then letters, digits or '_', and no keyword");
+        if (evaluation.Model.Symbols.Find(newName) is { } taken)
+            return new RenameResult([], $"'{newName}' is already {taken.Describe()}");
+        var edits = evaluation.Model.Symbols.ReferencesTo(symbol)
+            .Select(r => new TextEdit(evaluation.Text.GetRange(r.Span), newName))
+            .ToList();
+        return new RenameResult(edits);
+    }
+
+    /// <summary>A word the lexer reads as one name, and no keyword.</summary>
+    public static bool IsName(string text) =>
+        Lexer.Lex(text) is [{ Kind: TokenKind.Word } token] && token.Text == text
+        && (char.IsLetter(text[0]) || text[0] == '_') && !Grammar.Keywords.Contains(text);
+
+    private static Symbol? SymbolAt(Evaluation evaluation, Position position) =>
+        evaluation.Model.Symbols.At(evaluation.Text.GetOffset(position))?.Symbol;
+}
