@@ -17,7 +17,9 @@ public static class Cli
         root.Subcommands.Add(CheckCommand.Create(io));
         root.Subcommands.Add(ReportCommand.Create(io));
         root.Subcommands.Add(FmtCommand.Create(io));
-        var parsed = root.Parse(args);
+        root.Subcommands.Add(DiffCommand.Create(io));
+        root.Subcommands.Add(TextconvCommand.Create(io));
+        var parsed = root.Parse(DiffCommand.JoinPercent(args));
         if (parsed.Errors.Count > 0)
         {
             foreach (var e in parsed.Errors) error.WriteLine($"windingnotes: {e.Message}");

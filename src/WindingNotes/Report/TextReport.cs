@@ -15,10 +15,11 @@ public static class TextReport
 {
     private const int NameWidth = 12;
 
-    public static string Write(Evaluation evaluation)
+    /// <param name="title">whether to begin with the "Results for PATH" line</param>
+    public static string Write(Evaluation evaluation, bool title = true)
     {
         var o = new StringBuilder();
-        o.Append("Results for ").Append(evaluation.Path.Length == 0 ? "(standard input)" : evaluation.Path).Append('\n');
+        if (title) o.Append("Results for ").Append(evaluation.Path.Length == 0 ? "(standard input)" : evaluation.Path).Append('\n');
         if (!evaluation.Diagnostics.IsEmpty)
         {
             o.Append("\nDiagnostics\n");

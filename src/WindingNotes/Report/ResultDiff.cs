@@ -1,0 +1,194 @@
+using System.Collections.Immutable;
+using WindingNotes.Solve;
+using WindingNotes.Syntax;
+using WindingNotes.Text;
+using WindingNotes.Workspace;
+
+namespace WindingNotes.Report;
+
+public enum CheckState { Absent, Pass, Fail }
+
+/// <summary>
+/// An expectation in both revisions (or one), matched by what it measures, so changing its bounds
+/// keeps it the same expectation; <see cref="OldText"/> is set when its statement changed.
+/// </summary>
+public sealed record CheckChange(string Text, string? OldText, int? Line, CheckState Old, CheckState New, double? OldValue, double? NewValue, string Unit)
+{
+    public bool Regressed => Old == CheckState.Pass && New == CheckState.Fail;
+
+    public bool StateChanged => Old != New;
+}
+
+/// <summary>A result that moved, appeared or went away. Old or New is null when the result is in one revision only.</summary>
+public sealed record ValueChange(string Case, string Label, string Unit, double? Old, double? New);
+
+public sealed record DiagnosticChange(bool Added, Severity Severity, string Code, string Message);
+
+/// <summary>What a change to a file did to its results: expectations first, then every result that moved.</summary>
+public sealed record ResultDiff(
+    string OldName,
+    string NewName,
+    double Threshold,
+    ImmutableArray<CheckChange> Checks,
+    ImmutableArray<ValueChange> Values,
+    ImmutableArray<string> CasesAdded,
+    ImmutableArray<string> CasesRemoved,
+    ImmutableArray<DiagnosticChange> Diagnostics)
+{
+    public bool Regressed => Checks.Any(c => c.Regressed);
+
+    public bool IsEmpty => Checks.IsEmpty && Values.IsEmpty && CasesAdded.IsEmpty && CasesRemoved.IsEmpty && Diagnostics.IsEmpty;
+
+    public const double DefaultThreshold = 0.001;
+
+    /// <summary>
+    /// Compares two evaluations. A value moved when its relative change exceeds the threshold (a
+    /// fraction); an angle when its shift in radians does, which is the relative change it makes to
+    /// its phasor. Values within 1e-9 of the largest of their unit in the case count as zero, so
+    /// rounding noise never shows.
+    /// </summary>
+    public static ResultDiff Compare(Evaluation old, Evaluation @new, double threshold = DefaultThreshold, string? oldName = null, string? newName = null)
+    {
+        var before = ResultValues.Of(old);
+        var after = ResultValues.Of(@new);
+        var oldCases = old.Cases.Select(c => c.Case.Name).ToHashSet();
+        var newCases = @new.Cases.Select(c => c.Case.Name).ToHashSet();
+        var scale = Scales(before.Concat(after));
+
+        var values = ImmutableArray.CreateBuilder<ValueChange>();
+        var oldByKey = Index(before);
+        var newByKey = Index(after);
+        foreach (var a in after)
+        {
+            var key = (a.Case, a.Element, a.Field);
+            if (!oldCases.Contains(a.Case) || newByKey[key] != a) continue;
+            if (!oldByKey.TryGetValue(key, out var b))
+            {
+                if (!IsZero(a, scale)) values.Add(new ValueChange(a.Case, a.Label, a.Unit, null, a.Value));
+                continue;
+            }
+            if (Moved(b, a, threshold, scale)) values.Add(new ValueChange(a.Case, a.Label, a.Unit, b.Value, a.Value));
+        }
+        foreach (var b in before)
+            if (newCases.Contains(b.Case) && !newByKey.ContainsKey((b.Case, b.Element, b.Field)) && !IsZero(b, scale))
+                values.Add(new ValueChange(b.Case, b.Label, b.Unit, b.Value, null));
+
+        return new ResultDiff(
+            oldName ?? old.Path, newName ?? @new.Path, threshold,
+            CompareChecks(old, @new, threshold),
+            values.ToImmutable(),
+            [.. @new.Cases.Select(c => c.Case.Name).Where(n => !oldCases.Contains(n))],
+            [.. old.Cases.Select(c => c.Case.Name).Where(n => !newCases.Contains(n))],
+            CompareDiagnostics(old, @new));
+    }
+
+    private static Dictionary<(string, string, string), ResultValue> Index(IEnumerable<ResultValue> values)
+    {
+        var index = new Dictionary<(string, string, string), ResultValue>();
+        foreach (var v in values) index.TryAdd((v.Case, v.Element, v.Field), v);
+        return index;
+    }
+
+    private static Dictionary<(string, string), double> Scales(IEnumerable<ResultValue> values)
+    {
+        var scale = new Dictionary<(string, string), double>();
+        foreach (var v in values)
+        {
+            var key = (v.Case, v.Unit);
+            scale[key] = Math.Max(scale.GetValueOrDefault(key), Math.Abs(v.Value));
+        }
+        return scale;
+    }
+
+    private static bool IsZero(double value, string @case, string unit, Dictionary<(string, string), double> scale) =>
+        Math.Abs(value) <= 1e-9 * scale.GetValueOrDefault((@case, unit));
+
+    private static bool IsZero(ResultValue v, Dictionary<(string, string), double> scale) =>
+        v.Unit == "deg" ? v.Magnitude is { } m && IsZero(m, v.Case, PhasorUnit(v.Field), scale) : IsZero(v.Value, v.Case, v.Unit, scale);
+
+    private static string PhasorUnit(string angleField) => ResultValues.UnitOf(angleField[..^"deg".Length] + "rms");
+
+    private static bool Moved(ResultValue old, ResultValue @new, double threshold, Dictionary<(string, string), double> scale)
+    {
+        if (old.Unit == "deg")
+        {
+            if (IsZero(old, scale) || IsZero(@new, scale)) return false;
+            return Math.Abs(AngleChange(old.Value, @new.Value)) * Math.PI / 180 > threshold;
+        }
+        var zeroBefore = IsZero(old, scale);
+        var zeroAfter = IsZero(@new, scale);
+        if (zeroBefore || zeroAfter) return zeroBefore != zeroAfter;
+        return Math.Abs(@new.Value - old.Value) > threshold * Math.Abs(old.Value);
+    }
+
+    /// <summary>The shift from one angle to another in degrees, the short way round.</summary>
+    public static double AngleChange(double from, double to)
+    {
+        var d = (to - from) % 360;
+        return d > 180 ? d - 360 : d <= -180 ? d + 360 : d;
+    }
+
+    /// <summary>The relative change, or null from zero.</summary>
+    public static double? Relative(double old, double @new) => old == 0 ? null : (@new - old) / Math.Abs(old);
+
+    private static ImmutableArray<CheckChange> CompareChecks(Evaluation old, Evaluation @new, double threshold)
+    {
+        var before = ChecksByMeasure(old);
+        var after = ChecksByMeasure(@new);
+        var beforeIndex = before.ToDictionary(p => p.Key, p => p.Value);
+        var afterIndex = after.ToDictionary(p => p.Key, p => p.Value);
+        var changes = new List<CheckChange>();
+        foreach (var (key, now) in after)
+        {
+            var state = State(now.Check);
+            if (!beforeIndex.TryGetValue(key, out var was))
+            {
+                changes.Add(new CheckChange(now.Text, null, now.Line, CheckState.Absent, state, null, now.Check.Value, now.Check.Expect.Unit));
+                continue;
+            }
+            var oldState = State(was.Check);
+            var moved = was.Check.Value is { } a && now.Check.Value is { } b && Math.Abs(b - a) > threshold * Math.Abs(a);
+            if (oldState != state || moved || was.Text != now.Text || (was.Check.Value is null) != (now.Check.Value is null))
+                changes.Add(new CheckChange(now.Text, was.Text == now.Text ? null : was.Text, now.Line, oldState, state, was.Check.Value, now.Check.Value, now.Check.Expect.Unit));
+        }
+        foreach (var (key, was) in before)
+            if (!afterIndex.ContainsKey(key))
+                changes.Add(new CheckChange(was.Text, null, null, State(was.Check), CheckState.Absent, was.Check.Value, null, was.Check.Expect.Unit));
+        // Expectations that now fail first, then those that changed state, then the rest.
+        return [.. changes.OrderBy(c => c.Regressed ? 0 : c.StateChanged ? 1 : 2)];
+    }
+
+    private static CheckState State(CheckResult check) => check.Passed ? CheckState.Pass : CheckState.Fail;
+
+    /// <summary>
+    /// Checks by what they measure (<c>voltage X1 H2</c>, and how many such checks came before), each
+    /// with its statement in the canonical layout and its one-based line, in source order.
+    /// </summary>
+    private static List<KeyValuePair<(string Measure, int Occurrence), (CheckResult Check, string Text, int Line)>> ChecksByMeasure(Evaluation evaluation)
+    {
+        var result = new List<KeyValuePair<(string, int), (CheckResult, string, int)>>();
+        var seen = new Dictionary<string, int>();
+        foreach (var check in evaluation.Checks)
+        {
+            var measure = string.Join(' ', check.Expect.MeasureText.Split((char[])[' ', '\t', '\\', '\r', '\n'], StringSplitOptions.RemoveEmptyEntries));
+            var occurrence = seen[measure] = seen.GetValueOrDefault(measure, -1) + 1;
+            var text = Formatter.Format(Parser.Parse(check.Expect.Text)).Trim();
+            result.Add(new((measure, occurrence), (check, text, evaluation.Text.GetPosition(check.Expect.Line.Start).Line + 1)));
+        }
+        return result;
+    }
+
+    /// <summary>Diagnostics that appeared or went away, by what they say (positions move with every edit). Failed checks are told above.</summary>
+    private static ImmutableArray<DiagnosticChange> CompareDiagnostics(Evaluation old, Evaluation @new)
+    {
+        static List<(Severity, string, string)> Of(Evaluation e) =>
+            [.. e.Diagnostics.Where(d => d.Code != "expect-failed").Select(d => (d.Severity, d.Code, d.Message))];
+        var before = Of(old);
+        var after = Of(@new);
+        var added = after.ToList();
+        foreach (var d in before) added.Remove(d);
+        var gone = before.ToList();
+        foreach (var d in after) gone.Remove(d);
+        return [.. added.Select(d => new DiagnosticChange(true, d.Item1, d.Item2, d.Item3)), .. gone.Select(d => new DiagnosticChange(false, d.Item1, d.Item2, d.Item3))];
+    }
+}

@@ -1,0 +1,126 @@
+using System.Collections.Immutable;
+using System.Text.Json;
+using WindingNotes.Workspace;
+
+namespace WindingNotes.Report;
+
+/// <summary>
+/// One number of the results: its case, the element it belongs to (<c>load planer</c>), its field
+/// in the JSON report (<c>i.deg</c>) and the unit a person reads it in. For an angle, the magnitude
+/// of its phasor comes along: the angle of a zero phasor means nothing.
+/// </summary>
+public sealed record ResultValue(string Case, string Element, string Field, string Unit, double Value, double? Magnitude = null)
+{
+    public string Label => $"{Element} {FieldLabel(Field)}".Trim();
+
+    /// <summary>"current angle", "voltage", "copper loss": a field as a person says it.</summary>
+    public static string FieldLabel(string field)
+    {
+        var parts = field.Split('.');
+        var label = parts[0] switch
+        {
+            "v" => "voltage",
+            "i" => "current",
+            "s" => "S",
+            "p" => "P",
+            "q" => "Q",
+            "voltsPerTurn" => "volts per turn",
+            "flux" => "peak flux",
+            "copperLoss" => "copper loss",
+            "coreLoss" => "core loss",
+            var other => other,
+        };
+        return parts.Length > 1 && parts[^1] == "deg" ? label + " angle" : label;
+    }
+}
+
+/// <summary>
+/// Every number of an evaluation, read from its JSON report so that whatever the report gains is
+/// compared too, in the report's order. Checks and the swept inputs are left to their own comparison.
+/// </summary>
+public static class ResultValues
+{
+    private static readonly ImmutableDictionary<string, string> Groups = new Dictionary<string, string>
+    {
+        ["nodes"] = "node", ["sections"] = "section", ["cores"] = "core", ["supplies"] = "supply",
+        ["loads"] = "load", ["faults"] = "fault", ["totals"] = "", ["bands"] = "band of",
+    }.ToImmutableDictionary();
+
+    private static readonly HashSet<string> Fractions = ["loading", "efficiency", "regulation"];
+
+    public static ImmutableArray<ResultValue> Of(Evaluation evaluation)
+    {
+        using var json = JsonDocument.Parse(JsonReport.Write(evaluation));
+        var values = ImmutableArray.CreateBuilder<ResultValue>();
+        foreach (var c in json.RootElement.GetProperty("cases").EnumerateArray())
+        {
+            var name = c.GetProperty("name").GetString()!;
+            foreach (var group in c.EnumerateObject())
+            {
+                if (!Groups.TryGetValue(group.Name, out var kind)) continue;
+                if (group.Name == "totals")
+                {
+                    Walk(values, name, "totals", "", group.Value);
+                    continue;
+                }
+                foreach (var element in group.Value.EnumerateObject())
+                {
+                    if (group.Name == "bands") Walk(values, name, $"{kind} {Readable(element.Name)}:", "", element.Value, UnitOf(element.Name));
+                    else Walk(values, name, $"{kind} {element.Name}", "", element.Value);
+                }
+            }
+        }
+        return values.ToImmutable();
+    }
+
+    private static void Walk(ImmutableArray<ResultValue>.Builder values, string @case, string element, string field, JsonElement value, string? unit = null)
+    {
+        switch (value.ValueKind)
+        {
+            case JsonValueKind.Object:
+                foreach (var p in value.EnumerateObject())
+                    Walk(values, @case, element, field.Length == 0 ? p.Name : $"{field}.{p.Name}", p.Value, unit);
+                if (value.TryGetProperty("deg", out var deg) && deg.ValueKind == JsonValueKind.Number && value.TryGetProperty("rms", out var rms) && rms.ValueKind == JsonValueKind.Number)
+                {
+                    // The angle follows its magnitude, so a diff can ignore the angle of a zero phasor.
+                    var i = values.Count - 1;
+                    while (i >= 0 && values[i].Field != $"{field}.deg") i--;
+                    if (i >= 0) values[i] = values[i] with { Magnitude = rms.GetDouble() };
+                }
+                break;
+            case JsonValueKind.Number:
+                values.Add(new ResultValue(@case, element, field, unit ?? UnitOf(field), value.GetDouble()));
+                break;
+        }
+    }
+
+    /// <summary>The unit of a field of the report, from its name: "%" marks a fraction shown as percent; a power factor has none.</summary>
+    public static string UnitOf(string field)
+    {
+        var parts = field.Split('.');
+        if (parts[^1] == "deg") return "deg";
+        var name = parts.Length > 1 && parts[^1] is "rms" or "min" or "max" ? parts[^2] : parts[^1];
+        if (Fractions.Contains(name)) return "%";
+        return name switch
+        {
+            "v" or "voltsPerTurn" => "V",
+            "i" or "peak" => "A",
+            "s" or "throughput" or "transformed" => "VA",
+            "p" or "copperLoss" or "coreLoss" => "W",
+            "q" => "var",
+            "flux" => "T",
+            "turns" => "turns",
+            _ => "",
+        };
+    }
+
+    /// <summary>"sections.LV.i.rms" as "section LV current".</summary>
+    private static string Readable(string path)
+    {
+        var parts = path.Split('.');
+        if (parts.Length < 2) return path;
+        if (parts[0] == "totals") return ResultValue.FieldLabel(string.Join('.', parts[1..]));
+        var kind = Groups.TryGetValue(parts[0], out var k) ? k : parts[0];
+        return parts.Length < 3 ? $"{kind} {parts[1]}" : $"{kind} {parts[1]} {ResultValue.FieldLabel(string.Join('.', parts[2..]))}";
+    }
+}
