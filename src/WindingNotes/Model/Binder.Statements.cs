@@ -147,10 +147,10 @@ internal sealed partial class BindRun
         var at = s.Value("at");
         var position = overrides.Values.TryGetValue(name.Text, out var moved) ? moved : Value(at, $"the position of {name.Text}");
         if (winding is null || position is null || TapPosition(position.Value, at!.Span, name.Text) is not { } place) return;
-        (double, double)? range = null;
+        TapRange? range = null;
         if (s.Clause("range") is { } r && Value(r.Value(0), "the start of the range") is { } a && Value(r.Value(1), "the end of the range") is { } b
             && TapPosition(a, r.Value(0)!.Span, name.Text) is { } from && TapPosition(b, r.Value(1)!.Span, name.Text) is { } to)
-            range = (from.Position, to.Position);
+            range = new TapRange(from.Position, from.Unit, to.Position, to.Unit, r.Span);
         model = model with
         {
             Taps = model.Taps.Add(new TapModel(name.Text, name.Name.Span, s.Span, winding.Name, place.Position, place.Unit, isBrush)

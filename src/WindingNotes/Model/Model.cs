@@ -51,9 +51,12 @@ public sealed record WindingModel(string Name, TextSpan NameSpan, TextSpan Line,
 public enum TapUnit { Turns, Fraction, Volts }
 
 /// <summary>A fixed tap or a brush: a connection point on a winding at a position from its from end.</summary>
+/// <summary>A brush's travel; each end in its own unit.</summary>
+public sealed record TapRange(double From, TapUnit FromUnit, double To, TapUnit ToUnit, TextSpan Span);
+
 public sealed record TapModel(string Name, TextSpan NameSpan, TextSpan Line, string Winding, double Position, TapUnit Unit, bool IsBrush)
 {
-    public (double From, double To)? Range { get; init; }
+    public TapRange? Range { get; init; }
 
     public double? CurrentLimit { get; init; }
 

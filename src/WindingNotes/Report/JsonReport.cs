@@ -30,6 +30,7 @@ public static class JsonReport
             w.WriteStartArray("cases");
             foreach (var c in evaluation.Cases) WriteCase(w, evaluation, c);
             w.WriteEndArray();
+            w.WriteString("note", Cautions.Judgement);
             w.WriteEndObject();
         }
         return Encoding.UTF8.GetString(stream.ToArray()) + "\n";
@@ -69,6 +70,12 @@ public static class JsonReport
     {
         w.WriteStartObject();
         w.WriteString("name", c.Case.Name);
+        if (c.Case.IsSweepPoint)
+        {
+            w.WriteStartObject("sweep");
+            foreach (var v in c.Case.Sweep) Number(w, v.Name, v.Value);
+            w.WriteEndObject();
+        }
         w.WriteStartObject("nodes");
         foreach (var (point, v) in c.Points)
         {
@@ -89,6 +96,7 @@ public static class JsonReport
             Phasor(w, "i", s.Current);
             Number(w, "s", s.Apparent);
             if (s.Loading is { } loading) Number(w, "loading", loading);
+            Number(w, "loss", s.Loss);
             w.WriteEndObject();
         }
         w.WriteEndObject();
@@ -99,6 +107,7 @@ public static class JsonReport
             w.WriteStartObject(k.Core.Name);
             if (k.VoltsPerTurn is { } e) Phasor(w, "voltsPerTurn", e);
             if (k.Flux is { } flux) Number(w, "flux", flux);
+            Number(w, "loss", k.Loss);
             w.WriteEndObject();
         }
         w.WriteEndObject();
@@ -116,13 +125,17 @@ public static class JsonReport
         }
         w.WriteEndObject();
 
-        if (c.Case.Fault is { } fault)
+        if (c.Fault is { } fault)
         {
             w.WriteStartObject("faults");
-            w.WriteStartObject(fault.Name);
-            Phasor(w, "i", c.Solution.FaultCurrent);
+            w.WriteStartObject(fault.Fault.Name);
+            Phasor(w, "i", fault.Current);
+            Number(w, "peak", fault.Peak);
+            if (double.IsFinite(fault.XR)) Number(w, "xr", fault.XR);
+            Number(w, "peakFactor", fault.PeakFactor);
             w.WriteEndObject();
             w.WriteEndObject();
+            WriteBands(w, c);
             w.WriteEndObject();
             return;
         }
@@ -136,6 +149,11 @@ public static class JsonReport
             Number(w, "p", l.Power.Real);
             Number(w, "q", l.Power.Imaginary);
             if (l.Regulation is { } r) Number(w, "regulation", r);
+            if (c.Connections.FirstOrDefault(x => x.Connection.Load == l.Load) is { } connection)
+            {
+                Number(w, "coRatio", connection.CoRatio);
+                Number(w, "twoWindingRating", connection.TwoWindingRating);
+            }
             w.WriteEndObject();
         }
         w.WriteEndObject();
@@ -146,6 +164,9 @@ public static class JsonReport
         if (c.Totals.Efficiency is { } eff) Number(w, "efficiency", eff);
         Number(w, "throughput", c.Totals.Throughput);
         Number(w, "transformed", c.Totals.Transformed);
+        if (c.Totals.MaxEfficiencyLoad is { } best) Number(w, "maxEfficiencyLoad", best);
+        if (c.Totals.MaxEfficiencyFraction is { } fraction) Number(w, "maxEfficiencyFraction", fraction);
+        if (c.Totals.MaxEfficiency is { } highest) Number(w, "maxEfficiency", highest);
         w.WriteEndObject();
 
         if (c.Case == CaseSpec.Normal)
@@ -157,10 +178,38 @@ public static class JsonReport
                 w.WriteNumber("line", evaluation.Text.GetPosition(check.Expect.Line.Start).Line);
                 w.WriteBoolean("passed", check.Passed);
                 if (check.Value is { } v) Number(w, "value", v);
+                if (check.Points > 1 || check.Min != check.Max)
+                {
+                    if (check.Min is { } min) Number(w, "min", min);
+                    if (check.Max is { } max) Number(w, "max", max);
+                    w.WriteNumber("points", check.Points);
+                }
+                if (!check.Failures.IsEmpty && check.Points > 1)
+                {
+                    w.WriteStartArray("failures");
+                    foreach (var f in check.Failures) w.WriteStringValue(f);
+                    w.WriteEndArray();
+                }
                 w.WriteString("text", check.Expect.Text);
                 w.WriteEndObject();
             }
             w.WriteEndArray();
+        }
+        WriteBands(w, c);
+        w.WriteEndObject();
+    }
+
+    /// <summary>Each result that varies over the tolerances, by its path in this case, to its range.</summary>
+    private static void WriteBands(Utf8JsonWriter w, CaseResult c)
+    {
+        if (c.Bands.IsEmpty) return;
+        w.WriteStartObject("bands");
+        foreach (var b in c.Bands)
+        {
+            w.WriteStartObject(b.Path);
+            Number(w, "min", b.Min);
+            Number(w, "max", b.Max);
+            w.WriteEndObject();
         }
         w.WriteEndObject();
     }

@@ -20,14 +20,16 @@ public static class TextReport
     {
         var o = new StringBuilder();
         if (title) o.Append("Results for ").Append(evaluation.Path.Length == 0 ? "(standard input)" : evaluation.Path).Append('\n');
-        if (!evaluation.Diagnostics.IsEmpty)
+        var findings = evaluation.Diagnostics.Where(d => !d.Code.StartsWith("caution")).ToList();
+        if (findings.Count > 0)
         {
             o.Append("\nDiagnostics\n");
-            foreach (var d in evaluation.Diagnostics.Where(d => !d.Code.StartsWith("caution")))
+            foreach (var d in findings)
                 o.Append("  ").Append(Location(evaluation, d)).Append(' ').Append(Severity(d.Severity)).Append(' ').Append(d.Code).Append(": ").Append(d.Message).Append('\n');
         }
         if (evaluation.Cases.IsEmpty) o.Append("\nNo results: the network was not solved.\n");
-        foreach (var c in evaluation.Cases) WriteCase(o, c);
+        foreach (var c in evaluation.Cases.Where(c => !c.Case.IsSweepPoint)) WriteCase(o, c);
+        SweepTables.Write(o, [.. evaluation.Cases.Where(c => c.Case.IsSweepPoint)]);
         WriteChecks(o, evaluation);
         o.Append("\nCautions\n");
         foreach (var d in evaluation.Diagnostics.Where(d => d.Code.StartsWith("caution")))
@@ -45,7 +47,8 @@ public static class TextReport
         foreach (var s in c.Sections)
         {
             var text = $"{s.Section.FromPoint} to {s.Section.ToPoint}, {Numbers.Plain(s.Section.Turns)} turns: {Phasor(s.Current, "A")}, {Numbers.Format(s.Apparent, "VA")}";
-            if (s.Loading is { } loading) text += $", loading {Percent(loading)}";
+            // Under a fault the loading is the multiple of rated current the winding carries.
+            if (s.Loading is { } loading) text += c.Fault is null ? $", loading {Percent(loading)}" : $", {Numbers.Fixed(loading)} x rated";
             if (s.Loss > 0) text += $", loss {Numbers.Format(s.Loss, "W")}";
             Line(o, s.Section.Name, text);
         }
@@ -71,13 +74,17 @@ public static class TextReport
             {
                 var text = $"{Phasor(l.Voltage, "V")}, {Phasor(l.Current, "A")}: {Powers(l.Power)}";
                 if (l.Regulation is { } r) text += $", regulation {Percent(r)}";
+                if (c.Connections.FirstOrDefault(x => x.Connection.Load == l.Load) is { } a)
+                    text += $", co-ratio {Numbers.Fixed(a.CoRatio)}, two-winding rating needed {Numbers.Format(a.TwoWindingRating, "VA")}";
                 Line(o, l.Load.Name, text);
             }
         }
-        if (c.Case.Fault is { } fault)
+        if (c.Fault is { } fault)
         {
             Heading(o, "Fault");
-            Line(o, fault.Name, $"{fault.A.Name} to {fault.B.Name}: {Phasor(c.Solution.FaultCurrent, "A")}");
+            var xr = double.IsFinite(fault.XR) ? Numbers.Fixed(fault.XR) : "infinite";
+            Line(o, fault.Fault.Name, $"{fault.Fault.A.Name} to {fault.Fault.B.Name}: {Phasor(fault.Current, "A")}, peak {Numbers.Format(fault.Peak, "A")} (X/R {xr}, factor {Numbers.Fixed(fault.PeakFactor)})");
+            WriteBands(o, c);
             return;
         }
         Heading(o, "Totals");
@@ -86,7 +93,20 @@ public static class TextReport
         if (c.Totals.Efficiency is { } eff) Line(o, "efficiency", Percent(eff));
         Line(o, "throughput", Numbers.Format(c.Totals.Throughput, "VA"));
         Line(o, "transformed", Numbers.Format(c.Totals.Transformed, "VA"));
+        if (c.Totals is { MaxEfficiencyLoad: { } best, MaxEfficiencyFraction: { } fraction, MaxEfficiency: { } max })
+            Line(o, "best load", $"{Numbers.Format(best, "VA")} ({Percent(fraction)} of this load), efficiency {Percent(max)} there");
+        WriteBands(o, c);
     }
+
+    private static void WriteBands(StringBuilder o, CaseResult c)
+    {
+        if (c.Bands.IsEmpty) return;
+        Heading(o, "Bands over the tolerances");
+        foreach (var b in c.Bands) o.Append("    ").Append(b.Path).Append(' ').Append(Value(b.Min, b.Unit)).Append(" to ").Append(Value(b.Max, b.Unit)).Append('\n');
+    }
+
+    /// <summary>A number in its unit, fractions as percent.</summary>
+    public static string Value(double value, string unit) => unit == "%" ? Percent(value) : unit.Length == 0 ? Numbers.Fixed(value) : Numbers.Format(value, unit);
 
     private static void WriteChecks(StringBuilder o, Evaluation evaluation)
     {
@@ -95,7 +115,12 @@ public static class TextReport
         foreach (var check in evaluation.Checks)
         {
             var line = evaluation.Text.GetPosition(check.Expect.Line.Start).Line + 1;
-            var value = check.Value is { } v ? $" ({DiagnosticBag.Show(v, check.Expect.Unit)})" : "";
+            var value = check.Value is { } v ? $" ({DiagnosticBag.Show(v, check.Expect.Unit)}" : "";
+            if (value.Length > 0 && (check.Points > 1 || check.Min != check.Max) && check.Min is { } min && check.Max is { } max)
+                value += $"; {DiagnosticBag.Show(min, check.Expect.Unit)} to {DiagnosticBag.Show(max, check.Expect.Unit)} over {check.Points} point{(check.Points == 1 ? "" : "s")}{(check.Min != check.Max && check.Points == 1 ? " and the tolerance band" : "")}";
+            if (value.Length > 0 && !check.Failures.IsEmpty && check.Points > 1)
+                value += $"; fails at {check.Failures.Length}: {DiagnosticBag.ListPoints(check.Failures)}";
+            if (value.Length > 0) value += ")";
             o.Append("  ").Append(check.Passed ? "pass" : "FAIL").Append("  line ").Append(line).Append(": ").Append(check.Expect.Text).Append(value).Append('\n');
         }
     }

@@ -5,14 +5,36 @@ using WindingNotes.Text;
 
 namespace WindingNotes.Solve;
 
-/// <summary>What a case changes on the network: the loads taken off (the no-load case for regulation), a fault put on.</summary>
+/// <summary>One swept value at a sweep point: the target's name, its value in SI (fractions for %), and as the report writes it.</summary>
+public sealed record SweepValue(string Name, double Value, string Text)
+{
+    public override string ToString() => $"{Name}={Text}";
+}
+
+/// <summary>
+/// What a case changes on the network: the loads taken off (the no-load case for regulation), a
+/// fault put on, or the swept values it was bound with.
+/// </summary>
 public sealed record CaseSpec(string Name, bool WithoutLoads = false, FaultModel? Fault = null)
 {
     public static readonly CaseSpec Normal = new("normal");
 
     public static readonly CaseSpec NoLoad = new("no-load", WithoutLoads: true);
 
+    /// <summary>The swept values of a sweep point, in the order of the sweep lines; empty for other cases.</summary>
+    public ImmutableArray<SweepValue> Sweep { get; init; } = [];
+
+    public bool IsSweepPoint => !Sweep.IsEmpty;
+
+    /// <summary>How messages name the case: "BR=25 %" for a sweep point, "as written" for the normal case.</summary>
+    public string Where => IsSweepPoint ? string.Join(" ", Sweep) : Fault is not null ? Name : "as written";
+
     public static CaseSpec ForFault(FaultModel fault) => new($"fault {fault.Name}", Fault: fault);
+
+    public static CaseSpec ForSweep(ImmutableArray<SweepValue> values) => new($"sweep {string.Join(" ", values)}") { Sweep = values };
+
+    /// <summary>The no-load companion of a case (for regulation and excitation at no load), keeping its swept values.</summary>
+    public CaseSpec WithoutLoad() => this == Normal ? NoLoad : new CaseSpec($"{Name} no-load", WithoutLoads: true) { Sweep = Sweep };
 }
 
 /// <summary>

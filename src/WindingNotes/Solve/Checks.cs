@@ -4,31 +4,35 @@ using WindingNotes.Text;
 
 namespace WindingNotes.Solve;
 
-/// <summary>An evaluated expectation: the value it measured, and whether it held.</summary>
-public sealed record CheckResult(ExpectModel Expect, bool Passed, double? Value);
+/// <summary>
+/// An evaluated expectation: the value it measured as written, and whether it held there, at every
+/// sweep point and across the tolerance band. <see cref="Min"/> and <see cref="Max"/> span all of
+/// those; <see cref="Failures"/> names the points where it did not hold, of <see cref="Points"/> checked.
+/// </summary>
+public sealed record CheckResult(ExpectModel Expect, bool Passed, double? Value)
+{
+    public double? Min { get; init; }
 
-/// <summary>Evaluates each <c>expect</c> line on a case and reports the ones that fail.</summary>
+    public double? Max { get; init; }
+
+    public ImmutableArray<string> Failures { get; init; } = [];
+
+    public int Points { get; init; } = 1;
+}
+
+/// <summary>
+/// Evaluates each <c>expect</c> line over every case it applies to (the normal case and each sweep
+/// point, each with its tolerance samples) and reports the ones that fail, naming where.
+/// </summary>
 public static class Checks
 {
+    /// <summary>The checks of a single case, as written.</summary>
     public static ImmutableArray<CheckResult> Evaluate(Model.Model model, CaseResult result, DiagnosticBag diagnostics)
     {
-        var checks = ImmutableArray.CreateBuilder<CheckResult>();
-        foreach (var expect in model.Expects)
-        {
-            var value = Measure(expect, result, out var problem);
-            if (value is not { } v)
-            {
-                diagnostics.ReportCannotCheck(expect, problem!);
-                checks.Add(new CheckResult(expect, false, null));
-                continue;
-            }
-            // Bounds written with four figures hold for values that round to them.
-            var slack = 1e-9 * Math.Max(Math.Abs(expect.Low), Math.Abs(expect.High)) is var s && double.IsFinite(s) ? s : 1e-9 * Math.Abs(v);
-            var passed = v >= expect.Low - slack && v <= expect.High + slack;
-            if (!passed) diagnostics.ReportCheckFailed(expect, v);
-            checks.Add(new CheckResult(expect, passed, v));
-        }
-        return checks.ToImmutable();
+        var tally = new CheckTally(model.Expects);
+        tally.BeginPoint(result.Case.Where);
+        tally.Observe(result, null);
+        return tally.Finish(diagnostics);
     }
 
     /// <summary>The measured value in SI or as a fraction; null with the reason when it cannot be measured.</summary>
@@ -96,5 +100,97 @@ public static class Checks
                 problem = $"the regulation of '{t[0].Name}' is unknown";
                 return null;
         }
+    }
+}
+
+/// <summary>Gathers, per expect line, what each point and sample measured, then reports once per line.</summary>
+public sealed class CheckTally(ImmutableArray<ExpectModel> expects)
+{
+    private readonly Entry[] entries = [.. expects.Select(e => new Entry(e))];
+    private int points;
+    private string point = "";
+
+    private sealed class Entry(ExpectModel expect)
+    {
+        public readonly ExpectModel Expect = expect;
+        public double? Nominal;
+        public string? Problem;
+        public double Min = double.PositiveInfinity, Max = double.NegativeInfinity;
+        public readonly List<string> Failures = [];
+        public double WorstExcess = double.NegativeInfinity;
+        public double? WorstValue;
+        public string WorstWhere = "";
+        public bool FailedHere;
+    }
+
+    /// <summary>Starts a point: the normal case ("as written") or a sweep point ("BR=25 %").</summary>
+    public void BeginPoint(string where)
+    {
+        points++;
+        point = where;
+        foreach (var e in entries) e.FailedHere = false;
+    }
+
+    /// <summary>A result at the current point: its nominal case (sample null) or one tolerance sample.</summary>
+    public void Observe(CaseResult result, string? sample)
+    {
+        var first = points == 1 && sample is null;
+        foreach (var e in entries)
+        {
+            var value = Checks.Measure(e.Expect, result, out var problem);
+            if (first)
+            {
+                e.Nominal = value;
+                e.Problem = problem;
+            }
+            if (value is not { } v)
+            {
+                Fail(e, null, double.NegativeInfinity, sample);
+                continue;
+            }
+            (e.Min, e.Max) = (Math.Min(e.Min, v), Math.Max(e.Max, v));
+            var x = e.Expect;
+            // Bounds written with four figures hold for values that round to them.
+            var slack = 1e-9 * Math.Max(Math.Abs(x.Low), Math.Abs(x.High)) is var s && double.IsFinite(s) ? s : 1e-9 * Math.Abs(v);
+            var excess = Math.Max(x.Low - slack - v, v - x.High - slack);
+            if (excess > 0) Fail(e, v, excess, sample);
+        }
+    }
+
+    /// <summary>The current point (or one of its samples) could not be solved: no check holds there.</summary>
+    public void Unsolved(string? sample)
+    {
+        foreach (var e in entries) Fail(e, null, double.NegativeInfinity, sample ?? "(not solved)");
+    }
+
+    private void Fail(Entry e, double? value, double excess, string? sample)
+    {
+        if (!e.FailedHere) e.Failures.Add(point);
+        e.FailedHere = true;
+        if (value is null || excess <= e.WorstExcess) return;
+        e.WorstExcess = excess;
+        e.WorstValue = value;
+        var at = point == "as written" ? "" : $"at {point}";
+        e.WorstWhere = sample is null ? at : $"{at} {sample}".Trim();
+    }
+
+    public ImmutableArray<CheckResult> Finish(DiagnosticBag diagnostics)
+    {
+        var results = ImmutableArray.CreateBuilder<CheckResult>();
+        foreach (var e in entries)
+        {
+            var result = new CheckResult(e.Expect, e.Failures.Count == 0, e.Nominal)
+            {
+                Min = double.IsFinite(e.Min) ? e.Min : null,
+                Max = double.IsFinite(e.Max) ? e.Max : null,
+                Failures = [.. e.Failures],
+                Points = points,
+            };
+            if (e.Problem is { } problem) diagnostics.ReportCannotCheck(e.Expect, problem);
+            else if (e.Failures.Count > 0 && e.WorstValue is { } worst) diagnostics.ReportCheckFailed(e.Expect, worst, e.WorstWhere, e.Failures, points);
+            else if (e.Failures.Count > 0) diagnostics.ReportCannotCheck(e.Expect, $"not solved at {DiagnosticBag.ListPoints(e.Failures)}");
+            results.Add(result);
+        }
+        return results.ToImmutable();
     }
 }

@@ -36,12 +36,111 @@ public sealed partial class DiagnosticBag
     public Diagnostic ReportInternalError(Exception e) =>
         Error("internal-error", default, $"internal error, please report it: {e.GetType().Name}: {e.Message}");
 
-    public Diagnostic ReportCheckFailed(ExpectModel expect, double value) =>
-        Error("expect-failed", expect.Line, $"{expect.MeasureText} is {Show(value, expect.Unit)}: expected {expect.ConditionText}");
+    /// <summary>
+    /// A check that failed: the worst value and where it was; over a sweep or a band, at how many of
+    /// the points it failed, naming the first of them.
+    /// </summary>
+    public Diagnostic ReportCheckFailed(ExpectModel expect, double value, string where, IReadOnlyList<string> failing, int points)
+    {
+        var at = where.Length == 0 ? "" : $" {where}";
+        var count = points > 1 ? $"; fails at {failing.Count} of {points} points: {ListPoints(failing)}" : "";
+        return Error("expect-failed", expect.Line, $"{expect.MeasureText} is {Show(value, expect.Unit)}{at}: expected {expect.ConditionText}{count}");
+    }
+
+    /// <summary>"as written, BR=90 %, BR=100 %", the first six and an ellipsis.</summary>
+    public static string ListPoints(IReadOnlyList<string> points) =>
+        string.Join(", ", points.Take(6)) + (points.Count > 6 ? ", …" : "");
+
+    /// <summary>" at BR=100 % (at 3 of 11 points)": where the worst value was, and how often, for rating messages.</summary>
+    public static string PointsText(string where, int count, int points) =>
+        (where.Length == 0 ? "" : $" {where}") + (points > 1 ? $" (over the rating at {count} of {points} points)" : "");
 
     public Diagnostic ReportCannotCheck(ExpectModel expect, string problem) =>
         Error("expect-unknown", expect.Line, $"cannot check {expect.MeasureText}: {problem}");
 
     /// <summary>A measured value in the unit of its check; fractions as percent.</summary>
     public static string Show(double value, string unit) => unit == "%" ? Numbers.Format(value * 100, "%") : Numbers.Format(value, unit);
+}
+
+// Messages of sweeps, tolerance bands and the points they solve.
+public sealed partial class DiagnosticBag
+{
+    private static string Thousands(double n) => n.ToString("#,0", System.Globalization.CultureInfo.InvariantCulture);
+
+    public Diagnostic ReportSweepBudget(TextSpan span, double points, long budget) =>
+        Error("sweep-budget", span, $"the sweeps make {Thousands(points)} points, more than the budget of {Thousands(budget)}: use a larger step or fewer points");
+
+    public Diagnostic ReportSweepDuplicate(TextSpan span, string name, TextSpan first) =>
+        Amend(Error("sweep-duplicate", span, $"'{name}' is swept twice"), d => d with { Related = [new RelatedSpan("first swept here", first)] });
+
+    public Diagnostic ReportSweepRange(TextSpan span, string problem) => Error("sweep-range", span, problem);
+
+    public Diagnostic ReportBandsNotSwept(TextSpan span, long points, int samples, long budget) =>
+        Info("bands-not-swept", span,
+            $"tolerance bands are given for the normal and fault cases only: {Thousands(points)} sweep points with {Thousands(samples)} tolerance samples each would exceed the budget of {Thousands(budget)} solves");
+
+    public Diagnostic ReportToleranceSamples(TextSpan span, int values, int samples, int seed) =>
+        Info("tolerance-samples", span,
+            $"{values} toleranced values: bands from {Thousands(samples)} samples drawn uniformly within the tolerances (seed {seed}) instead of all {Thousands(Math.Pow(2, values))} corners");
+
+    /// <summary>A message that only some sweep points or tolerance samples gave: the first, where it came from, and how many more.</summary>
+    public Diagnostic ReportAtPoints(Diagnostic first, string where, int more)
+    {
+        var message = (where.Length == 0 ? first.Message : $"{where}: {first.Message}") + (more > 0 ? $" (and at {more} more points)" : "");
+        var d = first with { Message = message };
+        Add(d);
+        return d;
+    }
+
+    public Diagnostic ReportBrushOutsideRange(TextSpan span, string brush) =>
+        Warning("brush-outside-range", span, $"brush '{brush}' is set outside its range");
+
+    public Diagnostic ReportSweepOutsideRange(TextSpan span, string brush) =>
+        Warning("sweep-outside-range", span, $"the sweep takes brush '{brush}' outside its range");
+}
+
+// Messages of the rating checks.
+public sealed partial class DiagnosticBag
+{
+    public Diagnostic ReportLoadingHigh(TextSpan span, string winding, double loading, string where) =>
+        Warning("loading-high", span, $"winding '{winding}' carries {Show(loading, "%")} of its rated current{where}");
+
+    public Diagnostic ReportFluxHigh(TextSpan span, string core, double flux, double limit, string where) =>
+        Warning("flux-high", span, $"the peak flux density of core '{core}' is {Numbers.Format(flux, "T")}, above its flux-limit of {Numbers.Format(limit, "T")}{where}");
+
+    public Diagnostic ReportOverexcited(TextSpan span, string core, double ratio, double limit, string condition, string where) =>
+        Warning("overexcited", span,
+            $"core '{core}' runs at {Show(ratio, "%")} of its rated volts per turn {condition}, above the {Show(limit, "%")} IEEE C57.12.00 allows (from memory){where}");
+
+    public Diagnostic ReportBrushCurrentHigh(TextSpan span, string brush, double current, double limit, string where) =>
+        Warning("brush-current-high", span, $"brush '{brush}' carries {Numbers.Format(current, "A")}, above its current-limit of {Numbers.Format(limit, "A")}{where}");
+
+    public Diagnostic ReportConnectionRating(TextSpan span, string cores, double needed, double rating, string detail, string where) =>
+        Warning("connection-rating", span,
+            $"the autotransformer connection needs a two-winding rating of {Numbers.Format(needed, "VA")} ({detail}) but core '{cores}' is rated {Numbers.Format(rating, "VA")}{where}");
+}
+
+// Cautions: information where a result bears on safety, each with its source.
+public sealed partial class DiagnosticBag
+{
+    public Diagnostic ReportNoIsolation(TextSpan span, string load, string supply) =>
+        Info("caution-no-isolation", span,
+            $"load '{load}' is connected to supply '{supply}' through the windings: an autotransformer connection gives no galvanic isolation, a fault can put the full input voltage on the output, and an open common winding leaves the series winding in the line (published encyclopedic articles)");
+
+    public Diagnostic ReportCommonTerminal(TextSpan span, string node, bool grounded) =>
+        Info("caution-common-terminal", span, grounded
+            ? $"the common terminal '{node}' goes to the grounded conductor, and no overcurrent device goes in the common winding (NEC 210.9, 215.11, 450.4; from memory for edition details)"
+            : $"the common terminal '{node}' is not grounded: it goes to the grounded conductor, and no overcurrent device goes in the common winding (NEC 210.9, 215.11, 450.4; from memory for edition details)");
+
+    public Diagnostic ReportFuseOutput(TextSpan span, string brush) =>
+        Info("caution-fuse-output", span,
+            $"fuse the output of the variable autotransformer at brush '{brush}': at a low setting the output current is far above the input current, so a fuse on the supply side does not protect the brush and winding (common practice, no source)");
+
+    public Diagnostic ReportAboveSupply(TextSpan span, string load, double voltage, string supply, double supplyVoltage, string where) =>
+        Info("caution-above-supply", span,
+            $"the output at load '{load}' reaches {Numbers.Format(voltage, "V")}{(where.Length == 0 ? "" : $" {where}")}, above the {Numbers.Format(supplyVoltage, "V")} of supply '{supply}': the connection raises the output above the supply, and what it feeds must be rated for that (common practice, no source)");
+
+    public Diagnostic ReportFaultDuty(TextSpan span, string fault, double current, double peak, double? multiple, string? winding) =>
+        Info("caution-fault-duty", span,
+            $"fault '{fault}' drives {Numbers.Format(current, "A")} (asymmetrical peak {Numbers.Format(peak, "A")}){(multiple is { } m && winding is not null ? $", {Numbers.Plain(m)} times the rated current of '{winding}'" : "")}: the windings must carry it for {Numbers.Plain(Solve.Faults.ThermalDuration)} s (IEC 60076-5 thermal ability, from memory) and the protection must clear it");
 }

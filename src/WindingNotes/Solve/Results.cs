@@ -19,7 +19,31 @@ public sealed record LoadResult(LoadNet Load, Complex Voltage, Complex Current, 
     public double PowerFactor => Power.Magnitude == 0 ? 1 : Math.Abs(Power.Real) / Power.Magnitude;
 }
 
-public sealed record Totals(double CopperLoss, double CoreLoss, double? Efficiency, double Throughput, double Transformed);
+/// <summary>
+/// Totals of a case. Beside the losses and the efficiency: the load at which efficiency is highest,
+/// found from this operating point by taking copper loss as growing with the square of the load and
+/// core loss as fixed (x²·P_cu = P0, R12), and the efficiency there at this case's power factor.
+/// </summary>
+public sealed record Totals(double CopperLoss, double CoreLoss, double? Efficiency, double Throughput, double Transformed)
+{
+    /// <summary>VA of load at maximum efficiency; null without both copper and core loss.</summary>
+    public double? MaxEfficiencyLoad { get; init; }
+
+    /// <summary>The maximum-efficiency load as a fraction of this case's load.</summary>
+    public double? MaxEfficiencyFraction { get; init; }
+
+    public double? MaxEfficiency { get; init; }
+}
+
+/// <summary>
+/// An autotransformer connection in a case: the supply and the load galvanically linked through
+/// windings, the co-ratio (V_H − V_X)/V_H, and the two-winding rating the connection needs,
+/// S_load·(V_H − V_X)/V_H (R5).
+/// </summary>
+public sealed record ConnectionResult(Connection Connection, double CoRatio, double Throughput, double TwoWindingRating);
+
+/// <summary>The range of one result over the tolerances, by its JSON path.</summary>
+public sealed record Band(string Path, string Unit, double Min, double Max);
 
 /// <summary>Everything one case yields, in source order, ready to present.</summary>
 public sealed record CaseResult(
@@ -33,6 +57,15 @@ public sealed record CaseResult(
     Totals Totals)
 {
     public Complex PointVoltage(string point) => Points.FirstOrDefault(p => p.Point == point).Voltage;
+
+    /// <summary>For a fault case: the fault current, the loop's X/R and the asymmetrical peak.</summary>
+    public FaultResult? Fault { get; init; }
+
+    /// <summary>Autotransformer connections: each supply and load linked through windings.</summary>
+    public ImmutableArray<ConnectionResult> Connections { get; init; } = [];
+
+    /// <summary>Results that vary over the tolerances, with their range; empty without tolerances.</summary>
+    public ImmutableArray<Band> Bands { get; init; } = [];
 }
 
 /// <summary>Derives what engineers read from a solution: powers, loading, losses, flux density, totals.</summary>
@@ -41,7 +74,11 @@ public static class Results
     /// <summary>E_rms = (2π/√2)·f·N·Φ_peak: the exact factor behind the rounded 4.44.</summary>
     public static readonly double FormFactor = 2 * Math.PI / Math.Sqrt(2);
 
-    public static CaseResult Compute(Solution solution, Solution? noLoad)
+    /// <summary>
+    /// The results of a solved case. <paramref name="noLoad"/> (the same network without loads) gives
+    /// the regulation; <paramref name="normal"/> (the case without the fault) gives a fault's X/R.
+    /// </summary>
+    public static CaseResult Compute(Solution solution, Solution? noLoad, Solution? normal = null)
     {
         var network = solution.Network;
         var model = network.Model;
@@ -82,13 +119,42 @@ public static class Results
 
         var supplied = supplies.Sum(s => s.Power.Real);
         var delivered = loads.Sum(l => l.Power.Real);
-        var totals = new Totals(
+        var totals = MaximumEfficiency(new Totals(
             sections.Sum(s => s.Loss),
             cores.Sum(c => c.Loss),
             supplied > 0 && loads.Length > 0 ? delivered / supplied : null,
             loads.Sum(l => l.Power.Magnitude),
-            sections.Sum(s => s.Apparent) / 2);
-        return new CaseResult(solution.Case, solution, points, sections, cores, supplies, loads, totals);
+            sections.Sum(s => s.Apparent) / 2), delivered);
+        return new CaseResult(solution.Case, solution, points, sections, cores, supplies, loads, totals)
+        {
+            Connections = ConnectionsOf(network, solution, supplies, loads),
+            Fault = solution.Case.Fault is not null && normal is not null ? Faults.Compute(solution, normal) : null,
+        };
+    }
+
+    /// <summary>
+    /// η = x·S·pf / (x·S·pf + P0 + x²·P_cu) is highest where x²·P_cu = P0, so at x = √(P0/P_cu) of
+    /// this load, where η = x·S·pf / (x·S·pf + 2·P0) (R12).
+    /// </summary>
+    private static Totals MaximumEfficiency(Totals t, double delivered)
+    {
+        if (t.CopperLoss <= 0 || t.CoreLoss <= 0 || t.Throughput <= 0 || delivered <= 0) return t;
+        var x = Math.Sqrt(t.CoreLoss / t.CopperLoss);
+        var p = x * delivered;
+        return t with { MaxEfficiencyLoad = x * t.Throughput, MaxEfficiencyFraction = x, MaxEfficiency = p / (p + 2 * t.CoreLoss) };
+    }
+
+    private static ImmutableArray<ConnectionResult> ConnectionsOf(Network network, Solution solution, ImmutableArray<SupplyResult> supplies, ImmutableArray<LoadResult> loads)
+    {
+        if (solution.Case.WithoutLoads || solution.Case.Fault is not null) return [];
+        return [.. Solve.Connections.Find(network).Select(c =>
+        {
+            var (vs, vl) = (supplies[c.Supply.Index].Voltage.Magnitude, loads[c.Load.Index].Voltage.Magnitude);
+            var high = Math.Max(vs, vl);
+            var coRatio = high > 0 ? (high - Math.Min(vs, vl)) / high : 0;
+            var s = loads[c.Load.Index].Power.Magnitude;
+            return new ConnectionResult(c, coRatio, s, s * coRatio);
+        })];
     }
 
     /// <summary>A product of phasors carries rounding of 1e-16 of its size; a part that small is zero.</summary>

@@ -57,6 +57,17 @@ public static class Numbers
         return text == "-0" ? "0" : text;
     }
 
+    /// <summary>"25 %", "1.5 kV", "208 V": engineering notation with trailing zeros dropped, for names such as sweep points.</summary>
+    public static string Short(double value, string unit, int figures = 6)
+    {
+        var text = Format(value, unit, figures);
+        var space = text.IndexOf(' ');
+        var number = space < 0 ? text : text[..space];
+        if (number.Contains('.') && !number.Contains('E')) number = number.TrimEnd('0').TrimEnd('.');
+        if (number == "-0") number = "0";
+        return space < 0 ? number : number + text[space..];
+    }
+
     /// <summary>A number as JSON writes it: ten significant figures, round-trip safe, no exponent for ordinary sizes.</summary>
     public static string Json(double value)
     {

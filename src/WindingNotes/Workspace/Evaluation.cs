@@ -29,18 +29,22 @@ public sealed record Evaluation(
     public bool AllChecksPass => Checks.All(c => c.Passed);
 }
 
-/// <summary>The pipeline: text → syntax → model → network → solutions → results and checks.</summary>
+/// <summary>
+/// The pipeline: text → syntax → model → network → the study (normal case, faults, sweep points,
+/// tolerance bands) → results, checks, ratings and cautions.
+/// </summary>
 public static class Evaluator
 {
     /// <summary>
     /// Never throws but for cancellation: a fault of the tool itself becomes an error diagnostic, so
     /// the editor and the command line stay up and say what happened.
     /// </summary>
-    public static Evaluation Evaluate(string text, string path = "", CancellationToken cancel = default)
+    /// <param name="progress">Told how far a long run (sweeps, tolerance samples) has come; the front end decides how to show it.</param>
+    public static Evaluation Evaluate(string text, string path = "", CancellationToken cancel = default, Action<StudyProgress>? progress = null)
     {
         try
         {
-            return Run(text, path, cancel);
+            return Run(text, path, cancel, progress);
         }
         catch (Exception e) when (e is not OperationCanceledException)
         {
@@ -63,7 +67,7 @@ public static class Evaluator
         }
     }
 
-    private static Evaluation Run(string text, string path, CancellationToken cancel)
+    private static Evaluation Run(string text, string path, CancellationToken cancel, Action<StudyProgress>? progress)
     {
         var syntax = Parser.Parse(text);
         cancel.ThrowIfCancellationRequested();
@@ -80,28 +84,8 @@ public static class Evaluator
         if (network.Diagnostics.Any(d => d.IsError))
             return Finish(path, syntax, model, network, [], [], diagnostics);
 
-        var normal = NetworkSolver.Solve(network, CaseSpec.Normal, cancel);
-        diagnostics.AddRange(normal.Diagnostics);
-        if (!normal.Solved)
-            return Finish(path, syntax, model, network, [], [], diagnostics);
-        Solution? noLoad = null;
-        if (!model.Loads.IsEmpty)
-        {
-            noLoad = NetworkSolver.Solve(network, CaseSpec.NoLoad, cancel);
-            diagnostics.AddRange(noLoad.Diagnostics);
-        }
-        var normalResult = Results.Compute(normal, noLoad?.Solved == true ? noLoad : null);
-        var cases = ImmutableArray.CreateBuilder<CaseResult>();
-        cases.Add(normalResult);
-        foreach (var fault in model.Faults)
-        {
-            var solved = NetworkSolver.Solve(network, CaseSpec.ForFault(fault), cancel);
-            diagnostics.AddRange(solved.Diagnostics);
-            if (solved.Solved) cases.Add(Results.Compute(solved, null));
-        }
-        foreach (var sweep in model.Sweeps) diagnostics.ReportNotEvaluated(sweep.Line, "a sweep");
-        var checks = Checks.Evaluate(model, normalResult, diagnostics);
-        return Finish(path, syntax, model, network, cases.ToImmutable(), checks, diagnostics);
+        var study = Study.Run(syntax, model, network, diagnostics, cancel, progress);
+        return Finish(path, syntax, model, network, study.Cases, study.Checks, diagnostics);
     }
 
     private static Evaluation Finish(string path, SyntaxTree syntax, Model.Model model, Network? network,

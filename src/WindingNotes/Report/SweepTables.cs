@@ -1,0 +1,68 @@
+using System.Text;
+using WindingNotes.Solve;
+using WindingNotes.Text;
+
+namespace WindingNotes.Report;
+
+/// <summary>
+/// Sweep points as tables in the text report: one row a point, one column a result, every column
+/// the same fixed width (never the widest entry's), so a changed value rewrites only its own row.
+/// A result a point does not have (a section a brush has moved past) shows as "-".
+/// </summary>
+internal static class SweepTables
+{
+    private const int Width = 13;
+
+    public static void Write(StringBuilder o, IReadOnlyList<CaseResult> points)
+    {
+        if (points.Count == 0) return;
+        var axes = points[0].Case.Sweep.Select(v => v.Name).ToList();
+        o.Append("\nSweep ").Append(string.Join(" by ", axes)).Append(" (").Append(points.Count).Append(points.Count == 1 ? " point)\n" : " points)\n");
+        Table(o, "Nodes, voltage", axes, points, c => c.Points.Select(p => (p.Point, TextReport.Value(p.Voltage.Magnitude, "V"))));
+        Table(o, "Sections, current", axes, points, c => c.Sections.Select(s => (s.Section.Name, TextReport.Value(s.Current.Magnitude, "A"))));
+        if (points.Any(c => c.Sections.Any(s => s.Loading is not null)))
+            Table(o, "Sections, loading", axes, points, c => c.Sections.Where(s => s.Loading is not null).Select(s => (s.Section.Name, TextReport.Percent(s.Loading!.Value))));
+        if (points.Any(c => c.Cores.Any(k => k.Flux is not null)))
+            Table(o, "Cores, peak flux", axes, points, c => c.Cores.Where(k => k.Flux is not null).Select(k => (k.Core.Name, TextReport.Value(k.Flux!.Value, "T"))));
+        Table(o, "Supplies, current and power", axes, points, c => c.Supplies.SelectMany(s => new[]
+        {
+            ($"{s.Supply.Name} I", TextReport.Value(s.Current.Magnitude, "A")),
+            ($"{s.Supply.Name} P", TextReport.Value(s.Power.Real, "W")),
+        }));
+        if (points.Any(c => !c.Loads.IsEmpty))
+            Table(o, "Loads, voltage, current, power, regulation", axes, points, c => c.Loads.SelectMany(l => new[]
+            {
+                ($"{l.Load.Name} V", TextReport.Value(l.Voltage.Magnitude, "V")),
+                ($"{l.Load.Name} I", TextReport.Value(l.Current.Magnitude, "A")),
+                ($"{l.Load.Name} P", TextReport.Value(l.Power.Real, "W")),
+                ($"{l.Load.Name} reg", l.Regulation is { } r ? TextReport.Percent(r) : "-"),
+            }));
+        Table(o, "Totals", axes, points, c => new[]
+        {
+            ("copper loss", TextReport.Value(c.Totals.CopperLoss, "W")),
+            ("core loss", TextReport.Value(c.Totals.CoreLoss, "W")),
+            ("efficiency", c.Totals.Efficiency is { } e ? TextReport.Percent(e) : "-"),
+        });
+    }
+
+    private static void Table(StringBuilder o, string title, List<string> axes, IReadOnlyList<CaseResult> points, Func<CaseResult, IEnumerable<(string Column, string Text)>> cells)
+    {
+        var rows = points.Select(p => cells(p).ToList()).ToList();
+        var columns = rows.SelectMany(r => r.Select(c => c.Column)).Distinct().ToList();
+        if (columns.Count == 0) return;
+        o.Append("  ").Append(title).Append('\n');
+        Row(o, [.. axes.Select(a => $"{a}="), .. columns]);
+        for (var i = 0; i < points.Count; i++)
+        {
+            var byColumn = rows[i].GroupBy(c => c.Column).ToDictionary(g => g.Key, g => g.First().Text);
+            Row(o, [.. points[i].Case.Sweep.Select(v => v.Text), .. columns.Select(c => byColumn.GetValueOrDefault(c, "-"))]);
+        }
+    }
+
+    private static void Row(StringBuilder o, IEnumerable<string> cells)
+    {
+        var line = new StringBuilder("    ");
+        foreach (var cell in cells) line.Append(cell.PadRight(Width - 1)).Append(' ');
+        o.Append(line.ToString().TrimEnd()).Append('\n');
+    }
+}

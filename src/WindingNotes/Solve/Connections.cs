@@ -1,0 +1,44 @@
+using System.Collections.Immutable;
+using WindingNotes.Model;
+
+namespace WindingNotes.Solve;
+
+/// <summary>
+/// A supply and a load joined by wire through windings (not through earth): an autotransformer
+/// connection, with no galvanic isolation between input and output. <see cref="Common"/> holds the
+/// nodes both sides share (the common terminal), <see cref="Cores"/> the cores of the windings involved.
+/// </summary>
+public sealed record Connection(SupplyNet Supply, LoadNet Load, ImmutableArray<int> Common, ImmutableArray<int> Cores);
+
+public static class Connections
+{
+    /// <summary>
+    /// Nodes are linked by sections only, never through earth: both sides of an isolating transformer
+    /// may be grounded and still be isolated. A load is fed through windings when one of its
+    /// terminals other than earth is linked to a supply terminal that is not that same node.
+    /// </summary>
+    public static ImmutableArray<Connection> Find(Network network)
+    {
+        var earth = network.EarthNode;
+        var sets = new DisjointSets(network.Nodes.Length);
+        foreach (var s in network.Sections)
+            if (s.NodeA != earth && s.NodeB != earth) sets.Union(s.NodeA, s.NodeB);
+        var result = ImmutableArray.CreateBuilder<Connection>();
+        foreach (var load in network.Loads)
+        {
+            foreach (var supply in network.Supplies)
+            {
+                int[] loadNodes = [load.NodeA, load.NodeB], supplyNodes = [supply.NodeP, supply.NodeQ];
+                var fed = Array.FindIndex(loadNodes, a => a != earth && supplyNodes.Any(p => p != earth && p != a && sets.Find(p) == sets.Find(a)));
+                if (fed < 0) continue;
+                var island = sets.Find(loadNodes[fed]);
+                var cores = network.Sections
+                    .Where(s => (s.NodeA != earth && sets.Find(s.NodeA) == island) || (s.NodeB != earth && sets.Find(s.NodeB) == island))
+                    .Select(s => s.Core).Distinct().Order().ToImmutableArray();
+                var common = loadNodes.Intersect(supplyNodes).ToImmutableArray();
+                result.Add(new Connection(supply, load, common, cores));
+            }
+        }
+        return result.ToImmutable();
+    }
+}

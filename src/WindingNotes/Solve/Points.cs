@@ -1,0 +1,60 @@
+using System.Collections.Immutable;
+using WindingNotes.Model;
+using WindingNotes.Syntax;
+using WindingNotes.Text;
+
+namespace WindingNotes.Solve;
+
+/// <summary>
+/// The document solved at one set of values: its case (normal or a sweep point), the same network
+/// without loads (for regulation and excitation at no load), and the fault cases when asked for.
+/// </summary>
+public sealed record PointResult(CaseResult? Case, CaseResult? NoLoad, ImmutableArray<CaseResult> Faults, ImmutableArray<Diagnostic> Diagnostics)
+{
+    public bool Solved => Case is not null;
+}
+
+/// <summary>
+/// Solves points. A sweep point or tolerance sample re-binds the parsed document with overrides
+/// (cheap next to solving) and builds its network afresh; this is the one place a faster path for
+/// points that change only a brush can take over.
+/// </summary>
+public static class Points
+{
+    public static PointResult Solve(SyntaxTree syntax, BindOverrides overrides, CaseSpec spec, bool withFaults, CancellationToken cancel)
+    {
+        var model = Binder.Bind(syntax, overrides);
+        if (model.Supplies.IsEmpty) return new PointResult(null, null, [], model.Diagnostics);
+        var network = NetworkBuilder.Build(model);
+        if (network.Diagnostics.Any(d => d.IsError)) return new PointResult(null, null, [], [.. model.Diagnostics, .. network.Diagnostics]);
+        var solved = Solve(network, spec, withFaults, cancel);
+        return solved with { Diagnostics = [.. model.Diagnostics, .. network.Diagnostics, .. solved.Diagnostics] };
+    }
+
+    public static PointResult Solve(Network network, CaseSpec spec, bool withFaults, CancellationToken cancel)
+    {
+        var diagnostics = ImmutableArray.CreateBuilder<Diagnostic>();
+        var main = NetworkSolver.Solve(network, spec, cancel);
+        diagnostics.AddRange(main.Diagnostics);
+        if (!main.Solved) return new PointResult(null, null, [], diagnostics.ToImmutable());
+        Solution? noLoad = null;
+        if (!network.Loads.IsEmpty)
+        {
+            var solved = NetworkSolver.Solve(network, spec.WithoutLoad(), cancel);
+            diagnostics.AddRange(solved.Diagnostics);
+            if (solved.Solved) noLoad = solved;
+        }
+        var result = Results.Compute(main, noLoad);
+        // Without loads the case itself is the no-load condition.
+        var noLoadResult = network.Loads.IsEmpty ? result : noLoad is null ? null : Results.Compute(noLoad, null);
+        var faults = ImmutableArray.CreateBuilder<CaseResult>();
+        if (withFaults)
+            foreach (var fault in network.Model.Faults)
+            {
+                var solved = NetworkSolver.Solve(network, CaseSpec.ForFault(fault), cancel);
+                diagnostics.AddRange(solved.Diagnostics);
+                if (solved.Solved) faults.Add(Results.Compute(solved, null, main));
+            }
+        return new PointResult(result, noLoadResult, faults.ToImmutable(), diagnostics.ToImmutable());
+    }
+}

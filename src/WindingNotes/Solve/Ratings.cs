@@ -1,0 +1,153 @@
+using System.Collections.Immutable;
+using System.Numerics;
+using WindingNotes.Model;
+using WindingNotes.Text;
+
+namespace WindingNotes.Solve;
+
+/// <summary>
+/// Rating checks, warned at the line of what is over its rating: windings over their rated current,
+/// cores over their flux limit or over-excited, brushes over their current limit, autotransformer
+/// connections that need more two-winding rating than their cores have. Each finding is gathered over
+/// the normal case and every sweep point and reported once, with its worst value and where.
+/// </summary>
+public sealed class RatingTally
+{
+    /// <summary>Volts per turn may reach 105 % of rated on load and 110 % at no load (IEEE C57.12.00, from memory).</summary>
+    public const double OnLoadExcitation = 1.05, NoLoadExcitation = 1.10;
+
+    private readonly Dictionary<(string Code, string Key), Finding> findings = [];
+    private readonly List<(string Code, string Key)> order = [];
+    private int points;
+    private string point = "";
+
+    private sealed record Finding(string Code, TextSpan Span, string Name, double Value, double Limit, string Where, int Count, string Detail);
+
+    public void Observe(PointResult p)
+    {
+        if (p.Case is not { } c) return;
+        points++;
+        point = c.Case.Where == "as written" ? "" : $"at {c.Case.Where}";
+        var seen = new HashSet<(string, string)>();
+        void Found(string code, string key, TextSpan span, string name, double value, double limit, string detail = "")
+        {
+            var id = (code, key);
+            if (!seen.Add(id)) return;
+            if (!findings.TryGetValue(id, out var f))
+            {
+                order.Add(id);
+                findings[id] = new Finding(code, span, name, value, limit, point, 1, detail);
+                return;
+            }
+            findings[id] = value > f.Value
+                ? f with { Value = value, Limit = limit, Where = point, Count = f.Count + 1, Detail = detail }
+                : f with { Count = f.Count + 1 };
+        }
+
+        foreach (var winding in c.Sections.Where(s => s.Loading is not null).GroupBy(s => s.Winding.Name))
+        {
+            var worst = winding.Max(s => s.Loading!.Value);
+            if (worst > 1 + 1e-9) Found("loading-high", winding.Key, winding.First().Winding.Source.NameSpan, winding.Key, worst, 1);
+        }
+        foreach (var k in c.Cores)
+            if (k.Flux is { } flux && k.Core.FluxLimit is { } limit && flux > limit * (1 + 1e-9))
+                Found("flux-high", k.Core.Name, k.Core.Source.NameSpan, k.Core.Name, flux, limit);
+        var network = c.Solution.Network;
+        Excitation(c, network, c.Loads.Length > 0 && !c.Case.WithoutLoads, Found);
+        if (p.NoLoad is { } noLoad && noLoad != c) Excitation(noLoad, network, false, Found);
+        foreach (var brush in network.Model.Taps.Where(t => t.IsBrush && t.CurrentLimit is not null))
+        {
+            var current = BrushCurrent(c, brush.Name);
+            if (current > brush.CurrentLimit!.Value * (1 + 1e-9)) Found("brush-current-high", brush.Name, brush.NameSpan, brush.Name, current, brush.CurrentLimit.Value);
+        }
+        foreach (var island in c.Connections.GroupBy(x => string.Join(",", x.Connection.Cores)))
+        {
+            var cores = island.First().Connection.Cores.Select(i => network.Cores[i]).ToList();
+            if (cores.Count == 0 || cores.Any(k => k.Source.Rating is null)) continue;
+            var rating = cores.Sum(k => k.Source.Rating!.Value);
+            var needed = island.Sum(x => x.TwoWindingRating);
+            var throughput = island.Sum(x => x.Throughput);
+            if (needed > rating * (1 + 1e-9))
+                Found("connection-rating", island.Key, cores[0].Source.NameSpan, string.Join(", ", cores.Select(k => k.Name)), needed, rating,
+                    $"{Numbers.Format(throughput, "VA")} throughput at a co-ratio of {Numbers.Fixed(needed / throughput)}");
+        }
+    }
+
+    /// <summary>
+    /// Volts per turn against rated: the core's volts per turn over the rated voltage per turn of the
+    /// first winding on it that states a rated voltage.
+    /// </summary>
+    private static void Excitation(CaseResult c, Network network, bool onLoad, Action<string, string, TextSpan, string, double, double, string> found)
+    {
+        var limit = onLoad ? OnLoadExcitation : NoLoadExcitation;
+        foreach (var core in network.Cores)
+        {
+            var rated = network.Windings.FirstOrDefault(w => w.Core == core.Index && w.Source.Rated is not null && w.Turns > 0);
+            if (rated is null) continue;
+            var ratio = c.Solution.CoreVoltsPerTurn[core.Index].Magnitude / (rated.Source.Rated!.Value / rated.Turns);
+            if (ratio > limit * (1 + 1e-9))
+                found("overexcited", $"{core.Name}/{(onLoad ? "load" : "no-load")}", core.Source.NameSpan, core.Name, ratio, limit, onLoad ? "on load" : "at no load");
+        }
+    }
+
+    /// <summary>The current the brush passes to what it feeds: what enters its node from the sections ending there, less what leaves into the sections starting there.</summary>
+    public static double BrushCurrent(CaseResult c, string brush)
+    {
+        var sum = Complex.Zero;
+        foreach (var s in c.Sections)
+        {
+            if (s.Section.ToPoint == brush) sum += s.Current;
+            if (s.Section.FromPoint == brush) sum -= s.Current;
+        }
+        return sum.Magnitude;
+    }
+
+    public void Report(DiagnosticBag diagnostics)
+    {
+        foreach (var id in order)
+        {
+            var f = findings[id];
+            var where = DiagnosticBag.PointsText(f.Where, f.Count, points);
+            switch (f.Code)
+            {
+                case "loading-high": diagnostics.ReportLoadingHigh(f.Span, f.Name, f.Value, where); break;
+                case "flux-high": diagnostics.ReportFluxHigh(f.Span, f.Name, f.Value, f.Limit, where); break;
+                case "overexcited": diagnostics.ReportOverexcited(f.Span, f.Name, f.Value, f.Limit, f.Detail, where); break;
+                case "brush-current-high": diagnostics.ReportBrushCurrentHigh(f.Span, f.Name, f.Value, f.Limit, where); break;
+                default: diagnostics.ReportConnectionRating(f.Span, f.Name, f.Value, f.Limit, f.Detail, where); break;
+            }
+        }
+    }
+
+    /// <summary>
+    /// A brush set outside its travel, or a sweep that takes it there: positions compared in turns
+    /// from the winding's from end.
+    /// </summary>
+    public static void CheckBrushRanges(Network network, ImmutableArray<SweepAxis> axes, DiagnosticBag diagnostics)
+    {
+        foreach (var brush in network.Model.Taps.Where(t => t.IsBrush && t.Range is not null))
+        {
+            var winding = network.Windings.FirstOrDefault(w => w.Name == brush.Winding);
+            if (winding is null) continue;
+            var r = brush.Range!;
+            var (low, high) = (Turns(r.From, r.FromUnit, winding), Turns(r.To, r.ToUnit, winding));
+            if (low > high) (low, high) = (high, low);
+            bool Outside(double t) => t < low - 1e-9 * winding.Turns || t > high + 1e-9 * winding.Turns;
+            if (Outside(Turns(brush.Position, brush.Unit, winding)))
+                diagnostics.ReportBrushOutsideRange(brush.PositionSpan, brush.Name);
+            foreach (var axis in axes.Where(a => a.Name == brush.Name))
+            {
+                var unit = axis.From.IsPercent ? TapUnit.Fraction : axis.From.Dimension.IsNone ? TapUnit.Turns : TapUnit.Volts;
+                if (Outside(Turns(axis.Value(0).Real, unit, winding)) || Outside(Turns(axis.Value(axis.Count - 1).Real, unit, winding)))
+                    diagnostics.ReportSweepOutsideRange(axis.Sweep.Line, brush.Name);
+            }
+        }
+    }
+
+    private static double Turns(double position, TapUnit unit, WindingNet w) => unit switch
+    {
+        TapUnit.Turns => position,
+        TapUnit.Fraction => position * w.Turns,
+        _ => w.RatedVoltage is { } v ? position / v * w.Turns : double.NaN,
+    };
+}

@@ -1,0 +1,53 @@
+using WindingNotes.Model;
+using WindingNotes.Text;
+
+namespace WindingNotes.Solve;
+
+/// <summary>
+/// Cautions the trade gives, as information where they apply and nowhere else, each with its
+/// source: no isolation in an autotransformer connection, the common terminal, fusing the output of
+/// a variable autotransformer, an output above the supply, and the duty of each fault.
+/// </summary>
+public static class SafetyCautions
+{
+    /// <summary><paramref name="cases"/>: the normal case, the fault cases and the sweep points.</summary>
+    public static void Report(Network network, IReadOnlyList<CaseResult> cases, DiagnosticBag diagnostics)
+    {
+        var model = network.Model;
+        var connections = Connections.Find(network);
+        var warned = new HashSet<string>(StringComparer.Ordinal);
+        foreach (var c in connections)
+        {
+            var load = c.Load.Source;
+            if (warned.Add(load.Name)) diagnostics.ReportNoIsolation(load.NameSpan, load.Name, c.Supply.Name);
+            foreach (var node in c.Common)
+            {
+                var end = network.Node(load.A.Name) == node ? load.A : load.B;
+                if (warned.Add($"{load.Name}/{end.Name}")) diagnostics.ReportCommonTerminal(end.Span, end.Name, node == network.EarthNode);
+            }
+        }
+        foreach (var brush in model.Taps.Where(t => t.IsBrush && network.Windings.Any(w => w.Name == t.Winding)))
+            diagnostics.ReportFuseOutput(brush.NameSpan, brush.Name);
+
+        var operating = cases.Where(x => x.Case.Fault is null && !x.Case.WithoutLoads).ToList();
+        foreach (var c in connections)
+        {
+            var load = c.Load.Source;
+            (double Ratio, double Load, double Supply, string Where) highest = (0, 0, 0, "");
+            foreach (var x in operating)
+            {
+                var vl = x.Loads[c.Load.Index].Voltage.Magnitude;
+                var vs = x.Supplies[c.Supply.Index].Voltage.Magnitude;
+                if (vs > 0 && vl / vs > highest.Ratio) highest = (vl / vs, vl, vs, x.Case.Where == "as written" ? "" : $"at {x.Case.Where}");
+            }
+            if (highest.Ratio <= 1 + 1e-6) continue;
+            // Where the output hangs on a brush, the brush's line is where the setting is made.
+            var brush = model.Taps.FirstOrDefault(t => t.IsBrush && (t.Name == load.A.Name || t.Name == load.B.Name));
+            if (warned.Add($"above/{load.Name}"))
+                diagnostics.ReportAboveSupply(brush?.NameSpan ?? load.NameSpan, load.Name, highest.Load, c.Supply.Name, highest.Supply, highest.Where);
+        }
+
+        foreach (var f in cases.Select(x => x.Fault).OfType<FaultResult>())
+            diagnostics.ReportFaultDuty(f.Fault.NameSpan, f.Fault.Name, f.Current.Magnitude, f.Peak, f.WorstMultiple, f.WorstWinding);
+    }
+}
