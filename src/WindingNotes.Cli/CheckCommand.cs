@@ -27,7 +27,7 @@ internal static class CheckCommand
                 unreadable = true;
                 continue;
             }
-            var evaluation = Evaluator.Evaluate(text, ConsoleIo.DisplayName(path));
+            var evaluation = ProgressDisplay.Evaluate(io, text, ConsoleIo.DisplayName(path));
             foreach (var d in evaluation.Diagnostics) io.Output.WriteLine(DiagnosticLines.Format(evaluation, d));
             errors += evaluation.Diagnostics.Count(d => d.IsError);
             warnings += evaluation.Diagnostics.Count(d => d.Severity == Text.Severity.Warning);

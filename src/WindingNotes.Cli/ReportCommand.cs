@@ -21,7 +21,7 @@ internal static class ReportCommand
     {
         var text = io.Read(path);
         if (text is null) return Cli.Usage;
-        var evaluation = Evaluator.Evaluate(text, ConsoleIo.DisplayName(path));
+        var evaluation = ProgressDisplay.Evaluate(io, text, ConsoleIo.DisplayName(path));
         io.Output.Write(format switch
         {
             "json" => JsonReport.Write(evaluation),

@@ -15,7 +15,8 @@ public static class Connections
     /// <summary>
     /// Nodes are linked by sections only, never through earth: both sides of an isolating transformer
     /// may be grounded and still be isolated. A load is fed through windings when one of its
-    /// terminals other than earth is linked to a supply terminal that is not that same node.
+    /// terminals other than earth is linked to a supply terminal that is not that same node, or when
+    /// it shares a terminal other than earth with the supply and is not simply across the supply.
     /// </summary>
     public static ImmutableArray<Connection> Find(Network network)
     {
@@ -30,8 +31,9 @@ public static class Connections
             {
                 int[] loadNodes = [load.NodeA, load.NodeB], supplyNodes = [supply.NodeP, supply.NodeQ];
                 var fed = Array.FindIndex(loadNodes, a => a != earth && supplyNodes.Any(p => p != earth && p != a && sets.Find(p) == sets.Find(a)));
-                if (fed < 0) continue;
-                var island = sets.Find(loadNodes[fed]);
+                var shared = loadNodes.Any(a => a != earth && supplyNodes.Contains(a)) && !loadNodes.All(supplyNodes.Contains);
+                if (fed < 0 && !shared) continue;
+                var island = sets.Find(fed >= 0 ? loadNodes[fed] : loadNodes.First(a => a != earth && !supplyNodes.Contains(a)));
                 var cores = network.Sections
                     .Where(s => (s.NodeA != earth && sets.Find(s.NodeA) == island) || (s.NodeB != earth && sets.Find(s.NodeB) == island))
                     .Select(s => s.Core).Distinct().Order().ToImmutableArray();

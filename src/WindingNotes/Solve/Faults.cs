@@ -48,12 +48,17 @@ public static class Faults
         var factor = PeakFactor(xr);
         double? worst = null;
         string? worstWinding = null;
+        var worstTouches = false;
+        var (a, b) = (network.Node(f.A.Name), network.Node(f.B.Name));
         foreach (var s in network.Sections)
         {
             if (network.Windings[s.Winding].RatedCurrent is not { } rated || rated <= 0) continue;
             var multiple = fault.SectionCurrents[s.Index].Magnitude / rated;
-            if (worst is null || multiple > worst)
-                (worst, worstWinding) = (multiple, network.Windings[s.Winding].Name);
+            // Windings of one core carry the same multiple; of equals, name the one the fault is on.
+            var touches = new[] { s.NodeA, s.NodeB }.Any(n => n != network.EarthNode && (n == a || n == b));
+            var tie = worst is { } w && Math.Abs(multiple - w) <= 1e-9 * w;
+            if (worst is null || (multiple > worst && !tie) || (tie && touches && !worstTouches))
+                (worst, worstWinding, worstTouches) = (multiple, network.Windings[s.Winding].Name, touches);
         }
         return new FaultResult(f, i, xr, factor, factor * i.Magnitude) { WorstMultiple = worst, WorstWinding = worstWinding };
     }

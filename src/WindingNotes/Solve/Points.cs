@@ -52,7 +52,8 @@ public static class Points
             foreach (var fault in network.Model.Faults)
             {
                 var solved = NetworkSolver.Solve(network, CaseSpec.ForFault(fault), cancel);
-                diagnostics.AddRange(solved.Diagnostics);
+                // A load the fault shorts has no voltage: that is the fault, not something to warn about.
+                diagnostics.AddRange(solved.Diagnostics.Where(d => d.Code != "load-without-voltage"));
                 if (solved.Solved) faults.Add(Results.Compute(solved, null, main));
             }
         return new PointResult(result, noLoadResult, faults.ToImmutable(), diagnostics.ToImmutable());
