@@ -28,6 +28,13 @@ public sealed record ResultValue(string Case, string Element, string Field, stri
             "flux" => "peak flux",
             "copperLoss" => "copper loss",
             "coreLoss" => "core loss",
+            "coRatio" => "co-ratio",
+            "twoWindingRating" => "two-winding rating",
+            "maxEfficiencyLoad" => "maximum-efficiency load",
+            "maxEfficiencyFraction" => "maximum-efficiency fraction",
+            "maxEfficiency" => "maximum efficiency",
+            "peakFactor" => "peak factor",
+            "xr" => "X/R",
             var other => other,
         };
         return parts.Length > 1 && parts[^1] == "deg" ? label + " angle" : label;
@@ -46,7 +53,7 @@ public static class ResultValues
         ["loads"] = "load", ["faults"] = "fault", ["totals"] = "", ["bands"] = "band of",
     }.ToImmutableDictionary();
 
-    private static readonly HashSet<string> Fractions = ["loading", "efficiency", "regulation"];
+    private static readonly HashSet<string> Fractions = ["loading", "efficiency", "regulation", "maxEfficiency", "maxEfficiencyFraction"];
 
     public static ImmutableArray<ResultValue> Of(Evaluation evaluation)
     {
@@ -105,8 +112,8 @@ public static class ResultValues
         {
             "v" or "voltsPerTurn" => "V",
             "i" or "peak" => "A",
-            "s" or "throughput" or "transformed" => "VA",
-            "p" or "copperLoss" or "coreLoss" => "W",
+            "s" or "throughput" or "transformed" or "twoWindingRating" or "maxEfficiencyLoad" => "VA",
+            "p" or "copperLoss" or "coreLoss" or "loss" => "W",
             "q" => "var",
             "flux" => "T",
             "turns" => "turns",

@@ -56,12 +56,13 @@ public class ResultsSchemaTests
         normal["nodes"]!["X1"]!["v"]!.AsObject().Remove("deg");
         normal["loads"]!["planer"]!["kw"] = 3.2;
         report["diagnostics"]!.AsArray().Add(new JsonObject { ["severity"] = "fatal", ["code"] = "Bad Code", ["message"] = "m" });
+        var added = report["diagnostics"]!.AsArray().Count - 1;
         var result = Validate(report.ToJsonString());
         Assert.False(result.IsValid);
         var locations = (result.Details ?? []).Where(d => d.Errors is not null).Select(d => d.InstanceLocation.ToString()).ToList();
         Assert.Contains("/cases/0/nodes/X1/v", locations);
         Assert.Contains("/cases/0/loads/planer/kw", locations);
-        Assert.Contains("/diagnostics/0/severity", locations);
-        Assert.Contains("/diagnostics/0/code", locations);
+        Assert.Contains($"/diagnostics/{added}/severity", locations);
+        Assert.Contains($"/diagnostics/{added}/code", locations);
     }
 }
