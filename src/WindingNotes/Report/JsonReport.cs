@@ -101,6 +101,16 @@ public static class JsonReport
         }
         w.WriteEndObject();
 
+        // A winding split by taps or a brush: its copper loss is the sum of its sections'.
+        w.WriteStartObject("windings");
+        foreach (var winding in c.Sections.GroupBy(s => s.Winding.Name))
+        {
+            w.WriteStartObject(winding.Key);
+            Number(w, "loss", winding.Sum(s => s.Loss));
+            w.WriteEndObject();
+        }
+        w.WriteEndObject();
+
         w.WriteStartObject("cores");
         foreach (var k in c.Cores)
         {

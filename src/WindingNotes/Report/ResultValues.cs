@@ -49,7 +49,7 @@ public static class ResultValues
 {
     private static readonly ImmutableDictionary<string, string> Groups = new Dictionary<string, string>
     {
-        ["nodes"] = "node", ["sections"] = "section", ["cores"] = "core", ["supplies"] = "supply",
+        ["nodes"] = "node", ["sections"] = "section", ["windings"] = "winding", ["cores"] = "core", ["supplies"] = "supply",
         ["loads"] = "load", ["faults"] = "fault", ["totals"] = "", ["bands"] = "band of",
     }.ToImmutableDictionary();
 

@@ -52,6 +52,12 @@ public static class TextReport
             if (s.Loss > 0) text += $", loss {Numbers.Format(s.Loss, "W")}";
             Line(o, s.Section.Name, text);
         }
+        var split = c.Sections.GroupBy(s => s.Winding.Name).Where(g => g.Count() > 1 && g.Sum(s => s.Loss) > 0).ToList();
+        if (split.Count > 0)
+        {
+            Heading(o, "Windings");
+            foreach (var winding in split) Line(o, winding.Key, $"loss {Numbers.Format(winding.Sum(s => s.Loss), "W")}");
+        }
         if (!c.Cores.IsEmpty)
         {
             Heading(o, "Cores");
