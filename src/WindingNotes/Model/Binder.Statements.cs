@@ -124,11 +124,13 @@ internal sealed partial class BindRun
         double? area;
         if (isGauge)
         {
-            var gauge = Real(clause.Value(0), Dimension.None, $"the wire gauge of {winding}");
+            // Sizes above 0 AWG are written 00, 000, 0000 (gauges −1, −2, −3).
+            var written = clause.Value(0) is { } size ? tree.Text[size.Span] : "";
+            var gauge = written.Length > 1 && written.All(c => c == '0') ? 1 - written.Length : Real(clause.Value(0), Dimension.None, $"the wire gauge of {winding}");
             area = gauge is { } n ? Conductors.AwgArea(n) : null;
             if (gauge is { } g && (g < -3 || g > 56))
             {
-                diagnostics.ReportOutOfBounds(clause.Value(0)!.Span, "an AWG size", "between 0000 (-3) and 56");
+                diagnostics.ReportOutOfBounds(clause.Value(0)!.Span, "an AWG size", "between 0000 and 56");
                 area = null;
             }
         }
@@ -178,6 +180,7 @@ internal sealed partial class BindRun
         var valueSyntax = s.Head.Value();
         var value = Value(valueSyntax, $"the impedance {string.Join(" ", s.Head.Names.Select(n => n.Text))}");
         var xr = Real(s.Value("xr"), Dimension.None, "the X/R ratio", positive: true);
+        var basePower = Real(s.Value("base"), Dimension.ApparentPower, "the base of the impedance", positive: true);
         if (parts.Count < 2 || parts[0] is null || parts[1] is null || value is not { } z) return;
         bool perUnit;
         if (z.Dimension == Dimension.Impedance) perUnit = false;
@@ -192,7 +195,15 @@ internal sealed partial class BindRun
             diagnostics.ReportOutOfBounds(s.Clause("xr")!.Span, "'xr'", "left out when the impedance is complex");
             return;
         }
-        model = model with { Impedances = model.Impedances.Add(new ImpedanceModel(parts[0]!, parts[1]!, z.Value, perUnit, xr, s.Span, valueSyntax!.Span)) };
+        if (basePower is not null && !perUnit)
+        {
+            diagnostics.ReportOutOfBounds(s.Clause("base")!.Span, "'base'", "left out when the impedance is in ohms");
+            return;
+        }
+        model = model with
+        {
+            Impedances = model.Impedances.Add(new ImpedanceModel(parts[0]!, parts[1]!, z.Value, perUnit, xr, s.Span, valueSyntax!.Span) { Base = basePower }),
+        };
     }
 
     private WindingPart? WindingPartOf(NameSyntax name)

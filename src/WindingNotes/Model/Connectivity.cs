@@ -48,4 +48,33 @@ public static class Islands
         }
         return reference;
     }
+
+    /// <summary>
+    /// Independent parts: nodes linked by supplies, loads and extra branches, and through a core by its
+    /// sections (core c is vertex Nodes.Length + c). Earth is the reference of every grounded part but
+    /// links nothing, so two grounded units stay two small parts instead of one large one.
+    /// </summary>
+    public static DisjointSets Parts(Network network, bool withLoads, IEnumerable<(int A, int B)> extra)
+    {
+        var nodeCount = network.Nodes.Length;
+        var earth = network.EarthNode;
+        var sets = new DisjointSets(nodeCount + network.Cores.Length);
+        void Link(int a, int b)
+        {
+            if (a != earth && b != earth) sets.Union(a, b);
+        }
+        foreach (var s in network.Sections)
+        {
+            Link(s.NodeA, nodeCount + s.Core);
+            Link(s.NodeB, nodeCount + s.Core);
+        }
+        foreach (var s in network.Supplies) Link(s.NodeP, s.NodeQ);
+        if (withLoads)
+            foreach (var l in network.Loads) Link(l.NodeA, l.NodeB);
+        foreach (var (a, b) in extra) Link(a, b);
+        return sets;
+    }
+
+    /// <summary>The vertex of <see cref="Parts"/> a two-terminal element belongs to: its node that is not earth (−1 when both are).</summary>
+    public static int Anchor(Network network, int a, int b) => a != network.EarthNode ? a : b != network.EarthNode ? b : -1;
 }

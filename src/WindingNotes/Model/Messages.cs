@@ -88,7 +88,7 @@ public sealed partial class DiagnosticBag
             d => d with { Related = [new RelatedSpan("first given here", first)] });
 
     public Diagnostic ReportPercentNeedsRating(TextSpan span, string core) =>
-        Error("needs-rating", span, $"an impedance in % or pu needs the rating of core '{core}' and the first winding's rated voltage");
+        Error("needs-rating", span, $"an impedance in % or pu needs a base (the rating of core '{core}', or 'base') and the first winding's rated voltage");
 
     public Diagnostic ReportResistanceMismatch(TextSpan span, double fromLine, double fromWindings) =>
         Warning("resistance-mismatch", span,
@@ -98,6 +98,11 @@ public sealed partial class DiagnosticBag
 
     public Diagnostic ReportSupplyShorted(TextSpan span, string name, string a, string b) =>
         Error("supply-shorted", span, $"supply '{name}' is shorted: '{a}' and '{b}' are one node");
+
+    public Diagnostic ReportNoSource(IReadOnlyList<(string Name, TextSpan Span)> loads) =>
+        Amend(Warning("no-source", loads[0].Span,
+                $"{(loads.Count == 1 ? "load" : "loads")} {string.Join(", ", loads.Select(l => $"'{l.Name}'"))} {(loads.Count == 1 ? "is" : "are")} in a part of the network with no supply: no current flows there"),
+            d => d with { Related = [.. loads.Skip(1).Select(l => new RelatedSpan($"load '{l.Name}'", l.Span))] });
 
     public Diagnostic ReportNoGround(TextSpan span, string reference, IEnumerable<string> members) =>
         Warning("no-ground", span,
@@ -114,12 +119,31 @@ public sealed partial class DiagnosticBag
     public Diagnostic ReportNoLoadNeedsRating(TextSpan span, string winding) =>
         Error("needs-rating", span, $"a no-load current in % needs the rated current of '{winding}'");
 
+    public Diagnostic ReportDuplicateNoLoad(TextSpan span, string core, TextSpan first) =>
+        Amend(Error("duplicate-no-load", span, $"core '{core}' has a no-load test already; one test defines its magnetising branch"),
+            d => d with { Related = [new RelatedSpan("first given here", first)] });
+
+    public Diagnostic ReportNoLoadOffCore(TextSpan span, string winding, string core) =>
+        Error("different-cores", span, $"winding '{winding}' is not on core '{core}'; a no-load test is made on a winding of its core");
+
     public Diagnostic ReportNoLoadInconsistent(TextSpan span) =>
         Error("no-load-inconsistent", span, "the no-load loss is more than the no-load current can carry at this voltage (P > V·I)");
 
     public Diagnostic ReportResistanceExceedsImpedance(TextSpan span, double resistance, double impedance) =>
         Error("resistance-exceeds-impedance", span,
             $"the windings' resistances ({Numbers.Format(resistance, "ohm")} referred) exceed this impedance ({Numbers.Format(impedance, "ohm")})");
+
+    public Diagnostic ReportLeakageOverlap(TextSpan span, string part, string other, TextSpan otherSpan) =>
+        Amend(Error("leakage-overlap", span, $"'{part}' overlaps '{other}': the parts of one winding named in impedance lines must not overlap"),
+            d => d with { Related = [new RelatedSpan($"'{other}' is named here", otherSpan)] });
+
+    public Diagnostic ReportLeakageMissing(TextSpan span, IReadOnlyList<string> pairs)
+    {
+        var shown = pairs.Count > 4 ? [.. pairs.Take(3), $"{pairs.Count - 3} more pairs"] : pairs;
+        var list = shown.Count == 1 ? shown[0] : $"{string.Join(", ", shown.Take(shown.Count - 1))} and {shown[^1]}";
+        return Info("leakage-missing", span,
+            $"no impedance is given for {list}: {(pairs.Count == 1 ? "the pair is" : "these pairs are")} taken as ideally coupled");
+    }
 
     public Diagnostic ReportNotEvaluated(TextSpan span, string what) =>
         Info("not-evaluated", span, $"{what} is read but not evaluated yet");

@@ -69,8 +69,12 @@ public sealed record WindingPart(string Winding, string? From, string? To, TextS
     public override string ToString() => From is null ? Winding : $"{Winding}:{From}-{To}";
 }
 
-/// <summary>A short-circuit impedance between two windings: per unit on the core rating, or ohms referred to the first.</summary>
-public sealed record ImpedanceModel(WindingPart First, WindingPart Second, Complex Value, bool PerUnit, double? XR, TextSpan Line, TextSpan ValueSpan);
+/// <summary>A short-circuit impedance between two windings or parts of them: per unit on the core rating (or a base), or ohms referred to the first.</summary>
+public sealed record ImpedanceModel(WindingPart First, WindingPart Second, Complex Value, bool PerUnit, double? XR, TextSpan Line, TextSpan ValueSpan)
+{
+    /// <summary>The power (VA) a per-unit value is on, where it is not the core's rating.</summary>
+    public double? Base { get; init; }
+}
 
 public sealed record SupplyModel(string Name, TextSpan NameSpan, TextSpan Line, NodeRef Positive, NodeRef Negative, Complex Voltage)
 {

@@ -30,6 +30,9 @@ public sealed record Section(int Index, string Name, int Winding, int Core, int 
 public sealed record CoreNet(int Index, CoreModel Source, ImmutableArray<int> Sections, Complex[,] Impedance, Complex Admittance, double? FluxLimit)
 {
     public string Name => Source.Name;
+
+    /// <summary>The winding of the open-circuit test the admittance comes from, or −1.</summary>
+    public int NoLoadWinding { get; init; } = -1;
 }
 
 public sealed record SupplyNet(int Index, SupplyModel Source, int NodeP, int NodeQ, Complex Voltage, Complex Impedance)

@@ -28,7 +28,7 @@ public static class NetworkBuilder
             var supplies = BuildSupplies();
             var loads = model.Loads.Select((l, i) => new LoadNet(i, l, nodeOf[l.A.Name], nodeOf[l.B.Name])).ToImmutableArray();
             var network = new Network(model, nodes, nodeOf.ToImmutableDictionary(), windings, sections, cores, supplies, loads, []);
-            WarnUngrounded(network);
+            WarnIslands(network);
             return network with { Diagnostics = diagnostics.ToImmutable() };
         }
 
@@ -158,37 +158,37 @@ public static class NetworkBuilder
 
         private CoreNet BuildCore(CoreModel core, int index, ImmutableArray<WindingNet> windings, ImmutableArray<Section> sections)
         {
-            var onCore = windings.Where(w => w.Core == index).ToList();
-            var coreSections = sections.Where(s => s.Core == index).Select(s => s.Index).ToImmutableArray();
-            var leakage = Leakage.PerTurnMatrix(model, core, onCore, diagnostics, out var extraResistance);
-            var z = new Complex[coreSections.Length, coreSections.Length];
-            var position = onCore.Select((w, i) => (w.Index, i)).ToDictionary(x => x.Index, x => x.i);
-            for (var r = 0; r < coreSections.Length; r++)
+            var onCore = sections.Where(s => s.Core == index).ToList();
+            var test = NoLoadTest(core, index, windings);
+            var z = Leakage.SectionMatrix(model, index, onCore, windings, test?.Winding.Name, diagnostics);
+            var admittance = test is { } t ? MagnetisingAdmittance(t.Test, t.Winding) : Complex.Zero;
+            return new CoreNet(index, core, [.. onCore.Select(s => s.Index)], z, admittance, core.FluxLimit)
             {
-                var a = sections[coreSections[r]];
-                var wa = windings[a.Winding];
-                for (var c = 0; c < coreSections.Length; c++)
-                {
-                    var b = sections[coreSections[c]];
-                    z[r, c] = a.Turns * b.Turns * leakage[position[a.Winding], position[b.Winding]];
-                }
-                // The winding's own resistance, or its share (per turn²) of the pair resistances of the
-                // impedance lines; either way split among its sections by turns.
-                z[r, r] += a.Resistance + extraResistance[position[a.Winding]] * wa.Turns * a.Turns;
+                NoLoadWinding = test?.Winding.Index ?? -1,
+            };
+        }
+
+        /// <summary>The core's open-circuit test and its winding; a second test of one core is an error.</summary>
+        private (NoLoadModel Test, WindingNet Winding)? NoLoadTest(CoreModel core, int index, ImmutableArray<WindingNet> windings)
+        {
+            var tests = model.NoLoads.Where(n => n.Core == core.Name).ToList();
+            foreach (var extra in tests.Skip(1)) diagnostics.ReportDuplicateNoLoad(extra.Line, core.Name, tests[0].Line);
+            if (tests.Count == 0 || windings.FirstOrDefault(x => x.Name == tests[0].Winding.Name) is not { } w) return null;
+            if (w.Core != index)
+            {
+                diagnostics.ReportNoLoadOffCore(tests[0].Winding.Span, w.Name, core.Name);
+                return null;
             }
-            return new CoreNet(index, core, coreSections, z, MagnetisingAdmittance(core, windings), core.FluxLimit);
+            return (tests[0], w);
         }
 
         /// <summary>
-        /// The magnetising admittance referred to one turn, from an open-circuit test on winding W:
-        /// G = P/V², |Y| = I/V, B = √(|Y|² − G²), each times N_W² (a winding of N turns sees Y/N²).
+        /// The magnetising admittance referred to one turn, from an open-circuit test on winding W
+        /// (open-circuit test relations): G = P/V², |Y| = I/V, B = √(|Y|² − G²), each times N_W² (a
+        /// winding of N turns sees Y/N²). Core loss then goes with the square of the volts per turn.
         /// </summary>
-        private Complex MagnetisingAdmittance(CoreModel core, ImmutableArray<WindingNet> windings)
+        private Complex MagnetisingAdmittance(NoLoadModel test, WindingNet w)
         {
-            var test = model.NoLoads.FirstOrDefault(n => n.Core == core.Name);
-            if (test is null) return Complex.Zero;
-            var w = windings.FirstOrDefault(x => x.Name == test.Winding.Name);
-            if (w is null) return Complex.Zero;
             var current = test.CurrentIsFraction
                 ? test.Current * (w.RatedCurrent ?? double.NaN)
                 : test.Current;
@@ -239,19 +239,35 @@ public static class NetworkBuilder
             return new Complex(r, r * xr);
         }
 
-        private void WarnUngrounded(Network network)
+        /// <summary>
+        /// A part with loads and no source carries nothing: said at its loads. A galvanic island with
+        /// a supply or a load and no ground floats: its voltages are given against its first node. An
+        /// island of windings alone (an open winding) carries no current and needs no ground.
+        /// </summary>
+        private void WarnIslands(Network network)
         {
+            var parts = Islands.Parts(network, withLoads: true, []);
+            int PartOf(int a, int b) => parts.Find(Islands.Anchor(network, a, b));
+            var fed = network.Supplies.Select(s => PartOf(s.NodeP, s.NodeQ)).ToHashSet();
+            var dead = network.Loads.Where(l => l.NodeA != l.NodeB && !fed.Contains(PartOf(l.NodeA, l.NodeB))).ToList();
+            foreach (var part in dead.GroupBy(l => PartOf(l.NodeA, l.NodeB)))
+                diagnostics.ReportNoSource(part.Select(l => (l.Name, l.Source.NameSpan)).ToList());
+
             var references = Islands.References(network, []);
+            var deadNodes = dead.SelectMany(l => new[] { l.NodeA, l.NodeB }).ToHashSet();
+            var active = new HashSet<int>();
+            foreach (var s in network.Supplies) active.Add(references[s.NodeP]);
+            foreach (var l in network.Loads.Where(l => !deadNodes.Contains(l.NodeA))) active.Add(references[l.NodeA]);
             var used = new HashSet<int>();
             foreach (var s in network.Sections) { used.Add(s.NodeA); used.Add(s.NodeB); }
             foreach (var s in network.Supplies) { used.Add(s.NodeP); used.Add(s.NodeQ); }
             foreach (var l in network.Loads) { used.Add(l.NodeA); used.Add(l.NodeB); }
-            foreach (var island in used.GroupBy(n => references[n]).OrderBy(g => g.Key))
+            foreach (var island in active.Order())
             {
-                if (nodes[island.Key].IsEarth) continue;
-                var members = island.OrderBy(n => n).SelectMany(n => nodes[n].Points).ToList();
+                if (nodes[island].IsEarth) continue;
+                var members = used.Where(n => references[n] == island).Order().SelectMany(n => nodes[n].Points).ToList();
                 var span = model.Points.First(p => p.Name == members[0]).Span;
-                diagnostics.ReportNoGround(span, nodes[island.Key].Name, members);
+                diagnostics.ReportNoGround(span, nodes[island].Name, members);
             }
         }
     }

@@ -97,6 +97,7 @@ public static class JsonReport
             Number(w, "s", s.Apparent);
             if (s.Loading is { } loading) Number(w, "loading", loading);
             Number(w, "loss", s.Loss);
+            if (s.CurrentDensity is { } density) Number(w, "currentDensity", density);
             w.WriteEndObject();
         }
         w.WriteEndObject();
@@ -118,6 +119,7 @@ public static class JsonReport
             if (k.VoltsPerTurn is { } e) Phasor(w, "voltsPerTurn", e);
             if (k.Flux is { } flux) Number(w, "flux", flux);
             Number(w, "loss", k.Loss);
+            if (k.NoLoadCurrent is { } i0) Phasor(w, "noLoadCurrent", i0);
             w.WriteEndObject();
         }
         w.WriteEndObject();

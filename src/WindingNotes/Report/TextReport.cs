@@ -49,6 +49,7 @@ public static class TextReport
             var text = $"{s.Section.FromPoint} to {s.Section.ToPoint}, {Numbers.Plain(s.Section.Turns)} turns: {Phasor(s.Current, "A")}, {Numbers.Format(s.Apparent, "VA")}";
             // Under a fault the loading is the multiple of rated current the winding carries.
             if (s.Loading is { } loading) text += c.Fault is null ? $", loading {Percent(loading)}" : $", {Numbers.Fixed(loading)} x rated";
+            if (s.CurrentDensity is { } density) text += $", {Numbers.Format(density / 1e6, "A/mm2")}";
             if (s.Loss > 0) text += $", loss {Numbers.Format(s.Loss, "W")}";
             Line(o, s.Section.Name, text);
         }
@@ -67,6 +68,7 @@ public static class TextReport
                 if (k.VoltsPerTurn is { } e) parts.Add($"{Numbers.Format(e.Magnitude, "V")}/turn");
                 if (k.Flux is { } b) parts.Add($"peak flux {Numbers.Format(b, "T")}" + (k.Core.FluxLimit is { } limit ? $" (limit {Numbers.Format(limit, "T")})" : ""));
                 if (k.Loss > 0) parts.Add($"core loss {Numbers.Format(k.Loss, "W")}");
+                if (k.NoLoadCurrent is { } i0) parts.Add($"no-load current {Numbers.Format(i0.Magnitude, "A")} in {k.NoLoadWinding!.Name}");
                 Line(o, k.Core.Name, parts.Count == 0 ? "turns not given: volts per turn unknown" : string.Join(", ", parts));
             }
         }

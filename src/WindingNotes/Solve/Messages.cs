@@ -10,15 +10,28 @@ public sealed partial class DiagnosticBag
         var named = elements.Where(e => e.Kind != "node").DefaultIfEmpty(elements.FirstOrDefault()).ToList();
         var list = string.Join(", ", named.Take(6).Select(e => $"{e.Kind} '{e.Name}'"));
         var d = Error("singular", named[0].Span,
-            $"{prefix}the network has no unique solution: {list} (ideally coupled sections in a loop, or a source shorted through ideal windings); give the windings resistance or leakage impedance, or remove the loop");
+            $"{prefix}the network has no unique solution: {list} (ideally coupled sections in a loop); give the windings resistance or leakage impedance, or remove the loop");
         return Amend(d, x => x with { Related = [.. elements.Skip(1).Where(e => e.Span != named[0].Span).Select(e => new RelatedSpan($"{e.Kind} '{e.Name}'", e.Span))] });
     }
 
-    public Diagnostic ReportIllConditioned(IReadOnlyList<(string Kind, string Name, TextSpan Span)> elements, double residual, string prefix)
+    public Diagnostic ReportSupplyShortedThrough((string Kind, string Name, TextSpan Span) supply, IReadOnlyList<(string Kind, string Name, TextSpan Span)> through, string prefix)
     {
-        var span = elements.Count > 0 ? elements[0].Span : default;
-        return Warning("ill-conditioned", span,
-            $"{prefix}the network is ill-conditioned (relative residual {Numbers.Plain(residual, 2)}): results may be inaccurate; look for impedances that differ by many orders of magnitude");
+        var list = through.Count == 0 ? "" : $" through {string.Join(", ", through.Take(6).Select(e => $"{e.Kind} '{e.Name}'"))}";
+        var d = Error("supply-shorted", supply.Span,
+            $"{prefix}supply '{supply.Name}' is shorted{list} with no impedance in the path: give the windings leakage impedance or resistance, or the supply an internal impedance");
+        return Amend(d, x => x with { Related = [.. through.Where(e => e.Span != supply.Span).Select(e => new RelatedSpan($"{e.Kind} '{e.Name}'", e.Span))] });
+    }
+
+    public Diagnostic ReportIllConditioned(IReadOnlyList<(string Kind, string Name, TextSpan Span)> elements, double condition, double residual, string prefix)
+    {
+        var named = elements.Where(e => e.Kind != "node").DefaultIfEmpty(elements.FirstOrDefault()).ToList();
+        static string Rough(double x) => Numbers.Json(double.Parse(x.ToString("G2", System.Globalization.CultureInfo.InvariantCulture), System.Globalization.CultureInfo.InvariantCulture));
+        var measure = double.IsFinite(condition) ? $"condition number {Rough(condition)}" : $"relative residual {Rough(residual)}";
+        var figures = double.IsFinite(condition) ? $"about {Math.Max(0, (int)Math.Floor(16 - Math.Log10(condition)))} significant figures can be trusted" : "results may be inaccurate";
+        var list = named.Count > 0 && named[0].Name is not null ? $" around {string.Join(", ", named.Take(6).Select(e => $"{e.Kind} '{e.Name}'"))}" : "";
+        var d = Warning("ill-conditioned", named.Count > 0 ? named[0].Span : default,
+            $"{prefix}the network is ill-conditioned{list} ({measure}): {figures}; look for impedances that differ by many orders of magnitude");
+        return Amend(d, x => x with { Related = [.. named.Skip(1).Where(e => e.Span != named[0].Span).Select(e => new RelatedSpan($"{e.Kind} '{e.Name}'", e.Span))] });
     }
 
     public Diagnostic ReportNoConvergence(IReadOnlyList<LoadModel> loads, int iterations, string prefix)
@@ -32,6 +45,10 @@ public sealed partial class DiagnosticBag
 
     public Diagnostic ReportLoadWithoutVoltage(LoadModel load, string prefix) =>
         Warning("load-without-voltage", load.NameSpan, $"{prefix}load '{load.Name}' has no voltage across it and draws nothing");
+
+    public Diagnostic ReportCurrentDensityHigh(TextSpan span, string winding, double density, double low, double high, string where) =>
+        Warning("current-density-high", span,
+            $"the current density in '{winding}' is {Numbers.Format(density / 1e6, "A/mm2")}{where}, above the {Numbers.Plain(low / 1e6)} to {Numbers.Plain(high / 1e6)} A/mm2 usual for naturally cooled copper windings (common practice)");
 
     public Diagnostic ReportInternalError(Exception e) =>
         Error("internal-error", default, $"internal error, please report it: {e.GetType().Name}: {e.Message}");

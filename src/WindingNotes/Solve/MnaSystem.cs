@@ -158,27 +158,10 @@ internal sealed record SolveGroup(List<int> Nodes, List<int> Sections, List<int>
     {
         var nodeCount = network.Nodes.Length;
         var earth = network.EarthNode;
-        // Cores take part as extra vertices after the nodes.
-        var sets = new DisjointSets(nodeCount + network.Cores.Length);
-        void Link(int a, int b)
-        {
-            if (a != earth && b != earth) sets.Union(a, b);
-        }
-        int Anchor(int a, int b) => a != earth ? a : b;
-        foreach (var s in network.Sections)
-        {
-            Link(s.NodeA, nodeCount + s.Core);
-            Link(s.NodeB, nodeCount + s.Core);
-        }
-        foreach (var s in network.Supplies) Link(s.NodeP, s.NodeQ);
         var loads = spec.WithoutLoads ? [] : network.Loads.Where(l => l.NodeA != l.NodeB).ToList();
-        foreach (var l in loads) Link(l.NodeA, l.NodeB);
         int faultA = -1, faultB = -1;
-        if (spec.Fault is { } f)
-        {
-            (faultA, faultB) = (network.Node(f.A.Name), network.Node(f.B.Name));
-            Link(faultA, faultB);
-        }
+        if (spec.Fault is { } f) (faultA, faultB) = (network.Node(f.A.Name), network.Node(f.B.Name));
+        var sets = Islands.Parts(network, !spec.WithoutLoads, faultA >= 0 ? [(faultA, faultB)] : []);
         var groups = new Dictionary<int, SolveGroup>();
         SolveGroup Of(int vertex)
         {
@@ -189,15 +172,14 @@ internal sealed record SolveGroup(List<int> Nodes, List<int> Sections, List<int>
         for (var n = 0; n < nodeCount; n++)
             if (n != earth) Of(n).Nodes.Add(n);
         foreach (var s in network.Sections) Of(nodeCount + s.Core).Sections.Add(s.Index);
-        foreach (var s in network.Supplies) Of(Anchor(s.NodeP, s.NodeQ)).Supplies.Add(s.Index);
-        foreach (var l in loads.Where(l => Anchor(l.NodeA, l.NodeB) != earth)) Of(Anchor(l.NodeA, l.NodeB)).Loads.Add(l.Index);
+        foreach (var s in network.Supplies) Of(Islands.Anchor(network, s.NodeP, s.NodeQ)).Supplies.Add(s.Index);
+        foreach (var l in loads) Of(Islands.Anchor(network, l.NodeA, l.NodeB)).Loads.Add(l.Index);
         for (var c = 0; c < network.Cores.Length; c++)
             if (network.Cores[c].Sections.Length > 0) Of(nodeCount + c).Cores.Add(c);
         var result = groups.OrderBy(g => g.Key).Select(g => g.Value).ToList();
-        if (faultA >= 0 && Anchor(faultA, faultB) != earth)
+        if (faultA >= 0 && Islands.Anchor(network, faultA, faultB) is var anchor and >= 0)
         {
-            var anchor = sets.Find(Anchor(faultA, faultB));
-            var index = result.IndexOf(groups[anchor]);
+            var index = result.IndexOf(groups[sets.Find(anchor)]);
             result[index] = result[index] with { HasFault = true };
         }
         return result;

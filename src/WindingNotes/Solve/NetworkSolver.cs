@@ -90,22 +90,23 @@ public static class NetworkSolver
 
     private static bool Accept(DenseSolver.Result result, MnaSystem m, DiagnosticBag diagnostics, string prefix)
     {
-        switch (result.Status)
+        if (result.Status == SolveStatus.Solved) return true;
+        var elements = result.NullEquations.Select(i => m.Equations[i])
+            .Concat(result.NullUnknowns.Select(i => m.Unknowns[i]))
+            .DistinctBy(e => (e.Kind, e.Name))
+            .OrderBy(e => e.Kind == "node" ? 1 : 0)
+            .Select(e => (e.Kind, e.Name, e.Span))
+            .ToList();
+        if (result.Status == SolveStatus.IllConditioned)
         {
-            case SolveStatus.Singular:
-                var elements = result.NullEquations.Select(i => m.Equations[i])
-                    .Concat(result.NullUnknowns.Select(i => m.Unknowns[i]))
-                    .DistinctBy(e => (e.Kind, e.Name))
-                    .OrderBy(e => e.Kind == "node" ? 1 : 0)
-                    .ToList();
-                diagnostics.ReportSingular(elements.Select(e => (e.Kind, e.Name, e.Span)).ToList(), prefix);
-                return false;
-            case SolveStatus.IllConditioned:
-                diagnostics.ReportIllConditioned(m.Unknowns.Where(u => u.Kind != "node").Select(u => (u.Kind, u.Name, u.Span)).ToList(), result.Residual, prefix);
-                return true;
-            default:
-                return true;
+            diagnostics.ReportIllConditioned(elements, result.Condition, result.Residual, prefix);
+            return result.X.Length == m.Size;
         }
+        // A source in the null space is shorted: through ideal windings, or by a fault with no impedance.
+        if (elements.FindIndex(e => e.Kind == "supply") is var supply and >= 0)
+            diagnostics.ReportSupplyShortedThrough(elements[supply], [.. elements.Where((e, i) => i != supply && e.Kind != "node")], prefix);
+        else diagnostics.ReportSingular(elements, prefix);
+        return false;
     }
 
     /// <summary>Rounding leaves values like 1e-17 where the answer is zero; they would print as noise.</summary>

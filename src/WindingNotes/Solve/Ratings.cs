@@ -6,8 +6,8 @@ using WindingNotes.Text;
 namespace WindingNotes.Solve;
 
 /// <summary>
-/// Rating checks, warned at the line of what is over its rating: windings over their rated current,
-/// cores over their flux limit or over-excited, brushes over their current limit, autotransformer
+/// Rating checks, warned at the line of what is over its rating: windings over their rated current or
+/// above the usual current density, cores over their flux limit or over-excited, brushes over their current limit, autotransformer
 /// connections that need more two-winding rating than their cores have. Each finding is gathered over
 /// the normal case and every sweep point and reported once, with its worst value and where.
 /// </summary>
@@ -49,6 +49,8 @@ public sealed class RatingTally
             var worst = winding.Max(s => s.Loading!.Value);
             if (worst > 1 + 1e-9) Found("loading-high", winding.Key, winding.First().Winding.Source.NameSpan, winding.Key, worst, 1);
         }
+        foreach (var (span, winding, density) in CurrentDensity.AboveBand(c))
+            Found("current-density-high", winding, span, winding, density, CurrentDensity.CopperHigh);
         foreach (var k in c.Cores)
             if (k.Flux is { } flux && k.Core.FluxLimit is { } limit && flux > limit * (1 + 1e-9))
                 Found("flux-high", k.Core.Name, k.Core.Source.NameSpan, k.Core.Name, flux, limit);
@@ -114,6 +116,7 @@ public sealed class RatingTally
                 case "flux-high": diagnostics.ReportFluxHigh(f.Span, f.Name, f.Value, f.Limit, where); break;
                 case "overexcited": diagnostics.ReportOverexcited(f.Span, f.Name, f.Value, f.Limit, f.Detail, where); break;
                 case "brush-current-high": diagnostics.ReportBrushCurrentHigh(f.Span, f.Name, f.Value, f.Limit, where); break;
+                case "current-density-high": diagnostics.ReportCurrentDensityHigh(f.Span, f.Name, f.Value, CurrentDensity.CopperLow, f.Limit, where); break;
                 default: diagnostics.ReportConnectionRating(f.Span, f.Name, f.Value, f.Limit, f.Detail, where); break;
             }
         }

@@ -4,10 +4,20 @@ using WindingNotes.Model;
 
 namespace WindingNotes.Solve;
 
-public sealed record SectionResult(Section Section, WindingNet Winding, Complex Current, Complex Voltage, double Apparent, double? Loading, double Loss);
+public sealed record SectionResult(Section Section, WindingNet Winding, Complex Current, Complex Voltage, double Apparent, double? Loading, double Loss)
+{
+    /// <summary>A/m², where the winding's conductor is given.</summary>
+    public double? CurrentDensity { get; init; }
+}
 
 /// <summary>Volts per turn and peak flux density, where the turns are known (not only derived from voltages).</summary>
-public sealed record CoreResult(CoreNet Core, Complex? VoltsPerTurn, double? Flux, double Loss);
+public sealed record CoreResult(CoreNet Core, Complex? VoltsPerTurn, double? Flux, double Loss)
+{
+    /// <summary>The magnetising current the open-circuit test winding draws at this volts per turn, and that winding.</summary>
+    public Complex? NoLoadCurrent { get; init; }
+
+    public WindingNet? NoLoadWinding { get; init; }
+}
 
 public sealed record SupplyResult(SupplyNet Supply, Complex Voltage, Complex Current, Complex Power)
 {
@@ -90,7 +100,10 @@ public static class Results
             var i = solution.SectionCurrents[s.Index];
             var v = solution.SectionVoltage(s);
             var loading = w.RatedCurrent is { } rated ? i.Magnitude / rated : (double?)null;
-            return new SectionResult(s, w, i, v, v.Magnitude * i.Magnitude, loading, SectionLoss(network, s, solution));
+            return new SectionResult(s, w, i, v, v.Magnitude * i.Magnitude, loading, SectionLoss(network, s, solution))
+            {
+                CurrentDensity = w.Source.Conductor is { } conductor ? i.Magnitude / conductor.Area : null,
+            };
         }).ToImmutableArray();
 
         var cores = network.Cores.Select(c =>
@@ -99,7 +112,12 @@ public static class Results
             var known = c.Sections.All(k => network.Windings[network.Sections[k].Winding].TurnsKnown) && c.Sections.Length > 0;
             double? flux = known && c.Source.Area is { } area ? e.Magnitude / (FormFactor * model.Frequency * area) : null;
             var loss = c.Admittance.Real * e.Magnitude * e.Magnitude;
-            return new CoreResult(c, known ? e : null, flux, loss);
+            var tested = c.NoLoadWinding >= 0 ? network.Windings[c.NoLoadWinding] : null;
+            return new CoreResult(c, known ? e : null, flux, loss)
+            {
+                NoLoadCurrent = tested is null ? null : c.Admittance * e / tested.Turns,
+                NoLoadWinding = tested,
+            };
         }).ToImmutableArray();
 
         var supplies = network.Supplies.Select(s =>
@@ -164,12 +182,19 @@ public static class Results
         return new Complex(Math.Abs(s.Real) <= limit ? 0 : s.Real, Math.Abs(s.Imaginary) <= limit ? 0 : s.Imaginary);
     }
 
-    /// <summary>Copper loss of a section: the real power into its resistance, Re(I*·R·I) with R the diagonal of its impedance.</summary>
+    /// <summary>
+    /// Copper loss of a section: Re(conj(I_k)·Σ_j R_kj·I_j) with R the real part of the core's
+    /// impedance matrix. It is R_kk·|I_k|² where only the diagonal is real; where the leakage matrix
+    /// carries resistance its series resistances could not, the sections' losses still add up to
+    /// the total Re(Iᴴ·R·I).
+    /// </summary>
     private static double SectionLoss(Network network, Section s, Solution solution)
     {
         var core = network.Cores[s.Core];
-        var r = core.Impedance[core.Sections.IndexOf(s.Index), core.Sections.IndexOf(s.Index)].Real;
-        var i = solution.SectionCurrents[s.Index].Magnitude;
-        return r * i * i;
+        var row = core.Sections.IndexOf(s.Index);
+        var sum = Complex.Zero;
+        for (var j = 0; j < core.Sections.Length; j++)
+            sum += core.Impedance[row, j].Real * solution.SectionCurrents[core.Sections[j]];
+        return (Complex.Conjugate(solution.SectionCurrents[s.Index]) * sum).Real;
     }
 }

@@ -107,7 +107,10 @@ public static class Grammar
             ],
             "brush B on W at 75 % range 0 % to 100 % current-limit 4 A", "a sliding contact on a winding"),
         new(StatementKind.Impedance, "impedance", [new NamePart(WindingOrSection), new NamePart(WindingOrSection), new ValuePart("an impedance")],
-            [Clause("xr", "the X/R ratio of the impedance", Value)],
+            [
+                Clause("xr", "the X/R ratio of the impedance", Value),
+                Clause("base", "the power a percentage is on, where the test report does not use the core's rating", Value),
+            ],
             "impedance HV LV 3.6 % xr 1.1", "short-circuit impedance between two windings or sections"),
         new(StatementKind.NoLoad, "no-load", [new NamePart(CoreRef)],
             [
