@@ -34,7 +34,7 @@ A bare program name is looked up on `exec-path' and then in
 
 (defconst windingnotes-clause-keywords
   '("rating" "area" "flux-limit" "on" "turns" "rated" "rated-current" "from" "to"
-    "resistance" "at" "conductor" "AWG" "range" "current-limit" "xr" "current" "loss"
+    "resistance" "at" "conductor" "AWG" "range" "current-limit" "xr" "base" "current" "loss"
     "fault-level" "power" "apparent" "pf" "model" "step" "points" "voltage" "loading" "flux"
     "efficiency" "regulation" "between" "and" "below" "above" "near" "within")
   "Words that start a clause or join its parts.")

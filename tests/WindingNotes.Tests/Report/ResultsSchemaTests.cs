@@ -45,6 +45,8 @@ public class ResultsSchemaTests
         AssertValid(JsonReport.Write(Wn.Eval(alder.Replace("225 V", "230 V") + "expect flux K9 below 1 T\n")), "failed and unmeasurable checks");
         AssertValid(JsonReport.Write(Wn.Eval("core K1 rating (\nwinding W on K1 from A to B\n")), "a file that is not solved");
         AssertValid(JsonReport.Write(Wn.Eval("")), "an empty file");
+        AssertValid(JsonReport.Write(Wn.Eval(alder.Replace("resistance 0.014 ohm", "conductor copper 6 mm2 mean-turn 0.2 m")
+            + "no-load K1 current 2 % loss 8 W at HV 240 V\n")), "conductors and a no-load test");
         for (var seed = 0; seed < 10; seed++) AssertValid(JsonReport.Write(Wn.Eval(RandomNetworks.Write(seed))), $"random network {seed}");
     }
 
