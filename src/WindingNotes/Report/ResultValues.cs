@@ -35,6 +35,8 @@ public sealed record ResultValue(string Case, string Element, string Field, stri
             "maxEfficiency" => "maximum efficiency",
             "peakFactor" => "peak factor",
             "xr" => "X/R",
+            "currentDensity" => "current density",
+            "noLoadCurrent" => "no-load current",
             var other => other,
         };
         return parts.Length > 1 && parts[^1] == "deg" ? label + " angle" : label;
@@ -111,7 +113,8 @@ public static class ResultValues
         return name switch
         {
             "v" or "voltsPerTurn" => "V",
-            "i" or "peak" => "A",
+            "i" or "peak" or "noLoadCurrent" => "A",
+            "currentDensity" => "A/m2",
             "s" or "throughput" or "transformed" or "twoWindingRating" or "maxEfficiencyLoad" => "VA",
             "p" or "copperLoss" or "coreLoss" or "loss" => "W",
             "q" => "var",

@@ -100,7 +100,7 @@ public class TestReportReferenceTests
         var text = WindingNotes.Report.TextReport.Write(e);
         Assert.Contains("core loss 399.9 W, no-load current 214.0 mA in HV", text);
         var json = WindingNotes.Report.JsonReport.Write(e);
-        Assert.Contains("\"coreLoss\": 399.9", json);
+        Assert.Contains("\"loss\": 399.9", json);
         Assert.Contains("\"noLoadCurrent\": {", json);
     }
 }
