@@ -19,6 +19,7 @@ public static class Cli
         root.Subcommands.Add(FmtCommand.Create(io));
         root.Subcommands.Add(DiffCommand.Create(io));
         root.Subcommands.Add(TextconvCommand.Create(io));
+        root.Subcommands.Add(DiagramCommand.Create(io));
         var parsed = root.Parse(DiffCommand.JoinPercent(args));
         if (parsed.Errors.Count > 0)
         {

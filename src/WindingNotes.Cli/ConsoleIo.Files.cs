@@ -38,10 +38,10 @@ public sealed partial record ConsoleIo
     }
 
     /// <summary>
-    /// Replaces a file's content without a moment in which it is lost: the text goes to a new file
-    /// beside it, flushed to disk, which is then renamed over the old one (atomic on one file system).
-    /// The file's byte-order mark and permissions are kept; a symbolic link stays a link. False after
-    /// a message when it fails, with the original untouched.
+    /// Writes a file, or replaces its content without a moment in which it is lost: the text goes to
+    /// a new file beside it, flushed to disk, which is then renamed over the old one (atomic on one
+    /// file system). An existing file's byte-order mark and permissions are kept; a symbolic link
+    /// stays a link. False after a message when it fails, with the original untouched.
     /// </summary>
     public bool Replace(string path, string text)
     {
@@ -49,8 +49,10 @@ public sealed partial record ConsoleIo
         string? temporary = null;
         try
         {
-            if (new FileInfo(target).ResolveLinkTarget(returnFinalTarget: true) is { } linked) target = linked.FullName;
-            var keepBom = File.ReadAllBytes(target).AsSpan().StartsWith(Bom);
+            var info = new FileInfo(target);
+            if (info.LinkTarget is not null && info.ResolveLinkTarget(returnFinalTarget: true) is { } linked) target = linked.FullName;
+            var exists = File.Exists(target);
+            var keepBom = exists && File.ReadAllBytes(target).AsSpan().StartsWith(Bom);
             var directory = Path.GetDirectoryName(target)!;
             temporary = Path.Combine(directory, $".{Path.GetFileName(target)}.{Environment.ProcessId}.{Guid.NewGuid():N}.tmp");
             using (var stream = new FileStream(temporary, FileMode.CreateNew, FileAccess.Write))
@@ -59,7 +61,7 @@ public sealed partial record ConsoleIo
                 stream.Write(StrictUtf8.GetBytes(text));
                 stream.Flush(flushToDisk: true);
             }
-            if (!OperatingSystem.IsWindows()) File.SetUnixFileMode(temporary, File.GetUnixFileMode(target));
+            if (exists && !OperatingSystem.IsWindows()) File.SetUnixFileMode(temporary, File.GetUnixFileMode(target));
             File.Move(temporary, target, overwrite: true);
             temporary = null;
             return true;

@@ -1,0 +1,56 @@
+using System.CommandLine;
+using WindingNotes.Report.Diagrams;
+using WindingNotes.Workspace;
+
+namespace WindingNotes.Cli;
+
+/// <summary>
+/// <c>windingnotes diagram FILE --kind network|phasors|sweep [-o OUT.svg]</c>: an SVG drawing of the
+/// network, of the phasors of a case, or of results over a sweep. Exit 1 when there is nothing to draw.
+/// </summary>
+internal static class DiagramCommand
+{
+    public static Command Create(ConsoleIo io)
+    {
+        var file = new Argument<string>("file") { Description = "a calculation file ('-' reads standard input)" };
+        var kind = new Option<string>("--kind", "-k") { Description = "network, phasors or sweep", DefaultValueFactory = _ => "network" };
+        kind.AcceptOnlyFromAmong("network", "phasors", "sweep");
+        var output = new Option<string?>("--output", "-o") { Description = "the SVG file to write (standard output when left out)" };
+        var @case = new Option<string>("--case", "-c") { Description = "for phasors: the case to draw, such as 'normal' or 'fault F1'", DefaultValueFactory = _ => "normal" };
+        var command = new Command("diagram", "Draw the network, the phasors of a case, or results over a sweep, as SVG.") { file, kind, output, @case };
+        command.SetAction(parsed => Run(io, parsed.GetValue(file)!, parsed.GetValue(kind)!, parsed.GetValue(output), parsed.GetValue(@case)!));
+        return command;
+    }
+
+    private static int Run(ConsoleIo io, string path, string kind, string? output, string caseName)
+    {
+        var text = io.Read(path);
+        if (text is null) return Cli.Usage;
+        var evaluation = Evaluator.Evaluate(text, ConsoleIo.DisplayName(path));
+        string svg;
+        switch (kind)
+        {
+            case "phasors":
+                if (evaluation.Cases.FirstOrDefault(c => c.Case.Name == caseName) is not { } chosen)
+                {
+                    var known = evaluation.Cases.IsEmpty ? "the network was not solved" : "cases: " + string.Join(", ", evaluation.Cases.Select(c => $"'{c.Case.Name}'"));
+                    io.Error.WriteLine($"windingnotes: no case '{caseName}' to draw ({known})");
+                    return Cli.Failed;
+                }
+                svg = PhasorDiagram.Draw(evaluation, chosen).Svg;
+                break;
+            case "sweep":
+                io.Error.WriteLine("windingnotes: the sweep plot is not drawn yet");
+                return Cli.Failed;
+            default:
+                svg = NetworkDiagram.Draw(evaluation).Svg;
+                break;
+        }
+        if (output is null)
+        {
+            io.Output.Write(svg);
+            return Cli.Ok;
+        }
+        return io.Replace(output, svg) ? Cli.Ok : Cli.Usage;
+    }
+}
