@@ -20,6 +20,7 @@ public static class Cli
         root.Subcommands.Add(DiffCommand.Create(io));
         root.Subcommands.Add(TextconvCommand.Create(io));
         root.Subcommands.Add(DiagramCommand.Create(io));
+        root.Subcommands.Add(LspCommand.Create(io));
         var parsed = root.Parse(DiffCommand.JoinPercent(args));
         if (parsed.Errors.Count > 0)
         {

@@ -18,11 +18,12 @@ public static class DocumentSymbols
 {
     public static IReadOnlyList<OutlineSymbol> For(Evaluation evaluation)
     {
+        var labels = InlayHints.Labels(evaluation);
         var statements = evaluation.Syntax.Statements.Where(s => s.Head.Name(0) is not null || s.Kind == StatementKind.Sweep).ToList();
         OutlineSymbol Entry(StatementSyntax s, OutlineKind kind, IReadOnlyList<OutlineSymbol>? children = null)
         {
             var name = s.Head.Name(0)!;
-            var detail = InlayHints.Label(evaluation, s) ?? s.Form.Summary;
+            var detail = labels(s) ?? s.Form.Summary;
             return new OutlineSymbol(name.Text, kind, detail, evaluation.Text.GetRange(s.Span), evaluation.Text.GetRange(name.Name.Span), children ?? []);
         }
         string? On(StatementSyntax s) => s.Clause("on")?.Name(0)?.Text;

@@ -21,41 +21,54 @@ public static class InlayHints
     {
         var hints = new List<InlayHint>();
         var text = evaluation.Text;
+        var index = new ResultIndex(evaluation);
         foreach (var line in evaluation.Syntax.Lines)
         {
             if (line.Statement is not { } statement) continue;
             var end = text.GetPosition(line.Span.End);
-            var start = text.GetPosition(line.Span.Start);
-            if (range is { } r && (end.Line < r.Start.Line || start.Line > r.End.Line)) continue;
-            if (Label(evaluation, statement) is { } label) hints.Add(new InlayHint(end, label));
+            if (range is { } r && (end.Line < r.Start.Line || text.GetPosition(line.Span.Start).Line > r.End.Line)) continue;
+            if (Label(evaluation, statement, index) is { } label) hints.Add(new InlayHint(end, label));
         }
         return hints;
     }
 
-    /// <summary>The hint of one statement, or null where it has no result to show.</summary>
-    internal static string? Label(Evaluation evaluation, StatementSyntax s)
+    /// <summary>The hint of each statement, or null where it has no result to show.</summary>
+    internal static Func<StatementSyntax, string?> Labels(Evaluation evaluation)
     {
-        var name = s.Head.Name(0)?.Text;
+        var index = new ResultIndex(evaluation);
+        return s => Label(evaluation, s, index);
+    }
+
+    private static string? Label(Evaluation evaluation, StatementSyntax s, ResultIndex index)
+    {
+        var name = s.Head.Name(0)?.Text ?? "";
         return s.Kind switch
         {
-            StatementKind.Expect => evaluation.Checks.FirstOrDefault(c => c.Expect.Line == s.Span) is { } check ? ResultText.Check(check) : null,
-            StatementKind.Fault => FaultCurrent(evaluation, name),
+            StatementKind.Expect => index.Checks.GetValueOrDefault(s.Span.Start) is { } check ? ResultText.Check(check) : null,
+            StatementKind.Fault => index.Faults.GetValueOrDefault(name) is { } fault ? $"{ResultText.Magnitude(fault.Solution.FaultCurrent, "A")} fault current" : null,
             StatementKind.Sweep => SweepRange(evaluation, name),
             StatementKind.Let => LetValue(evaluation, s, name),
-            _ when evaluation.Normal is { } normal => Normal(normal, s.Kind, name),
+            StatementKind.Supply => index.Supplies.GetValueOrDefault(name) is { } x ? ResultText.Terminal(x.Voltage, x.Current, x.Power) : null,
+            StatementKind.Load => index.Loads.GetValueOrDefault(name) is { } l ? ResultText.Terminal(l.Voltage, l.Current, l.Power) : null,
+            StatementKind.Core => index.Cores.GetValueOrDefault(name) is { } k ? ResultText.Core(k) : null,
+            StatementKind.Winding => Sections(index.OfWinding[name].ToList()),
+            StatementKind.Tap or StatementKind.Brush => Tap(evaluation.Normal, index.AtPoint[name].ToList(), name),
             _ => null,
         };
     }
 
-    private static string? Normal(CaseResult normal, StatementKind kind, string? name) => kind switch
+    /// <summary>The normal case's results by name, so that a thousand lines cost a thousand look-ups.</summary>
+    private sealed class ResultIndex(Evaluation evaluation)
     {
-        StatementKind.Supply => normal.Supplies.FirstOrDefault(x => x.Supply.Name == name) is { } s ? ResultText.Terminal(s.Voltage, s.Current, s.Power) : null,
-        StatementKind.Load => normal.Loads.FirstOrDefault(x => x.Load.Name == name) is { } l ? ResultText.Terminal(l.Voltage, l.Current, l.Power) : null,
-        StatementKind.Core => normal.Cores.FirstOrDefault(x => x.Core.Name == name) is { } k ? ResultText.Core(k) : null,
-        StatementKind.Winding => Sections(normal.Sections.Where(x => x.Winding.Name == name).ToList()),
-        StatementKind.Tap or StatementKind.Brush => Tap(normal, name),
-        _ => null,
-    };
+        private readonly CaseResult? normal = evaluation.Normal;
+        public Dictionary<int, CheckResult> Checks { get; } = evaluation.Checks.ToDictionary(c => c.Expect.Line.Start);
+        public Dictionary<string, CaseResult> Faults { get; } = evaluation.Cases.Where(c => c.Case.Fault is not null).DistinctBy(c => c.Case.Fault!.Name).ToDictionary(c => c.Case.Fault!.Name);
+        public Dictionary<string, SupplyResult> Supplies => field ??= normal?.Supplies.ToDictionary(x => x.Supply.Name) ?? [];
+        public Dictionary<string, LoadResult> Loads => field ??= normal?.Loads.ToDictionary(x => x.Load.Name) ?? [];
+        public Dictionary<string, CoreResult> Cores => field ??= normal?.Cores.ToDictionary(x => x.Core.Name) ?? [];
+        public ILookup<string, SectionResult> OfWinding => field ??= (normal?.Sections ?? []).ToLookup(x => x.Winding.Name);
+        public ILookup<string, SectionResult> AtPoint => field ??= (normal?.Sections ?? []).SelectMany(x => new[] { (x.Section.FromPoint, x), (x.Section.ToPoint, x) }).ToLookup(p => p.Item1, p => p.x);
+    }
 
     private static string? Sections(IReadOnlyList<SectionResult> sections) => sections.Count switch
     {
@@ -65,23 +78,17 @@ public static class InlayHints
     };
 
     /// <summary>The tap's voltage, and the sections that meet at it.</summary>
-    private static string? Tap(CaseResult normal, string? name)
+    private static string? Tap(CaseResult? normal, IReadOnlyList<SectionResult> sections, string name)
     {
-        var sections = normal.Sections.Where(x => x.Section.FromPoint == name || x.Section.ToPoint == name).ToList();
-        if (sections.Count == 0) return null;
-        return $"{ResultText.Magnitude(normal.PointVoltage(name!), "V")}; {string.Join("; ", sections.Select(ResultText.NamedSection))}";
+        if (normal is null || sections.Count == 0) return null;
+        return $"{ResultText.Magnitude(normal.PointVoltage(name), "V")}; {string.Join("; ", sections.Select(ResultText.NamedSection))}";
     }
-
-    private static string? FaultCurrent(Evaluation evaluation, string? name) =>
-        evaluation.Cases.FirstOrDefault(c => c.Case.Fault?.Name == name) is { } fault
-            ? $"{ResultText.Magnitude(fault.Solution.FaultCurrent, "A")} fault current"
-            : null;
 
     /// <summary>
     /// Over the sweep's points (the cases named "sweep NAME=…", as the JSON names them): each load's
     /// voltage, or each supply's current where there is no load.
     /// </summary>
-    private static string? SweepRange(Evaluation evaluation, string? name)
+    private static string? SweepRange(Evaluation evaluation, string name)
     {
         var points = evaluation.Cases.Where(c => c.Case.Name.StartsWith("sweep ", StringComparison.Ordinal) && c.Case.Name.Contains($"{name}=")).ToList();
         if (points.Count == 0) return null;
@@ -99,9 +106,9 @@ public static class InlayHints
     }
 
     /// <summary>A let's value where it is computed; a plain literal says its value already.</summary>
-    private static string? LetValue(Evaluation evaluation, StatementSyntax s, string? name)
+    private static string? LetValue(Evaluation evaluation, StatementSyntax s, string name)
     {
         if (s.Head.Value() is not { } value || value.Expression is NumberSyntax && value.Angle is null) return null;
-        return name is not null && evaluation.Model.Lets.TryGetValue(name, out var q) ? "= " + QuantityText.Show(q) : null;
+        return evaluation.Model.Lets.TryGetValue(name, out var q) ? "= " + QuantityText.Show(q) : null;
     }
 }

@@ -24,12 +24,20 @@ public sealed class DocumentWorkspace
         public Entry(Document document)
         {
             Document = document;
-            Evaluation = new Lazy<Evaluation>(() => Evaluator.Evaluate(document.Text, document.Path, stale.Token), LazyThreadSafetyMode.ExecutionAndPublication);
+            evaluation = new Lazy<Task<Evaluation>>(() => Task.Run(() => Evaluator.Evaluate(document.Text, document.Path, stale.Token)), LazyThreadSafetyMode.ExecutionAndPublication);
         }
+
+        private readonly Lazy<Task<Evaluation>> evaluation;
 
         public Document Document { get; }
 
-        public Lazy<Evaluation> Evaluation { get; }
+        /// <summary>Started by the first caller; a caller that gives up waiting leaves it running for the others.</summary>
+        public Evaluation Evaluate(CancellationToken cancel)
+        {
+            var task = evaluation.Value;
+            if (!task.IsCompleted) task.Wait(cancel);
+            return task.GetAwaiter().GetResult();
+        }
 
         // Never disposed: a token source without timers holds nothing, and disposing it would race with Cancel.
         public void Overtake() => stale.Cancel();
@@ -64,18 +72,18 @@ public sealed class DocumentWorkspace
     /// <summary>
     /// The evaluation of the document's current version, computed once per version; null when the
     /// document is not open. Throws <see cref="OperationCanceledException"/> when the version is
-    /// overtaken while it is evaluated, or when <paramref name="cancel"/> is cancelled first.
+    /// overtaken while it is evaluated, or when <paramref name="cancel"/> is cancelled before it is done.
     /// </summary>
     public Evaluation? Evaluate(string uri, CancellationToken cancel = default)
     {
         cancel.ThrowIfCancellationRequested();
-        return entries.TryGetValue(uri, out var entry) ? entry.Evaluation.Value : null;
+        return entries.TryGetValue(uri, out var entry) ? entry.Evaluate(cancel) : null;
     }
 
     /// <summary>The evaluation of one version, or null when that version is no longer the current one.</summary>
     public Evaluation? Evaluate(string uri, int version, CancellationToken cancel = default)
     {
         cancel.ThrowIfCancellationRequested();
-        return entries.TryGetValue(uri, out var entry) && entry.Document.Version == version ? entry.Evaluation.Value : null;
+        return entries.TryGetValue(uri, out var entry) && entry.Document.Version == version ? entry.Evaluate(cancel) : null;
     }
 }

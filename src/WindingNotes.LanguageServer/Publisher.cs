@@ -1,0 +1,76 @@
+using System.Diagnostics;
+using WindingNotes.LanguageServer.Protocol;
+using WindingNotes.Workspace;
+
+namespace WindingNotes.LanguageServer;
+
+/// <summary>
+/// Publishes each document's diagnostics after it changes. One worker a document evaluates its
+/// latest version; changes that arrive meanwhile cancel the stale evaluation (the workspace does)
+/// and are coalesced into one more pass, so a burst of a thousand changes costs a few evaluations
+/// and the latest version always wins. Publishes for a document come from its one worker, in order;
+/// a closed document gets its diagnostics cleared.
+/// </summary>
+internal sealed class Publisher(DocumentWorkspace workspace, Func<PublishDiagnosticsParams, Task> publish, TimeSpan debounce, TraceSource trace)
+{
+    private readonly Lock gate = new();
+    private readonly HashSet<string> busy = [];
+    private readonly HashSet<string> dirty = [];
+
+    public void Changed(string uri)
+    {
+        lock (gate)
+        {
+            if (!busy.Add(uri))
+            {
+                dirty.Add(uri);
+                return;
+            }
+        }
+        _ = Task.Run(() => Work(uri));
+    }
+
+    private async Task Work(string uri)
+    {
+        while (true)
+        {
+            try
+            {
+                if (debounce > TimeSpan.Zero) await Task.Delay(debounce);
+                await PublishLatest(uri);
+            }
+            catch (Exception e)
+            {
+                trace.TraceEvent(TraceEventType.Error, 0, $"publishing diagnostics of {uri} failed: {e}");
+            }
+            lock (gate)
+            {
+                if (!dirty.Remove(uri))
+                {
+                    busy.Remove(uri);
+                    return;
+                }
+            }
+        }
+    }
+
+    private async Task PublishLatest(string uri)
+    {
+        if (workspace.Find(uri) is not { } document)
+        {
+            await publish(new PublishDiagnosticsParams(uri, null, []));
+            return;
+        }
+        Evaluation? evaluation;
+        try
+        {
+            evaluation = workspace.Evaluate(uri, document.Version);
+        }
+        catch (OperationCanceledException)
+        {
+            return; // overtaken: the change that overtook it has marked the document for another pass
+        }
+        if (evaluation is not null && workspace.Find(uri)?.Version == document.Version)
+            await publish(Conversion.ToLsp(evaluation, uri, document.Version));
+    }
+}
