@@ -18,9 +18,10 @@ public sealed record WindingNet(int Index, WindingModel Source, int Core, double
 
 /// <summary>
 /// A section: the part of a winding between two neighbouring points. Node A is the end nearer the
-/// winding's polarity end; the section's current is the current entering it there.
+/// winding's polarity end; the section's current is the current entering it there. Its resistance
+/// is on the diagonal of its core's impedance matrix.
 /// </summary>
-public sealed record Section(int Index, string Name, int Winding, int Core, int NodeA, int NodeB, string FromPoint, string ToPoint, double Turns, double Resistance);
+public sealed record Section(int Index, string Name, int Winding, int Core, int NodeA, int NodeB, string FromPoint, string ToPoint, double Turns);
 
 /// <summary>
 /// A core: its sections, the impedance matrix among them (ohms: resistances on the diagonal plus

@@ -149,8 +149,7 @@ public static class NetworkBuilder
                     var (a, b) = (ordered[k], ordered[k + 1]);
                     var turns = b.Position - a.Position;
                     var name = ordered.Count == 2 ? w.Name : $"{w.Name}:{a.Name}-{b.Name}";
-                    sections.Add(new Section(sections.Count, name, w.Index, w.Core, nodeOf[a.Name], nodeOf[b.Name], a.Name, b.Name, turns,
-                        w.Turns > 0 ? w.Resistance * turns / w.Turns : 0));
+                    sections.Add(new Section(sections.Count, name, w.Index, w.Core, nodeOf[a.Name], nodeOf[b.Name], a.Name, b.Name, turns));
                 }
             }
             return sections.ToImmutable();
