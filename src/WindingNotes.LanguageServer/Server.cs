@@ -19,6 +19,17 @@ public sealed record ServerOptions
 }
 
 /// <summary>
+/// Leaves out of the trace the errors a handler meant to answer with (a refused rename, a request
+/// before 'initialize'): StreamJsonRpc traces every exception a method throws, these included.
+/// Faults of the server itself are traced by the guard, with their stack.
+/// </summary>
+internal sealed class AnsweredErrors : TraceFilter
+{
+    public override bool ShouldTrace(TraceEventCache? cache, string source, TraceEventType eventType, int id, string? formatOrMessage, object?[]? args, object? data1, object?[]? data) =>
+        !new[] { formatOrMessage, data1 }.Concat(args ?? []).Concat(data ?? []).Any(x => x?.ToString()?.Contains(nameof(LocalRpcException)) == true);
+}
+
+/// <summary>
 /// The language server over one connection: its lifecycle (initialize, shutdown, exit), the open
 /// documents, and the handlers of the route table (Routes.cs). Thin: protocol types in, Workspace and
 /// Editing calls, protocol types out. Every handler catches its own exceptions and answers with a
@@ -39,7 +50,7 @@ public sealed partial class Server
     {
         trace = new TraceSource("windingnotes-lsp", SourceLevels.Warning);
         trace.Listeners.Clear();
-        if (options.Log is { } log) trace.Listeners.Add(new TextWriterTraceListener(log) { TraceOutputOptions = TraceOptions.None });
+        if (options.Log is { } log) trace.Listeners.Add(new TextWriterTraceListener(log) { TraceOutputOptions = TraceOptions.None, Filter = new AnsweredErrors() });
         publisher = new Publisher(workspace, p => rpc!.NotifyWithParameterObjectAsync("textDocument/publishDiagnostics", p), options.Debounce, trace);
     }
 
