@@ -33,7 +33,9 @@ public static class Connections
                 var fed = Array.FindIndex(loadNodes, a => a != earth && supplyNodes.Any(p => p != earth && p != a && sets.Find(p) == sets.Find(a)));
                 var shared = loadNodes.Any(a => a != earth && supplyNodes.Contains(a)) && !loadNodes.All(supplyNodes.Contains);
                 if (fed < 0 && !shared) continue;
-                var island = sets.Find(fed >= 0 ? loadNodes[fed] : loadNodes.First(a => a != earth && !supplyNodes.Contains(a)));
+                // A load between a supply terminal and earth has no terminal of its own off the supply.
+                var own = loadNodes.FirstOrDefault(a => a != earth && !supplyNodes.Contains(a), loadNodes.First(a => a != earth));
+                var island = sets.Find(fed >= 0 ? loadNodes[fed] : own);
                 var cores = network.Sections
                     .Where(s => (s.NodeA != earth && sets.Find(s.NodeA) == island) || (s.NodeB != earth && sets.Find(s.NodeB) == island))
                     .Select(s => s.Core).Distinct().Order().ToImmutableArray();

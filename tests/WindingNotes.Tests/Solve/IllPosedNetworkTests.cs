@@ -1,0 +1,118 @@
+using System.Text.RegularExpressions;
+using CsCheck;
+using WindingNotes.Tests.Support;
+using Xunit;
+
+namespace WindingNotes.Tests.Solve;
+
+/// <summary>
+/// Networks that cannot be solved as written get a diagnostic that names what is wrong at its line,
+/// never an exception (common practice: the annotated files in Data/diagnostics hold each message).
+/// </summary>
+public partial class IllPosedNetworkTests
+{
+    [GeneratedRegex(@"^(winding .*?) resistance \S+ ohm(.*)$", RegexOptions.Multiline)]
+    private static partial Regex StatedResistance();
+
+    [GeneratedRegex(@"^impedance .*$\n", RegexOptions.Multiline)]
+    private static partial Regex ImpedanceLine();
+
+    [GeneratedRegex(@"^ground .*$\n", RegexOptions.Multiline)]
+    private static partial Regex GroundLine();
+
+    [GeneratedRegex(@"\b[A-Z][A-Za-z0-9]*[ab]\b")]
+    private static partial Regex Terminal();
+
+    /// <summary>
+    /// Random networks spoiled at random: windings made ideal, extra joins between any two points,
+    /// grounds taken away, near-zero loads, a stiff second supply, faults anywhere. Whatever comes of
+    /// it, the evaluation returns, and a file with no results says why with an error in the document.
+    /// </summary>
+    [Fact]
+    public void Spoiled_networks_give_diagnostics_and_never_an_internal_error()
+    {
+        Gen.Int[0, int.MaxValue].Sample(seed =>
+        {
+            var random = new Random(seed);
+            var text = RandomNetworks.Write(seed);
+            if (random.Next(2) == 0) text = StatedResistance().Replace(text, "$1$2");
+            if (random.Next(2) == 0) text = ImpedanceLine().Replace(text, "");
+            if (random.Next(3) == 0) text = GroundLine().Replace(text, "", 1);
+            var points = Terminal().Matches(text).Select(m => m.Value).Distinct().ToList();
+            string Point() => points[random.Next(points.Count)];
+            for (var n = random.Next(0, 3); n > 0; n--) text += $"join {Point()} {Point()}\n";
+            if (random.Next(3) == 0) text += $"load tiny {Point()} {Point()} impedance 1e-12 ohm\n";
+            if (random.Next(4) == 0) text += $"supply stiff {Point()} {Point()} 100 V\n";
+            if (random.Next(3) == 0) text += $"fault F {Point()} {Point()}\n";
+
+            var e = Wn.Eval(text);
+            Assert.DoesNotContain(e.Diagnostics, d => d.Code == "internal-error");
+            if (e.Cases.IsEmpty && !e.Model.Supplies.IsEmpty)
+                Assert.True(e.Diagnostics.Any(d => d.IsError && d.Span.Length > 0), $"no results and no error (seed {seed})\n{text}");
+        }, iter: 100);
+    }
+
+    [Fact]
+    public void A_supply_shorted_through_ideal_windings_names_them_at_their_lines()
+    {
+        var e = Wn.Eval("""
+            frequency 50 Hz
+            core K rating 1 kVA
+            winding A on K turns 100 rated 100 V from A1 to A2
+            winding B on K turns 10 rated 10 V from B1 to B2
+            supply bench A1 A2 100 V
+            ground A2
+            join B1 B2
+            """);
+        var d = e.Single("supply-shorted");
+        Assert.Equal("supply bench A1 A2 100 V", e.TextAt(d.Span));
+        Assert.Equal(["winding A on K turns 100 rated 100 V from A1 to A2", "winding B on K turns 10 rated 10 V from B1 to B2"],
+            d.Related.Select(r => e.TextAt(r.Span)).Order());
+        Assert.Empty(e.Cases);
+    }
+
+    [Fact]
+    public void The_same_unit_with_leakage_solves_the_short()
+    {
+        var e = Wn.Solved("""
+            frequency 50 Hz
+            core K rating 1 kVA
+            winding A on K turns 100 rated 100 V from A1 to A2
+            winding B on K turns 10 rated 10 V from B1 to B2
+            impedance A B 5 %
+            supply bench A1 A2 100 V
+            ground A2
+            join B1 B2
+            """);
+        // 5 % on 1 kVA at 100 V: 0.5 ohm, so 200 A.
+        Wn.Near(200, e.Normal!.Supply("bench").Current.Magnitude, 1e-12, "short-circuit current");
+    }
+
+    [Fact]
+    public void An_open_winding_needs_no_ground_and_a_loaded_floating_one_does()
+    {
+        const string unit = """
+            frequency 50 Hz
+            core K rating 1 kVA
+            winding P on K turns 200 rated 230 V from P1 to P2
+            winding S on K turns 20 rated 23 V from S1 to S2
+            supply s P1 P2 230 V
+            ground P2
+
+            """;
+        Assert.DoesNotContain(Wn.Solved(unit).Diagnostics, d => d.Code == "no-ground");
+        var loaded = Wn.Solved(unit + "load l S1 S2 impedance 5 ohm\n");
+        Assert.Contains("'S1', 'S2'", loaded.Single("no-ground").Message);
+        Wn.Near(23, loaded.Normal!.V("S1", "S2").Magnitude, 1e-12, "its voltage is still known");
+    }
+
+    [Fact]
+    public void Loads_with_no_source_are_named_once_at_the_first()
+    {
+        var e = Wn.Solved("frequency 50 Hz\nsupply s A N 100 V\nground N\nload a A N impedance 10 ohm\nload b x y impedance 1 ohm\nload c y x impedance 2 ohm\n");
+        var d = e.Single("no-source");
+        Assert.Equal("b", e.TextAt(d.Span));
+        Assert.Equal("c", e.TextAt(Assert.Single(d.Related).Span));
+        Assert.Equal(0, e.Normal!.Load("b").Current.Magnitude);
+    }
+}
