@@ -60,7 +60,7 @@ public static class NetworkSolver
 
     private static Complex[]? SolveSystem(MnaSystem m, Network network, DiagnosticBag diagnostics, string prefix, CancellationToken cancel)
     {
-        var first = DenseSolver.Solve(m.A, m.B);
+        var first = LinearSolver.Solve(m.A, m.B);
         if (!Accept(first, m, diagnostics, prefix)) return null;
         if (m.NonlinearLoads.Count == 0) return first.X;
 
@@ -81,14 +81,14 @@ public static class NetworkSolver
             if (load.ColumnA >= 0) { a[load.ColumnA, load.ColumnA] += y; if (load.ColumnB >= 0) a[load.ColumnA, load.ColumnB] -= y; }
             if (load.ColumnB >= 0) { a[load.ColumnB, load.ColumnB] += y; if (load.ColumnA >= 0) a[load.ColumnB, load.ColumnA] -= y; }
         }
-        var start = DenseSolver.Solve(a, m.B);
+        var start = LinearSolver.Solve(a, m.B);
         var newton = NewtonSolver.Solve(m, start.Status == SolveStatus.Solved ? start.X : first.X, cancel);
         if (newton.Converged) return newton.X;
         diagnostics.ReportNoConvergence(m.NonlinearLoads.Select(l => network.Loads[l.Load].Source).ToList(), NewtonSolver.MaxIterations, prefix);
         return null;
     }
 
-    private static bool Accept(DenseSolver.Result result, MnaSystem m, DiagnosticBag diagnostics, string prefix)
+    private static bool Accept(LinearSolver.Result result, MnaSystem m, DiagnosticBag diagnostics, string prefix)
     {
         if (result.Status == SolveStatus.Solved) return true;
         var elements = result.NullEquations.Select(i => m.Equations[i])

@@ -19,7 +19,7 @@ internal static class NewtonSolver
     public static Result Solve(MnaSystem m, Complex[] start, CancellationToken cancel)
     {
         var n = m.Size;
-        var (rows, _) = DenseSolver.Equilibrate(m.A);
+        var (rows, _) = LinearSolver.Equilibrate(m.A);
         var x = (Complex[])start.Clone();
         var f = Residual(m, x);
         for (var iteration = 1; iteration <= MaxIterations; iteration++)

@@ -10,13 +10,14 @@ namespace WindingNotes.Tests.Solve;
 /// </summary>
 public static class RandomNetworks
 {
-    public static string Write(int seed)
+    /// <param name="maxCores">The most cores; each brings up to a dozen unknowns, so many cores make a system for the sparse LU.</param>
+    public static string Write(int seed, int maxCores = 2)
     {
         var random = new Random(seed);
         string N(double x) => x.ToString("G6", CultureInfo.InvariantCulture);
         double Between(double a, double b) => a + (b - a) * random.NextDouble();
         var o = new StringBuilder("frequency 50 Hz\n");
-        var cores = random.Next(1, 3);
+        var cores = random.Next(1, maxCores + 1);
         var feeders = new List<(string From, string To)>();
         for (var c = 0; c < cores; c++)
         {

@@ -1,0 +1,43 @@
+using Complex = System.Numerics.Complex;
+using MathNet.Numerics.LinearAlgebra;
+
+namespace WindingNotes.Solve;
+
+/// <summary>Dense LU (MathNet.Numerics) of an equilibrated matrix; its weakest direction from the SVD.</summary>
+internal sealed class DenseFactors : IFactors
+{
+    private readonly Matrix<Complex> m;
+    private readonly MathNet.Numerics.LinearAlgebra.Factorization.LU<Complex> lu;
+
+    private DenseFactors(Matrix<Complex> m)
+    {
+        this.m = m;
+        lu = m.LU();
+        var u = lu.U;
+        SmallestPivot = double.PositiveInfinity;
+        for (var i = 0; i < m.RowCount; i++)
+        {
+            var pivot = u.At(i, i).Magnitude;
+            SmallestPivot = Math.Min(SmallestPivot, pivot);
+            LargestPivot = Math.Max(LargestPivot, pivot);
+        }
+    }
+
+    public static DenseFactors Of(Complex[,] a, double[] rowScale, double[] columnScale) =>
+        new(Matrix<Complex>.Build.Dense(a.GetLength(0), a.GetLength(1), (i, j) => a[i, j] * rowScale[i] * columnScale[j]));
+
+    public double SmallestPivot { get; }
+    public double LargestPivot { get; }
+
+    public Complex[] Solve(Complex[] b) => lu.Solve(Vector<Complex>.Build.Dense(b)).ToArray();
+
+    public double RelativeResidual(Complex[] x, Complex[] b) =>
+        LinearSolver.RelativeResidual((m * Vector<Complex>.Build.Dense(x)).ToArray(), x, b, m.InfinityNorm());
+
+    public Weakest Weakest()
+    {
+        var svd = m.Svd(computeVectors: true);
+        var last = svd.S.Count - 1;
+        return WindingNotes.Solve.Weakest.Of(svd.S[last].Magnitude, svd.S[0].Magnitude, svd.VT.Row(last).ToArray(), svd.U.Column(last).ToArray());
+    }
+}

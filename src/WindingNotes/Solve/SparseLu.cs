@@ -1,0 +1,254 @@
+using System.Numerics;
+
+namespace WindingNotes.Solve;
+
+/// <summary>A square sparse matrix by rows (compressed sparse rows).</summary>
+internal sealed class SparseRows(int size, int[] start, int[] column, Complex[] value)
+{
+    public int Size => size;
+    public int[] Start => start;
+    public int[] Column => column;
+    public Complex[] Value => value;
+
+    /// <summary>The nonzero entries of a dense matrix, each scaled by its row's and its column's factor.</summary>
+    public static SparseRows FromDense(Complex[,] a, double[] rowScale, double[] columnScale)
+    {
+        var n = a.GetLength(0);
+        var start = new int[n + 1];
+        var columns = new List<int>();
+        var values = new List<Complex>();
+        for (var i = 0; i < n; i++)
+        {
+            for (var j = 0; j < n; j++)
+                if (a[i, j] != Complex.Zero)
+                {
+                    columns.Add(j);
+                    values.Add(a[i, j] * rowScale[i] * columnScale[j]);
+                }
+            start[i + 1] = columns.Count;
+        }
+        return new SparseRows(n, start, [.. columns], [.. values]);
+    }
+
+    public Complex[] Times(Complex[] x)
+    {
+        var y = new Complex[size];
+        for (var i = 0; i < size; i++)
+        {
+            var sum = Complex.Zero;
+            for (var e = start[i]; e < start[i + 1]; e++) sum += value[e] * x[column[e]];
+            y[i] = sum;
+        }
+        return y;
+    }
+
+    /// <summary>Aᴴ·x.</summary>
+    public Complex[] AdjointTimes(Complex[] x)
+    {
+        var y = new Complex[size];
+        for (var i = 0; i < size; i++)
+            for (var e = start[i]; e < start[i + 1]; e++) y[column[e]] += Complex.Conjugate(value[e]) * x[i];
+        return y;
+    }
+
+    public double InfinityNorm()
+    {
+        double max = 0;
+        for (var i = 0; i < size; i++)
+        {
+            double sum = 0;
+            for (var e = start[i]; e < start[i + 1]; e++) sum += value[e].Magnitude;
+            max = Math.Max(max, sum);
+        }
+        return max;
+    }
+}
+
+/// <summary>
+/// Sparse complex LU by right-looking elimination with Markowitz pivoting. At each step the pivot is
+/// the entry that can make the least fill, (r − 1)·(c − 1) for the counts of its row and column,
+/// among the entries within a threshold of the largest of their column (threshold partial pivoting),
+/// searched over the few sparsest columns. So one choice is both the fill-reducing ordering and the
+/// numerical pivoting, which the MNA needs: its constraint rows have zeros on the diagonal.
+/// The factors are kept as the steps of the elimination: A[r_k, c_k] = (L·U)[k, k] in step order.
+/// A step whose column holds nothing but zeros gets a zero pivot: the matrix is singular, and
+/// <see cref="Solve"/> stands a tiny value in for it, which is what inverse iteration wants.
+/// </summary>
+internal sealed class SparseLu
+{
+    /// <summary>A pivot must be at least this fraction of the largest entry of its column.</summary>
+    private const double Threshold = 0.1;
+
+    /// <summary>How many of the sparsest columns the pivot search looks at.</summary>
+    private const int SearchColumns = 4;
+
+    private readonly int n;
+    private readonly int[] pivotRow, pivotColumn;
+    private readonly Complex[] pivot;
+    private readonly int[] lowerStart, lowerRow, upperStart, upperColumn;
+    private readonly Complex[] lowerValue, upperValue;
+
+    public double SmallestPivot { get; }
+    public double LargestPivot { get; }
+
+    /// <summary>The entries of L and U together (without U's diagonal): the fill shows here.</summary>
+    public int Entries => lowerRow.Length + upperColumn.Length;
+
+    private SparseLu(int n, int[] pivotRow, int[] pivotColumn, Complex[] pivot, List<int> lowerStart, List<(int, Complex)> lower,
+        List<int> upperStart, List<(int, Complex)> upper)
+    {
+        this.n = n;
+        this.pivotRow = pivotRow;
+        this.pivotColumn = pivotColumn;
+        this.pivot = pivot;
+        this.lowerStart = [.. lowerStart];
+        this.upperStart = [.. upperStart];
+        lowerRow = [.. lower.Select(e => e.Item1)];
+        lowerValue = [.. lower.Select(e => e.Item2)];
+        upperColumn = [.. upper.Select(e => e.Item1)];
+        upperValue = [.. upper.Select(e => e.Item2)];
+        SmallestPivot = n == 0 ? 0 : pivot.Min(p => p.Magnitude);
+        LargestPivot = n == 0 ? 0 : pivot.Max(p => p.Magnitude);
+    }
+
+    public static SparseLu Factor(SparseRows a)
+    {
+        var n = a.Size;
+        var rows = new Dictionary<int, Complex>[n];
+        var columns = new HashSet<int>[n];
+        for (var j = 0; j < n; j++) columns[j] = [];
+        for (var i = 0; i < n; i++)
+        {
+            rows[i] = new Dictionary<int, Complex>(a.Start[i + 1] - a.Start[i]);
+            for (var e = a.Start[i]; e < a.Start[i + 1]; e++)
+            {
+                rows[i][a.Column[e]] = a.Value[e];
+                columns[a.Column[e]].Add(i);
+            }
+        }
+        var rowDone = new bool[n];
+        var columnDone = new bool[n];
+        var (pivotRow, pivotColumn, pivot) = (new int[n], new int[n], new Complex[n]);
+        var (lowerStart, upperStart) = (new List<int> { 0 }, new List<int> { 0 });
+        var (lower, upper) = (new List<(int, Complex)>(), new List<(int, Complex)>());
+        var candidates = new int[SearchColumns];
+        for (var k = 0; k < n; k++)
+        {
+            var (r, c) = ChoosePivot(rows, columns, columnDone, rowDone, candidates);
+            var p = rows[r].GetValueOrDefault(c);
+            (pivotRow[k], pivotColumn[k], pivot[k]) = (r, c, p);
+            var pivotEntries = rows[r];
+            foreach (var (j, v) in pivotEntries)
+                if (j != c) upper.Add((j, v));
+            upperStart.Add(upper.Count);
+            foreach (var i in columns[c])
+            {
+                if (i == r) continue;
+                var row = rows[i];
+                var l = p == Complex.Zero ? Complex.Zero : row[c] / p;
+                row.Remove(c);
+                if (l == Complex.Zero) continue;
+                lower.Add((i, l));
+                foreach (var (j, v) in pivotEntries)
+                {
+                    if (j == c) continue;
+                    if (row.TryGetValue(j, out var old)) row[j] = old - l * v;
+                    else
+                    {
+                        row[j] = -l * v;
+                        columns[j].Add(i);
+                    }
+                }
+            }
+            lowerStart.Add(lower.Count);
+            foreach (var j in pivotEntries.Keys) columns[j].Remove(r);
+            columns[c].Clear();
+            (rowDone[r], columnDone[c]) = (true, true);
+        }
+        return new SparseLu(n, pivotRow, pivotColumn, pivot, lowerStart, lower, upperStart, upper);
+    }
+
+    /// <summary>The least-fill entry that passes the threshold, among the sparsest columns; larger magnitude breaks ties.</summary>
+    private static (int Row, int Column) ChoosePivot(Dictionary<int, Complex>[] rows, HashSet<int>[] columns, bool[] columnDone, bool[] rowDone, int[] candidates)
+    {
+        var found = 0;
+        for (var j = 0; j < columns.Length; j++)
+        {
+            if (columnDone[j]) continue;
+            // Insertion into the short list of the sparsest columns so far, the last dropping out when full.
+            var count = columns[j].Count;
+            if (found == candidates.Length && count >= columns[candidates[^1]].Count) continue;
+            var at = found < candidates.Length ? found++ : candidates.Length - 1;
+            for (; at > 0 && columns[candidates[at - 1]].Count > count; at--) candidates[at] = candidates[at - 1];
+            candidates[at] = j;
+        }
+        int bestRow = -1, bestColumn = candidates[0];
+        long bestCost = long.MaxValue;
+        double bestSize = 0;
+        for (var t = 0; t < found; t++)
+        {
+            var j = candidates[t];
+            double max = 0;
+            foreach (var i in columns[j]) max = Math.Max(max, rows[i][j].Magnitude);
+            if (max == 0) continue;
+            foreach (var i in columns[j])
+            {
+                var size = rows[i][j].Magnitude;
+                if (size < Threshold * max) continue;
+                var cost = (long)(rows[i].Count - 1) * (columns[j].Count - 1);
+                if (cost < bestCost || (cost == bestCost && size > bestSize)) (bestRow, bestColumn, bestCost, bestSize) = (i, j, cost, size);
+            }
+        }
+        if (bestRow >= 0) return (bestRow, bestColumn);
+        // Only zeros left in the sparsest columns: a zero pivot, in a row of that column or any row left.
+        foreach (var i in columns[bestColumn]) return (i, bestColumn);
+        for (var i = 0; i < rowDone.Length; i++)
+            if (!rowDone[i]) return (i, bestColumn);
+        throw new InvalidOperationException("no row left for a pivot");
+    }
+
+    /// <summary>A zero pivot is taken as this small a value, so a singular matrix still yields its null direction.</summary>
+    private Complex Pivot(int k) => pivot[k] == Complex.Zero ? 1e-18 * Math.Max(LargestPivot, 1) : pivot[k];
+
+    /// <summary>x with A·x = b.</summary>
+    public Complex[] Solve(Complex[] b)
+    {
+        var w = (Complex[])b.Clone();
+        for (var k = 0; k < n; k++)
+        {
+            var t = w[pivotRow[k]];
+            if (t == Complex.Zero) continue;
+            for (var e = lowerStart[k]; e < lowerStart[k + 1]; e++) w[lowerRow[e]] -= lowerValue[e] * t;
+        }
+        var x = new Complex[n];
+        for (var k = n - 1; k >= 0; k--)
+        {
+            var sum = w[pivotRow[k]];
+            for (var e = upperStart[k]; e < upperStart[k + 1]; e++) sum -= upperValue[e] * x[upperColumn[e]];
+            x[pivotColumn[k]] = sum / Pivot(k);
+        }
+        return x;
+    }
+
+    /// <summary>y with Aᴴ·y = b: Uᴴ forward by columns, then Lᴴ backward by rows.</summary>
+    public Complex[] SolveAdjoint(Complex[] b)
+    {
+        var w = (Complex[])b.Clone();
+        var z = new Complex[n];
+        for (var k = 0; k < n; k++)
+        {
+            var t = w[pivotColumn[k]] / Complex.Conjugate(Pivot(k));
+            z[k] = t;
+            if (t == Complex.Zero) continue;
+            for (var e = upperStart[k]; e < upperStart[k + 1]; e++) w[upperColumn[e]] -= Complex.Conjugate(upperValue[e]) * t;
+        }
+        var y = new Complex[n];
+        for (var k = n - 1; k >= 0; k--)
+        {
+            var sum = z[k];
+            for (var e = lowerStart[k]; e < lowerStart[k + 1]; e++) sum -= Complex.Conjugate(lowerValue[e]) * y[lowerRow[e]];
+            y[pivotRow[k]] = sum;
+        }
+        return y;
+    }
+}
