@@ -1,3 +1,4 @@
+using System.Globalization;
 using System.Numerics;
 using System.Text;
 using WindingNotes.Solve;
@@ -7,8 +8,9 @@ using WindingNotes.Workspace;
 namespace WindingNotes.Report;
 
 /// <summary>
-/// The text report's content as Markdown tables, for a pull request comment or a design record.
-/// Cells are never padded, so a changed value rewrites its own row and no other.
+/// The text report's content as Markdown tables, for a pull request comment or a design record:
+/// each case, the sweep points as one table per kind of result, the checks, the cautions and the
+/// closing note. Cells are never padded, so a changed value rewrites its own row and no other.
 /// </summary>
 public static class MarkdownReport
 {
@@ -25,7 +27,8 @@ public static class MarkdownReport
                 new[] { TextReport.Location(evaluation, d), TextReport.Severity(d.Severity), Code(d.Code), d.Message }));
         }
         if (evaluation.Cases.IsEmpty) o.Append("\nNo results: the network was not solved.\n");
-        foreach (var c in evaluation.Cases) WriteCase(o, c);
+        foreach (var c in evaluation.Cases.Where(c => !c.Case.IsSweepPoint)) WriteCase(o, c);
+        WriteSweep(o, [.. evaluation.Cases.Where(c => c.Case.IsSweepPoint)]);
         WriteChecks(o, evaluation);
         o.Append("\n### Cautions\n\n");
         var cautions = evaluation.Diagnostics.Where(IsCaution).ToList();
@@ -54,21 +57,35 @@ public static class MarkdownReport
     {
         o.Append("\n### Case ").Append(c.Case.Name).Append("\n\n");
         Table(o, 1, ["node", "voltage", "angle"], c.Points.Select(p => new[] { p.Point, V(p.Voltage.Magnitude, "V"), Angle(p.Voltage) }));
+
+        // Under a fault the loading is the multiple of rated current a winding carries.
+        var density = c.Sections.Any(s => s.CurrentDensity is not null);
         o.Append('\n');
-        Table(o, 3, ["section", "from", "to", "turns", "current", "angle", "apparent", "loading", "loss"], c.Sections.Select(s => new[]
-        {
-            s.Section.Name, s.Section.FromPoint, s.Section.ToPoint, Numbers.Plain(s.Section.Turns),
-            V(s.Current.Magnitude, "A"), Angle(s.Current), V(s.Apparent, "VA"),
-            s.Loading is { } l ? TextReport.Percent(l) : "", s.Loss > 0 ? V(s.Loss, "W") : "",
-        }));
-        if (!c.Cores.IsEmpty)
+        Table(o, 3, ["section", "from", "to", "turns", "current", "angle", "apparent", c.Fault is null ? "loading" : "times rated", .. If(density, "current density"), "loss"],
+            c.Sections.Select(s => (string[])
+            [
+                s.Section.Name, s.Section.FromPoint, s.Section.ToPoint, Numbers.Plain(s.Section.Turns),
+                V(s.Current.Magnitude, "A"), Angle(s.Current), V(s.Apparent, "VA"),
+                s.Loading is not { } l ? "" : c.Fault is null ? TextReport.Percent(l) : Numbers.Fixed(l),
+                .. If(density, s.CurrentDensity is { } j ? Numbers.Format(j / 1e6, "A/mm2") : ""),
+                s.Loss > 0 ? V(s.Loss, "W") : "",
+            ]));
+        var split = c.Sections.GroupBy(s => s.Winding.Name).Where(g => g.Count() > 1 && g.Sum(s => s.Loss) > 0).ToList();
+        if (split.Count > 0)
         {
             o.Append('\n');
-            Table(o, 1, ["core", "volts per turn", "peak flux", "flux limit", "core loss"], c.Cores.Select(k => new[]
-            {
+            Table(o, 1, ["winding", "loss"], split.Select(g => new[] { g.Key, V(g.Sum(s => s.Loss), "W") }));
+        }
+        if (!c.Cores.IsEmpty)
+        {
+            var noLoad = c.Cores.Any(k => k.NoLoadCurrent is not null);
+            o.Append('\n');
+            Table(o, 1, ["core", "volts per turn", "peak flux", "flux limit", "core loss", .. If(noLoad, "no-load current")], c.Cores.Select(k => (string[])
+            [
                 k.Core.Name, k.VoltsPerTurn is { } e ? V(e.Magnitude, "V") : "unknown", k.Flux is { } b ? V(b, "T") : "",
                 k.Core.FluxLimit is { } limit ? V(limit, "T") : "", k.Loss > 0 ? V(k.Loss, "W") : "",
-            }));
+                .. If(noLoad, k.NoLoadCurrent is { } i0 ? $"{V(i0.Magnitude, "A")} in {k.NoLoadWinding!.Name}" : ""),
+            ]));
         }
         o.Append('\n');
         Table(o, 1, ["supply", "voltage", "current", "angle", "P", "Q", "S", "pf"], c.Supplies.Select(s => new[]
@@ -76,27 +93,62 @@ public static class MarkdownReport
             s.Supply.Name, V(s.Voltage.Magnitude, "V"), V(s.Current.Magnitude, "A"), Angle(s.Current),
             V(s.Power.Real, "W"), V(s.Power.Imaginary, "var"), V(s.Power.Magnitude, "VA"), TextReport.PowerFactor(s.Power),
         }));
-        if (c.Case.Fault is { } fault)
+        if (c.Fault is { } fault)
         {
             o.Append('\n');
-            Table(o, 2, ["fault", "between", "current", "angle"],
-                [[fault.Name, $"{fault.A.Name} and {fault.B.Name}", V(c.Solution.FaultCurrent.Magnitude, "A"), Angle(c.Solution.FaultCurrent)]]);
+            Table(o, 2, ["fault", "between", "current", "angle", "peak", "X/R", "peak factor"],
+            [[
+                fault.Fault.Name, $"{fault.Fault.A.Name} and {fault.Fault.B.Name}", V(fault.Current.Magnitude, "A"), Angle(fault.Current),
+                V(fault.Peak, "A"), double.IsFinite(fault.XR) ? Numbers.Fixed(fault.XR) : "infinite", Numbers.Fixed(fault.PeakFactor),
+            ]]);
+            WriteBands(o, c);
             return;
         }
         if (!c.Loads.IsEmpty)
         {
+            var auto = !c.Connections.IsEmpty;
             o.Append('\n');
-            Table(o, 1, ["load", "voltage", "angle", "current", "P", "Q", "S", "pf", "regulation"], c.Loads.Select(l => new[]
-            {
-                l.Load.Name, V(l.Voltage.Magnitude, "V"), Angle(l.Voltage), V(l.Current.Magnitude, "A"),
-                V(l.Power.Real, "W"), V(l.Power.Imaginary, "var"), V(l.Power.Magnitude, "VA"), TextReport.PowerFactor(l.Power),
-                l.Regulation is { } r ? TextReport.Percent(r) : "",
-            }));
+            Table(o, 1, ["load", "voltage", "angle", "current", "P", "Q", "S", "pf", "regulation", .. If(auto, "co-ratio", "two-winding rating needed")],
+                c.Loads.Select(l =>
+                {
+                    var a = c.Connections.FirstOrDefault(x => x.Connection.Load == l.Load);
+                    return (string[])
+                    [
+                        l.Load.Name, V(l.Voltage.Magnitude, "V"), Angle(l.Voltage), V(l.Current.Magnitude, "A"),
+                        V(l.Power.Real, "W"), V(l.Power.Imaginary, "var"), V(l.Power.Magnitude, "VA"), TextReport.PowerFactor(l.Power),
+                        l.Regulation is { } r ? TextReport.Percent(r) : "",
+                        .. If(auto, a is null ? "" : Numbers.Fixed(a.CoRatio), a is null ? "" : V(a.TwoWindingRating, "VA")),
+                    ];
+                }));
         }
         o.Append('\n');
         var t = c.Totals;
-        Table(o, 0, ["copper loss", "core loss", "efficiency", "throughput", "transformed"],
-            [[V(t.CopperLoss, "W"), V(t.CoreLoss, "W"), t.Efficiency is { } eff ? TextReport.Percent(eff) : "", V(t.Throughput, "VA"), V(t.Transformed, "VA")]]);
+        // The load of highest efficiency, where the case has both copper and core loss.
+        string[] best = t is { MaxEfficiencyLoad: { } load, MaxEfficiencyFraction: { } fraction, MaxEfficiency: { } max }
+            ? [$"{V(load, "VA")} ({TextReport.Percent(fraction)} of this load)", TextReport.Percent(max)]
+            : [];
+        Table(o, 0, ["copper loss", "core loss", "efficiency", "throughput", "transformed", .. If(best.Length > 0, "best load", "efficiency there")],
+        [[V(t.CopperLoss, "W"), V(t.CoreLoss, "W"), t.Efficiency is { } eff ? TextReport.Percent(eff) : "", V(t.Throughput, "VA"), V(t.Transformed, "VA"), .. best]]);
+        WriteBands(o, c);
+    }
+
+    private static void WriteBands(StringBuilder o, CaseResult c)
+    {
+        if (c.Bands.IsEmpty) return;
+        o.Append("\nBands over the tolerances:\n\n");
+        Table(o, 1, ["result", "lowest", "highest"], c.Bands.Select(b => new[] { Code(b.Path), TextReport.Value(b.Min, b.Unit), TextReport.Value(b.Max, b.Unit) }));
+    }
+
+    private static void WriteSweep(StringBuilder o, IReadOnlyList<CaseResult> points)
+    {
+        if (points.Count == 0) return;
+        o.Append("\n### Sweep ").Append(SweepTables.Heading(points)).Append('\n');
+        var axes = points[0].Case.Sweep.Length;
+        foreach (var table in SweepTables.Tables(points))
+        {
+            o.Append('\n').Append(table.Title).Append(":\n\n");
+            Table(o, axes, [.. table.Header], table.Rows.Select(r => r.ToArray()));
+        }
     }
 
     private static void WriteChecks(StringBuilder o, Evaluation evaluation)
@@ -106,9 +158,9 @@ public static class MarkdownReport
         Table(o, 3, ["", "line", "expectation", "value"], evaluation.Checks.Select(check => new[]
         {
             check.Passed ? "pass" : "**FAIL**",
-            (evaluation.Text.GetPosition(check.Expect.Line.Start).Line + 1).ToString(System.Globalization.CultureInfo.InvariantCulture),
+            (evaluation.Text.GetPosition(check.Expect.Line.Start).Line + 1).ToString(CultureInfo.InvariantCulture),
             Code(check.Expect.Text),
-            check.Value is { } v ? DiagnosticBag.Show(v, check.Expect.Unit) : "not measured",
+            TextReport.CheckValue(check) is { Length: > 0 } v ? v : "not measured",
         }));
     }
 
@@ -119,7 +171,7 @@ public static class MarkdownReport
     public static void Table(StringBuilder o, int textColumns, string[] header, IEnumerable<string[]> rows)
     {
         o.Append('|');
-        foreach (var h in header) o.Append(' ').Append(h).Append(" |");
+        foreach (var h in header) o.Append(' ').Append(Cell(h)).Append(" |");
         o.Append("\n|");
         for (var i = 0; i < header.Length; i++) o.Append(i < textColumns ? "---|" : "--:|");
         o.Append('\n');
@@ -137,6 +189,9 @@ public static class MarkdownReport
     public static string Code(string text) => $"`{text.Replace("`", "'")}`";
 
     private static string V(double value, string unit) => Numbers.Format(value, unit);
+
+    /// <summary>Columns or cells that a table has only when some row needs them.</summary>
+    private static string[] If(bool present, params string[] items) => present ? items : [];
 
     private static string Angle(Complex v) => $"{TextReport.Degrees(v):F2}°".Replace("-0.00°", "0.00°");
 }

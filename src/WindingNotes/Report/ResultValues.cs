@@ -125,7 +125,7 @@ public static class ResultValues
     }
 
     /// <summary>"sections.LV.i.rms" as "section LV current".</summary>
-    private static string Readable(string path)
+    public static string Readable(string path)
     {
         var parts = path.Split('.');
         if (parts.Length < 2) return path;

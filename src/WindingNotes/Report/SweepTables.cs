@@ -9,54 +9,77 @@ namespace WindingNotes.Report;
 /// the same fixed width (never the widest entry's), so a changed value rewrites only its own row.
 /// A result a point does not have (a section a brush has moved past) shows as "-".
 /// </summary>
-internal static class SweepTables
+public static class SweepTables
 {
     private const int Width = 13;
+
+    /// <summary>One table: its title, its header (the swept names, then the results) and a row per point.</summary>
+    public sealed record Table(string Title, IReadOnlyList<string> Header, IReadOnlyList<IReadOnlyList<string>> Rows);
+
+    /// <summary>"BR (11 points)", or "BR by load (121 points)" for a grid.</summary>
+    public static string Heading(IReadOnlyList<CaseResult> points) =>
+        $"{string.Join(" by ", points[0].Case.Sweep.Select(v => v.Name))} ({points.Count} point{(points.Count == 1 ? "" : "s")})";
 
     public static void Write(StringBuilder o, IReadOnlyList<CaseResult> points)
     {
         if (points.Count == 0) return;
+        o.Append("\nSweep ").Append(Heading(points)).Append('\n');
+        foreach (var table in Tables(points))
+        {
+            o.Append("  ").Append(table.Title).Append('\n');
+            Row(o, table.Header);
+            foreach (var row in table.Rows) Row(o, row);
+        }
+    }
+
+    /// <summary>The tables of a sweep, for the text and Markdown reports alike.</summary>
+    public static IEnumerable<Table> Tables(IReadOnlyList<CaseResult> points)
+    {
+        if (points.Count == 0) yield break;
         var axes = points[0].Case.Sweep.Select(v => v.Name).ToList();
-        o.Append("\nSweep ").Append(string.Join(" by ", axes)).Append(" (").Append(points.Count).Append(points.Count == 1 ? " point)\n" : " points)\n");
-        Table(o, "Nodes, voltage", axes, points, c => c.Points.Select(p => (p.Point, TextReport.Value(p.Voltage.Magnitude, "V"))));
-        Table(o, "Sections, current", axes, points, c => c.Sections.Select(s => (s.Section.Name, TextReport.Value(s.Current.Magnitude, "A"))));
+        var tables = new List<Table?>
+        {
+            Build("Nodes, voltage", axes, points, c => c.Points.Select(p => (p.Point, TextReport.Value(p.Voltage.Magnitude, "V")))),
+            Build("Sections, current", axes, points, c => c.Sections.Select(s => (s.Section.Name, TextReport.Value(s.Current.Magnitude, "A")))),
+        };
         if (points.Any(c => c.Sections.Any(s => s.Loading is not null)))
-            Table(o, "Sections, loading", axes, points, c => c.Sections.Where(s => s.Loading is not null).Select(s => (s.Section.Name, TextReport.Percent(s.Loading!.Value))));
+            tables.Add(Build("Sections, loading", axes, points, c => c.Sections.Where(s => s.Loading is not null).Select(s => (s.Section.Name, TextReport.Percent(s.Loading!.Value)))));
         if (points.Any(c => c.Cores.Any(k => k.Flux is not null)))
-            Table(o, "Cores, peak flux", axes, points, c => c.Cores.Where(k => k.Flux is not null).Select(k => (k.Core.Name, TextReport.Value(k.Flux!.Value, "T"))));
-        Table(o, "Supplies, current and power", axes, points, c => c.Supplies.SelectMany(s => new[]
+            tables.Add(Build("Cores, peak flux", axes, points, c => c.Cores.Where(k => k.Flux is not null).Select(k => (k.Core.Name, TextReport.Value(k.Flux!.Value, "T")))));
+        tables.Add(Build("Supplies, current and power", axes, points, c => c.Supplies.SelectMany(s => new[]
         {
             ($"{s.Supply.Name} I", TextReport.Value(s.Current.Magnitude, "A")),
             ($"{s.Supply.Name} P", TextReport.Value(s.Power.Real, "W")),
-        }));
+        })));
         if (points.Any(c => !c.Loads.IsEmpty))
-            Table(o, "Loads, voltage, current, power, regulation", axes, points, c => c.Loads.SelectMany(l => new[]
+            tables.Add(Build("Loads, voltage, current, power, regulation", axes, points, c => c.Loads.SelectMany(l => new[]
             {
                 ($"{l.Load.Name} V", TextReport.Value(l.Voltage.Magnitude, "V")),
                 ($"{l.Load.Name} I", TextReport.Value(l.Current.Magnitude, "A")),
                 ($"{l.Load.Name} P", TextReport.Value(l.Power.Real, "W")),
                 ($"{l.Load.Name} reg", l.Regulation is { } r ? TextReport.Percent(r) : "-"),
-            }));
-        Table(o, "Totals", axes, points, c => new[]
+            })));
+        tables.Add(Build("Totals", axes, points, c => new[]
         {
             ("copper loss", TextReport.Value(c.Totals.CopperLoss, "W")),
             ("core loss", TextReport.Value(c.Totals.CoreLoss, "W")),
             ("efficiency", c.Totals.Efficiency is { } e ? TextReport.Percent(e) : "-"),
-        });
+        }));
+        foreach (var t in tables.OfType<Table>()) yield return t;
     }
 
-    private static void Table(StringBuilder o, string title, List<string> axes, IReadOnlyList<CaseResult> points, Func<CaseResult, IEnumerable<(string Column, string Text)>> cells)
+    private static Table? Build(string title, List<string> axes, IReadOnlyList<CaseResult> points, Func<CaseResult, IEnumerable<(string Column, string Text)>> cells)
     {
         var rows = points.Select(p => cells(p).ToList()).ToList();
         var columns = rows.SelectMany(r => r.Select(c => c.Column)).Distinct().ToList();
-        if (columns.Count == 0) return;
-        o.Append("  ").Append(title).Append('\n');
-        Row(o, [.. axes.Select(a => $"{a}="), .. columns]);
+        if (columns.Count == 0) return null;
+        var body = new List<IReadOnlyList<string>>();
         for (var i = 0; i < points.Count; i++)
         {
             var byColumn = rows[i].GroupBy(c => c.Column).ToDictionary(g => g.Key, g => g.First().Text);
-            Row(o, [.. points[i].Case.Sweep.Select(v => v.Text), .. columns.Select(c => byColumn.GetValueOrDefault(c, "-"))]);
+            body.Add([.. points[i].Case.Sweep.Select(v => v.Text), .. columns.Select(c => byColumn.GetValueOrDefault(c, "-"))]);
         }
+        return new Table(title, [.. axes.Select(a => $"{a}="), .. columns], body);
     }
 
     private static void Row(StringBuilder o, IEnumerable<string> cells)

@@ -123,14 +123,24 @@ public static class TextReport
         foreach (var check in evaluation.Checks)
         {
             var line = evaluation.Text.GetPosition(check.Expect.Line.Start).Line + 1;
-            var value = check.Value is { } v ? $" ({DiagnosticBag.Show(v, check.Expect.Unit)}" : "";
-            if (value.Length > 0 && (check.Points > 1 || check.Min != check.Max) && check.Min is { } min && check.Max is { } max)
-                value += $"; {DiagnosticBag.Show(min, check.Expect.Unit)} to {DiagnosticBag.Show(max, check.Expect.Unit)} over {check.Points} point{(check.Points == 1 ? "" : "s")}{(check.Min != check.Max && check.Points == 1 ? " and the tolerance band" : "")}";
-            if (value.Length > 0 && !check.Failures.IsEmpty && check.Points > 1)
-                value += $"; fails at {check.Failures.Length}: {DiagnosticBag.ListPoints(check.Failures)}";
-            if (value.Length > 0) value += ")";
+            var value = CheckValue(check) is { Length: > 0 } v ? $" ({v})" : "";
             o.Append("  ").Append(check.Passed ? "pass" : "FAIL").Append("  line ").Append(line).Append(": ").Append(check.Expect.Text).Append(value).Append('\n');
         }
+    }
+
+    /// <summary>
+    /// "117.7 V", or with sweep points and tolerances "69.98 V; 0.000 V to 139.9 V over 11 points;
+    /// fails at 2: BR=90 %, BR=100 %"; empty when the value could not be measured.
+    /// </summary>
+    public static string CheckValue(CheckResult check)
+    {
+        if (check.Value is not { } v) return "";
+        var value = DiagnosticBag.Show(v, check.Expect.Unit);
+        if ((check.Points > 1 || check.Min != check.Max) && check.Min is { } min && check.Max is { } max)
+            value += $"; {DiagnosticBag.Show(min, check.Expect.Unit)} to {DiagnosticBag.Show(max, check.Expect.Unit)} over {check.Points} point{(check.Points == 1 ? "" : "s")}{(check.Min != check.Max && check.Points == 1 ? " and the tolerance band" : "")}";
+        if (!check.Failures.IsEmpty && check.Points > 1)
+            value += $"; fails at {check.Failures.Length}: {DiagnosticBag.ListPoints(check.Failures)}";
+        return value;
     }
 
     private static void Heading(StringBuilder o, string title) => o.Append("  ").Append(title).Append('\n');

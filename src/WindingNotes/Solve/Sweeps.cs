@@ -19,11 +19,15 @@ public sealed record SweepAxis(SweepModel Sweep, Quantity From, double Step, lon
     public SweepValue Label(long k)
     {
         var v = Value(k).Real;
-        var text = From.IsPercent ? Numbers.Short(v * 100, "%")
-            : From.Flags.HasFlag(QuantityFlags.Turns) || (From.Dimension.IsNone && Sweep.Target.Kind == SymbolKind.Brush) ? Numbers.Short(v, "turns")
-            : Numbers.Short(v, From.Dimension.SiUnit());
-        return new SweepValue(Name, v, text);
+        var unit = Unit(Sweep);
+        return new SweepValue(Name, v, Numbers.Short(unit == "%" ? v * 100 : v, unit));
     }
+
+    /// <summary>The unit a sweep's values are written in: "%" (values are fractions), "turns", or the SI unit of its values.</summary>
+    public static string Unit(SweepModel sweep) =>
+        sweep.From.IsPercent ? "%"
+        : sweep.From.Flags.HasFlag(QuantityFlags.Turns) || (sweep.From.Dimension.IsNone && sweep.Target.Kind == SymbolKind.Brush) ? "turns"
+        : sweep.From.Dimension.SiUnit();
 }
 
 /// <summary>

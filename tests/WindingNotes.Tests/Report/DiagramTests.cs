@@ -24,8 +24,10 @@ public class DiagramTests
     {
         var data = new TheoryData<string, string>();
         foreach (var file in Files())
-            foreach (var kind in new[] { "network", "phasors" })
-                data.Add(Path.GetFileName(file), kind);
+        {
+            foreach (var kind in new[] { "network", "phasors" }) data.Add(Path.GetFileName(file), kind);
+            if (File.ReadAllText(file).Contains("\nsweep ")) data.Add(Path.GetFileName(file), "sweep");
+        }
         return data;
     }
 
@@ -34,7 +36,12 @@ public class DiagramTests
     private static Drawing Draw(string name, string kind)
     {
         var evaluation = Evaluator.Evaluate(File.ReadAllText(PathOf(name)), name);
-        return kind == "network" ? NetworkDiagram.Draw(evaluation) : PhasorDiagram.Draw(evaluation, evaluation.Normal!);
+        return kind switch
+        {
+            "network" => NetworkDiagram.Draw(evaluation),
+            "phasors" => PhasorDiagram.Draw(evaluation, evaluation.Normal!),
+            _ => SweepPlot.Draw(evaluation, null, out _)!,
+        };
     }
 
     private static void AssertLegible(Drawing drawing, string what)
@@ -98,6 +105,68 @@ public class DiagramTests
         Assert.Equal(evaluation.Model.Windings.Length, marks);
     }
 
+    /// <summary>
+    /// The wires of a network drawing connect exactly what the network connects: following the
+    /// drawn lines (joined where one ends on another, not where two merely cross) from each terminal
+    /// reaches every other terminal of its node and none of another node.
+    /// </summary>
+    private static void AssertWiredAsTheNetwork(Evaluation evaluation, string what)
+    {
+        var drawing = NetworkDiagram.Draw(evaluation);
+        var network = evaluation.Network ?? WindingNotes.Model.NetworkBuilder.Build(evaluation.Model);
+        var root = Parse(drawing.Svg);
+        var segments = new List<(double X1, double Y1, double X2, double Y2)>();
+        double D(XElement e, string a) => double.Parse(e.Attribute(a)!.Value, System.Globalization.CultureInfo.InvariantCulture);
+        foreach (var e in root.Descendants().Where(e => e.Attribute("class")?.Value == "wire"))
+        {
+            if (e.Name == SvgNs + "line") segments.Add((D(e, "x1"), D(e, "y1"), D(e, "x2"), D(e, "y2")));
+            else if (e.Name == SvgNs + "polyline")
+            {
+                var p = e.Attribute("points")!.Value.Split(' ').Select(xy => xy.Split(',').Select(v => double.Parse(v, System.Globalization.CultureInfo.InvariantCulture)).ToArray()).ToList();
+                for (var i = 0; i + 1 < p.Count; i++) segments.Add((p[i][0], p[i][1], p[i + 1][0], p[i + 1][1]));
+            }
+        }
+        static bool On((double X1, double Y1, double X2, double Y2) s, double x, double y)
+        {
+            var (dx, dy) = (s.X2 - s.X1, s.Y2 - s.Y1);
+            var length = Math.Sqrt(dx * dx + dy * dy);
+            if (length < 1e-9) return Math.Abs(x - s.X1) < 0.05 && Math.Abs(y - s.Y1) < 0.05;
+            var t = ((x - s.X1) * dx + (y - s.Y1) * dy) / (length * length);
+            if (t < -1e-6 || t > 1 + 1e-6) return false;
+            return Math.Abs((x - s.X1) * dy - (y - s.Y1) * dx) / length < 0.05;
+        }
+        var parent = Enumerable.Range(0, segments.Count).ToArray();
+        int Find(int i) => parent[i] == i ? i : parent[i] = Find(parent[i]);
+        for (var i = 0; i < segments.Count; i++)
+            for (var j = i + 1; j < segments.Count; j++)
+            {
+                var (a, b) = (segments[i], segments[j]);
+                if (On(a, b.X1, b.Y1) || On(a, b.X2, b.Y2) || On(b, a.X1, a.Y1) || On(b, a.X2, a.Y2)) parent[Find(i)] = Find(j);
+            }
+        var groups = drawing.Terminals.Select(t =>
+        {
+            var touching = Enumerable.Range(0, segments.Count).Where(i => On(segments[i], t.X, t.Y)).Select(Find).Distinct().ToList();
+            Assert.True(touching.Count == 1, $"{what}: terminal {t.Point} touches {touching.Count} groups of wires");
+            return (t.Point, Node: network.NodeOfPoint[t.Point], Group: touching[0]);
+        }).ToList();
+        Assert.NotEmpty(groups);
+        foreach (var a in groups)
+            foreach (var b in groups)
+            {
+                if (network.Nodes[a.Node].IsEarth && network.Nodes[b.Node].IsEarth) continue;
+                Assert.True(a.Node == b.Node == (a.Group == b.Group),
+                    $"{what}: {a.Point} and {b.Point} are {(a.Node == b.Node ? "one node" : "two nodes")} but the drawing {(a.Group == b.Group ? "joins" : "separates")} them");
+            }
+    }
+
+    [Theory]
+    [MemberData(nameof(Drawings))]
+    public void The_network_drawing_is_wired_as_the_network(string name, string kind)
+    {
+        if (kind != "network") return;
+        AssertWiredAsTheNetwork(Evaluator.Evaluate(File.ReadAllText(PathOf(name)), name), name);
+    }
+
     [Fact]
     public void Random_networks_draw_with_their_labels_apart()
     {
@@ -105,6 +174,7 @@ public class DiagramTests
         {
             var evaluation = Wn.Eval(RandomNetworks.Write(seed));
             AssertLegible(NetworkDiagram.Draw(evaluation), $"network of random network {seed}");
+            AssertWiredAsTheNetwork(evaluation, $"random network {seed}");
             AssertLegible(PhasorDiagram.Draw(evaluation, evaluation.Normal!), $"phasors of random network {seed}");
         }
     }
@@ -133,6 +203,37 @@ public class DiagramTests
     }
 
     [Fact]
+    public void The_sweep_plot_draws_a_line_per_result_with_a_mark_per_point_and_a_gap_where_a_section_ends()
+    {
+        var evaluation = Evaluator.Evaluate(File.ReadAllText(Command.Example("cedar-hollow-bench-sweep.wn")), "c.wn");
+        var root = Parse(SweepPlot.Draw(evaluation, ["loads.heater.v.rms", "sections.W:*-BR.loading"], out var problem)!.Svg);
+        Assert.Null(problem);
+        var texts = root.Descendants(SvgNs + "text").Select(t => t.Value).ToList();
+        Assert.Contains("load heater voltage", texts);
+        Assert.Contains("section W:A-BR loading", texts);
+        Assert.Contains("section W:LINE-BR loading", texts);
+        Assert.Contains("BR (%)", texts);
+        // The heater's eleven points, then the sections ending at BR: W:A-BR for 0 to 80 %, W:LINE-BR for 90 and 100 %.
+        var lines = root.Descendants(SvgNs + "polyline").Where(p => p.Attribute("class")?.Value == "series").ToList();
+        Assert.Equal(3, lines.Count);
+        var heater = lines[0].Attribute("points")!.Value.Split(' ').Select(p => double.Parse(p.Split(',')[1], System.Globalization.CultureInfo.InvariantCulture)).ToList();
+        Assert.Equal(11, heater.Count);
+        // The output voltage rises with the brush: each point higher on the page than the one before.
+        Assert.All(heater.Zip(heater.Skip(1)), pair => Assert.True(pair.Second < pair.First));
+        Assert.Equal(11 + 9 + 2, root.Descendants(SvgNs + "circle").Count(c => c.Attribute("r")?.Value == "2.3"));
+    }
+
+    [Fact]
+    public void The_sweep_plot_says_why_when_there_is_nothing_to_plot()
+    {
+        var sweep = Evaluator.Evaluate(File.ReadAllText(Command.Example("cedar-hollow-bench-sweep.wn")), "c.wn");
+        Assert.Null(SweepPlot.Draw(sweep, ["loads.*.nothing"], out var problem));
+        Assert.StartsWith("no result of the sweep matches 'loads.*.nothing'", problem);
+        Assert.Null(SweepPlot.Draw(Wn.Eval(File.ReadAllText(Command.Example("alder-creek-boost.wn"))), null, out problem));
+        Assert.Equal("the file has no sweep", problem);
+    }
+
+    [Fact]
     public void The_diagram_command_writes_the_file_or_standard_output_and_says_when_a_case_is_missing()
     {
         using var dir = new TemporaryDirectory();
@@ -146,6 +247,13 @@ public class DiagramTests
         Assert.Equal(1, code);
         Assert.Contains("no case 'fault F9' to draw (cases: 'normal')", error);
         Assert.Equal(2, Command.Run("", "diagram", example, "--kind", "pie").Code);
+        (code, _, error) = Command.Run("", "diagram", example, "--kind", "sweep");
+        Assert.Equal(1, code);
+        Assert.Contains("nothing to plot: the file has no sweep", error);
+        (code, output, _) = Command.Run("", "diagram", Command.Example("cedar-hollow-bench-sweep.wn"), "--kind", "sweep", "--result", "supplies.*.i.rms", "-r", "loads.heater.p");
+        Assert.Equal(0, code);
+        Assert.Contains(">supply bench current</text>", output);
+        Assert.Contains(">load heater P</text>", output);
         Assert.Equal(2, Command.Run("", "diagram", "/no/such.wn").Code);
     }
 }

@@ -6,7 +6,11 @@ using WindingNotes.Workspace;
 namespace WindingNotes.Report.Diagrams;
 
 /// <summary>A drawing and the boxes of its labels (for tests of legibility).</summary>
-public sealed record Drawing(string Svg, IReadOnlyList<Box> Labels, double Width, double Height);
+public sealed record Drawing(string Svg, IReadOnlyList<Box> Labels, double Width, double Height)
+{
+    /// <summary>In a network drawing: where each terminal meets its element, so a test can follow the wires from it.</summary>
+    public IReadOnlyList<(string Point, double X, double Y)> Terminals { get; init; } = [];
+}
 
 /// <summary>
 /// The network drawn from the model. Elements stand in one row, left to right: supplies, each core
@@ -27,8 +31,6 @@ public static class NetworkDiagram
     {
         public double Column { get; set; }
 
-        /// <summary>A pin whose lead already rises along its column (the top of an upright two-terminal element).</summary>
-        public bool Direct { get; init; }
     }
 
     public static Drawing Draw(Evaluation evaluation)
@@ -41,6 +43,7 @@ public static class NetworkDiagram
     {
         private readonly Svg svg = new();
         private readonly List<Pin> pins = [];
+        private readonly List<(string, double, double)> terminals = [];
         private readonly CaseResult? results = evaluation.Normal;
         private readonly HashSet<int> railNodes = RailNodes(network);
         private double elementsTop;
@@ -76,7 +79,7 @@ public static class NetworkDiagram
                 y += 13;
             }
             var height = y + Margin - 21;
-            return new Drawing(svg.Document(width, height, Symbols.Css), svg.TextBoxes, width, height);
+            return new Drawing(svg.Document(width, height, Symbols.Css), svg.TextBoxes, width, height) { Terminals = terminals };
         }
 
         private static (double, double) Next(double x, double bottom, (double Right, double Bottom) element) =>
@@ -158,6 +161,7 @@ public static class NetworkDiagram
         /// </summary>
         private void Terminal(string point, double x, double y, int outward, bool direct = false, double? column = null, bool named = true)
         {
+            terminals.Add((point, x, y));
             var node = NodeOf(point);
             if (IsEarth(point))
             {
@@ -168,7 +172,9 @@ public static class NetworkDiagram
             }
             if (node >= 0 && railNodes.Contains(node))
             {
-                pins.Add(new Pin(point, node, x, y, outward) { Column = direct ? x : column ?? x, Direct = direct });
+                var at = direct ? x : column ?? x;
+                if (at != x) svg.Line(x, y, at, y);
+                pins.Add(new Pin(point, node, x, y, outward) { Column = at });
                 return;
             }
             var end = direct ? x : column ?? x;
@@ -312,6 +318,7 @@ public static class NetworkDiagram
                     var column = axis + outward * (lane + ColumnPitch * (1 + columns++));
                     svg.Line(axis, py, column, py);
                     pins.Add(new Pin(point, NodeOf(point), axis, py, outward) { Column = column });
+                    terminals.Add((point, axis, py));
                 }
                 // Earthed and unconnected terminals end at the lane's edge: no lead rises past them there.
                 else Terminal(point, axis, py, outward, column: axis + outward * (lane + 6), named: false);

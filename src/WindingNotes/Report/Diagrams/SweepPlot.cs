@@ -1,0 +1,182 @@
+using System.Text.RegularExpressions;
+using WindingNotes.Solve;
+using WindingNotes.Text;
+using WindingNotes.Workspace;
+
+namespace WindingNotes.Report.Diagrams;
+
+/// <summary>
+/// Results against the swept value: one panel per unit, stacked over one x axis, a line per result
+/// (and per value of any further sweep axis), a mark at each point. A result a point does not have
+/// (a section the brush has moved past) leaves a gap in its line. Results are chosen by their path
+/// in the JSON report, with '*' for any one name: <c>loads.*.v.rms</c>, <c>sections.W:*.loading</c>.
+/// </summary>
+public static class SweepPlot
+{
+    /// <summary>What a sweep is usually run to see: the load voltages and the loading of the windings.</summary>
+    public static readonly IReadOnlyList<string> DefaultResults = ["loads.*.v.rms", "sections.*.loading"];
+
+    private const double PlotWidth = 560, PanelHeight = 190, PanelGap = 34, Left = 84, Top = 70, NameSize = 10, ValueSize = 9;
+
+    private static readonly string[] Palette = ["#1f4e79", "#b3541e", "#4f7a28", "#7b3f98", "#0f7c86", "#a83250", "#6b5b2a", "#3d5a80", "#c27c0e", "#2e6b4f"];
+
+    private sealed record Series(string Path, string Label, string Unit, List<(double X, double Y)?> Points, int Colour);
+
+    /// <summary>The plot, or null with the reason when there is nothing to plot.</summary>
+    public static Drawing? Draw(Evaluation evaluation, IReadOnlyList<string>? results, out string? problem)
+    {
+        problem = null;
+        var points = evaluation.Cases.Where(c => c.Case.IsSweepPoint).ToList();
+        if (points.Count == 0)
+        {
+            problem = evaluation.Model.Sweeps.IsEmpty ? "the file has no sweep" : "the sweep was not run: see the file's diagnostics";
+            return null;
+        }
+        var axis = points[0].Case.Sweep[0].Name;
+        var sweep = evaluation.Model.Sweeps.FirstOrDefault(s => s.Target.Name == axis);
+        var xUnit = sweep is null ? "" : SweepAxis.Unit(sweep);
+        var values = points.Select(p => CaseValues.Of(p).GroupBy(v => v.Path).ToDictionary(g => g.Key, g => g.First())).ToList();
+        var paths = values.SelectMany(v => v.Keys).Distinct().ToList();
+
+        var explicitly = results is { Count: > 0 };
+        var patterns = explicitly ? results! : DefaultResults;
+        var chosen = new List<string>();
+        foreach (var pattern in patterns)
+        {
+            var match = Glob(pattern);
+            var found = paths.Where(p => match.IsMatch(p)).ToList();
+            if (found.Count == 0 && explicitly)
+            {
+                problem = $"no result of the sweep matches '{pattern}'; results are named as in the JSON report, such as {string.Join(", ", paths.Take(3))}";
+                return null;
+            }
+            chosen.AddRange(found.Where(f => !chosen.Contains(f)));
+        }
+        if (chosen.Count == 0) chosen.AddRange(paths.Where(p => Glob("nodes.*.v.rms").IsMatch(p)));
+
+        // A further sweep axis makes a line per value of it.
+        string Group(CaseResult c) => string.Join(" ", c.Case.Sweep.Skip(1));
+        var groups = points.Select(Group).Distinct().ToList();
+        var series = new List<Series>();
+        foreach (var path in chosen)
+            foreach (var group in groups)
+            {
+                var line = new List<(double, double)?>();
+                string? unit = null;
+                for (var i = 0; i < points.Count; i++)
+                {
+                    if (Group(points[i]) != group) continue;
+                    if (values[i].TryGetValue(path, out var v) && double.IsFinite(v.Value))
+                    {
+                        line.Add((points[i].Case.Sweep[0].Value, v.Value));
+                        unit ??= v.Unit;
+                    }
+                    else line.Add(null);
+                }
+                var label = ResultValues.Readable(path) + (group.Length > 0 ? $" ({group})" : "");
+                series.Add(new Series(path, label, unit ?? "", line, series.Count % Palette.Length));
+            }
+        return Plot(evaluation, axis, xUnit, series);
+    }
+
+    private static Regex Glob(string pattern) =>
+        new("^" + string.Join("[^.]*", pattern.Split('*').Select(Regex.Escape)) + "$", RegexOptions.CultureInvariant);
+
+    private static Drawing Plot(Evaluation evaluation, string axis, string xUnit, List<Series> series)
+    {
+        var svg = new Svg();
+        var panels = series.GroupBy(s => s.Unit).ToList();
+        var xs = series.SelectMany(s => s.Points).OfType<(double X, double Y)>().Select(p => p.X).ToList();
+        var (xLow, xHigh, xStep) = Scales.Axis(xs.DefaultIfEmpty(0).Min(), xs.DefaultIfEmpty(1).Max(), 8);
+        double X(double x) => Left + (x - xLow) / (xHigh - xLow) * PlotWidth;
+
+        var legendX = Left + PlotWidth + 24;
+        var legendY = Top;
+        var y0 = Top;
+        foreach (var panel in panels)
+        {
+            var unit = panel.Key;
+            var ys = panel.SelectMany(s => s.Points).OfType<(double X, double Y)>().Select(p => p.Y).ToList();
+            var (yLow, yHigh, yStep) = Scales.Axis(ys.DefaultIfEmpty(0).Min(), ys.DefaultIfEmpty(1).Max(), 5);
+            var top = y0;
+            double Y(double y) => top + PanelHeight - (y - yLow) / (yHigh - yLow) * PanelHeight;
+
+            svg.Rect(Left, top, PlotWidth, PanelHeight, "frame");
+            foreach (var t in Ticks(yLow, yHigh, yStep))
+            {
+                svg.Line(Left, Y(t), Left + PlotWidth, Y(t), "gridline");
+                svg.Text(Tick(t, unit), Left - 6, Y(t) + 3.5, "tick", ValueSize, Anchor.End);
+            }
+            foreach (var t in Ticks(xLow, xHigh, xStep)) svg.Line(X(t), top, X(t), top + PanelHeight, "gridline");
+            svg.Text(UnitName(unit), Left, top - 6, "strong", NameSize);
+
+            foreach (var s in panel)
+            {
+                var colour = Palette[s.Colour];
+                // A line through each run of points that have the result; a mark at every point.
+                var run = new List<(double, double)>();
+                void Flush()
+                {
+                    if (run.Count > 1) svg.Raw($"<polyline class=\"series\" stroke=\"{colour}\" points=\"{string.Join(" ", run.Select(p => $"{Svg.N(p.Item1)},{Svg.N(p.Item2)}"))}\"/>");
+                    run.Clear();
+                }
+                foreach (var p in s.Points)
+                {
+                    if (p is not { } point)
+                    {
+                        Flush();
+                        continue;
+                    }
+                    run.Add((X(point.X), Y(point.Y)));
+                    svg.Raw($"<circle cx=\"{Svg.N(X(point.X))}\" cy=\"{Svg.N(Y(point.Y))}\" r=\"2.3\" fill=\"{colour}\"/>");
+                }
+                Flush();
+                legendY += 15;
+                svg.Raw($"<line x1=\"{Svg.N(legendX)}\" y1=\"{Svg.N(legendY - 3.5)}\" x2=\"{Svg.N(legendX + 18)}\" y2=\"{Svg.N(legendY - 3.5)}\" stroke=\"{colour}\" stroke-width=\"2\"/>");
+                svg.Text(s.Label, legendX + 24, legendY, "name", NameSize);
+            }
+            legendY += 10;
+            y0 += PanelHeight + PanelGap;
+        }
+        var bottom = y0 - PanelGap;
+        foreach (var t in Ticks(xLow, xHigh, xStep))
+            svg.Text(Tick(t, xUnit), X(t), bottom + 14, "tick", ValueSize, Anchor.Middle);
+        svg.Text($"{axis} ({UnitName(xUnit)})", Left + PlotWidth / 2, bottom + 32, "strong", NameSize, Anchor.Middle);
+
+        var width = legendX + 24 + series.Select(s => Svg.TextWidth(s.Label, NameSize)).DefaultIfEmpty(0).Max() + 24;
+        var name = evaluation.Path.Length == 0 ? "standard input" : evaluation.Path;
+        var title = $"Sweep of {axis} in {name}";
+        width = Math.Max(width, Svg.TextWidth(title, 13) + 48);
+        svg.Text(title, 24, 28, "title", 13);
+        var points = series.Count == 0 ? 0 : series.Max(s => s.Points.Count);
+        svg.Text($"{points} point{(points == 1 ? "" : "s")} of the sweep; a gap where a point does not have the result.", 24, 46, "note", ValueSize);
+        var y = Math.Max(bottom + 40, legendY + 10);
+        foreach (var line in Svg.Wrap(Cautions.Judgement, width - 48, ValueSize))
+            svg.Text(line, 24, y += 13, "note", ValueSize);
+        var height = y + 20;
+        return new Drawing(svg.Document(width, height, Css), svg.TextBoxes, width, height);
+    }
+
+    private static IEnumerable<double> Ticks(double low, double high, double step)
+    {
+        var n = (int)Math.Round((high - low) / step);
+        for (var k = 0; k <= n; k++) yield return low + k * step;
+    }
+
+    /// <summary>A tick's value, short: "40 %", "1.5 kV", "0.95".</summary>
+    private static string Tick(double value, string unit)
+    {
+        if (Math.Abs(value) < 1e-12) value = 0;
+        return unit == "%" ? Numbers.Short(value * 100, "%", 4) : Numbers.Short(value, unit, 4);
+    }
+
+    private static string UnitName(string unit) => unit switch { "%" => "%", "" => "ratio", var u => u };
+
+    private const string Css = Symbols.Css + """
+        .frame{stroke:#9aa5ae;stroke-width:1;fill:none}
+        .gridline{stroke:#e4e8ec;stroke-width:1}
+        .tick{font-size:9px;fill:#3e4c59}
+        .series{fill:none;stroke-width:1.8;stroke-linejoin:round}
+
+        """;
+}
