@@ -167,12 +167,17 @@ internal sealed partial class BindRun
     /// <summary>A position in turns (or a bare number), in % of the winding, or in volts.</summary>
     private (double Position, TapUnit Unit)? TapPosition(Quantity q, TextSpan span, string tap)
     {
-        if (q.IsPercent && q.Dimension.IsNone) return (q.Real, TapUnit.Fraction);
-        if (q.Dimension.IsNone) return (q.Real, TapUnit.Turns);
-        if (q.Dimension == Dimension.Voltage) return (q.Real, TapUnit.Volts);
+        if (Place(q) is { } place) return place;
         diagnostics.ReportWrongDimension(span, $"turns, % or a voltage for the position of {tap}", q.Dimension);
         return null;
     }
+
+    /// <summary>A position in turns (or a bare number), in % of the winding, or in volts; null for any other kind.</summary>
+    internal static (double Position, TapUnit Unit)? Place(Quantity q) =>
+        q.IsPercent && q.Dimension.IsNone ? (q.Real, TapUnit.Fraction)
+        : q.Dimension.IsNone ? (q.Real, TapUnit.Turns)
+        : q.Dimension == Dimension.Voltage ? (q.Real, TapUnit.Volts)
+        : null;
 
     private void BindImpedance(StatementSyntax s)
     {

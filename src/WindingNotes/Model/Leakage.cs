@@ -48,9 +48,9 @@ internal static class Leakage
     /// <summary>A given pair: the pair resistance per turn squared (when known) and reactance per turn.</summary>
     private readonly record struct Pair(int A, int B, double R, double X, bool FitsResistance);
 
-    /// <summary>The matrix over <paramref name="sections"/> (the core's, winding by winding), in ohms.</summary>
+    /// <summary>The matrix over <paramref name="sections"/> (the core's, winding by winding), in ohms, as a function of their turns.</summary>
     /// <param name="reference">The winding of the core's open-circuit test, if any.</param>
-    public static Complex[,] SectionMatrix(Model model, int coreIndex, IReadOnlyList<Section> sections, IReadOnlyList<WindingNet> windings,
+    public static SectionCoupling SectionMatrix(Model model, int coreIndex, IReadOnlyList<Section> sections, IReadOnlyList<WindingNet> windings,
         string? reference, DiagnosticBag diagnostics) =>
         new CoreLeakage(model, coreIndex, sections, windings, diagnostics).Build(reference);
 
@@ -61,7 +61,7 @@ internal static class Leakage
         private readonly int[] memberOf = Enumerable.Repeat(-1, sections.Count).ToArray();
         private readonly List<Pair> pairs = [];
 
-        public Complex[,] Build(string? reference)
+        public SectionCoupling Build(string? reference)
         {
             var seen = new Dictionary<(int, int), ImpedanceModel>();
             foreach (var line in model.Impedances)
@@ -98,15 +98,7 @@ internal static class Leakage
             var tested = Enumerable.Range(0, sections.Count).FirstOrDefault(p => windings[sections[p].Winding].Name == reference);
             var perTurn = PerTurnMatrix(series, sections.Count > 0 ? memberOf[tested] : 0);
 
-            var z = new Complex[sections.Count, sections.Count];
-            for (var p = 0; p < sections.Count; p++)
-            {
-                for (var q = 0; q < sections.Count; q++)
-                    z[p, q] = sections[p].Turns * sections[q].Turns * perTurn[memberOf[p], memberOf[q]];
-                var m = members[memberOf[p]];
-                z[p, p] += series[memberOf[p]] * m.Turns * sections[p].Turns;
-            }
-            return z;
+            return new SectionCoupling([.. memberOf], perTurn, [.. members.Select((m, i) => series[i] * m.Turns)]);
         }
 
         private WindingNet? OnCore(string name) => windings.FirstOrDefault(w => w.Name == name && w.Core == coreIndex);

@@ -34,6 +34,31 @@ public sealed record CoreNet(int Index, CoreModel Source, ImmutableArray<int> Se
 
     /// <summary>The winding of the open-circuit test the admittance comes from, or −1.</summary>
     public int NoLoadWinding { get; init; } = -1;
+
+    /// <summary>How <see cref="Impedance"/> follows from the sections' turns; null on a core built by hand.</summary>
+    public SectionCoupling? Coupling { get; init; }
+}
+
+/// <summary>
+/// A core's impedance matrix as a function of its sections' turns: Z[p][q] = N_p·N_q·PerTurn[m(p)][m(q)]
+/// + δ_pq·Series[m(p)]·N_p, with m(p) the leakage member of section p (its position in the core's list)
+/// and Series the member's series resistance per turn squared times its turns. A brush that moves
+/// inside one member leaves the members as they are and changes the turns only.
+/// </summary>
+public sealed record SectionCoupling(int[] MemberOf, Complex[,] PerTurn, double[] Series)
+{
+    public Complex[,] Matrix(IReadOnlyList<double> turns)
+    {
+        var n = turns.Count;
+        var z = new Complex[n, n];
+        for (var p = 0; p < n; p++)
+        {
+            for (var q = 0; q < n; q++)
+                z[p, q] = turns[p] * turns[q] * PerTurn[MemberOf[p], MemberOf[q]];
+            z[p, p] += Series[MemberOf[p]] * turns[p];
+        }
+        return z;
+    }
 }
 
 public sealed record SupplyNet(int Index, SupplyModel Source, int NodeP, int NodeQ, Complex Voltage, Complex Impedance)

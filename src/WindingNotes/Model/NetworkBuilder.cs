@@ -13,6 +13,17 @@ public static class NetworkBuilder
 {
     public static Network Build(Model model) => new BuildRun(model).Run();
 
+    /// <summary>A tap's place on its winding in turns from the from end; NaN where volts are given and the winding has no rating.</summary>
+    internal static double Turns(TapModel tap, WindingNet w) => tap.Unit switch
+    {
+        TapUnit.Turns => tap.Position,
+        TapUnit.Fraction => tap.Position * w.Turns,
+        _ => w.RatedVoltage is { } v ? tap.Position / v * w.Turns : double.NaN,
+    };
+
+    /// <summary>Whether a tap at this many turns lies on the winding (within rounding), as the builder checks it.</summary>
+    internal static bool OnWinding(double position, WindingNet w) => position >= -1e-9 && position <= w.Turns * (1 + 1e-9);
+
     private sealed class BuildRun(Model model)
     {
         private readonly DiagnosticBag diagnostics = new();
@@ -131,14 +142,9 @@ public static class NetworkBuilder
                 var points = new List<(string Name, double Position)> { (w.Source.From.Name, 0) };
                 foreach (var tap in model.Taps.Where(t => t.Winding == w.Name))
                 {
-                    var position = tap.Unit switch
-                    {
-                        TapUnit.Turns => tap.Position,
-                        TapUnit.Fraction => tap.Position * w.Turns,
-                        _ => w.RatedVoltage is { } v ? tap.Position / v * w.Turns : double.NaN,
-                    };
+                    var position = Turns(tap, w);
                     if (double.IsNaN(position)) diagnostics.ReportTapNeedsRating(tap.PositionSpan, w.Name);
-                    else if (position < -1e-9 || position > w.Turns * (1 + 1e-9)) diagnostics.ReportTapOutside(tap.PositionSpan, tap.Name, position, w.Turns);
+                    else if (!OnWinding(position, w)) diagnostics.ReportTapOutside(tap.PositionSpan, tap.Name, position, w.Turns);
                     else points.Add((tap.Name, Math.Clamp(position, 0, w.Turns)));
                 }
                 points.Add((w.Source.To.Name, w.Turns));
@@ -159,11 +165,12 @@ public static class NetworkBuilder
         {
             var onCore = sections.Where(s => s.Core == index).ToList();
             var test = NoLoadTest(core, index, windings);
-            var z = Leakage.SectionMatrix(model, index, onCore, windings, test?.Winding.Name, diagnostics);
+            var coupling = Leakage.SectionMatrix(model, index, onCore, windings, test?.Winding.Name, diagnostics);
             var admittance = test is { } t ? MagnetisingAdmittance(t.Test, t.Winding) : Complex.Zero;
-            return new CoreNet(index, core, [.. onCore.Select(s => s.Index)], z, admittance, core.FluxLimit)
+            return new CoreNet(index, core, [.. onCore.Select(s => s.Index)], coupling.Matrix([.. onCore.Select(s => s.Turns)]), admittance, core.FluxLimit)
             {
                 NoLoadWinding = test?.Winding.Index ?? -1,
+                Coupling = coupling,
             };
         }
 

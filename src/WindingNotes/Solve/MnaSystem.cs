@@ -30,15 +30,18 @@ internal sealed class MnaSystem
     public readonly Dictionary<int, int> SupplyColumn = [];
     public readonly Dictionary<int, int> CoreColumn = [];
     public int FaultColumn = -1;
-    public readonly List<NonlinearLoad> NonlinearLoads = [];
-    public readonly List<(int Load, int ColumnA, int ColumnB)> LinearLoads = [];
+    public List<NonlinearLoad> NonlinearLoads { get; private set; } = [];
+    public List<(int Load, int ColumnA, int ColumnB)> LinearLoads { get; private set; } = [];
     public bool HasSource;
 
     public int Column(int node) => NodeColumn.TryGetValue(node, out var c) ? c : -1;
 
+    private SolveGroup group = null!;
+    private CaseSpec spec = null!;
+
     public static MnaSystem Assemble(Network network, SolveGroup group, int[] reference, CaseSpec spec)
     {
-        var m = new MnaSystem();
+        var m = new MnaSystem { group = group, spec = spec };
         var model = network.Model;
         foreach (var n in group.Nodes.Where(n => reference[n] != n))
         {
@@ -74,6 +77,22 @@ internal sealed class MnaSystem
         m.Size = m.Unknowns.Count;
         m.A = new Complex[m.Size, m.Size];
         m.B = new Complex[m.Size];
+        m.Stamp(network, group, spec);
+        return m;
+    }
+
+    /// <summary>
+    /// The same unknowns and equations stamped from a network of the same shape (a brush moved):
+    /// only the numbers are new, so the named elements are not made again.
+    /// </summary>
+    public MnaSystem Restamp(Network network)
+    {
+        var m = (MnaSystem)MemberwiseClone();
+        m.A = new Complex[Size, Size];
+        m.B = new Complex[Size];
+        m.NonlinearLoads = [];
+        m.LinearLoads = [];
+        m.HasSource = false;
         m.Stamp(network, group, spec);
         return m;
     }

@@ -18,12 +18,7 @@ public static class NetworkSolver
         var prefix = spec == CaseSpec.Normal ? "" : $"in case '{spec.Name}': ";
         (int, int)[] extra = spec.Fault is { } f ? [(network.Node(f.A.Name), network.Node(f.B.Name))] : [];
         var reference = Islands.References(network, extra);
-        var voltages = new Complex[network.Nodes.Length];
-        var sections = new Complex[network.Sections.Length];
-        var cores = new Complex[network.Cores.Length];
-        var supplies = new Complex[network.Supplies.Length];
-        var loads = new Complex[network.Loads.Length];
-        var fault = Complex.Zero;
+        var parts = new List<(MnaSystem, Complex[])>();
         var solved = true;
 
         foreach (var group in SolveGroup.Find(network, spec))
@@ -33,11 +28,23 @@ public static class NetworkSolver
             if (group.Supplies.Count == 0) continue;
             var m = MnaSystem.Assemble(network, group, reference, spec);
             var x = SolveSystem(m, network, diagnostics, prefix, cancel);
-            if (x is null)
-            {
-                solved = false;
-                continue;
-            }
+            if (x is null) solved = false;
+            else parts.Add((m, x));
+        }
+        return Collect(network, spec, parts, solved, diagnostics.ToImmutable());
+    }
+
+    /// <summary>The solution from the solved unknowns of each part (parts not listed carry nothing).</summary>
+    internal static Solution Collect(Network network, CaseSpec spec, IEnumerable<(MnaSystem System, Complex[] X)> parts, bool solved, ImmutableArray<Diagnostic> diagnostics)
+    {
+        var voltages = new Complex[network.Nodes.Length];
+        var sections = new Complex[network.Sections.Length];
+        var cores = new Complex[network.Cores.Length];
+        var supplies = new Complex[network.Supplies.Length];
+        var loads = new Complex[network.Loads.Length];
+        var fault = Complex.Zero;
+        foreach (var (m, x) in parts)
+        {
             foreach (var (node, column) in m.NodeColumn) voltages[node] = x[column];
             foreach (var (k, column) in m.SectionColumn) sections[k] = x[column];
             foreach (var (c, column) in m.CoreColumn) cores[c] = x[column];
@@ -55,7 +62,7 @@ public static class NetworkSolver
         Chop(voltages);
         Chop(sections, supplies, loads);
         Chop(cores);
-        return new Solution(network, spec, voltages, sections, cores, supplies, loads, fault, solved, diagnostics.ToImmutable());
+        return new Solution(network, spec, voltages, sections, cores, supplies, loads, fault, solved, diagnostics);
     }
 
     private static Complex[]? SolveSystem(MnaSystem m, Network network, DiagnosticBag diagnostics, string prefix, CancellationToken cancel)

@@ -15,9 +15,9 @@ public sealed record PointResult(CaseResult? Case, CaseResult? NoLoad, Immutable
 }
 
 /// <summary>
-/// Solves points. A sweep point or tolerance sample re-binds the parsed document with overrides
-/// (cheap next to solving) and builds its network afresh; this is the one place a faster path for
-/// points that change only a brush can take over.
+/// Solves points. A sweep point or tolerance sample re-binds the parsed document with overrides and
+/// builds its network afresh; points that move only brushes take the faster path of
+/// <see cref="BrushSweep"/>, which gives the same results.
 /// </summary>
 public static class Points
 {
@@ -31,16 +31,20 @@ public static class Points
         return solved with { Diagnostics = [.. model.Diagnostics, .. network.Diagnostics, .. solved.Diagnostics] };
     }
 
-    public static PointResult Solve(Network network, CaseSpec spec, bool withFaults, CancellationToken cancel)
+    public static PointResult Solve(Network network, CaseSpec spec, bool withFaults, CancellationToken cancel) =>
+        Solve(network, spec, withFaults, c => NetworkSolver.Solve(network, c, cancel), cancel);
+
+    /// <summary>The same with the case and its no-load companion solved by <paramref name="solve"/>, which must give what <see cref="NetworkSolver"/> gives.</summary>
+    internal static PointResult Solve(Network network, CaseSpec spec, bool withFaults, Func<CaseSpec, Solution> solve, CancellationToken cancel)
     {
         var diagnostics = ImmutableArray.CreateBuilder<Diagnostic>();
-        var main = NetworkSolver.Solve(network, spec, cancel);
+        var main = solve(spec);
         diagnostics.AddRange(main.Diagnostics);
         if (!main.Solved) return new PointResult(null, null, [], diagnostics.ToImmutable());
         Solution? noLoad = null;
         if (!network.Loads.IsEmpty)
         {
-            var solved = NetworkSolver.Solve(network, spec.WithoutLoad(), cancel);
+            var solved = solve(spec.WithoutLoad());
             diagnostics.AddRange(solved.Diagnostics);
             if (solved.Solved) noLoad = solved;
         }

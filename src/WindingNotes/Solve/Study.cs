@@ -33,7 +33,7 @@ public static class Study
         if (samples.Length > 0 && points > 0 && !bandsAtPoints)
             diagnostics.ReportBandsNotSwept(model.Sweeps[0].Line, points, samples.Length, Sweeps.Budget);
 
-        var run = new PointRun(syntax, diagnostics, cancel, progress, samples.Length + points * (1 + (bandsAtPoints ? samples.Length : 0)));
+        var run = new PointRun(syntax, new BrushSweep(syntax, model), diagnostics, cancel, progress, samples.Length + points * (1 + (bandsAtPoints ? samples.Length : 0)));
         var checks = new CheckTally(model.Expects);
         var ratings = new RatingTally();
         var cases = ImmutableArray.CreateBuilder<CaseResult>();
@@ -103,7 +103,7 @@ public static class Study
     /// Solves points after the nominal one and keeps what they report that the nominal evaluation did
     /// not: each such message once, with the first point it came from and how many more.
     /// </summary>
-    private sealed class PointRun(SyntaxTree syntax, DiagnosticBag diagnostics, CancellationToken cancel, Action<StudyProgress>? progress, long total)
+    private sealed class PointRun(SyntaxTree syntax, BrushSweep brushes, DiagnosticBag diagnostics, CancellationToken cancel, Action<StudyProgress>? progress, long total)
     {
         private readonly HashSet<(string, TextSpan, string)> known = [.. diagnostics.Select(d => (d.Code, d.Span, d.Message))];
         private readonly Dictionary<(string, TextSpan), (Diagnostic First, string Where, int More)> fresh = [];
@@ -113,7 +113,9 @@ public static class Study
         public PointResult Solve(BindOverrides overrides, CaseSpec spec, bool withFaults, string sample)
         {
             cancel.ThrowIfCancellationRequested();
-            var p = Points.Solve(syntax, overrides, spec, withFaults, cancel);
+            var p = !withFaults && spec.IsSweepPoint && brushes.Covers(overrides)
+                ? brushes.Solve(overrides, spec, cancel)
+                : Points.Solve(syntax, overrides, spec, withFaults, cancel);
             var where = $"{(spec.IsSweepPoint ? $"at {spec.Where}" : "")} {sample}".Trim();
             foreach (var d in p.Diagnostics)
             {

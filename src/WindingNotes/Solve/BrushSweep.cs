@@ -1,0 +1,103 @@
+using System.Collections.Immutable;
+using System.Numerics;
+using WindingNotes.Model;
+using WindingNotes.Syntax;
+using WindingNotes.Text;
+
+namespace WindingNotes.Solve;
+
+/// <summary>
+/// Sweep points that move only brushes, without binding, building and factoring each afresh. A point
+/// solved the general way whose network solved cleanly becomes the base; the points after it move
+/// its brushes on the built network (<see cref="BrushMoves"/>) and solve by a low-rank update of the
+/// base's factors (<see cref="LowRankUpdate"/>), loaded and without loads. Whatever that cannot do
+/// exactly falls back: a move the builder must see goes the general way (and makes a new base), an
+/// update that is refused is a full solve of the moved network. The diagnostics of a point are then
+/// the base's, which depend on the brush only where the move would have been refused.
+/// </summary>
+internal sealed class BrushSweep(SyntaxTree syntax, Model.Model model)
+{
+    private Base? current;
+
+    /// <summary>How many points were solved by moving brushes on a base (for tests: the path is taken).</summary>
+    public int Moved { get; private set; }
+
+    /// <summary>Whether the overrides move only brushes, the one change this path knows.</summary>
+    public bool Covers(BindOverrides overrides) =>
+        overrides.Deviations.IsEmpty && overrides.Values.Keys.All(name => model.Taps.Any(t => t.IsBrush && t.Name == name));
+
+    public PointResult Solve(BindOverrides overrides, CaseSpec spec, CancellationToken cancel)
+    {
+        if (current is { } b && BrushMoves.Move(b.Network, overrides.Values) is { } moved)
+        {
+            var point = Points.Solve(moved, spec, withFaults: false, c => b.Solve(moved, c, cancel), cancel);
+            Moved++;
+            return point with { Diagnostics = [.. b.Diagnostics, .. point.Diagnostics] };
+        }
+        var general = Points.Solve(syntax, overrides, spec, withFaults: false, cancel);
+        current = Base.Of(general);
+        return general;
+    }
+
+    /// <summary>A network solved the general way with no message from its solves, and its factors, loaded and without loads.</summary>
+    private sealed class Base(Network network, ImmutableArray<Diagnostic> diagnostics)
+    {
+        private readonly Dictionary<bool, List<LowRankUpdate>?> updates = [];
+
+        public Network Network => network;
+
+        /// <summary>The model's and the builder's messages, which every moved point shares.</summary>
+        public ImmutableArray<Diagnostic> Diagnostics => diagnostics;
+
+        public static Base? Of(PointResult p)
+        {
+            if (p.Case is not { } c || !c.Solution.Diagnostics.IsEmpty || p.NoLoad is { } n && !n.Solution.Diagnostics.IsEmpty) return null;
+            if (c.Solution.Network.Loads.Length > 0 && p.NoLoad is null) return null;
+            return new Base(c.Solution.Network, p.Diagnostics);
+        }
+
+        public Solution Solve(Network moved, CaseSpec spec, CancellationToken cancel)
+        {
+            cancel.ThrowIfCancellationRequested();
+            if (!updates.TryGetValue(spec.WithoutLoads, out var parts)) updates[spec.WithoutLoads] = parts = Factor(spec);
+            if (parts is not null)
+            {
+                var solved = new List<(MnaSystem, Complex[])>();
+                foreach (var part in parts)
+                {
+                    var m = part.System.Restamp(moved);
+                    if (part.Solve(m, Changed(part.System, moved)) is not { } x) return NetworkSolver.Solve(moved, spec, cancel);
+                    solved.Add((m, x));
+                }
+                return NetworkSolver.Collect(moved, spec, solved, true, []);
+            }
+            return NetworkSolver.Solve(moved, spec, cancel);
+        }
+
+        /// <summary>The factors of every part with a source, or null where one cannot be updated (Newton's loads, poor conditioning).</summary>
+        private List<LowRankUpdate>? Factor(CaseSpec spec)
+        {
+            var reference = Islands.References(network, []);
+            var parts = new List<LowRankUpdate>();
+            foreach (var group in SolveGroup.Find(network, spec).Where(g => g.Supplies.Count > 0))
+            {
+                if (LowRankUpdate.Of(MnaSystem.Assemble(network, group, reference, spec)) is not { } u) return null;
+                parts.Add(u);
+            }
+            return parts;
+        }
+
+        /// <summary>The unknowns whose rows and columns a move can change: the sections whose turns differ, and their cores.</summary>
+        private int[] Changed(MnaSystem m, Network moved)
+        {
+            var changed = new SortedSet<int>();
+            foreach (var (k, column) in m.SectionColumn)
+                if (moved.Sections[k].Turns != network.Sections[k].Turns)
+                {
+                    changed.Add(column);
+                    changed.Add(m.CoreColumn[moved.Sections[k].Core]);
+                }
+            return [.. changed];
+        }
+    }
+}

@@ -1,0 +1,168 @@
+using System.Numerics;
+
+namespace WindingNotes.Solve;
+
+/// <summary>
+/// One factorisation of an independent part, reused for systems that differ from it only in the rows
+/// and columns of a few unknowns S (a moved brush changes the turns of the two sections beside it:
+/// their rows, their columns and their core's). Such a change is Δ = E_S·R + C·E_Sᵀ, of rank at most
+/// 2|S|, so by the Sherman–Morrison–Woodbury identity
+/// x = z − W·(I + V·W)⁻¹·V·z with z = A⁻¹·b, U = [E_S C], V = [R; E_Sᵀ] and W = A⁻¹·U:
+/// |S| solves with the old factors for A⁻¹·C (A⁻¹·E_S is kept) and a small dense system, instead of
+/// a new factorisation. All on the equilibrated matrix of the first system. The result is refused
+/// (null, and the caller factors afresh) where the change reaches outside S, where the small system is
+/// near singular, or where the residual of the new system is above rounding, so an accepted x is the
+/// one a full solve gives, to rounding.
+/// </summary>
+internal sealed class LowRankUpdate
+{
+    /// <summary>Pivot ratios below this (of the first factors, or of the small system) leave the point to a full solve.</summary>
+    private const double PivotRatio = 1e-6;
+
+    /// <summary>The relative residual an updated solution must reach; a full solve is accepted up to 1e-9.</summary>
+    private const double ResidualLimit = 1e-12;
+
+    private readonly MnaSystem first;
+    private readonly double[] rows, columns;
+    private readonly SparseLu lu;
+    private readonly Complex[] z;
+    private readonly Dictionary<string, Complex[][]> unitSolves = [];
+
+    private LowRankUpdate(MnaSystem first, double[] rows, double[] columns, SparseLu lu)
+    {
+        (this.first, this.rows, this.columns, this.lu) = (first, rows, columns, lu);
+        z = lu.Solve(Scaled(first.B));
+    }
+
+    public MnaSystem System => first;
+
+    /// <summary>The factors of a linear part, or null where they are not well enough conditioned to update.</summary>
+    public static LowRankUpdate? Of(MnaSystem m)
+    {
+        if (m.NonlinearLoads.Count > 0 || m.Size == 0) return null;
+        var (rows, columns) = LinearSolver.Equilibrate(m.A);
+        var lu = SparseLu.Factor(SparseRows.FromDense(m.A, rows, columns));
+        return lu.SmallestPivot > PivotRatio * lu.LargestPivot ? new LowRankUpdate(m, rows, columns, lu) : null;
+    }
+
+    private Complex[] Scaled(Complex[] b)
+    {
+        var r = new Complex[b.Length];
+        for (var i = 0; i < b.Length; i++) r[i] = b[i] * rows[i];
+        return r;
+    }
+
+    /// <summary>The solution of <paramref name="m"/> (the same layout), which may differ from the first system only in rows and columns <paramref name="s"/>.</summary>
+    public Complex[]? Solve(MnaSystem m, int[] s)
+    {
+        var n = m.Size;
+        var (a0, a) = (first.A, m.A);
+        var inS = new bool[n];
+        foreach (var i in s) inS[i] = true;
+        for (var i = 0; i < n; i++)
+        {
+            if (inS[i]) continue;
+            for (var j = 0; j < n; j++)
+                if (!inS[j] && a[i, j] != a0[i, j]) return null;
+        }
+        var k = s.Length;
+        var b = Scaled(m.B);
+        var zb = b.AsSpan().SequenceEqual(Scaled(first.B)) ? z : lu.Solve(b);
+        // W = A⁻¹·[E_S C]: the unit solves are kept for the next point that changes the same S.
+        var key = string.Join(",", s);
+        if (!unitSolves.TryGetValue(key, out var units))
+            unitSolves[key] = units = [.. s.Select(i => { var e = new Complex[n]; e[i] = 1; return lu.Solve(e); })];
+        var w = new Complex[2 * k][];
+        for (var t = 0; t < k; t++)
+        {
+            w[t] = units[t];
+            var c = new Complex[n];
+            for (var i = 0; i < n; i++)
+                if (!inS[i]) c[i] = Delta(i, s[t]);
+            w[k + t] = lu.Solve(c);
+        }
+        // K = I + V·W and V·z, with V's first k rows R = Δ[S, :] and the others E_Sᵀ.
+        var size = 2 * k;
+        var kk = new Complex[size, size];
+        var rhs = new Complex[size];
+        for (var t = 0; t < k; t++)
+        {
+            for (var j = 0; j < n; j++)
+            {
+                var d = Delta(s[t], j);
+                if (d == Complex.Zero) continue;
+                for (var u = 0; u < size; u++) kk[t, u] += d * w[u][j];
+                rhs[t] += d * zb[j];
+            }
+            for (var u = 0; u < size; u++) kk[k + t, u] = w[u][s[t]];
+            rhs[k + t] = zb[s[t]];
+        }
+        for (var t = 0; t < size; t++) kk[t, t] += 1;
+        if (SolveSmall(kk, rhs) is not { } y) return null;
+        var x = (Complex[])zb.Clone();
+        for (var u = 0; u < size; u++)
+            for (var i = 0; i < n; i++) x[i] -= w[u][i] * y[u];
+        if (Residual(a, x, b) > ResidualLimit) return null;
+        for (var j = 0; j < n; j++) x[j] *= columns[j];
+        return x;
+
+        Complex Delta(int i, int j) => (a[i, j] - a0[i, j]) * rows[i] * columns[j];
+    }
+
+    /// <summary>The relative residual of the scaled system at the scaled solution.</summary>
+    private double Residual(Complex[,] a, Complex[] x, Complex[] b)
+    {
+        var n = b.Length;
+        var ax = new Complex[n];
+        double norm = 0;
+        for (var i = 0; i < n; i++)
+        {
+            double sum = 0;
+            for (var j = 0; j < n; j++)
+            {
+                if (a[i, j] == Complex.Zero) continue;
+                var e = a[i, j] * rows[i] * columns[j];
+                ax[i] += e * x[j];
+                sum += e.Magnitude;
+            }
+            norm = Math.Max(norm, sum);
+        }
+        return LinearSolver.RelativeResidual(ax, x, b, norm);
+    }
+
+    /// <summary>Gaussian elimination with partial pivoting on the small system; null where a pivot is too small.</summary>
+    private static Complex[]? SolveSmall(Complex[,] m, Complex[] b)
+    {
+        var n = b.Length;
+        double largest = 0;
+        for (var i = 0; i < n; i++)
+            for (var j = 0; j < n; j++) largest = Math.Max(largest, m[i, j].Magnitude);
+        for (var c = 0; c < n; c++)
+        {
+            var p = c;
+            for (var i = c + 1; i < n; i++)
+                if (m[i, c].Magnitude > m[p, c].Magnitude) p = i;
+            if (!(m[p, c].Magnitude > PivotRatio * largest)) return null;
+            if (p != c)
+            {
+                for (var j = 0; j < n; j++) (m[c, j], m[p, j]) = (m[p, j], m[c, j]);
+                (b[c], b[p]) = (b[p], b[c]);
+            }
+            for (var i = c + 1; i < n; i++)
+            {
+                var l = m[i, c] / m[c, c];
+                if (l == Complex.Zero) continue;
+                for (var j = c; j < n; j++) m[i, j] -= l * m[c, j];
+                b[i] -= l * b[c];
+            }
+        }
+        var x = new Complex[n];
+        for (var i = n - 1; i >= 0; i--)
+        {
+            var sum = b[i];
+            for (var j = i + 1; j < n; j++) sum -= m[i, j] * x[j];
+            x[i] = sum / m[i, i];
+        }
+        return x;
+    }
+}
