@@ -72,13 +72,9 @@ public static class NetworkDiagram
             var width = Math.Max(Math.Max(x + Margin - 16, 420), Svg.TextWidth(title, TitleSize) + 2 * Margin);
             DrawRails(width);
             svg.Text(title, Margin, Margin + 4, "title", TitleSize);
-            var y = bottom + 26;
-            foreach (var line in Svg.Wrap(Legend(), width - 2 * Margin, ValueSize).Concat(Svg.Wrap(Cautions.Judgement, width - 2 * Margin, ValueSize)))
-            {
-                svg.Text(line, Margin, y, "note", ValueSize);
-                y += 13;
-            }
-            var height = y + Margin - 21;
+            // The cautions that apply to this network travel with its drawing.
+            var cautions = evaluation.Diagnostics.Where(d => d.Code.StartsWith("caution")).Select(d => "Caution: " + d.Message).Distinct();
+            var height = svg.Notes(Margin, bottom + 26, width - 2 * Margin, [Legend(), .. cautions]) + Margin - 8;
             return new Drawing(svg.Document(width, height, Symbols.Css), svg.TextBoxes, width, height) { Terminals = terminals };
         }
 

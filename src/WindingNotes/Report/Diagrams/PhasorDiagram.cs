@@ -64,10 +64,7 @@ public static class PhasorDiagram
         svg.Text(title, 24, 28, "title", 13);
         svg.Text("Solid: node voltages from the reference. Thin: winding section voltages, from the far end to the polarity end.", 24, 46, "note", ValueSize);
         svg.Text("Dashed: currents of supplies, loads and faults, on their own scale. Angles in the frame of the supplies' angles.", 24, 59, "note", ValueSize);
-        var y = Math.Max(top + 2 * radius + 56, ty + 24);
-        foreach (var line in Svg.Wrap(Cautions.Judgement, width - 48, ValueSize))
-            svg.Text(line, 24, y += 13, "note", ValueSize);
-        var height = y + 20;
+        var height = svg.Notes(24, Math.Max(top + 2 * radius + 56, ty + 24) + 13, width - 48) + 20;
         return new Drawing(svg.Document(width, height, Css), svg.TextBoxes, width, height);
     }
 

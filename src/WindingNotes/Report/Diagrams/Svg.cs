@@ -103,6 +103,20 @@ public sealed class Svg
         return o.ToString();
     }
 
+    /// <summary>
+    /// Notes at the foot of a drawing, wrapped to its width, the closing note on results and
+    /// judgement last; the baseline after the last line.
+    /// </summary>
+    public double Notes(double x, double y, double width, params string[] notes)
+    {
+        foreach (var line in notes.Append(Cautions.Judgement).SelectMany(n => Wrap(n, width, 9)))
+        {
+            Text(line, x, y, "note", 9);
+            y += 13;
+        }
+        return y - 13;
+    }
+
     /// <summary>Splits a sentence into lines of at most about <paramref name="width"/> units at the given size.</summary>
     public static IEnumerable<string> Wrap(string text, double width, double size)
     {

@@ -150,10 +150,7 @@ public static class SweepPlot
         svg.Text(title, 24, 28, "title", 13);
         var points = series.Count == 0 ? 0 : series.Max(s => s.Points.Count);
         svg.Text($"{points} point{(points == 1 ? "" : "s")} of the sweep; a gap where a point does not have the result.", 24, 46, "note", ValueSize);
-        var y = Math.Max(bottom + 40, legendY + 10);
-        foreach (var line in Svg.Wrap(Cautions.Judgement, width - 48, ValueSize))
-            svg.Text(line, 24, y += 13, "note", ValueSize);
-        var height = y + 20;
+        var height = svg.Notes(24, Math.Max(bottom + 40, legendY + 10) + 13, width - 48) + 20;
         return new Drawing(svg.Document(width, height, Css), svg.TextBoxes, width, height);
     }
 
