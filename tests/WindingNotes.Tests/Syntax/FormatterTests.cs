@@ -29,6 +29,8 @@ public class FormatterTests
             var comments = Parser.Parse(text).Lines.Select(l => l.Comment?.Text.TrimEnd()).OfType<string>();
             var kept = Parser.Parse(once).Lines.Select(l => l.Comment?.Text).OfType<string>();
             Assert.Equal(comments, kept);
+            // The examples are what users copy: they are kept in the canonical layout.
+            Assert.True(once == text, $"{Path.GetFileName(file)} is not in canonical layout: run windingnotes fmt on it");
         }
     }
 }
