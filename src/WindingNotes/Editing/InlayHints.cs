@@ -84,13 +84,10 @@ public static class InlayHints
         return $"{ResultText.Magnitude(normal.PointVoltage(name), "V")}; {string.Join("; ", sections.Select(ResultText.NamedSection))}";
     }
 
-    /// <summary>
-    /// Over the sweep's points (the cases named "sweep NAME=…", as the JSON names them): each load's
-    /// voltage, or each supply's current where there is no load.
-    /// </summary>
+    /// <summary>Over the sweep's points: each load's voltage, or each supply's current where there is no load.</summary>
     private static string? SweepRange(Evaluation evaluation, string name)
     {
-        var points = evaluation.Cases.Where(c => c.Case.Name.StartsWith("sweep ", StringComparison.Ordinal) && c.Case.Name.Contains($"{name}=")).ToList();
+        var points = evaluation.Cases.Where(c => c.Case.Sweep.Any(v => v.Name == name)).ToList();
         if (points.Count == 0) return null;
         var first = points[0];
         var ranges = first.Loads.Length > 0

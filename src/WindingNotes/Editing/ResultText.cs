@@ -42,11 +42,16 @@ internal static class ResultText
         return Numbers.Fixed(pf) + sense;
     }
 
-    /// <summary>"pass: 228.1 V", "FAIL: 240.3 V", "FAIL: cannot be measured".</summary>
-    public static string Check(CheckResult c) =>
-        (c.Passed ? "pass" : "FAIL") + ": " + (c.Value is { } v ? DiagnosticBag.Show(v, c.Expect.Unit) : "cannot be measured");
+    /// <summary>"pass: 228.1 V", "FAIL: 240.3 V", "pass: 0.000 V to 140.2 V over 11 points", "FAIL: cannot be measured".</summary>
+    public static string Check(CheckResult c)
+    {
+        var verdict = c.Passed ? "pass" : "FAIL";
+        if (c.Points > 1 && c.Min is { } min && c.Max is { } max)
+            return $"{verdict}: {Range(min, max, c.Expect.Unit)} over {c.Points} points";
+        return $"{verdict}: " + (c.Value is { } v ? DiagnosticBag.Show(v, c.Expect.Unit) : "cannot be measured");
+    }
 
-    /// <summary>"198.0 V to 240.2 V": a range in one unit, ends in increasing order.</summary>
+    /// <summary>"198.0 V to 240.2 V": a range in one unit (fractions as percent), ends in increasing order.</summary>
     public static string Range(double low, double high, string unit) =>
-        low == high ? Numbers.Format(low, unit) : $"{Numbers.Format(low, unit)} to {Numbers.Format(high, unit)}";
+        low == high ? DiagnosticBag.Show(low, unit) : $"{DiagnosticBag.Show(low, unit)} to {DiagnosticBag.Show(high, unit)}";
 }

@@ -25,6 +25,13 @@ public class InlayHintTests
         Snapshot.Match(rendered, "Data/editing/hints/alder-creek-boost.txt");
     }
 
+    [Theory]
+    [InlineData("cedar-hollow-bench-sweep.wn")]
+    [InlineData("pine-ridge-fault-study.wn")]
+    [InlineData("willow-bend-tolerance-band.wn")]
+    public void The_examples_show_their_results_at_line_ends(string example) =>
+        Snapshot.Match(Render(Cursor.Example(example)), $"Data/editing/hints/{Path.GetFileNameWithoutExtension(example)}.txt");
+
     [Fact]
     public void Every_kind_of_line_has_its_hint() => Snapshot.Match(Render(Fixtures.Tapped), "Data/editing/hints/tapped.txt");
 
