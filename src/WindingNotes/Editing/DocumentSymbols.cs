@@ -29,7 +29,7 @@ public static class DocumentSymbols
         string? On(StatementSyntax s) => s.Clause("on")?.Name(0)?.Text;
 
         var taps = statements.Where(s => s.Kind is StatementKind.Tap or StatementKind.Brush).ToLookup(On);
-        var windings = statements.Where(s => s.Kind == StatementKind.Winding).ToList();
+        var windings = statements.Where(s => s.Kind == StatementKind.Winding).ToLookup(On);
         OutlineSymbol Winding(StatementSyntax w) =>
             Entry(w, OutlineKind.Winding, taps[w.Head.Name(0)!.Text].Select(t => Entry(t, t.Kind == StatementKind.Tap ? OutlineKind.Tap : OutlineKind.Brush)).ToList());
 
@@ -39,7 +39,7 @@ public static class DocumentSymbols
         {
             var entry = s.Kind switch
             {
-                StatementKind.Core => Entry(s, OutlineKind.Core, windings.Where(w => On(w) == s.Head.Name(0)!.Text).Select(Winding).ToList()),
+                StatementKind.Core => Entry(s, OutlineKind.Core, windings[s.Head.Name(0)!.Text].Select(Winding).ToList()),
                 StatementKind.Winding when !cores.Contains(On(s) ?? "") => Winding(s),
                 StatementKind.Supply => Entry(s, OutlineKind.Supply),
                 StatementKind.Load => Entry(s, OutlineKind.Load),

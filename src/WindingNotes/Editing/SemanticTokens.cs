@@ -26,9 +26,10 @@ public static class SemanticTokens
         var result = new List<SemanticToken>();
         foreach (var line in evaluation.Syntax.Lines)
         {
+            var first = line.Tokens.FirstOrDefault(t => !t.IsTrivia);
             foreach (var token in line.Tokens)
             {
-                TokenClass? c = classes.TryGetValue(token.Span.Start, out var known) ? known.Class : Lexical(token, line);
+                TokenClass? c = classes.TryGetValue(token.Span.Start, out var known) ? known.Class : Lexical(token, ReferenceEquals(token, first));
                 if (c is null || token.Span.Length == 0) continue;
                 var p = evaluation.Text.GetPosition(token.Span.Start);
                 result.Add(new SemanticToken(p.Line, p.Character, token.Span.Length, c.Value, known.Defines));
@@ -37,12 +38,12 @@ public static class SemanticTokens
         return result;
     }
 
-    private static TokenClass? Lexical(Token token, LineSyntax line) => token.Kind switch
+    private static TokenClass? Lexical(Token token, bool startsLine) => token.Kind switch
     {
         TokenKind.Comment => TokenClass.Comment,
         TokenKind.Number or TokenKind.Imaginary => TokenClass.Number,
         TokenKind.Symbol or TokenKind.PlusMinus => TokenClass.Operator,
-        TokenKind.Word when line.Significant.FirstOrDefault() == token && Grammar.ByKeyword.ContainsKey(token.Text) => TokenClass.Statement,
+        TokenKind.Word when startsLine && Grammar.ByKeyword.ContainsKey(token.Text) => TokenClass.Statement,
         TokenKind.Word when Grammar.Keywords.Contains(token.Text) => TokenClass.Clause,
         _ => null,
     };
