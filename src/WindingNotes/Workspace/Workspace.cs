@@ -17,25 +17,33 @@ public sealed class DocumentWorkspace
     /// diagnostics and a request for hints evaluate once between them). Its token is cancelled
     /// when the version is overtaken or closed, so the evaluation of a stale version stops early.
     /// </summary>
-    private sealed class Entry
+    private sealed class Entry(Document document)
     {
         private readonly CancellationTokenSource stale = new();
+        private readonly TaskCompletionSource<Evaluation> done = new(TaskCreationOptions.RunContinuationsAsynchronously);
+        private int started;
 
-        public Entry(Document document)
-        {
-            Document = document;
-            evaluation = new Lazy<Task<Evaluation>>(() => Task.Run(() => Evaluator.Evaluate(document.Text, document.Path, stale.Token)), LazyThreadSafetyMode.ExecutionAndPublication);
-        }
+        public Document Document { get; } = document;
 
-        private readonly Lazy<Task<Evaluation>> evaluation;
-
-        public Document Document { get; }
-
-        /// <summary>Started by the first caller; a caller that gives up waiting leaves it running for the others.</summary>
+        /// <summary>
+        /// The first caller evaluates on its own thread; the others wait for it, each as long as its
+        /// own token lets it, and a caller that gives up leaves the evaluation running for the rest.
+        /// </summary>
         public Evaluation Evaluate(CancellationToken cancel)
         {
-            var task = evaluation.Value;
-            if (!task.IsCompleted) task.Wait(cancel);
+            if (Interlocked.Exchange(ref started, 1) == 0)
+            {
+                try
+                {
+                    done.SetResult(Evaluator.Evaluate(Document.Text, Document.Path, stale.Token));
+                }
+                catch (Exception e)
+                {
+                    done.SetException(e);
+                }
+            }
+            var task = done.Task;
+            if (!task.IsCompleted) task.WaitAsync(cancel).GetAwaiter().GetResult();
             return task.GetAwaiter().GetResult();
         }
 

@@ -55,6 +55,9 @@ public class ProtocolTests
         var parseError = await pipe.Next(null, m => (int?)m["error"]?["code"] == -32700);
         Assert.True(parseError.ContainsKey("id"));
         Assert.Null(parseError["id"]);
+        // A large malformed body is read whole too, so the next message still starts cleanly.
+        await pipe.SendRaw("{\"jsonrpc\":\"2.0\",\"id\":98,\"method\":\"x\",\"params\":{\"text\":\"" + new string('a', 2_000_000) + "\"");
+        await pipe.Next(null, m => (int?)m["error"]?["code"] == -32700);
         Assert.Equal(-32602, Code(await pipe.Call("textDocument/hover", """{"textDocument":{"uri":"x"},"position":"nowhere"}""")));
         Assert.Equal(-32803, Code(await pipe.Call("textDocument/hover", LspPipe.At("file:///not-open.wn", 0, 0))));
         Assert.Equal(-32600, Code(await pipe.Call("initialize", """{"processId":null,"capabilities":{}}""")));
