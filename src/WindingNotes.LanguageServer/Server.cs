@@ -57,6 +57,10 @@ public sealed partial class Server
     /// <summary>Serves one client until 'exit' or until its end closes; the exit code is 0 after 'shutdown', else 1.</summary>
     public static async Task<int> RunAsync(Stream input, Stream output, ServerOptions? options = null)
     {
+        // A request that needs an evaluation in progress waits for it on its pool thread; spare
+        // threads keep the pipe and the publisher moving meanwhile, on two cores as on twenty.
+        ThreadPool.GetMinThreads(out var workers, out var completions);
+        ThreadPool.SetMinThreads(Math.Max(workers, 8), completions);
         var server = new Server(options ?? new ServerOptions());
         var handler = new LspMessageHandler(output, input, LspMessageHandler.CreateFormatter(),
             e => server.trace.TraceEvent(TraceEventType.Warning, 0, $"skipped a message that is not JSON-RPC: {e.Message}"));

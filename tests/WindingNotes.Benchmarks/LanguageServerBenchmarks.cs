@@ -16,7 +16,7 @@ namespace WindingNotes.Benchmarks;
 /// </summary>
 [MemoryDiagnoser]
 [MedianColumn]
-[SimpleJob(warmupCount: 3, iterationCount: 15)]
+[SimpleJob(warmupCount: 10, iterationCount: 20)]
 public class LanguageServerBenchmarks
 {
     [Params(50, 1000)]
