@@ -2,11 +2,6 @@
 -- Run: nvim --headless -u NONE -n -i NONE -c 'luafile tests/clients/neovim/check.lua'
 -- with WINDINGNOTES_REPO (the repository) and WINDINGNOTES_SERVER (windingnotes.dll) set.
 -- Prints one line per check and "N passed, N failed"; exits 0 when all passed.
-local repo = assert(os.getenv('WINDINGNOTES_REPO'), 'WINDINGNOTES_REPO is not set')
-local server = assert(os.getenv('WINDINGNOTES_SERVER'), 'WINDINGNOTES_SERVER is not set')
-package.path = repo .. '/editors/neovim/?.lua;' .. package.path
-local windingnotes = require('windingnotes')
-
 local passed, failed = 0, 0
 local function out(line) io.stdout:write(line .. '\n') end
 local function check(name, ok, detail)
@@ -19,58 +14,71 @@ local function finish()
   vim.cmd(failed == 0 and 'qall!' or 'cquit!')
 end
 
-local publishes, exit_code = 0, nil
-vim.cmd('edit ' .. vim.fn.fnameescape(repo .. '/examples/alder-creek-boost.wn'))
-local buf = vim.api.nvim_get_current_buf()
-local id = windingnotes.attach(buf, {
-  cmd = { 'dotnet', server, 'lsp' },
-  client = {
-    flags = { debounce_text_changes = 0 },
-    handlers = {
-      ['textDocument/publishDiagnostics'] = function(err, result, ctx, config)
-        publishes = publishes + 1
-        vim.lsp.diagnostic.on_publish_diagnostics(err, result, ctx, config)
-      end,
+-- Any error in the checks themselves is a failure too, and Neovim still quits.
+local function main()
+  local repo = assert(os.getenv('WINDINGNOTES_REPO'), 'WINDINGNOTES_REPO is not set')
+  local server = assert(os.getenv('WINDINGNOTES_SERVER'), 'WINDINGNOTES_SERVER is not set')
+  package.path = repo .. '/editors/neovim/?.lua;' .. package.path
+  local windingnotes = require('windingnotes')
+  -- No swap file (-n), no shada (-i NONE); the client logs only its own errors.
+  vim.lsp.set_log_level('ERROR')
+
+  local publishes, exit_code = 0, nil
+  vim.cmd('edit ' .. vim.fn.fnameescape(repo .. '/examples/alder-creek-boost.wn'))
+  local buf = vim.api.nvim_get_current_buf()
+  local id = windingnotes.attach(buf, {
+    cmd = { 'dotnet', server, 'lsp' },
+    client = {
+      flags = { debounce_text_changes = 0 },
+      handlers = {
+        ['textDocument/publishDiagnostics'] = function(err, result, ctx, config)
+          publishes = publishes + 1
+          vim.lsp.diagnostic.on_publish_diagnostics(err, result, ctx, config)
+        end,
+      },
+      on_exit = function(code) exit_code = code end,
     },
-    on_exit = function(code) exit_code = code end,
-  },
-})
-if not check('the client started', id ~= nil) then return finish() end
+  })
+  if not check('the client started', id ~= nil) then return end
 
-local function errors() return vim.diagnostic.get(buf, { severity = vim.diagnostic.severity.ERROR }) end
+  local function errors() return vim.diagnostic.get(buf, { severity = vim.diagnostic.severity.ERROR }) end
 
-check('diagnostics arrive for the opened file', vim.wait(30000, function() return publishes > 0 end, 20))
-check('the example has no error', #errors() == 0, vim.inspect(errors()))
+  check('diagnostics arrive for the opened file', vim.wait(30000, function() return publishes > 0 end, 20))
+  check('the example has no error', #errors() == 0, vim.inspect(errors()))
 
-local line5 = vim.api.nvim_buf_get_lines(buf, 4, 5, false)[1]
-vim.api.nvim_buf_set_lines(buf, 4, 5, false, { (line5:gsub('on K1', 'on K9')) })
-local function unknown()
-  for _, d in ipairs(errors()) do
-    if d.code == 'unknown-name' then return d end
+  local line5 = vim.api.nvim_buf_get_lines(buf, 4, 5, false)[1]
+  vim.api.nvim_buf_set_lines(buf, 4, 5, false, { (line5:gsub('on K1', 'on K9')) })
+  local function unknown()
+    for _, d in ipairs(errors()) do
+      if d.code == 'unknown-name' then return d end
+    end
   end
+  local underlined = vim.wait(20000, function() return unknown() ~= nil end, 20)
+  local e = unknown() or {}
+  check('mistyping the core puts an error under K9', underlined and e.lnum == 4 and e.col == 14 and e.end_col == 16
+    and (e.message or ''):find("unknown core 'K9'", 1, true) ~= nil, vim.inspect(e))
+
+  vim.api.nvim_buf_set_lines(buf, 4, 5, false, { line5 })
+  check('fixing it clears the error', vim.wait(20000, function() return #errors() == 0 end, 20), vim.inspect(errors()))
+
+  local uri = vim.uri_from_bufnr(buf)
+  local hover = vim.lsp.buf_request_sync(buf, 'textDocument/hover', { textDocument = { uri = uri }, position = { line = 5, character = 9 } }, 20000)
+  local value = hover and hover[id] and hover[id].result and hover[id].result.contents.value or ''
+  check('hover over LV shows 17.11 A', value:find('17.11 A', 1, true) ~= nil, value)
+
+  local hints = vim.lsp.buf_request_sync(buf, 'textDocument/inlayHint', {
+    textDocument = { uri = uri }, range = { start = { line = 0, character = 0 }, ['end'] = { line = 15, character = 0 } },
+  }, 20000)
+  local load = ''
+  for _, h in ipairs(hints and hints[id] and hints[id].result or {}) do
+    if h.position.line == 11 then load = h.label end
+  end
+  check('the load line shows 228.1 V', load:find('^228.1 V') ~= nil, load)
+
+  vim.lsp.stop_client(id)
+  check('the server shuts down with code 0', vim.wait(20000, function() return exit_code ~= nil end, 20) and exit_code == 0, tostring(exit_code))
 end
-local underlined = vim.wait(20000, function() return unknown() ~= nil end, 20)
-local e = unknown() or {}
-check('mistyping the core puts an error under K9', underlined and e.lnum == 4 and e.col == 14 and e.end_col == 16
-  and (e.message or ''):find("unknown core 'K9'", 1, true) ~= nil, vim.inspect(e))
 
-vim.api.nvim_buf_set_lines(buf, 4, 5, false, { line5 })
-check('fixing it clears the error', vim.wait(20000, function() return #errors() == 0 end, 20), vim.inspect(errors()))
-
-local uri = vim.uri_from_bufnr(buf)
-local hover = vim.lsp.buf_request_sync(buf, 'textDocument/hover', { textDocument = { uri = uri }, position = { line = 5, character = 9 } }, 20000)
-local value = hover and hover[id] and hover[id].result and hover[id].result.contents.value or ''
-check('hover over LV shows 17.11 A', value:find('17.11 A', 1, true) ~= nil, value)
-
-local hints = vim.lsp.buf_request_sync(buf, 'textDocument/inlayHint', {
-  textDocument = { uri = uri }, range = { start = { line = 0, character = 0 }, ['end'] = { line = 15, character = 0 } },
-}, 20000)
-local load = ''
-for _, h in ipairs(hints and hints[id] and hints[id].result or {}) do
-  if h.position.line == 11 then load = h.label end
-end
-check('the load line shows 228.1 V', load:find('^228.1 V') ~= nil, load)
-
-vim.lsp.stop_client(id)
-check('the server shuts down with code 0', vim.wait(20000, function() return exit_code ~= nil end, 20) and exit_code == 0, tostring(exit_code))
+local ok, err = xpcall(main, debug.traceback)
+check('the checks ran to the end', ok, err)
 finish()
