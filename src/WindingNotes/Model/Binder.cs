@@ -7,8 +7,9 @@ namespace WindingNotes.Model;
 /// <summary>Resolves names, evaluates values with their dimensions, and builds the <see cref="Model"/>.</summary>
 public static class Binder
 {
-    public static Model Bind(SyntaxTree tree, BindOverrides? overrides = null) =>
-        new BindRun(tree, overrides ?? BindOverrides.None).Run();
+    /// <param name="cancel">Checked at every statement: a file of many thousand lines binds for a while.</param>
+    public static Model Bind(SyntaxTree tree, BindOverrides? overrides = null, CancellationToken cancel = default) =>
+        new BindRun(tree, overrides ?? BindOverrides.None, cancel).Run();
 }
 
 /// <summary>
@@ -19,6 +20,7 @@ internal sealed partial class BindRun
 {
     private readonly SyntaxTree tree;
     private readonly BindOverrides overrides;
+    private readonly CancellationToken cancel;
     private readonly DiagnosticBag diagnostics = new();
     private readonly SymbolTable symbols = new();
     private readonly Dictionary<string, Quantity> lets = new(StringComparer.Ordinal);
@@ -26,10 +28,11 @@ internal sealed partial class BindRun
     private readonly ValueEvaluator evaluator;
     private Model model;
 
-    public BindRun(SyntaxTree tree, BindOverrides overrides)
+    public BindRun(SyntaxTree tree, BindOverrides overrides, CancellationToken cancel)
     {
         this.tree = tree;
         this.overrides = overrides;
+        this.cancel = cancel;
         evaluator = new ValueEvaluator(diagnostics, ResolveValueName, IsLet, overrides.Deviations);
         model = new Model(tree, symbols, []);
     }
@@ -38,8 +41,16 @@ internal sealed partial class BindRun
     {
         var statements = tree.Statements.ToList();
         foreach (var statement in statements) Declare(statement);
-        foreach (var statement in statements.Where(s => s.Kind == StatementKind.Let && !rejected.Contains(s))) BindLet(statement);
-        foreach (var statement in statements.Where(s => s.Kind != StatementKind.Let && !rejected.Contains(s))) Bind(statement);
+        foreach (var statement in statements.Where(s => s.Kind == StatementKind.Let && !rejected.Contains(s)))
+        {
+            cancel.ThrowIfCancellationRequested();
+            BindLet(statement);
+        }
+        foreach (var statement in statements.Where(s => s.Kind != StatementKind.Let && !rejected.Contains(s)))
+        {
+            cancel.ThrowIfCancellationRequested();
+            Bind(statement);
+        }
         if (!statements.Any(s => s.Kind == StatementKind.Frequency) && statements.Count > 0)
             diagnostics.ReportNoFrequency(tree.Lines[0].Span);
         CheckLonelyNodes();

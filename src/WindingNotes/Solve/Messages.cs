@@ -87,6 +87,15 @@ public sealed partial class DiagnosticBag
     public Diagnostic ReportSweepBudget(TextSpan span, double points, long budget) =>
         Error("sweep-budget", span, $"the sweeps make {Thousands(points)} points, more than the budget of {Thousands(budget)}: use a larger step or fewer points");
 
+    public Diagnostic ReportTimeLimit(TextSpan span, TimeSpan limit, long done, long total) =>
+        Error("time-limit", span,
+            $"the evaluation reached its time limit of {Seconds(limit)} after {Thousands(done)} of {Thousands(total)} further solves: results, bands and checks cover only what was solved by then");
+
+    public Diagnostic ReportTimeLimitWhile(TimeSpan limit, string stage) =>
+        Error("time-limit", default, $"the evaluation reached its time limit of {Seconds(limit)} while {stage}: there are no results");
+
+    private static string Seconds(TimeSpan t) => $"{Numbers.Plain(t.TotalSeconds)} s";
+
     public Diagnostic ReportSweepDuplicate(TextSpan span, string name, TextSpan first) =>
         Amend(Error("sweep-duplicate", span, $"'{name}' is swept twice"), d => d with { Related = [new RelatedSpan("first swept here", first)] });
 

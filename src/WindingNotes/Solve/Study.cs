@@ -15,12 +15,16 @@ public sealed record StudyResult(ImmutableArray<CaseResult> Cases, ImmutableArra
 /// Everything solved for one document: the normal case and its faults, each sweep point, and for
 /// each of those the tolerance samples that give its bands; then the checks, the ratings and the
 /// cautions over all of them. Points are solved one at a time and only their results are kept.
+/// When the time budget runs out after the normal case, the study stops with a diagnostic and keeps
+/// what is whole: the cases solved so far (with bands only where all their samples were solved), and
+/// the checks and ratings over them.
 /// </summary>
 public static class Study
 {
     public static StudyResult Run(SyntaxTree syntax, Model.Model model, Network network, DiagnosticBag diagnostics,
-        CancellationToken cancel = default, Action<StudyProgress>? progress = null)
+        TimeBudget budget, Action<StudyProgress>? progress = null)
     {
+        var cancel = budget.Token;
         var nominal = Points.Solve(network, CaseSpec.Normal, withFaults: true, cancel);
         diagnostics.AddRange(nominal.Diagnostics);
         if (nominal.Case is not { } normal) return new StudyResult([], []);
@@ -41,41 +45,72 @@ public static class Study
         checks.BeginPoint(normal.Case.Where);
         checks.Observe(normal, null);
         ratings.Observe(nominal);
-        var normalBands = samples.IsEmpty ? null : new BandSet(normal);
-        var faultBands = samples.IsEmpty ? [] : nominal.Faults.Select(f => new BandSet(f)).ToList();
-        foreach (var sample in samples)
+        var stopped = false;
+        try
         {
-            var p = run.Solve(new BindOverrides { Deviations = sample.Deviations }, CaseSpec.Normal, withFaults: true, sample.Where);
-            if (p.Case is null)
-            {
-                checks.Unsolved(sample.Where);
-                continue;
-            }
-            checks.Observe(p.Case, sample.Where);
-            normalBands!.Add(p.Case);
-            foreach (var (fault, bands) in nominal.Faults.Zip(faultBands))
-                if (p.Faults.FirstOrDefault(f => f.Case.Name == fault.Case.Name) is { } sampled) bands.Add(sampled);
+            var (normalBands, faultBands) = SampleNominal();
+            cases.Add(normal with { Bands = normalBands });
+            cases.AddRange(nominal.Faults.Select((f, i) => f with { Bands = faultBands.IsEmpty ? [] : faultBands[i] }));
+            for (long k = 0; k < points; k++) SweepPoint(k);
         }
-        cases.Add(normalBands is null ? normal : normal with { Bands = normalBands.ToBands() });
-        cases.AddRange(nominal.Faults.Select((f, i) => samples.IsEmpty ? f : f with { Bands = faultBands[i].ToBands() }));
+        catch (OperationCanceledException) when (budget.Exceeded)
+        {
+            stopped = true;
+            if (cases.Count == 0)
+            {
+                cases.Add(normal);
+                cases.AddRange(nominal.Faults);
+            }
+        }
 
-        for (long k = 0; k < points; k++)
+        var all = cases.ToImmutable();
+        var checkResults = checks.Finish(diagnostics);
+        ratings.Report(diagnostics);
+        SafetyCautions.Report(network, all, diagnostics);
+        run.ReportNew();
+        if (stopped)
+            diagnostics.ReportTimeLimit(model.Sweeps.FirstOrDefault()?.Line ?? model.Tolerances.FirstOrDefault()?.Span ?? default, budget.Limit, run.Done, run.Total);
+        return new StudyResult(all, checkResults);
+
+        // The bands of the normal case and of each fault over the tolerance samples.
+        (ImmutableArray<Band> Normal, ImmutableArray<ImmutableArray<Band>> Faults) SampleNominal()
+        {
+            if (samples.IsEmpty) return ([], []);
+            var normalBands = new BandSet(normal);
+            var faultBands = nominal.Faults.Select(f => new BandSet(f)).ToList();
+            foreach (var sample in samples)
+            {
+                var p = run.Solve(new BindOverrides { Deviations = sample.Deviations }, CaseSpec.Normal, withFaults: true, sample.Where);
+                if (p.Case is null)
+                {
+                    checks.Unsolved(sample.Where);
+                    continue;
+                }
+                checks.Observe(p.Case, sample.Where);
+                normalBands.Add(p.Case);
+                foreach (var (fault, bands) in nominal.Faults.Zip(faultBands))
+                    if (p.Faults.FirstOrDefault(f => f.Case.Name == fault.Case.Name) is { } sampled) bands.Add(sampled);
+            }
+            return (normalBands.ToBands(), [.. faultBands.Select(b => b.ToBands())]);
+        }
+
+        void SweepPoint(long k)
         {
             var (overrides, labels) = Sweeps.Point(axes, k);
             var spec = CaseSpec.ForSweep(labels);
-            checks.BeginPoint(spec.Where);
             var p = run.Solve(overrides, spec, withFaults: false, "");
+            checks.BeginPoint(spec.Where);
             if (p.Case is not { } at)
             {
                 checks.Unsolved(null);
-                continue;
+                return;
             }
             checks.Observe(at, null);
             ratings.Observe(p);
             if (!bandsAtPoints)
             {
                 cases.Add(at);
-                continue;
+                return;
             }
             var bands = new BandSet(at);
             foreach (var sample in samples)
@@ -90,13 +125,6 @@ public static class Study
             }
             cases.Add(at with { Bands = bands.ToBands() });
         }
-
-        var all = cases.ToImmutable();
-        var checkResults = checks.Finish(diagnostics);
-        ratings.Report(diagnostics);
-        SafetyCautions.Report(network, all, diagnostics);
-        run.ReportNew();
-        return new StudyResult(all, checkResults);
     }
 
     /// <summary>
@@ -109,6 +137,10 @@ public static class Study
         private readonly Dictionary<(string, TextSpan), (Diagnostic First, string Where, int More)> fresh = [];
         private readonly List<(string, TextSpan)> order = [];
         private long done;
+
+        public long Done => done;
+
+        public long Total => total;
 
         public PointResult Solve(BindOverrides overrides, CaseSpec spec, bool withFaults, string sample)
         {

@@ -36,23 +36,50 @@ public sealed record Evaluation(
 public static class Evaluator
 {
     /// <summary>
+    /// How long an evaluation may run unless the caller says otherwise: far beyond any ordinary file,
+    /// so only a runaway study (a huge sweep, a huge file) meets it and stops with a diagnostic.
+    /// </summary>
+    public static readonly TimeSpan DefaultTimeLimit = TimeSpan.FromSeconds(60);
+
+    /// <summary>
     /// Never throws but for cancellation: a fault of the tool itself becomes an error diagnostic, so
-    /// the editor and the command line stay up and say what happened.
+    /// the editor and the command line stay up and say what happened. Past <paramref name="timeLimit"/>
+    /// the evaluation stops with a <c>time-limit</c> error and keeps what was complete.
     /// </summary>
     /// <param name="progress">Told how far a long run (sweeps, tolerance samples) has come; the front end decides how to show it.</param>
-    public static Evaluation Evaluate(string text, string path = "", CancellationToken cancel = default, Action<StudyProgress>? progress = null)
+    /// <param name="timeLimit">Wall-clock budget; <see cref="DefaultTimeLimit"/> when null, none with <see cref="Timeout.InfiniteTimeSpan"/>.</param>
+    public static Evaluation Evaluate(string text, string path = "", CancellationToken cancel = default, Action<StudyProgress>? progress = null, TimeSpan? timeLimit = null)
     {
+        using var budget = new TimeBudget(timeLimit ?? DefaultTimeLimit, cancel);
+        Stages? stages = null;
         try
         {
-            return Run(text, path, cancel, progress);
+            // Parsing always runs to the end: it is linear, and every editor feature needs its tree.
+            stages = new Stages(Parser.Parse(text));
+            return Run(stages, path, budget, progress);
+        }
+        catch (OperationCanceledException) when (budget.Exceeded && stages is not null)
+        {
+            stages.Diagnostics.ReportTimeLimitWhile(budget.Limit, stages.Doing);
+            return Finish(path, stages);
         }
         catch (Exception e) when (e is not OperationCanceledException)
         {
-            var syntax = SafeParse(text);
             var diagnostics = new DiagnosticBag();
             diagnostics.ReportInternalError(e);
-            return Finish(path, syntax, new Model.Model(syntax, new SymbolTable(), []), null, [], [], diagnostics);
+            return Finish(path, new Stages(stages?.Syntax ?? SafeParse(text)) { Diagnostics = diagnostics });
         }
+    }
+
+    /// <summary>What the pipeline has made so far, so a stage stopped by the time limit keeps the ones before it.</summary>
+    private sealed class Stages(SyntaxTree syntax)
+    {
+        public SyntaxTree Syntax { get; } = syntax;
+        public Model.Model Model { get; set; } = new(syntax, new SymbolTable(), []);
+        public Network? Network { get; set; }
+        public StudyResult Study { get; set; } = new([], []);
+        public DiagnosticBag Diagnostics { get; init; } = new();
+        public string Doing { get; set; } = "binding the document";
     }
 
     private static SyntaxTree SafeParse(string text)
@@ -67,31 +94,31 @@ public static class Evaluator
         }
     }
 
-    private static Evaluation Run(string text, string path, CancellationToken cancel, Action<StudyProgress>? progress)
+    private static Evaluation Run(Stages stages, string path, TimeBudget budget, Action<StudyProgress>? progress)
     {
-        var syntax = Parser.Parse(text);
+        var cancel = budget.Token;
         cancel.ThrowIfCancellationRequested();
-        var model = Binder.Bind(syntax);
-        cancel.ThrowIfCancellationRequested();
-        var diagnostics = new DiagnosticBag();
+        var model = Binder.Bind(stages.Syntax, cancel: cancel);
+        var diagnostics = stages.Diagnostics;
+        stages.Model = model;
         diagnostics.AddRange(model.Diagnostics);
-        if (model.Supplies.IsEmpty)
-            return Finish(path, syntax, model, null, [], [], diagnostics);
+        if (model.Supplies.IsEmpty) return Finish(path, stages);
 
+        stages.Doing = "building the network";
         var network = NetworkBuilder.Build(model);
+        stages.Network = network;
         diagnostics.AddRange(network.Diagnostics);
         // A network the builder could not make whole is not solved: its numbers would mislead.
-        if (network.Diagnostics.Any(d => d.IsError))
-            return Finish(path, syntax, model, network, [], [], diagnostics);
+        if (network.Diagnostics.Any(d => d.IsError)) return Finish(path, stages);
 
-        var study = Study.Run(syntax, model, network, diagnostics, cancel, progress);
-        return Finish(path, syntax, model, network, study.Cases, study.Checks, diagnostics);
+        stages.Doing = "solving the normal case";
+        stages.Study = Study.Run(stages.Syntax, model, network, diagnostics, budget, progress);
+        return Finish(path, stages);
     }
 
-    private static Evaluation Finish(string path, SyntaxTree syntax, Model.Model model, Network? network,
-        ImmutableArray<CaseResult> cases, ImmutableArray<CheckResult> checks, DiagnosticBag diagnostics)
+    private static Evaluation Finish(string path, Stages stages)
     {
-        var ordered = diagnostics.OrderBy(d => d.Span.Start).ThenBy(d => d.Severity).ToImmutableArray();
-        return new Evaluation(path, syntax, model, network, cases, checks, ordered);
+        var ordered = stages.Diagnostics.OrderBy(d => d.Span.Start).ThenBy(d => d.Severity).ToImmutableArray();
+        return new Evaluation(path, stages.Syntax, stages.Model, stages.Network, stages.Study.Cases, stages.Study.Checks, ordered);
     }
 }

@@ -1,0 +1,72 @@
+using WindingNotes.Report;
+using WindingNotes.Tests.Analysis;
+using WindingNotes.Tests.Support;
+using WindingNotes.Workspace;
+using Xunit;
+
+namespace WindingNotes.Tests.Robustness;
+
+/// <summary>
+/// The wall-clock budget: an evaluation that meets it stops with a <c>time-limit</c> error and keeps
+/// what was whole; a caller's cancellation stops it with an exception instead, at any stage.
+/// </summary>
+public class TimeLimitTests
+{
+    private static readonly string MillionPoints = SweepTests.Variable("sweep BR from 0 % to 100 % points 1000000\nexpect voltage BR A below 150 V");
+
+    [Fact]
+    public void A_sweep_that_meets_the_time_limit_keeps_the_points_solved_and_says_how_far_it_came()
+    {
+        var e = Evaluator.Evaluate(MillionPoints, "t.wn", timeLimit: TimeSpan.FromSeconds(1));
+        var d = e.Single("time-limit");
+        Assert.Matches(@"^the evaluation reached its time limit of 1 s after [\d,]+ of 1,000,000 further solves: results, bands and checks cover only what was solved by then$", d.Message);
+        Assert.Equal("sweep BR from 0 % to 100 % points 1000000", e.TextAt(d.Span));
+        var points = e.Cases.Count(c => c.Case.IsSweepPoint);
+        Assert.InRange(points, 1, 999_999);
+        Assert.NotNull(e.Normal);
+        // The check covers the normal case and exactly the points kept.
+        Assert.Equal(1 + points, Assert.Single(e.Checks).Points);
+    }
+
+    [Fact]
+    public void Tolerance_samples_cut_short_give_no_band_rather_than_a_narrow_one()
+    {
+        // Eleven toleranced values: a Monte Carlo of 1,000 samples, far more than a tenth of a second holds.
+        var lets = string.Concat(Enumerable.Range(1, 11).Select(i => $"let r{i} = 1 ohm +- 5 %\n"));
+        var sum = string.Join(" + ", Enumerable.Range(1, 11).Select(i => $"r{i}"));
+        var text = SweepTests.Variable("") + lets + $"load heater BR A impedance {sum}\n";
+        var e = Evaluator.Evaluate(text, "t.wn", timeLimit: TimeSpan.FromSeconds(0.5));
+        Assert.Contains("time-limit", e.Diagnostics.Select(d => d.Code));
+        if (e.Normal is { } normal) Assert.Empty(normal.Bands);
+    }
+
+    [Fact]
+    public void A_limit_met_while_binding_keeps_the_syntax_and_reports_the_stage()
+    {
+        var e = Evaluator.Evaluate(MillionPoints, "t.wn", timeLimit: TimeSpan.Zero);
+        var d = e.Single("time-limit");
+        Assert.Equal("the evaluation reached its time limit of 0 s while binding the document: there are no results", d.Message);
+        Assert.Equal(default, d.Span);
+        Assert.NotEmpty(e.Syntax.Statements);
+        Assert.Empty(e.Cases);
+    }
+
+    [Fact]
+    public void Cancellation_by_the_caller_is_an_exception_not_a_time_limit()
+    {
+        using var cancel = new CancellationTokenSource();
+        cancel.Cancel();
+        Assert.ThrowsAny<OperationCanceledException>(() => Evaluator.Evaluate(MillionPoints, "t.wn", cancel.Token));
+        using var later = new CancellationTokenSource();
+        Assert.ThrowsAny<OperationCanceledException>(() => Evaluator.Evaluate(MillionPoints, "t.wn", later.Token, p => { if (p.Done >= 128) later.Cancel(); }));
+    }
+
+    [Fact]
+    public void Without_a_limit_an_ordinary_file_is_evaluated_as_with_one()
+    {
+        var text = SweepTests.Variable("sweep BR from 0 % to 100 % step 25 %");
+        var limited = Evaluator.Evaluate(text, "t.wn");
+        var unlimited = Evaluator.Evaluate(text, "t.wn", timeLimit: Timeout.InfiniteTimeSpan);
+        Assert.Equal(JsonReport.Write(limited), JsonReport.Write(unlimited));
+    }
+}
