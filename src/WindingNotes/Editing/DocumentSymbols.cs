@@ -30,8 +30,12 @@ public static class DocumentSymbols
 
         var taps = statements.Where(s => s.Kind is StatementKind.Tap or StatementKind.Brush).ToLookup(On);
         var windings = statements.Where(s => s.Kind == StatementKind.Winding).ToLookup(On);
+        // A name's children go to its first statement; a second definition of it (an error) has none,
+        // so a file that repeats its names still has an outline the size of the file.
+        var owners = new HashSet<(StatementKind, string)>();
+        bool Owns(StatementSyntax s) => owners.Add((s.Kind, s.Head.Name(0)!.Text));
         OutlineSymbol Winding(StatementSyntax w) =>
-            Entry(w, OutlineKind.Winding, taps[w.Head.Name(0)!.Text].Select(t => Entry(t, t.Kind == StatementKind.Tap ? OutlineKind.Tap : OutlineKind.Brush)).ToList());
+            Entry(w, OutlineKind.Winding, Owns(w) ? taps[w.Head.Name(0)!.Text].Select(t => Entry(t, t.Kind == StatementKind.Tap ? OutlineKind.Tap : OutlineKind.Brush)).ToList() : []);
 
         var cores = statements.Where(s => s.Kind == StatementKind.Core).Select(c => c.Head.Name(0)!.Text).ToHashSet();
         var result = new List<OutlineSymbol>();
@@ -39,7 +43,7 @@ public static class DocumentSymbols
         {
             var entry = s.Kind switch
             {
-                StatementKind.Core => Entry(s, OutlineKind.Core, windings[s.Head.Name(0)!.Text].Select(Winding).ToList()),
+                StatementKind.Core => Entry(s, OutlineKind.Core, Owns(s) ? windings[s.Head.Name(0)!.Text].Select(Winding).ToList() : []),
                 StatementKind.Winding when !cores.Contains(On(s) ?? "") => Winding(s),
                 StatementKind.Supply => Entry(s, OutlineKind.Supply),
                 StatementKind.Load => Entry(s, OutlineKind.Load),

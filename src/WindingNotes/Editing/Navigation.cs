@@ -39,16 +39,18 @@ public static class Navigation
         if (!IsName(newName)) return new RenameResult([], $"'{newName}' is not a name: a letter or '_', then letters, digits or '_', and no keyword");
         if (evaluation.Model.Symbols.Find(newName) is { } taken)
             return new RenameResult([], $"'{newName}' is already {taken.Describe()}");
+        // A use of the new name that binds to nothing yet would bind to the renamed symbol.
+        if (evaluation.Diagnostics.Any(d => d.Code == "unknown-name" && evaluation.Text[d.Span] == newName))
+            return new RenameResult([], $"'{newName}' is already used in the document, where it names nothing yet");
         var edits = evaluation.Model.Symbols.ReferencesTo(symbol)
             .Select(r => new TextEdit(evaluation.Text.GetRange(r.Span), newName))
             .ToList();
         return new RenameResult(edits);
     }
 
-    /// <summary>A word the lexer reads as one name, and no keyword.</summary>
+    /// <summary>A word the lexer reads as one word and the parser takes as a name: ASCII, and no keyword.</summary>
     public static bool IsName(string text) =>
-        Lexer.Lex(text) is [{ Kind: TokenKind.Word } token] && token.Text == text
-        && (char.IsLetter(text[0]) || text[0] == '_') && !Grammar.Keywords.Contains(text);
+        Lexer.Lex(text) is [{ Kind: TokenKind.Word } token] && token.Text == text && ValueParser.IsName(token);
 
     private static Symbol? SymbolAt(Evaluation evaluation, Position position) =>
         evaluation.Model.Symbols.At(evaluation.Text.GetOffset(position))?.Symbol;

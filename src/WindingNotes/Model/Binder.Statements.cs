@@ -28,10 +28,10 @@ internal sealed partial class BindRun
             case StatementKind.NoLoad: BindNoLoad(s); break;
             case StatementKind.Join:
                 var joined = s.Head.Names.Select(n => Node(n, s)).OfType<NodeRef>().ToImmutableArray();
-                model = model with { Joins = model.Joins.Add(joined) };
+                joins.Add(joined);
                 break;
             case StatementKind.Ground:
-                if (Node(s.Head.Name(0), s) is { } g) model = model with { Grounds = model.Grounds.Add(g) };
+                if (Node(s.Head.Name(0), s) is { } g) grounds.Add(g);
                 break;
             case StatementKind.Supply: BindSupply(s); break;
             case StatementKind.Load: BindLoad(s); break;
@@ -57,15 +57,12 @@ internal sealed partial class BindRun
     private void BindCore(StatementSyntax s)
     {
         var name = s.Head.Name(0)!;
-        model = model with
+        cores.Add(new CoreModel(name.Text, name.Name.Span, s.Span)
         {
-            Cores = model.Cores.Add(new CoreModel(name.Text, name.Name.Span, s.Span)
-            {
-                Rating = Real(s.Value("rating"), Dimension.ApparentPower, $"the rating of {name.Text}", positive: true),
-                Area = Real(s.Value("area"), Dimension.Area, $"the area of {name.Text}", positive: true),
-                FluxLimit = Real(s.Value("flux-limit"), Dimension.FluxDensity, $"the flux limit of {name.Text}", positive: true),
-            }),
-        };
+            Rating = Real(s.Value("rating"), Dimension.ApparentPower, $"the rating of {name.Text}", positive: true),
+            Area = Real(s.Value("area"), Dimension.Area, $"the area of {name.Text}", positive: true),
+            FluxLimit = Real(s.Value("flux-limit"), Dimension.FluxDensity, $"the flux limit of {name.Text}", positive: true),
+        });
     }
 
     private void BindWinding(StatementSyntax s)
@@ -89,7 +86,7 @@ internal sealed partial class BindRun
             Conductor = Conductor(s.Clause("conductor"), name.Text),
         };
         if (core is null || ends is null || winding.From.Name.Length == 0 || winding.To.Name.Length == 0) return;
-        model = model with { Windings = model.Windings.Add(winding) };
+        windings.Add(winding);
     }
 
     private static NodeRef EndRef(NameSyntax? name) => name is null ? new NodeRef("", default) : new NodeRef(name.Text, name.Name.Span);
@@ -153,15 +150,12 @@ internal sealed partial class BindRun
         if (s.Clause("range") is { } r && Value(r.Value(0), "the start of the range") is { } a && Value(r.Value(1), "the end of the range") is { } b
             && TapPosition(a, r.Value(0)!.Span, name.Text) is { } from && TapPosition(b, r.Value(1)!.Span, name.Text) is { } to)
             range = new TapRange(from.Position, from.Unit, to.Position, to.Unit, r.Span);
-        model = model with
+        taps.Add(new TapModel(name.Text, name.Name.Span, s.Span, winding.Name, place.Position, place.Unit, isBrush)
         {
-            Taps = model.Taps.Add(new TapModel(name.Text, name.Name.Span, s.Span, winding.Name, place.Position, place.Unit, isBrush)
-            {
-                Range = range,
-                CurrentLimit = Real(s.Value("current-limit"), Dimension.CurrentDim, $"the current limit of {name.Text}", positive: true),
-                PositionSpan = at.Span,
-            }),
-        };
+            Range = range,
+            CurrentLimit = Real(s.Value("current-limit"), Dimension.CurrentDim, $"the current limit of {name.Text}", positive: true),
+            PositionSpan = at.Span,
+        });
     }
 
     /// <summary>A position in turns (or a bare number), in % of the winding, or in volts.</summary>
@@ -205,10 +199,7 @@ internal sealed partial class BindRun
             diagnostics.ReportOutOfBounds(s.Clause("base")!.Span, "'base'", "left out when the impedance is in ohms");
             return;
         }
-        model = model with
-        {
-            Impedances = model.Impedances.Add(new ImpedanceModel(parts[0]!, parts[1]!, z.Value, perUnit, xr, s.Span, valueSyntax!.Span) { Base = basePower }),
-        };
+        impedances.Add(new ImpedanceModel(parts[0]!, parts[1]!, z.Value, perUnit, xr, s.Span, valueSyntax!.Span) { Base = basePower });
     }
 
     private WindingPart? WindingPartOf(NameSyntax name)
@@ -246,7 +237,7 @@ internal sealed partial class BindRun
             diagnostics.ReportWrongDimension(currentSyntax!.Span, "a current or a percentage of rated current", i.Dimension);
             return;
         }
-        model = model with { NoLoads = model.NoLoads.Add(new NoLoadModel(core.Name, s.Span, i.Real, fraction, loss.Value, new NodeRef(winding.Name, at!.Name(0)!.Span), voltage.Value)) };
+        noLoads.Add(new NoLoadModel(core.Name, s.Span, i.Real, fraction, loss.Value, new NodeRef(winding.Name, at!.Name(0)!.Span), voltage.Value));
     }
 
     private void BindSupply(StatementSyntax s)
@@ -268,16 +259,13 @@ internal sealed partial class BindRun
         if (impedance is not null && level is not null)
             diagnostics.ReportExclusiveClauses(s.Clause("fault-level")!.Keyword!, s.Clause("impedance")!.Keyword!);
         if (plus is null || minus is null || voltage is null) return;
-        model = model with
+        supplies.Add(new SupplyModel(name.Text, name.Name.Span, s.Span, plus, minus, voltage.Value)
         {
-            Supplies = model.Supplies.Add(new SupplyModel(name.Text, name.Name.Span, s.Span, plus, minus, voltage.Value)
-            {
-                Impedance = impedance,
-                FaultCurrent = faultCurrent,
-                FaultPower = faultPower,
-                XR = Real(s.Value("xr"), Dimension.None, "the X/R ratio", positive: true),
-            }),
-        };
+            Impedance = impedance,
+            FaultCurrent = faultCurrent,
+            FaultPower = faultPower,
+            XR = Real(s.Value("xr"), Dimension.None, "the X/R ratio", positive: true),
+        });
     }
 
     private void BindLoad(StatementSyntax s)
@@ -338,7 +326,7 @@ internal sealed partial class BindRun
                 l = (behaviour, sAtV, v);
             }
         }
-        model = model with { Loads = model.Loads.Add(new LoadModel(name.Text, name.Name.Span, s.Span, a, b, l.Behaviour, l.S0, l.V0)) };
+        loads.Add(new LoadModel(name.Text, name.Name.Span, s.Span, a, b, l.Behaviour, l.S0, l.V0));
     }
 
     private void BindFault(StatementSyntax s)
@@ -348,7 +336,7 @@ internal sealed partial class BindRun
         var b = Node(s.Head.Name(2), s);
         var z = s.Clause("impedance") is { } imp ? Complex(imp.Value(), Dimension.Impedance, $"the impedance of {name.Text}") : 0;
         if (a is null || b is null || z is null) return;
-        model = model with { Faults = model.Faults.Add(new FaultModel(name.Text, name.Name.Span, s.Span, a, b, z.Value)) };
+        faults.Add(new FaultModel(name.Text, name.Name.Span, s.Span, a, b, z.Value));
     }
 
     private void BindSweep(StatementSyntax s)
@@ -360,7 +348,7 @@ internal sealed partial class BindRun
         var step = Value(s.Value("step"), "the step of the sweep");
         var points = Real(s.Value("points"), Dimension.None, "the number of points", positive: true);
         if (target is null || from is null || to is null || (step is null && points is null)) return;
-        model = model with { Sweeps = model.Sweeps.Add(new SweepModel(target, s.Span, from.Value, to.Value, step, points is { } n ? (int)Math.Round(n) : null)) };
+        sweeps.Add(new SweepModel(target, s.Span, from.Value, to.Value, step, points is { } n ? (int)Math.Round(n) : null));
     }
 
     private void BindExpect(StatementSyntax s)
@@ -420,11 +408,11 @@ internal sealed partial class BindRun
                 break;
         }
         var text = tree.Text[s.Span];
-        model = model with { Expects = model.Expects.Add(new ExpectModel(s.Span, text, measure, targets.ToImmutable(), Enum.Parse<ConditionKind>(conditionClause.Keyword.Text, true), low, high, unit)
+        expects.Add(new ExpectModel(s.Span, text, measure, targets.ToImmutable(), Enum.Parse<ConditionKind>(conditionClause.Keyword.Text, true), low, high, unit)
         {
-            Target = target,
-            MeasureText = tree.Text[measureClause.Span],
-            ConditionText = tree.Text[conditionClause.Span],
-        }) };
+        Target = target,
+        MeasureText = tree.Text[measureClause.Span],
+        ConditionText = tree.Text[conditionClause.Span],
+        });
     }
 }

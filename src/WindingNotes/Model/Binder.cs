@@ -28,6 +28,20 @@ internal sealed partial class BindRun
     private readonly ValueEvaluator evaluator;
     private Model model;
 
+    // The model's lists, gathered here and put into the model once: adding to an immutable array copies it.
+    private readonly ImmutableArray<CoreModel>.Builder cores = ImmutableArray.CreateBuilder<CoreModel>();
+    private readonly ImmutableArray<NoLoadModel>.Builder noLoads = ImmutableArray.CreateBuilder<NoLoadModel>();
+    private readonly ImmutableArray<WindingModel>.Builder windings = ImmutableArray.CreateBuilder<WindingModel>();
+    private readonly ImmutableArray<TapModel>.Builder taps = ImmutableArray.CreateBuilder<TapModel>();
+    private readonly ImmutableArray<ImpedanceModel>.Builder impedances = ImmutableArray.CreateBuilder<ImpedanceModel>();
+    private readonly ImmutableArray<ImmutableArray<NodeRef>>.Builder joins = ImmutableArray.CreateBuilder<ImmutableArray<NodeRef>>();
+    private readonly ImmutableArray<NodeRef>.Builder grounds = ImmutableArray.CreateBuilder<NodeRef>();
+    private readonly ImmutableArray<SupplyModel>.Builder supplies = ImmutableArray.CreateBuilder<SupplyModel>();
+    private readonly ImmutableArray<LoadModel>.Builder loads = ImmutableArray.CreateBuilder<LoadModel>();
+    private readonly ImmutableArray<FaultModel>.Builder faults = ImmutableArray.CreateBuilder<FaultModel>();
+    private readonly ImmutableArray<SweepModel>.Builder sweeps = ImmutableArray.CreateBuilder<SweepModel>();
+    private readonly ImmutableArray<ExpectModel>.Builder expects = ImmutableArray.CreateBuilder<ExpectModel>();
+
     public BindRun(SyntaxTree tree, BindOverrides overrides, CancellationToken cancel)
     {
         this.tree = tree;
@@ -62,6 +76,18 @@ internal sealed partial class BindRun
             .ToImmutableArray();
         return model with
         {
+            Cores = cores.ToImmutable(),
+            NoLoads = noLoads.ToImmutable(),
+            Windings = windings.ToImmutable(),
+            Taps = taps.ToImmutable(),
+            Impedances = impedances.ToImmutable(),
+            Joins = joins.ToImmutable(),
+            Grounds = grounds.ToImmutable(),
+            Supplies = supplies.ToImmutable(),
+            Loads = loads.ToImmutable(),
+            Faults = faults.ToImmutable(),
+            Sweeps = sweeps.ToImmutable(),
+            Expects = expects.ToImmutable(),
             Points = points,
             Tolerances = [.. evaluator.Tolerances],
             Lets = lets.ToImmutableDictionary(),
@@ -113,6 +139,8 @@ internal sealed partial class BindRun
         else if (!(kinds.Contains(symbol.Kind) || (acceptsPoint && symbol.IsConnectionPoint)))
         {
             diagnostics.ReportWrongKind(name.Name, symbol.Describe(), expected);
+            // Still a use of the name: navigation finds it, and a rename changes it with the others.
+            symbols.Reference(name.Name.Span, symbol);
             return null;
         }
         symbols.Reference(name.Name.Span, symbol);
@@ -164,6 +192,7 @@ internal sealed partial class BindRun
         if (symbol.Kind != SymbolKind.Let)
         {
             diagnostics.ReportWrongKind(token, symbol.Describe(), "a let value");
+            symbols.Reference(token.Span, symbol);
             return null;
         }
         symbols.Reference(token.Span, symbol);

@@ -49,13 +49,18 @@ internal static class Leakage
     private readonly record struct Pair(int A, int B, double R, double X, bool FitsResistance);
 
     /// <summary>The matrix over <paramref name="sections"/> (the core's, winding by winding), in ohms, as a function of their turns.</summary>
+    /// <param name="lines">The impedance lines whose first member is a winding of this core (the builder sorts them out once for all cores).</param>
     /// <param name="reference">The winding of the core's open-circuit test, if any.</param>
     public static SectionCoupling SectionMatrix(Model model, int coreIndex, IReadOnlyList<Section> sections, IReadOnlyList<WindingNet> windings,
-        string? reference, DiagnosticBag diagnostics) =>
-        new CoreLeakage(model, coreIndex, sections, windings, diagnostics).Build(reference);
+        IEnumerable<ImpedanceModel> lines, string? reference, DiagnosticBag diagnostics) =>
+        new CoreLeakage(model, coreIndex, sections, windings, lines, diagnostics).Build(reference);
 
-    private sealed class CoreLeakage(Model model, int coreIndex, IReadOnlyList<Section> sections, IReadOnlyList<WindingNet> windings, DiagnosticBag diagnostics)
+    private sealed class CoreLeakage(Model model, int coreIndex, IReadOnlyList<Section> sections, IReadOnlyList<WindingNet> windings,
+        IEnumerable<ImpedanceModel> lines, DiagnosticBag diagnostics)
     {
+        // The core's windings by name, from its sections: a file of many cores must not search them all for each.
+        private readonly Dictionary<string, WindingNet> onCore = sections.Select(s => windings[s.Winding]).DistinctBy(w => w.Name).ToDictionary(w => w.Name, StringComparer.Ordinal);
+
         private readonly CoreModel core = model.Cores[coreIndex];
         private readonly List<Member> members = [];
         private readonly int[] memberOf = Enumerable.Repeat(-1, sections.Count).ToArray();
@@ -64,7 +69,7 @@ internal static class Leakage
         public SectionCoupling Build(string? reference)
         {
             var seen = new Dictionary<(int, int), ImpedanceModel>();
-            foreach (var line in model.Impedances)
+            foreach (var line in lines)
             {
                 if (OnCore(line.First.Winding) is null) continue;
                 if (OnCore(line.Second.Winding) is null)
@@ -101,7 +106,7 @@ internal static class Leakage
             return new SectionCoupling([.. memberOf], perTurn, [.. members.Select((m, i) => series[i] * m.Turns)]);
         }
 
-        private WindingNet? OnCore(string name) => windings.FirstOrDefault(w => w.Name == name && w.Core == coreIndex);
+        private WindingNet? OnCore(string name) => onCore.GetValueOrDefault(name);
 
         /// <summary>The winding's sections as positions First..Last in the core's list, or null when a point is off the winding.</summary>
         private (WindingNet Winding, int First, int Last)? Run(WindingPart part)

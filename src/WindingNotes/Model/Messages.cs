@@ -29,7 +29,8 @@ public sealed partial class DiagnosticBag
 
     public Diagnostic ReportDivisionByZero(Token op) => Error("division-by-zero", op.Span, "division by zero");
 
-    public Diagnostic ReportOutOfRange(TextSpan span) => Error("out-of-range", span, "the value is out of range");
+    public Diagnostic ReportOutOfRange(TextSpan span) =>
+        Error("out-of-range", span, $"the value is out of range: magnitudes from {ValueEvaluator.Smallest:0e0} to {ValueEvaluator.Largest:0e0} (in SI units) can be computed with");
 
     public Diagnostic ReportTooDeep(TextSpan span) =>
         Error("too-deep", span, $"the expression nests deeper than {ValueEvaluator.MaxDepth} levels");

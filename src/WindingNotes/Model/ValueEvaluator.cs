@@ -17,6 +17,12 @@ internal sealed class ValueEvaluator(
 {
     public const int MaxDepth = 200;
 
+    /// <summary>
+    /// Values as written lie within these magnitudes (SI, or a fraction for %): far beyond any winding,
+    /// yet products of a dozen of them stay finite, so no later stage overflows to infinity or NaN.
+    /// </summary>
+    public const double Smallest = 1e-30, Largest = 1e30;
+
     public List<ToleranceSite> Tolerances { get; } = [];
 
     /// <summary>A value with its angle and tolerance applied; <paramref name="description"/> names it in tolerance reports.</summary>
@@ -25,6 +31,11 @@ internal sealed class ValueEvaluator(
         var nominal = Evaluate(value.Expression, 0);
         if (nominal is null) return null;
         var q = nominal.Value;
+        if (q.Magnitude != 0 && !(q.Magnitude >= Smallest && q.Magnitude <= Largest))
+        {
+            diagnostics.ReportOutOfRange(value.Expression.Span);
+            return null;
+        }
         if (value.Angle is not null)
         {
             var angle = Evaluate(value.Angle, 0);

@@ -24,21 +24,36 @@ public static class Connections
         var sets = new DisjointSets(network.Nodes.Length);
         foreach (var s in network.Sections)
             if (s.NodeA != earth && s.NodeB != earth) sets.Union(s.NodeA, s.NodeB);
+        // By island, so that a file of many units pairs each load only with the supplies of its own unit.
+        var suppliesIn = new Dictionary<int, SortedSet<int>>();
+        foreach (var supply in network.Supplies)
+            foreach (var p in new[] { supply.NodeP, supply.NodeQ }.Where(p => p != earth))
+            {
+                if (!suppliesIn.TryGetValue(sets.Find(p), out var set)) suppliesIn[sets.Find(p)] = set = [];
+                set.Add(supply.Index);
+            }
+        var coresIn = new Dictionary<int, SortedSet<int>>();
+        foreach (var s in network.Sections)
+            foreach (var n in new[] { s.NodeA, s.NodeB }.Where(n => n != earth))
+            {
+                if (!coresIn.TryGetValue(sets.Find(n), out var set)) coresIn[sets.Find(n)] = set = [];
+                set.Add(s.Core);
+            }
         var result = ImmutableArray.CreateBuilder<Connection>();
         foreach (var load in network.Loads)
         {
-            foreach (var supply in network.Supplies)
+            int[] loadNodes = [load.NodeA, load.NodeB];
+            var candidates = new SortedSet<int>(loadNodes.Where(a => a != earth).SelectMany(a => suppliesIn.GetValueOrDefault(sets.Find(a)) ?? []));
+            foreach (var supply in candidates.Select(i => network.Supplies[i]))
             {
-                int[] loadNodes = [load.NodeA, load.NodeB], supplyNodes = [supply.NodeP, supply.NodeQ];
+                int[] supplyNodes = [supply.NodeP, supply.NodeQ];
                 var fed = Array.FindIndex(loadNodes, a => a != earth && supplyNodes.Any(p => p != earth && p != a && sets.Find(p) == sets.Find(a)));
                 var shared = loadNodes.Any(a => a != earth && supplyNodes.Contains(a)) && !loadNodes.All(supplyNodes.Contains);
                 if (fed < 0 && !shared) continue;
                 // A load between a supply terminal and earth has no terminal of its own off the supply.
                 var own = loadNodes.FirstOrDefault(a => a != earth && !supplyNodes.Contains(a), loadNodes.First(a => a != earth));
                 var island = sets.Find(fed >= 0 ? loadNodes[fed] : own);
-                var cores = network.Sections
-                    .Where(s => (s.NodeA != earth && sets.Find(s.NodeA) == island) || (s.NodeB != earth && sets.Find(s.NodeB) == island))
-                    .Select(s => s.Core).Distinct().Order().ToImmutableArray();
+                var cores = (coresIn.GetValueOrDefault(island) ?? []).ToImmutableArray();
                 var common = loadNodes.Intersect(supplyNodes).ToImmutableArray();
                 result.Add(new Connection(supply, load, common, cores));
             }

@@ -82,9 +82,10 @@ public sealed class RatingTally
     private static void Excitation(CaseResult c, Network network, bool onLoad, Action<string, string, TextSpan, string, double, double, string> found)
     {
         var limit = onLoad ? OnLoadExcitation : NoLoadExcitation;
+        var ratedOn = network.Windings.Where(w => w.Source.Rated is not null && w.Turns > 0).ToLookup(w => w.Core);
         foreach (var core in network.Cores)
         {
-            var rated = network.Windings.FirstOrDefault(w => w.Core == core.Index && w.Source.Rated is not null && w.Turns > 0);
+            var rated = ratedOn[core.Index].FirstOrDefault();
             if (rated is null) continue;
             var ratio = c.Solution.CoreVoltsPerTurn[core.Index].Magnitude / (rated.Source.Rated!.Value / rated.Turns);
             if (ratio > limit * (1 + 1e-9))

@@ -66,7 +66,20 @@ public sealed record CaseResult(
     ImmutableArray<LoadResult> Loads,
     Totals Totals)
 {
-    public Complex PointVoltage(string point) => Points.FirstOrDefault(p => p.Point == point).Voltage;
+    public Complex PointVoltage(string point)
+    {
+        // A small case is searched; a large one gets an index, so a thousand look-ups stay cheap.
+        if (Points.Length <= 32) return Points.FirstOrDefault(p => p.Point == point).Voltage;
+        if (pointIndex is null)
+        {
+            var index = new Dictionary<string, Complex>(Points.Length, StringComparer.Ordinal);
+            foreach (var (name, voltage) in Points) index.TryAdd(name, voltage);
+            pointIndex = index;
+        }
+        return pointIndex.GetValueOrDefault(point);
+    }
+
+    private Dictionary<string, Complex>? pointIndex;
 
     /// <summary>For a fault case: the fault current, the loop's X/R and the asymmetrical peak.</summary>
     public FaultResult? Fault { get; init; }

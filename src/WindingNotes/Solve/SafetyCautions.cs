@@ -26,7 +26,9 @@ public static class SafetyCautions
                 if (warned.Add($"{load.Name}/{end.Name}")) diagnostics.ReportCommonTerminal(end.Span, end.Name, node == network.EarthNode);
             }
         }
-        foreach (var brush in model.Taps.Where(t => t.IsBrush && network.Windings.Any(w => w.Name == t.Winding)))
+        var wound = network.Windings.Select(w => w.Name).ToHashSet(StringComparer.Ordinal);
+        var brushes = model.Taps.Where(t => t.IsBrush).DistinctBy(t => t.Name).ToDictionary(t => t.Name, StringComparer.Ordinal);
+        foreach (var brush in model.Taps.Where(t => t.IsBrush && wound.Contains(t.Winding)))
             diagnostics.ReportFuseOutput(brush.NameSpan, brush.Name);
 
         var operating = cases.Where(x => x.Case.Fault is null && !x.Case.WithoutLoads).ToList();
@@ -42,7 +44,7 @@ public static class SafetyCautions
             }
             if (highest.Ratio <= 1 + 1e-6) continue;
             // Where the output hangs on a brush, the brush's line is where the setting is made.
-            var brush = model.Taps.FirstOrDefault(t => t.IsBrush && (t.Name == load.A.Name || t.Name == load.B.Name));
+            var brush = new[] { load.A.Name, load.B.Name }.Select(brushes.GetValueOrDefault).OfType<TapModel>().MinBy(t => t.NameSpan.Start);
             if (warned.Add($"above/{load.Name}"))
                 diagnostics.ReportAboveSupply(brush?.NameSpan ?? load.NameSpan, load.Name, highest.Load, c.Supply.Name, highest.Supply, highest.Where);
         }

@@ -26,7 +26,9 @@ public static class Formatter
                 _ => line.Comment?.Text.TrimEnd() ?? "",
             };
             o.Append(text);
-            if (hasNewline || (line.Index == tree.Lines.Length - 1 && text.Length > 0)) o.Append(newline);
+            // A line kept as written may end in a continuation that took the line break with it.
+            var broken = text.EndsWith('\n') || text.EndsWith('\r');
+            if (hasNewline || (line.Index == tree.Lines.Length - 1 && text.Length > 0 && !broken)) o.Append(newline);
         }
         return o.ToString();
     }

@@ -58,6 +58,8 @@ public class NavigationTests
     [InlineData("2x", "'2x' is not a name")]
     [InlineData("j4", "'j4' is not a name")]
     [InlineData("a-b", "'a-b' is not a name")]
+    [InlineData("Ω", "'Ω' is not a name")]
+    [InlineData("Kö", "'Kö' is not a name")]
     public void Rename_refuses_a_name_that_is_taken_or_no_name(string name, string error)
     {
         var (evaluation, position) = Cursor.Parse(Boost("winding H$0V"));
@@ -73,5 +75,27 @@ public class NavigationTests
         Assert.Null(Navigation.PrepareRename(evaluation, position));
         Assert.Null(Navigation.Definition(evaluation, position));
         Assert.NotNull(Navigation.Rename(evaluation, position, "X").Error);
+    }
+
+    [Fact]
+    public void Rename_refuses_a_name_used_where_it_names_nothing_yet()
+    {
+        // 'K9' is an unknown core in the last line; renaming K1 to it would bind that use too.
+        var (evaluation, position) = Cursor.Parse(Boost("core K$01") + "winding W9 on K9 turns 10 from A9 to B9\n");
+        var result = Navigation.Rename(evaluation, position, "K9");
+        Assert.Empty(result.Edits);
+        Assert.Equal("'K9' is already used in the document, where it names nothing yet", result.Error);
+    }
+
+    [Fact]
+    public void A_use_of_a_name_as_the_wrong_kind_is_among_its_references_and_renamed_with_them()
+    {
+        // A sweep runs over a let or a brush; H1 is a terminal, so this line is an error, yet it names H1.
+        var (evaluation, position) = Cursor.Parse(Boost("supply mains H$01") + "sweep H1 from 0 % to 1 % step 1 %\n");
+        Assert.Contains(evaluation.Diagnostics, d => d.Code == "wrong-kind" && evaluation.Text[d.Span] == "H1");
+        var references = Navigation.References(evaluation, position, includeDefinition: true);
+        Assert.Contains(references, r => r.Start.Line == evaluation.Text.LineCount - 2);
+        var renamed = Cursor.Apply(evaluation.Text.Text, Navigation.Rename(evaluation, position, "H9").Edits);
+        Assert.DoesNotContain("H1", renamed.Split('\n').Where(l => !l.StartsWith('#')));
     }
 }

@@ -13,9 +13,12 @@ public class FormatterTests
     [InlineData("core K1 rating ( broken\n", "core K1 rating ( broken\n")]
     [InlineData("impedance HV:H1-T60   LV 3.6 % ± 10 %\r\nground N\r\n", "impedance HV:H1-T60 LV 3.6 % ± 10 %\r\nground N\r\n")]
     [InlineData("winding HV on K1 \\\n  from H1 to H2 \\\n  turns 240\n", "winding HV on K1 \\\n    turns 240 \\\n    from H1 to H2\n")]
+    [InlineData("1e1e1 \\", "1e1e1 \\\n")]
+    [InlineData("core K1 rating 1 kVA \\", "core K1 rating 1 kVA\n")]
     public void Formats_to_the_canonical_layout(string input, string expected)
     {
         Assert.Equal(expected, Formatter.Format(Parser.Parse(input)));
+        Assert.Equal(expected, Formatter.Format(Parser.Parse(expected)));
     }
 
     [Fact]

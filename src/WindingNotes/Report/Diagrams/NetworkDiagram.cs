@@ -27,6 +27,9 @@ public static class NetworkDiagram
     private const double ColumnPitch = 14, RailPitch = 17, Margin = 24;
     private const int MinArcsPerSection = 4, ArcsPerWinding = 8;
 
+    /// <summary>Elements drawn at most: one row of them is legible up to about this many, and the rails' layout grows with their square.</summary>
+    public const int MaxElements = 200;
+
     private sealed record Pin(string Point, int Node, double X, double Y, int Outward)
     {
         public double Column { get; set; }
@@ -48,19 +51,34 @@ public static class NetworkDiagram
         private readonly HashSet<int> railNodes = RailNodes(network);
         private double elementsTop;
 
+        // Looked up once: a file of a thousand units draws in time linear in its size.
+        private readonly ILookup<int, WindingNet> windingsOn = network.Windings.ToLookup(w => w.Core);
+        private readonly ILookup<int, Section> sectionsOf = network.Sections.ToLookup(s => s.Winding);
+        private readonly HashSet<int> supplyNodes = [.. network.Supplies.SelectMany(s => new[] { s.NodeP, s.NodeQ })];
+        private readonly Dictionary<string, TapModel> brushes = evaluation.Model.Taps.Where(t => t.IsBrush).DistinctBy(t => t.Name).ToDictionary(t => t.Name);
+        private readonly Dictionary<int, SectionResult> sectionResults = evaluation.Normal?.Sections.DistinctBy(x => x.Section.Index).ToDictionary(x => x.Section.Index) ?? [];
+        private readonly Dictionary<int, CoreResult> coreResults = evaluation.Normal?.Cores.DistinctBy(x => x.Core.Index).ToDictionary(x => x.Core.Index) ?? [];
+        private readonly Dictionary<int, SupplyResult> supplyResults = evaluation.Normal?.Supplies.DistinctBy(x => x.Supply.Index).ToDictionary(x => x.Supply.Index) ?? [];
+        private readonly Dictionary<int, LoadResult> loadResults = evaluation.Normal?.Loads.DistinctBy(x => x.Load.Index).ToDictionary(x => x.Load.Index) ?? [];
+        private readonly Dictionary<string, CaseResult> faultCases = evaluation.Cases.Where(x => x.Case.Fault is not null).DistinctBy(x => x.Case.Fault!.Name).ToDictionary(x => x.Case.Fault!.Name);
+
         public Drawing Draw()
         {
             var rails = railNodes.Count;
             elementsTop = Margin + 24 + rails * RailPitch + 18;
             var x = Margin;
             var bottom = elementsTop;
-            foreach (var s in network.Supplies)
+            var faults = evaluation.Model.Faults.Where(f => network.NodeOfPoint.ContainsKey(f.A.Name) && network.NodeOfPoint.ContainsKey(f.B.Name)).ToList();
+            var elements = network.Supplies.Length + network.Cores.Length + network.Loads.Length + faults.Count;
+            var drawn = 0;
+            bool Room() => drawn++ < MaxElements;
+            foreach (var s in network.Supplies.TakeWhile(_ => Room()))
                 (x, bottom) = Next(x, bottom, TwoTerminal(x, s.Source.Positive.Name, s.Source.Negative.Name, "supply", s.Name, SupplyValues(s), (g, cx, cy) => Symbols.Source(g, cx, cy)));
-            foreach (var core in network.Cores)
+            foreach (var core in network.Cores.TakeWhile(_ => Room()))
                 (x, bottom) = Next(x, bottom, Transformer(x, core));
-            foreach (var l in network.Loads)
+            foreach (var l in network.Loads.TakeWhile(_ => Room()))
                 (x, bottom) = Next(x, bottom, TwoTerminal(x, l.Source.A.Name, l.Source.B.Name, "load", l.Name, LoadValues(l), (g, cx, cy) => Symbols.Impedance(g, cx, cy)));
-            foreach (var f in evaluation.Model.Faults.Where(f => network.NodeOfPoint.ContainsKey(f.A.Name) && network.NodeOfPoint.ContainsKey(f.B.Name)))
+            foreach (var f in faults.TakeWhile(_ => Room()))
                 (x, bottom) = Next(x, bottom, TwoTerminal(x, f.A.Name, f.B.Name, "fault", f.Name, FaultValues(f), (g, cx, cy) => Symbols.Fault(g, cx, cy)));
             if (pins.Count == 0)
             {
@@ -74,7 +92,10 @@ public static class NetworkDiagram
             svg.Text(title, Margin, Margin + 4, "title", TitleSize);
             // The cautions that apply to this network travel with its drawing.
             var cautions = evaluation.Diagnostics.Where(d => d.Code.StartsWith("caution")).Select(d => "Caution: " + d.Message).Distinct();
-            var height = svg.Notes(Margin, bottom + 26, width - 2 * Margin, [Legend(), .. cautions]) + Margin - 8;
+            var legend = elements > MaxElements
+                ? $"{Legend()} The network has {elements} supplies, cores, loads and faults, too many to draw legibly: the first {MaxElements} are drawn."
+                : Legend();
+            var height = svg.Notes(Margin, bottom + 26, width - 2 * Margin, [legend, .. cautions]) + Margin - 8;
             return new Drawing(svg.Document(width, height, Symbols.Css), svg.TextBoxes, width, height) { Terminals = terminals };
         }
 
@@ -188,11 +209,10 @@ public static class NetworkDiagram
 
         private (double Right, double Bottom) Transformer(double left, CoreNet core)
         {
-            var coils = network.Windings.Where(w => w.Core == core.Index)
-                .Select(w => Arrange(w, [.. network.Sections.Where(s => s.Winding == w.Index)]))
+            var coils = windingsOn[core.Index]
+                .Select(w => Arrange(w, [.. sectionsOf[w.Index]]))
                 .Where(c => c.Sections.Count > 0).ToList();
             if (coils.Count == 0) return (left, elementsTop);
-            var supplyNodes = network.Supplies.SelectMany(s => new[] { s.NodeP, s.NodeQ }).ToHashSet();
             var primary = coils.FirstOrDefault(c => c.Sections.Any(s => supplyNodes.Contains(s.NodeA) || supplyNodes.Contains(s.NodeB))) ?? coils[0];
             List<Coil> leftCoils = [primary];
             var rightCoils = coils.Where(c => c != primary).ToList();
@@ -227,7 +247,7 @@ public static class NetworkDiagram
             svg.Line(coreX, top - 6, coreX, top + height + 6, "core");
             svg.Line(coreX + 5, top - 6, coreX + 5, top + height + 6, "core");
             svg.Text(core.Name, coreX + 2.5, top - 12, "strong", NameSize, Anchor.Middle);
-            var coreResult = results?.Cores.FirstOrDefault(k => k.Core.Index == core.Index);
+            var coreResult = coreResults.GetValueOrDefault(core.Index);
             if (coreResult?.Flux is { } flux)
                 svg.Text($"{Numbers.Format(flux, "T")} peak", coreX + 2.5, top + height + 32, "value", ValueSize, Anchor.Middle);
 
@@ -270,7 +290,7 @@ public static class NetworkDiagram
 
         private string PointLabel(string point)
         {
-            var brush = evaluation.Model.Taps.FirstOrDefault(t => t.Name == point && t.IsBrush);
+            var brush = brushes.GetValueOrDefault(point);
             return brush?.Unit switch
             {
                 null => point,
@@ -282,7 +302,7 @@ public static class NetworkDiagram
 
         private string SectionValue(Section s)
         {
-            var r = results?.Sections.FirstOrDefault(x => x.Section.Index == s.Index);
+            var r = sectionResults.GetValueOrDefault(s.Index);
             if (r is null) return "";
             return r.Loading is { } loading ? $"{Numbers.Format(r.Current.Magnitude, "A")}, {Numbers.Plain(loading * 100, 3)} %" : Numbers.Format(r.Current.Magnitude, "A");
         }
@@ -307,7 +327,7 @@ public static class NetworkDiagram
             svg.Text(WindingLabel(coil.Winding), axis + inward * 1, y + 14, "strong", NameSize, anchor);
             foreach (var (point, py) in points)
             {
-                if (evaluation.Model.Taps.Any(t => t.Name == point && t.IsBrush)) Symbols.Brush(svg, axis, py, outward);
+                if (brushes.ContainsKey(point)) Symbols.Brush(svg, axis, py, outward);
                 svg.Text(PointLabel(point), text, py - 3.5, "name", NameSize, anchor);
                 if (NodeOf(point) >= 0 && railNodes.Contains(NodeOf(point)))
                 {
@@ -376,19 +396,19 @@ public static class NetworkDiagram
 
         private IReadOnlyList<string> SupplyValues(SupplyNet s)
         {
-            var r = results?.Supplies.FirstOrDefault(x => x.Supply.Index == s.Index);
+            var r = supplyResults.GetValueOrDefault(s.Index);
             return r is null ? [Numbers.Format(s.Voltage.Magnitude, "V")] : [Numbers.Format(r.Voltage.Magnitude, "V"), Numbers.Format(r.Current.Magnitude, "A"), $"{Numbers.Format(r.Power.Magnitude, "VA")}, pf {Numbers.Fixed(r.PowerFactor, 3)}"];
         }
 
         private IReadOnlyList<string> LoadValues(LoadNet l)
         {
-            var r = results?.Loads.FirstOrDefault(x => x.Load.Index == l.Index);
+            var r = loadResults.GetValueOrDefault(l.Index);
             return r is null ? [] : [Numbers.Format(r.Voltage.Magnitude, "V"), Numbers.Format(r.Current.Magnitude, "A"), $"{Numbers.Format(r.Power.Real, "W")}, pf {Numbers.Fixed(r.PowerFactor, 3)}"];
         }
 
         private IReadOnlyList<string> FaultValues(FaultModel f)
         {
-            var c = evaluation.Cases.FirstOrDefault(x => x.Case.Fault?.Name == f.Name);
+            var c = faultCases.GetValueOrDefault(f.Name);
             return c is null ? [] : [$"{Numbers.Format(c.Solution.FaultCurrent.Magnitude, "A")} (fault case)"];
         }
     }
