@@ -20,7 +20,8 @@ public static class BrushMoves
             var index = IndexOfBrush(taps, name);
             if (index < 0 || BindRun.Place(value) is not { } place) return null;
             var tap = taps[index] = taps[index] with { Position = place.Position, Unit = place.Unit };
-            var w = network.Windings.First(x => x.Name == tap.Winding);
+            // A brush on a winding the builder left out (its core is unknown) has nothing to move on.
+            if (network.Windings.FirstOrDefault(x => x.Name == tap.Winding) is not { } w) return null;
             var turns = NetworkBuilder.Turns(tap, w);
             if (double.IsNaN(turns) || !NetworkBuilder.OnWinding(turns, w)) return null;
             turns = Math.Clamp(turns, 0, w.Turns);
