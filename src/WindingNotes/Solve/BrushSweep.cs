@@ -65,9 +65,9 @@ internal sealed class BrushSweep(SyntaxTree syntax, Model.Model model)
                 var solved = new List<(MnaSystem, Complex[])>();
                 foreach (var part in parts)
                 {
-                    var m = part.System.Restamp(moved);
-                    if (part.Solve(m, Changed(part.System, moved)) is not { } x) return NetworkSolver.Solve(moved, spec, cancel);
-                    solved.Add((m, x));
+                    if (part.Solve(moved, Changed(part.System, moved)) is not { } x) return NetworkSolver.Solve(moved, spec, cancel);
+                    // The first system's layout and loads are the moved one's: only numbers differ.
+                    solved.Add((part.System, x));
                 }
                 return NetworkSolver.Collect(moved, spec, solved, true, []);
             }

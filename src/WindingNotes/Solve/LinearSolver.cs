@@ -88,18 +88,19 @@ internal static class LinearSolver
         var n = a.GetLength(0);
         var rows = new double[n];
         var columns = new double[n];
+        // Most entries are zero; their magnitude is not worth a square root.
         for (var i = 0; i < n; i++)
         {
             double max = 0;
-            for (var j = 0; j < n; j++) max = Math.Max(max, a[i, j].Magnitude);
+            for (var j = 0; j < n; j++)
+                if (a[i, j] != Complex.Zero) max = Math.Max(max, a[i, j].Magnitude);
             rows[i] = max > 0 ? 1 / max : 1;
         }
-        for (var j = 0; j < n; j++)
-        {
-            double max = 0;
-            for (var i = 0; i < n; i++) max = Math.Max(max, a[i, j].Magnitude * rows[i]);
-            columns[j] = max > 0 ? 1 / max : 1;
-        }
+        var largest = new double[n];
+        for (var i = 0; i < n; i++)
+            for (var j = 0; j < n; j++)
+                if (a[i, j] != Complex.Zero) largest[j] = Math.Max(largest[j], a[i, j].Magnitude * rows[i]);
+        for (var j = 0; j < n; j++) columns[j] = largest[j] > 0 ? 1 / largest[j] : 1;
         return (rows, columns);
     }
 

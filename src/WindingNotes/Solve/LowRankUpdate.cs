@@ -1,4 +1,5 @@
 using System.Numerics;
+using WindingNotes.Model;
 
 namespace WindingNotes.Solve;
 
@@ -22,7 +23,7 @@ internal sealed class LowRankUpdate
     /// <summary>The relative residual an updated solution must reach; a full solve is accepted up to 1e-9.</summary>
     private const double ResidualLimit = 1e-12;
 
-    private readonly MnaSystem first;
+    private readonly MnaSystem first, scratch;
     private readonly double[] rows, columns;
     private readonly SparseLu lu;
     private readonly Complex[] z;
@@ -31,6 +32,7 @@ internal sealed class LowRankUpdate
     private LowRankUpdate(MnaSystem first, double[] rows, double[] columns, SparseLu lu)
     {
         (this.first, this.rows, this.columns, this.lu) = (first, rows, columns, lu);
+        scratch = first.Copy();
         z = lu.Solve(Scaled(first.B));
     }
 
@@ -52,9 +54,14 @@ internal sealed class LowRankUpdate
         return r;
     }
 
-    /// <summary>The solution of <paramref name="m"/> (the same layout), which may differ from the first system only in rows and columns <paramref name="s"/>.</summary>
-    public Complex[]? Solve(MnaSystem m, int[] s)
+    /// <summary>
+    /// The solution of the system of <paramref name="network"/> (the first one's network with brushes
+    /// moved), whose matrix may differ from the first only in rows and columns <paramref name="s"/>.
+    /// </summary>
+    public Complex[]? Solve(Network network, int[] s)
     {
+        var m = scratch;
+        m.Restamp(network);
         var n = m.Size;
         var (a0, a) = (first.A, m.A);
         var inS = new bool[n];

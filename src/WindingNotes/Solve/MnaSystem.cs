@@ -81,20 +81,29 @@ internal sealed class MnaSystem
         return m;
     }
 
-    /// <summary>
-    /// The same unknowns and equations stamped from a network of the same shape (a brush moved):
-    /// only the numbers are new, so the named elements are not made again.
-    /// </summary>
-    public MnaSystem Restamp(Network network)
+    /// <summary>A copy with matrices of its own, for <see cref="Restamp"/>.</summary>
+    public MnaSystem Copy()
     {
         var m = (MnaSystem)MemberwiseClone();
-        m.A = new Complex[Size, Size];
-        m.B = new Complex[Size];
-        m.NonlinearLoads = [];
-        m.LinearLoads = [];
-        m.HasSource = false;
-        m.Stamp(network, group, spec);
+        m.A = (Complex[,])A.Clone();
+        m.B = (Complex[])B.Clone();
+        m.NonlinearLoads = [.. NonlinearLoads];
+        m.LinearLoads = [.. LinearLoads];
         return m;
+    }
+
+    /// <summary>
+    /// The numbers stamped again, in place, from a network of the same shape (a brush moved): the
+    /// unknowns and equations and their names stay, so nothing but the numbers is made again.
+    /// </summary>
+    public void Restamp(Network network)
+    {
+        Array.Clear(A);
+        Array.Clear(B);
+        NonlinearLoads.Clear();
+        LinearLoads.Clear();
+        HasSource = false;
+        Stamp(network, group, spec);
     }
 
     private void Stamp(Network network, SolveGroup group, CaseSpec spec)
