@@ -11,8 +11,8 @@ namespace WindingNotes.Solve;
 /// x = z − W·(I + V·W)⁻¹·V·z with z = A⁻¹·b, U = [E_S C], V = [R; E_Sᵀ] and W = A⁻¹·U:
 /// |S| solves with the old factors for A⁻¹·C (A⁻¹·E_S is kept) and a small dense system, instead of
 /// a new factorisation. All on the equilibrated matrix of the first system. The result is refused
-/// (null, and the caller factors afresh) where the change reaches outside S, where the small system is
-/// near singular, or where the residual of the new system is above rounding, so an accepted x is the
+/// (null, and the caller factors afresh) where the small system is near singular or where the residual
+/// of the new system (which would also show a change outside S) is above rounding, so an accepted x is the
 /// one a full solve gives, to rounding.
 /// </summary>
 internal sealed class LowRankUpdate
@@ -26,12 +26,13 @@ internal sealed class LowRankUpdate
     private readonly MnaSystem first, scratch;
     private readonly double[] rows, columns;
     private readonly SparseLu lu;
+    private readonly SparseRows pattern;
     private readonly Complex[] z;
     private readonly Dictionary<string, Complex[][]> unitSolves = [];
 
-    private LowRankUpdate(MnaSystem first, double[] rows, double[] columns, SparseLu lu)
+    private LowRankUpdate(MnaSystem first, double[] rows, double[] columns, SparseRows pattern, SparseLu lu)
     {
-        (this.first, this.rows, this.columns, this.lu) = (first, rows, columns, lu);
+        (this.first, this.rows, this.columns, this.pattern, this.lu) = (first, rows, columns, pattern, lu);
         scratch = first.Copy();
         z = lu.Solve(Scaled(first.B));
     }
@@ -43,8 +44,9 @@ internal sealed class LowRankUpdate
     {
         if (m.NonlinearLoads.Count > 0 || m.Size == 0) return null;
         var (rows, columns) = LinearSolver.Equilibrate(m.A);
-        var lu = SparseLu.Factor(SparseRows.FromDense(m.A, rows, columns));
-        return lu.SmallestPivot > PivotRatio * lu.LargestPivot ? new LowRankUpdate(m, rows, columns, lu) : null;
+        var scaled = SparseRows.FromDense(m.A, rows, columns);
+        var lu = SparseLu.Factor(scaled);
+        return lu.SmallestPivot > PivotRatio * lu.LargestPivot ? new LowRankUpdate(m, rows, columns, scaled, lu) : null;
     }
 
     private Complex[] Scaled(Complex[] b)
@@ -66,12 +68,6 @@ internal sealed class LowRankUpdate
         var (a0, a) = (first.A, m.A);
         var inS = new bool[n];
         foreach (var i in s) inS[i] = true;
-        for (var i = 0; i < n; i++)
-        {
-            if (inS[i]) continue;
-            for (var j = 0; j < n; j++)
-                if (!inS[j] && a[i, j] != a0[i, j]) return null;
-        }
         var k = s.Length;
         var b = Scaled(m.B);
         var zb = b.AsSpan().SequenceEqual(Scaled(first.B)) ? z : lu.Solve(b);
@@ -109,15 +105,20 @@ internal sealed class LowRankUpdate
         var x = (Complex[])zb.Clone();
         for (var u = 0; u < size; u++)
             for (var i = 0; i < n; i++) x[i] -= w[u][i] * y[u];
-        if (Residual(a, x, b) > ResidualLimit) return null;
+        // The residual is taken on the new matrix itself, so a change outside S (which the update
+        // would not know of) shows here too and refuses the point.
+        if (Residual(a, x, b, s, inS) > ResidualLimit) return null;
         for (var j = 0; j < n; j++) x[j] *= columns[j];
         return x;
 
         Complex Delta(int i, int j) => (a[i, j] - a0[i, j]) * rows[i] * columns[j];
     }
 
-    /// <summary>The relative residual of the scaled system at the scaled solution.</summary>
-    private double Residual(Complex[,] a, Complex[] x, Complex[] b)
+    /// <summary>
+    /// The relative residual of the scaled system at the scaled solution, over the entries that can be
+    /// nonzero: the first matrix's outside S, and the whole of S's rows and columns.
+    /// </summary>
+    private double Residual(Complex[,] a, Complex[] x, Complex[] b, int[] s, bool[] inS)
     {
         var n = b.Length;
         var ax = new Complex[n];
@@ -125,12 +126,20 @@ internal sealed class LowRankUpdate
         for (var i = 0; i < n; i++)
         {
             double sum = 0;
-            for (var j = 0; j < n; j++)
+            void Add(int j)
             {
-                if (a[i, j] == Complex.Zero) continue;
+                if (a[i, j] == Complex.Zero) return;
                 var e = a[i, j] * rows[i] * columns[j];
                 ax[i] += e * x[j];
                 sum += e.Magnitude;
+            }
+            if (inS[i])
+                for (var j = 0; j < n; j++) Add(j);
+            else
+            {
+                for (var e = pattern.Start[i]; e < pattern.Start[i + 1]; e++)
+                    if (!inS[pattern.Column[e]]) Add(pattern.Column[e]);
+                foreach (var j in s) Add(j);
             }
             norm = Math.Max(norm, sum);
         }
