@@ -4,7 +4,7 @@ namespace WindingNotes.Benchmarks;
 
 /// <summary>
 /// Benchmarks, measured and recorded (RESULTS.md beside this file), never asserted in unit tests.
-/// Run: dotnet run -c Release --project tests/WindingNotes.Benchmarks -- --filter '*'
+/// Run: dotnet run -c Release --project tests/WindingNotes.Benchmarks -- --filter '*' --artifacts /tmp/wn-bench
 /// </summary>
 public static class Program
 {
