@@ -28,13 +28,19 @@ internal sealed class LowRankUpdate
     private readonly SparseLu lu;
     private readonly SparseRows pattern;
     private readonly Complex[] z;
-    private readonly Dictionary<string, Complex[][]> unitSolves = [];
+    private readonly Complex[] firstB;
+    private readonly bool[] inS;
+    private readonly Complex[][] work;
+    private readonly Dictionary<string, Complex[][]> solves = [];
 
     private LowRankUpdate(MnaSystem first, double[] rows, double[] columns, SparseRows pattern, SparseLu lu)
     {
         (this.first, this.rows, this.columns, this.pattern, this.lu) = (first, rows, columns, pattern, lu);
         scratch = first.Copy();
-        z = lu.Solve(Scaled(first.B));
+        firstB = Scaled(first.B);
+        z = lu.Solve(firstB);
+        inS = new bool[first.Size];
+        work = [new Complex[first.Size], new Complex[first.Size]];
     }
 
     public MnaSystem System => first;
@@ -66,23 +72,33 @@ internal sealed class LowRankUpdate
         m.Restamp(network);
         var n = m.Size;
         var (a0, a) = (first.A, m.A);
-        var inS = new bool[n];
+        // Buffers of this part, used again at every point: a sweep makes no garbage it need not.
+        var inS = this.inS;
+        Array.Clear(inS);
         foreach (var i in s) inS[i] = true;
         var k = s.Length;
         var b = Scaled(m.B);
-        var zb = b.AsSpan().SequenceEqual(Scaled(first.B)) ? z : lu.Solve(b);
-        // W = A⁻¹·[E_S C]: the unit solves are kept for the next point that changes the same S.
+        var zb = b.AsSpan().SequenceEqual(firstB) ? z : lu.Solve(b);
+        // W = A⁻¹·[E_S C]: the unit solves are kept for the next point that changes the same S,
+        // and so are the arrays for A⁻¹·C.
         var key = string.Join(",", s);
-        if (!unitSolves.TryGetValue(key, out var units))
-            unitSolves[key] = units = [.. s.Select(i => { var e = new Complex[n]; e[i] = 1; return lu.Solve(e); })];
-        var w = new Complex[2 * k][];
+        if (!solves.TryGetValue(key, out var w))
+        {
+            w = new Complex[2 * k][];
+            for (var t = 0; t < k; t++)
+            {
+                var e = new Complex[n];
+                e[s[t]] = 1;
+                w[t] = lu.Solve(e);
+                w[k + t] = new Complex[n];
+            }
+            solves[key] = w;
+        }
+        var c = work[0];
         for (var t = 0; t < k; t++)
         {
-            w[t] = units[t];
-            var c = new Complex[n];
-            for (var i = 0; i < n; i++)
-                if (!inS[i]) c[i] = Delta(i, s[t]);
-            w[k + t] = lu.Solve(c);
+            for (var i = 0; i < n; i++) c[i] = inS[i] ? Complex.Zero : Delta(i, s[t]);
+            lu.Solve(c, w[k + t], work[1]);
         }
         // K = I + V·W and V·z, with V's first k rows R = Δ[S, :] and the others E_Sᵀ.
         var size = 2 * k;

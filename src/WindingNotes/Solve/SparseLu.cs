@@ -213,21 +213,27 @@ internal sealed class SparseLu
     /// <summary>x with A·x = b.</summary>
     public Complex[] Solve(Complex[] b)
     {
-        var w = (Complex[])b.Clone();
+        var x = new Complex[n];
+        Solve(b, x, new Complex[n]);
+        return x;
+    }
+
+    /// <summary>The same into <paramref name="x"/>, with <paramref name="work"/> (both of the matrix's size) as scratch: no allocation.</summary>
+    public void Solve(ReadOnlySpan<Complex> b, Span<Complex> x, Span<Complex> work)
+    {
+        b.CopyTo(work);
         for (var k = 0; k < n; k++)
         {
-            var t = w[pivotRow[k]];
+            var t = work[pivotRow[k]];
             if (t == Complex.Zero) continue;
-            for (var e = lowerStart[k]; e < lowerStart[k + 1]; e++) w[lowerRow[e]] -= lowerValue[e] * t;
+            for (var e = lowerStart[k]; e < lowerStart[k + 1]; e++) work[lowerRow[e]] -= lowerValue[e] * t;
         }
-        var x = new Complex[n];
         for (var k = n - 1; k >= 0; k--)
         {
-            var sum = w[pivotRow[k]];
+            var sum = work[pivotRow[k]];
             for (var e = upperStart[k]; e < upperStart[k + 1]; e++) sum -= upperValue[e] * x[upperColumn[e]];
             x[pivotColumn[k]] = sum / Pivot(k);
         }
-        return x;
     }
 
     /// <summary>y with Aᴴ·y = b: Uᴴ forward by columns, then Lᴴ backward by rows.</summary>
