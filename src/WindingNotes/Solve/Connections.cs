@@ -48,10 +48,11 @@ public static class Connections
             {
                 int[] supplyNodes = [supply.NodeP, supply.NodeQ];
                 var fed = Array.FindIndex(loadNodes, a => a != earth && supplyNodes.Any(p => p != earth && p != a && sets.Find(p) == sets.Find(a)));
-                var shared = loadNodes.Any(a => a != earth && supplyNodes.Contains(a)) && !loadNodes.All(supplyNodes.Contains);
-                if (fed < 0 && !shared) continue;
                 // A load between a supply terminal and earth has no terminal of its own off the supply.
                 var own = loadNodes.FirstOrDefault(a => a != earth && !supplyNodes.Contains(a), loadNodes.First(a => a != earth));
+                // Sharing a supply terminal counts when the load's own terminal is on a winding, not a dead end.
+                var shared = loadNodes.Any(a => a != earth && supplyNodes.Contains(a)) && !loadNodes.All(supplyNodes.Contains) && coresIn.ContainsKey(sets.Find(own));
+                if (fed < 0 && !shared) continue;
                 var island = sets.Find(fed >= 0 ? loadNodes[fed] : own);
                 var cores = (coresIn.GetValueOrDefault(island) ?? []).ToImmutableArray();
                 var common = loadNodes.Intersect(supplyNodes).ToImmutableArray();

@@ -81,12 +81,21 @@ public static class NetworkSolver
 
     private static Complex[]? SolveSystem(MnaSystem m, Network network, DiagnosticBag diagnostics, string prefix, CancellationToken cancel)
     {
+        if (m.NonlinearLoads.Count > 0) DropDanglingLoads(m, network, diagnostics, prefix);
         var first = LinearSolver.Solve(m.A, m.B);
+        var scale = m.B.Select(b => b.Magnitude).DefaultIfEmpty(0).Max();
+        // Loads in series with nothing else at the nodes between them leave those nodes undetermined
+        // without the loads: start from the loads as impedances drawing their demand at the source voltage.
+        if (first.Status != SolveStatus.Solved && m.NonlinearLoads.Count > 0 && scale > 0)
+        {
+            var a0 = (Complex[,])m.A.Clone();
+            foreach (var load in m.NonlinearLoads) Stamp(a0, load, AdmittanceAt(load, scale));
+            if (LinearSolver.Solve(a0, m.B) is { Status: SolveStatus.Solved } loaded) first = loaded;
+        }
         if (!Accept(first, m, diagnostics, prefix)) return null;
         if (m.NonlinearLoads.Count == 0) return first.X;
 
         // Start Newton from the loads as impedances that draw their demand at the open-circuit voltage.
-        var scale = m.B.Select(b => b.Magnitude).DefaultIfEmpty(0).Max();
         var a = (Complex[,])m.A.Clone();
         foreach (var load in m.NonlinearLoads.ToList())
         {
@@ -97,16 +106,55 @@ public static class NetworkSolver
                 m.NonlinearLoads.Remove(load);
                 continue;
             }
-            var s = load.Exponent == 0 ? load.S0 : load.S0 * (v.Magnitude / load.V0);
-            var y = Complex.Conjugate(s) / (v.Magnitude * v.Magnitude);
-            if (load.ColumnA >= 0) { a[load.ColumnA, load.ColumnA] += y; if (load.ColumnB >= 0) a[load.ColumnA, load.ColumnB] -= y; }
-            if (load.ColumnB >= 0) { a[load.ColumnB, load.ColumnB] += y; if (load.ColumnA >= 0) a[load.ColumnB, load.ColumnA] -= y; }
+            Stamp(a, load, AdmittanceAt(load, v.Magnitude));
         }
         var start = LinearSolver.Solve(a, m.B);
         var newton = NewtonSolver.Solve(m, start.Status == SolveStatus.Solved ? start.X : first.X, cancel);
         if (newton.Converged) return newton.X;
         diagnostics.ReportNoConvergence(m.NonlinearLoads.Select(l => network.Loads[l.Load].Source).ToList(), NewtonSolver.MaxIterations, prefix);
         return null;
+    }
+
+    /// <summary>The admittance that draws the load's demand at <paramref name="v"/> volts.</summary>
+    private static Complex AdmittanceAt(NonlinearLoad load, double v) =>
+        Complex.Conjugate(load.Exponent == 0 ? load.S0 : load.S0 * (v / load.V0)) / (v * v);
+
+    private static void Stamp(Complex[,] a, NonlinearLoad load, Complex y)
+    {
+        if (load.ColumnA >= 0) { a[load.ColumnA, load.ColumnA] += y; if (load.ColumnB >= 0) a[load.ColumnA, load.ColumnB] -= y; }
+        if (load.ColumnB >= 0) { a[load.ColumnB, load.ColumnB] += y; if (load.ColumnA >= 0) a[load.ColumnB, load.ColumnA] -= y; }
+    }
+
+    /// <summary>
+    /// A constant-power or constant-current load that is the only element at a node (a winding left
+    /// out for a mistyped core, say) carries no current by KCL, so it draws nothing; the linear start
+    /// leaves it out and would find that node's voltage undetermined. Such a load is named and dropped,
+    /// and its node held at the voltage of its other end, so the rest of the part still solves.
+    /// </summary>
+    private static void DropDanglingLoads(MnaSystem m, Network network, DiagnosticBag diagnostics, string prefix)
+    {
+        bool Lone(int c)
+        {
+            for (var j = 0; j < m.Size; j++)
+                if (m.A[c, j] != Complex.Zero || m.A[j, c] != Complex.Zero) return false;
+            return true;
+        }
+        for (var dropped = true; dropped;)
+        {
+            dropped = false;
+            foreach (var load in m.NonlinearLoads.ToList())
+            {
+                var (end, other) = IsDangling(load.ColumnA) ? (load.ColumnA, load.ColumnB) : IsDangling(load.ColumnB) ? (load.ColumnB, load.ColumnA) : (-1, -1);
+                if (end < 0) continue;
+                diagnostics.ReportLoadWithoutVoltage(network.Loads[load.Load].Source, prefix);
+                m.NonlinearLoads.Remove(load);
+                m.A[end, end] = 1;
+                if (other >= 0) m.A[end, other] = -1;
+                dropped = true;
+            }
+        }
+
+        bool IsDangling(int c) => c >= 0 && m.NonlinearLoads.Count(l => l.ColumnA == c || l.ColumnB == c) == 1 && Lone(c);
     }
 
     private static bool Accept(LinearSolver.Result result, MnaSystem m, DiagnosticBag diagnostics, string prefix)

@@ -115,4 +115,36 @@ public partial class IllPosedNetworkTests
         Assert.Equal("c", e.TextAt(Assert.Single(d.Related).Span));
         Assert.Equal(0, e.Normal!.Load("b").Current.Magnitude);
     }
+
+    [Fact]
+    public void A_constant_power_load_left_alone_at_a_node_draws_nothing_and_the_rest_still_solves()
+    {
+        // The winding names a core that is not there, so the load on its terminal has nothing else at that node.
+        var e = Wn.Eval("""
+            frequency 60 Hz
+            core K1 rating 0.5 kVA
+            winding HV on K1 turns 240 rated 240 V from H1 to H2
+            winding LV on K9 turns 24 rated 24 V from X1 to X2
+            supply mains H1 H2 208 V
+            ground H2
+            join H1 X2
+            load planer X1 H1 power 3.2 kW pf 0.82 lagging
+            load heater H1 H2 impedance 10 ohm
+            """);
+        Assert.Equal("K9", e.TextAt(e.Single("unknown-name").Span));
+        Assert.Equal("planer", e.TextAt(e.Single("load-without-voltage").Span));
+        Assert.DoesNotContain(e.Diagnostics, d => d.Code is "singular" or "caution-no-isolation");
+        Assert.Equal(0, e.Normal!.Load("planer").Current.Magnitude);
+        Wn.Near(20.8, e.Normal!.Load("heater").Current.Magnitude, 1e-12, "208 V across 10 ohm");
+    }
+
+    [Fact]
+    public void Constant_power_loads_in_series_share_one_current()
+    {
+        // Nothing but the two loads at M: the current is (P1 + P2) / V, each load's voltage P / I (circuit laws).
+        var e = Wn.Solved("frequency 50 Hz\nsupply s A N 200 V\nground N\nload a A M power 1 kW\nload b M N power 3 kW\n");
+        Wn.Near(20, e.Normal!.Load("a").Current.Magnitude, 1e-9, "series current");
+        Wn.Near(50, e.Normal!.Load("a").Voltage.Magnitude, 1e-9, "voltage of a");
+        Wn.Near(150, e.Normal!.Load("b").Voltage.Magnitude, 1e-9, "voltage of b");
+    }
 }
