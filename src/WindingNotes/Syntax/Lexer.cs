@@ -113,7 +113,8 @@ public static class Lexer
                 while (i < text.Length && char.IsAsciiDigit(text[i])) i++;
             }
         }
-        var digits = text[start..i].Replace("_", "");
+        var digits = text.AsSpan(start, i - start);
+        if (digits.Contains('_')) digits = digits.ToString().Replace("_", "");
         if (!double.TryParse(digits, NumberStyles.Float, CultureInfo.InvariantCulture, out value)) value = double.NaN;
         return i;
     }

@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using System.Runtime.InteropServices;
 using Pidgin;
 using WindingNotes.Text;
 
@@ -28,7 +29,7 @@ public static class Parser
             if (i < tokens.Count && tokens[i].Kind != TokenKind.Newline) continue;
             var end = Math.Min(i + 1, tokens.Count);
             if (end > start || lines.Count == 0 || i == tokens.Count && start < tokens.Count)
-                lines.Add(ParseLine(lines.Count, tokens.GetRange(start, end - start), diagnostics));
+                lines.Add(ParseLine(lines.Count, CollectionsMarshal.AsSpan(tokens)[start..end], diagnostics));
             start = end;
         }
         if (lines.Count == 0 || tokens is [.., { Kind: TokenKind.Newline }])
@@ -36,14 +37,23 @@ public static class Parser
         return new SyntaxTree(source, lines.ToImmutable(), diagnostics.ToImmutable());
     }
 
-    private static LineSyntax ParseLine(int index, List<Token> tokens, DiagnosticBag diagnostics, int? emptyAt = null)
+    private static LineSyntax ParseLine(int index, ReadOnlySpan<Token> tokens, DiagnosticBag diagnostics, int? emptyAt = null)
     {
-        var content = tokens.Where(t => t.Kind != TokenKind.Newline).ToList();
-        var span = content.Count == 0
-            ? new TextSpan(emptyAt ?? tokens.FirstOrDefault()?.Span.Start ?? 0, 0)
-            : TextSpan.FromBounds(content[0].Span.Start, content[^1].Span.End);
-        var significant = tokens.Where(t => !t.IsTrivia).ToArray();
-        var all = tokens.ToImmutableArray();
+        Token? first = null, last = null;
+        var count = 0;
+        foreach (var t in tokens)
+        {
+            if (t.Kind != TokenKind.Newline) (first, last) = (first ?? t, t);
+            if (!t.IsTrivia) count++;
+        }
+        var span = first is null
+            ? new TextSpan(emptyAt ?? (tokens.IsEmpty ? 0 : tokens[0].Span.Start), 0)
+            : TextSpan.FromBounds(first.Span.Start, last!.Span.End);
+        var significant = new Token[count];
+        count = 0;
+        foreach (var t in tokens)
+            if (!t.IsTrivia) significant[count++] = t;
+        var all = ImmutableArray.Create(tokens);
         if (significant.Length == 0) return new LineSyntax(index, span, all, null, null);
 
         var keyword = significant[0];
@@ -55,15 +65,20 @@ public static class Parser
 
         if (TooComplex(significant, diagnostics) is { } refused) return new LineSyntax(index, span, all, null, refused);
 
-        var rest = significant.AsSpan(1);
-        var result = StatementParsers.ByKind[form.Kind].Parse(rest);
-        if (!result.Success)
+        // The direct reader takes a well-formed line; where it gives up, Pidgin reads it and words the error.
+        if (StatementReader.Read(form, significant) is not { } parsed)
         {
-            var error = ReportParseError(diagnostics, result.Error!, rest, keyword);
-            return new LineSyntax(index, span, all, null, error);
+            var rest = significant.AsSpan(1);
+            var result = StatementParsers.ByKind[form.Kind].Parse(rest);
+            if (!result.Success)
+            {
+                var error = ReportParseError(diagnostics, result.Error!, rest, keyword);
+                return new LineSyntax(index, span, all, null, error);
+            }
+            parsed = result.Value;
         }
 
-        var (head, clauses) = result.Value;
+        var (head, clauses) = parsed;
         var statement = new StatementSyntax(form, keyword, head, clauses);
         CheckClauses(statement, diagnostics);
         return new LineSyntax(index, span, all, statement, null);

@@ -90,7 +90,7 @@ internal static class ValueParser
     public static Parser<Token, ValueSyntax> LabelledValue(string label) =>
         Lookahead(Parser<Token>.Token(CanStartValue)).Labelled(label).Then(Value);
 
-    private static bool CanStartValue(Token t) =>
+    internal static bool CanStartValue(Token t) =>
         t.Kind is TokenKind.Number or TokenKind.Imaginary
         || (t.Kind == TokenKind.Symbol && t.Text is "(" or "-" or "+")
         || t.IsWord("sqrt") || IsName(t);
@@ -109,8 +109,10 @@ internal static class ValueParser
 
     /// <summary><c>3 + j4 ohm</c> folds into one rectangular literal so the unit covers both parts.</summary>
     private static Parser<Token, Func<ExpressionSyntax, ExpressionSyntax, ExpressionSyntax>> Additive(string op) =>
-        Symbol(op).Select<Func<ExpressionSyntax, ExpressionSyntax, ExpressionSyntax>>(t => (l, r) =>
-            r is ImaginarySyntax imaginary && IsBareNumber(l) ? new ComplexSyntax(l, t, imaginary) : new BinarySyntax(l, t, r));
+        Symbol(op).Select<Func<ExpressionSyntax, ExpressionSyntax, ExpressionSyntax>>(t => (l, r) => Add(l, t, r));
+
+    internal static ExpressionSyntax Add(ExpressionSyntax left, Token op, ExpressionSyntax right) =>
+        right is ImaginarySyntax imaginary && IsBareNumber(left) ? new ComplexSyntax(left, op, imaginary) : new BinarySyntax(left, op, right);
 
     private static bool IsBareNumber(ExpressionSyntax e) => e switch
     {
