@@ -13,7 +13,7 @@ namespace WindingNotes.Benchmarks;
 [MemoryDiagnoser]
 public class SolverBenchmarks
 {
-    private Complex[,] a = null!;
+    private SystemMatrix a = null!;
     private Complex[] b = null!;
 
     [Params(2, 3, 4, 7, 14, 30)]

@@ -23,8 +23,17 @@ internal sealed class DenseFactors : IFactors
         }
     }
 
-    public static DenseFactors Of(Complex[,] a, double[] rowScale, double[] columnScale) =>
-        new(Matrix<Complex>.Build.Dense(a.GetLength(0), a.GetLength(1), (i, j) => a[i, j] * rowScale[i] * columnScale[j]));
+    public static DenseFactors Of(SystemMatrix a, double[] rowScale, double[] columnScale)
+    {
+        var m = Matrix<Complex>.Build.Dense(a.Size, a.Size);
+        for (var i = 0; i < a.Size; i++)
+        {
+            var columns = a.Columns(i);
+            var values = a.Values(i);
+            for (var e = 0; e < columns.Length; e++) m[i, columns[e]] = values[e] * rowScale[i] * columnScale[columns[e]];
+        }
+        return new DenseFactors(m);
+    }
 
     public double SmallestPivot { get; }
     public double LargestPivot { get; }

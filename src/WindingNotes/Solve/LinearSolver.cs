@@ -45,10 +45,10 @@ internal static class LinearSolver
     /// </summary>
     public sealed record Result(SolveStatus Status, Complex[] X, double Residual, double Condition, List<int> NullUnknowns, List<int> NullEquations);
 
-    public static Result Solve(Complex[,] a, Complex[] b) => Solve(a, b, sparse: b.Length > SparseAbove);
+    public static Result Solve(SystemMatrix a, Complex[] b) => Solve(a, b, sparse: b.Length > SparseAbove);
 
     /// <summary>The same, with the factorisation chosen by the caller (tests compare the two).</summary>
-    public static Result Solve(Complex[,] a, Complex[] b, bool sparse)
+    public static Result Solve(SystemMatrix a, Complex[] b, bool sparse)
     {
         var n = b.Length;
         if (n == 0) return new Result(SolveStatus.Solved, [], 0, 1, [], []);
@@ -83,23 +83,26 @@ internal static class LinearSolver
     }
 
     /// <summary>Scales so every row, then every column, has its largest entry equal to one.</summary>
-    public static (double[] Rows, double[] Columns) Equilibrate(Complex[,] a)
+    public static (double[] Rows, double[] Columns) Equilibrate(SystemMatrix a)
     {
-        var n = a.GetLength(0);
+        var n = a.Size;
         var rows = new double[n];
         var columns = new double[n];
-        // Most entries are zero; their magnitude is not worth a square root.
         for (var i = 0; i < n; i++)
         {
             double max = 0;
-            for (var j = 0; j < n; j++)
-                if (a[i, j] != Complex.Zero) max = Math.Max(max, a[i, j].Magnitude);
+            foreach (var v in a.Values(i))
+                if (v != Complex.Zero) max = Math.Max(max, v.Magnitude);
             rows[i] = max > 0 ? 1 / max : 1;
         }
         var largest = new double[n];
         for (var i = 0; i < n; i++)
-            for (var j = 0; j < n; j++)
-                if (a[i, j] != Complex.Zero) largest[j] = Math.Max(largest[j], a[i, j].Magnitude * rows[i]);
+        {
+            var cs = a.Columns(i);
+            var vs = a.Values(i);
+            for (var e = 0; e < cs.Length; e++)
+                if (vs[e] != Complex.Zero) largest[cs[e]] = Math.Max(largest[cs[e]], vs[e].Magnitude * rows[i]);
+        }
         for (var j = 0; j < n; j++) columns[j] = largest[j] > 0 ? 1 / largest[j] : 1;
         return (rows, columns);
     }

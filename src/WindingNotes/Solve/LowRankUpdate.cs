@@ -26,16 +26,15 @@ internal sealed class LowRankUpdate
     private readonly MnaSystem first, scratch;
     private readonly double[] rows, columns;
     private readonly SparseLu lu;
-    private readonly SparseRows pattern;
     private readonly Complex[] z;
     private readonly Complex[] firstB;
     private readonly bool[] inS;
     private readonly Complex[][] work;
     private readonly Dictionary<string, Complex[][]> solves = [];
 
-    private LowRankUpdate(MnaSystem first, double[] rows, double[] columns, SparseRows pattern, SparseLu lu)
+    private LowRankUpdate(MnaSystem first, double[] rows, double[] columns, SparseLu lu)
     {
-        (this.first, this.rows, this.columns, this.pattern, this.lu) = (first, rows, columns, pattern, lu);
+        (this.first, this.rows, this.columns, this.lu) = (first, rows, columns, lu);
         scratch = first.Copy();
         firstB = Scaled(first.B);
         z = lu.Solve(firstB);
@@ -50,9 +49,8 @@ internal sealed class LowRankUpdate
     {
         if (m.NonlinearLoads.Count > 0 || m.Size == 0) return null;
         var (rows, columns) = LinearSolver.Equilibrate(m.A);
-        var scaled = SparseRows.FromDense(m.A, rows, columns);
-        var lu = SparseLu.Factor(scaled);
-        return lu.SmallestPivot > PivotRatio * lu.LargestPivot ? new LowRankUpdate(m, rows, columns, scaled, lu) : null;
+        var lu = SparseLu.Factor(SparseRows.Of(m.A, rows, columns));
+        return lu.SmallestPivot > PivotRatio * lu.LargestPivot ? new LowRankUpdate(m, rows, columns, lu) : null;
     }
 
     private Complex[] Scaled(Complex[] b)
@@ -94,10 +92,15 @@ internal sealed class LowRankUpdate
             }
             solves[key] = w;
         }
+        // Column s_t of Δ outside S: the stamps are structurally symmetric, so its rows are the
+        // columns of row s_t (the new matrix has the first one's entries and perhaps more). An entry
+        // missed where that does not hold would show in the residual below and refuse the point.
         var c = work[0];
         for (var t = 0; t < k; t++)
         {
-            for (var i = 0; i < n; i++) c[i] = inS[i] ? Complex.Zero : Delta(i, s[t]);
+            Array.Clear(c);
+            foreach (var i in a.Columns(s[t]))
+                if (!inS[i]) c[i] = Delta(i, s[t]);
             lu.Solve(c, w[k + t], work[1]);
         }
         // K = I + V·W and V·z, with V's first k rows R = Δ[S, :] and the others E_Sᵀ.
@@ -106,7 +109,7 @@ internal sealed class LowRankUpdate
         var rhs = new Complex[size];
         for (var t = 0; t < k; t++)
         {
-            for (var j = 0; j < n; j++)
+            foreach (var j in a.Columns(s[t]))
             {
                 var d = Delta(s[t], j);
                 if (d == Complex.Zero) continue;
@@ -123,39 +126,30 @@ internal sealed class LowRankUpdate
             for (var i = 0; i < n; i++) x[i] -= w[u][i] * y[u];
         // The residual is taken on the new matrix itself, so a change outside S (which the update
         // would not know of) shows here too and refuses the point.
-        if (Residual(a, x, b, s, inS) > ResidualLimit) return null;
+        if (Residual(a, x, b) > ResidualLimit) return null;
         for (var j = 0; j < n; j++) x[j] *= columns[j];
         return x;
 
         Complex Delta(int i, int j) => (a[i, j] - a0[i, j]) * rows[i] * columns[j];
     }
 
-    /// <summary>
-    /// The relative residual of the scaled system at the scaled solution, over the entries that can be
-    /// nonzero: the first matrix's outside S, and the whole of S's rows and columns.
-    /// </summary>
-    private double Residual(Complex[,] a, Complex[] x, Complex[] b, int[] s, bool[] inS)
+    /// <summary>The relative residual of the scaled system at the scaled solution.</summary>
+    private double Residual(SystemMatrix a, Complex[] x, Complex[] b)
     {
         var n = b.Length;
         var ax = new Complex[n];
         double norm = 0;
         for (var i = 0; i < n; i++)
         {
+            var columns = a.Columns(i);
+            var values = a.Values(i);
             double sum = 0;
-            void Add(int j)
+            for (var e = 0; e < columns.Length; e++)
             {
-                if (a[i, j] == Complex.Zero) return;
-                var e = a[i, j] * rows[i] * columns[j];
-                ax[i] += e * x[j];
-                sum += e.Magnitude;
-            }
-            if (inS[i])
-                for (var j = 0; j < n; j++) Add(j);
-            else
-            {
-                for (var e = pattern.Start[i]; e < pattern.Start[i + 1]; e++)
-                    if (!inS[pattern.Column[e]]) Add(pattern.Column[e]);
-                foreach (var j in s) Add(j);
+                if (values[e] == Complex.Zero) continue;
+                var entry = values[e] * rows[i] * this.columns[columns[e]];
+                ax[i] += entry * x[columns[e]];
+                sum += entry.Magnitude;
             }
             norm = Math.Max(norm, sum);
         }

@@ -17,11 +17,14 @@ internal readonly record struct NonlinearLoad(int Load, int ColumnA, int ColumnB
 /// KCL at each node; for each section V_a − V_b − N·e − Σ Z·I = 0; for each supply
 /// V_p − V_q + Z_s·I = E; for the fault V_a − V_b − Z_f·I = 0; for each core Σ N·I − Y·e = 0.
 /// Constant-impedance loads are stamped as admittances; the others are left to Newton's method.
+/// The matrix is kept sparse (<see cref="SystemMatrix"/>). Every element stamps entries (i, j) and
+/// (j, i) together, so the pattern is symmetric, which the brush update relies on (a dangling load's
+/// node held at its other end is the exception; the update's residual check refuses what it misses).
 /// </summary>
 internal sealed class MnaSystem
 {
     public int Size;
-    public Complex[,] A = null!;
+    public SystemMatrix A = null!;
     public Complex[] B = null!;
     public readonly List<Element> Unknowns = [];
     public readonly List<Element> Equations = [];
@@ -75,7 +78,7 @@ internal sealed class MnaSystem
             m.Equations.Add(new Element("core", network.Cores[c].Name, network.Cores[c].Source.Line));
         }
         m.Size = m.Unknowns.Count;
-        m.A = new Complex[m.Size, m.Size];
+        m.A = new SystemMatrix(m.Size);
         m.B = new Complex[m.Size];
         m.Stamp(network, group, spec);
         return m;
@@ -85,7 +88,7 @@ internal sealed class MnaSystem
     public MnaSystem Copy()
     {
         var m = (MnaSystem)MemberwiseClone();
-        m.A = (Complex[,])A.Clone();
+        m.A = A.Clone();
         m.B = (Complex[])B.Clone();
         m.NonlinearLoads = [.. NonlinearLoads];
         m.LinearLoads = [.. LinearLoads];
@@ -98,7 +101,7 @@ internal sealed class MnaSystem
     /// </summary>
     public void Restamp(Network network)
     {
-        Array.Clear(A);
+        A.Clear();
         Array.Clear(B);
         NonlinearLoads.Clear();
         LinearLoads.Clear();

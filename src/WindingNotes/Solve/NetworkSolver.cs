@@ -88,7 +88,7 @@ public static class NetworkSolver
         // without the loads: start from the loads as impedances drawing their demand at the source voltage.
         if (first.Status != SolveStatus.Solved && m.NonlinearLoads.Count > 0 && scale > 0)
         {
-            var a0 = (Complex[,])m.A.Clone();
+            var a0 = m.A.Clone();
             foreach (var load in m.NonlinearLoads) Stamp(a0, load, AdmittanceAt(load, scale));
             if (LinearSolver.Solve(a0, m.B) is { Status: SolveStatus.Solved } loaded) first = loaded;
         }
@@ -96,7 +96,7 @@ public static class NetworkSolver
         if (m.NonlinearLoads.Count == 0) return first.X;
 
         // Start Newton from the loads as impedances that draw their demand at the open-circuit voltage.
-        var a = (Complex[,])m.A.Clone();
+        var a = m.A.Clone();
         foreach (var load in m.NonlinearLoads.ToList())
         {
             var v = NewtonSolver.Across(load, first.X);
@@ -119,7 +119,7 @@ public static class NetworkSolver
     private static Complex AdmittanceAt(NonlinearLoad load, double v) =>
         Complex.Conjugate(load.Exponent == 0 ? load.S0 : load.S0 * (v / load.V0)) / (v * v);
 
-    private static void Stamp(Complex[,] a, NonlinearLoad load, Complex y)
+    private static void Stamp(SystemMatrix a, NonlinearLoad load, Complex y)
     {
         if (load.ColumnA >= 0) { a[load.ColumnA, load.ColumnA] += y; if (load.ColumnB >= 0) a[load.ColumnA, load.ColumnB] -= y; }
         if (load.ColumnB >= 0) { a[load.ColumnB, load.ColumnB] += y; if (load.ColumnA >= 0) a[load.ColumnB, load.ColumnA] -= y; }

@@ -72,7 +72,9 @@ internal static class NewtonSolver
         for (var i = 0; i < n; i++)
         {
             var sum = -m.B[i];
-            for (var k = 0; k < n; k++) sum += m.A[i, k] * x[k];
+            var columns = m.A.Columns(i);
+            var values = m.A.Values(i);
+            for (var e = 0; e < columns.Length; e++) sum += values[e] * x[columns[e]];
             f[i] = sum;
         }
         foreach (var load in m.NonlinearLoads)
@@ -97,8 +99,12 @@ internal static class NewtonSolver
             j[2 * row + 1, 2 * column + 1] += s * (a - b).Real;
         }
         for (var r = 0; r < n; r++)
-            for (var c = 0; c < n; c++)
-                if (m.A[r, c] != Complex.Zero) Add(r, c, m.A[r, c], Complex.Zero);
+        {
+            var columns = m.A.Columns(r);
+            var values = m.A.Values(r);
+            for (var e = 0; e < columns.Length; e++)
+                if (values[e] != Complex.Zero) Add(r, columns[e], values[e], Complex.Zero);
+        }
         foreach (var load in m.NonlinearLoads)
         {
             var v = Across(load, x);

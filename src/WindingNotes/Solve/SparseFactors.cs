@@ -23,7 +23,7 @@ internal sealed class SparseFactors : IFactors
         lu = SparseLu.Factor(m);
     }
 
-    public static SparseFactors Of(Complex[,] a, double[] rowScale, double[] columnScale) => new(SparseRows.FromDense(a, rowScale, columnScale));
+    public static SparseFactors Of(SystemMatrix a, double[] rowScale, double[] columnScale) => new(SparseRows.Of(a, rowScale, columnScale));
 
     public double SmallestPivot => lu.SmallestPivot;
     public double LargestPivot => lu.LargestPivot;

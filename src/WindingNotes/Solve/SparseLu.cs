@@ -10,24 +10,27 @@ internal sealed class SparseRows(int size, int[] start, int[] column, Complex[] 
     public int[] Column => column;
     public Complex[] Value => value;
 
-    /// <summary>The nonzero entries of a dense matrix, each scaled by its row's and its column's factor.</summary>
-    public static SparseRows FromDense(Complex[,] a, double[] rowScale, double[] columnScale)
+    /// <summary>The nonzero entries of a system's matrix, each scaled by its row's and its column's factor.</summary>
+    public static SparseRows Of(SystemMatrix a, double[] rowScale, double[] columnScale)
     {
-        var n = a.GetLength(0);
+        var n = a.Size;
         var start = new int[n + 1];
-        var columns = new List<int>();
-        var values = new List<Complex>();
+        var columns = new int[a.Entries];
+        var values = new Complex[columns.Length];
+        var count = 0;
         for (var i = 0; i < n; i++)
         {
-            for (var j = 0; j < n; j++)
-                if (a[i, j] != Complex.Zero)
+            var cs = a.Columns(i);
+            var vs = a.Values(i);
+            for (var e = 0; e < cs.Length; e++)
+                if (vs[e] != Complex.Zero)
                 {
-                    columns.Add(j);
-                    values.Add(a[i, j] * rowScale[i] * columnScale[j]);
+                    columns[count] = cs[e];
+                    values[count++] = vs[e] * rowScale[i] * columnScale[cs[e]];
                 }
-            start[i + 1] = columns.Count;
+            start[i + 1] = count;
         }
-        return new SparseRows(n, start, [.. columns], [.. values]);
+        return new SparseRows(n, start, columns[..count], values[..count]);
     }
 
     public Complex[] Times(Complex[] x)

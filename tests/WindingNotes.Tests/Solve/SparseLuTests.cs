@@ -58,7 +58,7 @@ public class SparseLuTests
         {
             var random = new Random(seed);
             var n = random.Next(1, 80);
-            var a = new Complex[n, n];
+            var a = new SystemMatrix(n);
             // A permuted diagonal keeps it regular; zeros on the diagonal itself make pivoting needed.
             var permutation = Enumerable.Range(0, n).OrderBy(_ => random.Next()).ToArray();
             for (var i = 0; i < n; i++)
@@ -67,7 +67,7 @@ public class SparseLuTests
                 for (var e = random.Next(0, 4); e > 0; e--) a[i, random.Next(n)] += new Complex(random.NextDouble() - 0.5, random.NextDouble() - 0.5);
             }
             var ones = Enumerable.Repeat(1.0, n).ToArray();
-            var m = SparseRows.FromDense(a, ones, ones);
+            var m = SparseRows.Of(a, ones, ones);
             var lu = SparseLu.Factor(m);
             var b = Enumerable.Range(0, n).Select(_ => new Complex(random.NextDouble(), random.NextDouble())).ToArray();
             var x = lu.Solve(b);
@@ -128,7 +128,7 @@ public class SparseLuTests
         var text = RandomNetworks.Write(7, maxCores: 60);
         var m = Systems(text, CaseSpec.Normal).MaxBy(s => s.Size)!;
         var (rows, columns) = LinearSolver.Equilibrate(m.A);
-        var a = SparseRows.FromDense(m.A, rows, columns);
+        var a = SparseRows.Of(m.A, rows, columns);
         var lu = SparseLu.Factor(a);
         Assert.True(m.Size > 100, $"{m.Size} unknowns");
         Assert.True(lu.Entries <= 3 * a.Value.Length, $"{lu.Entries} entries in L and U for {a.Value.Length} in A");
