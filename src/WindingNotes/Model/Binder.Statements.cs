@@ -144,7 +144,8 @@ internal sealed partial class BindRun
         var isBrush = s.Kind == StatementKind.Brush;
         var winding = Resolve(s.Clause("on")?.Name(0), "a winding", SymbolKind.Winding);
         var at = s.Value("at");
-        var position = overrides.Values.TryGetValue(name.Text, out var moved) ? moved : Value(at, $"the position of {name.Text}");
+        // A tap written without its position has none at any sweep point either.
+        var position = at is not null && overrides.Values.TryGetValue(name.Text, out var moved) ? moved : Value(at, $"the position of {name.Text}");
         if (winding is null || position is null || TapPosition(position.Value, at!.Span, name.Text) is not { } place) return;
         TapRange? range = null;
         if (s.Clause("range") is { } r && Value(r.Value(0), "the start of the range") is { } a && Value(r.Value(1), "the end of the range") is { } b

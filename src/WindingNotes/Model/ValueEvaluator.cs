@@ -67,6 +67,12 @@ internal sealed class ValueEvaluator(
             return q;
         }
         spread = Math.Abs(spread);
+        // The value at the edge of its band must be one that can be computed with, as the value itself must.
+        if (!(q.Magnitude * (1 + spread) <= Largest))
+        {
+            diagnostics.ReportOutOfRange(value.Tolerance.Span);
+            return q;
+        }
         Tolerances.Add(new ToleranceSite(value.Span, spread, description));
         return deviations.TryGetValue(value.Span.Start, out var deviation)
             ? q with { Value = q.Value * (1 + deviation * spread) }

@@ -18,6 +18,9 @@ public sealed record FuzzInput(int Seed, string BaseName, string Base, string Te
 /// </summary>
 public static class FuzzInputs
 {
+    /// <summary>The longest input made: a mutation that would make a longer one is left out.</summary>
+    public const int MaxLength = 6_000_000;
+
     /// <summary>With huge inputs on, the last seed of every block of this many is a five-megabyte file.</summary>
     public const int HugeEvery = 5000;
 
@@ -49,6 +52,8 @@ public static class FuzzInputs
         for (var i = 0; i < mutations; i++)
         {
             var (next, what) = Mutate(mutated, random);
+            // Inputs stay within a few megabytes: the mutations of a huge one could otherwise multiply it past memory.
+            if (next.Length > MaxLength) continue;
             mutated = next;
             recipe.Add(what);
         }
@@ -138,7 +143,7 @@ public static class FuzzInputs
             var depth = Pick([1, 2, 10, 63, 64, 65, 200, 3000], r);
             return r.Next(3) == 0 ? new string('(', depth) + t : new string('(', depth) + t + new string(')', depth);
         }),
-        _ => TokenEdit(text, random, "repeat token", (t, r) => string.Join(" ", Enumerable.Repeat(t, Pick([2, 10, 100, 1999, 2001, 5000], r)))),
+        _ => TokenEdit(text, random, "repeat token", (t, r) => string.Join(" ", Enumerable.Repeat(t, Math.Min(Pick([2, 10, 100, 1999, 2001, 5000], r), 1 + MaxLength / (t.Length + 1))))),
     };
 
     private static (string, string) TokenEdit(string text, Random random, string what, Func<string, Random, string> change)
