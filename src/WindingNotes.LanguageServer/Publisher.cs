@@ -17,6 +17,10 @@ internal sealed class Publisher(DocumentWorkspace workspace, Func<PublishDiagnos
     private readonly HashSet<string> busy = [];
     private readonly HashSet<string> dirty = [];
 
+    // As many documents evaluated at once as there are cores: more only share the cores and hold
+    // their half-built evaluations in memory together (50 opened at once would otherwise all run).
+    private readonly SemaphoreSlim evaluating = new(Environment.ProcessorCount);
+
     public void Changed(string uri)
     {
         lock (gate)
@@ -62,6 +66,7 @@ internal sealed class Publisher(DocumentWorkspace workspace, Func<PublishDiagnos
             return;
         }
         Evaluation? evaluation;
+        await evaluating.WaitAsync();
         try
         {
             evaluation = workspace.Evaluate(uri, document.Version);
@@ -69,6 +74,10 @@ internal sealed class Publisher(DocumentWorkspace workspace, Func<PublishDiagnos
         catch (OperationCanceledException)
         {
             return; // overtaken: the change that overtook it has marked the document for another pass
+        }
+        finally
+        {
+            evaluating.Release();
         }
         if (evaluation is not null && workspace.Find(uri)?.Version == document.Version)
             await publish(Conversion.ToLsp(evaluation, uri, document.Version));

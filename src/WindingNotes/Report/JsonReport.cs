@@ -201,6 +201,7 @@ public static class JsonReport
                     w.WriteStartArray("failures");
                     foreach (var f in check.Failures) w.WriteStringValue(f);
                     w.WriteEndArray();
+                    if (check.Failing > check.Failures.Length) w.WriteNumber("failing", check.Failing);
                 }
                 w.WriteString("text", check.Expect.Text);
                 w.WriteEndObject();

@@ -139,7 +139,7 @@ public static class TextReport
         if ((check.Points > 1 || check.Min != check.Max) && check.Min is { } min && check.Max is { } max)
             value += $"; {DiagnosticBag.Show(min, check.Expect.Unit)} to {DiagnosticBag.Show(max, check.Expect.Unit)} over {check.Points} point{(check.Points == 1 ? "" : "s")}{(check.Min != check.Max && check.Points == 1 ? " and the tolerance band" : "")}";
         if (!check.Failures.IsEmpty && check.Points > 1)
-            value += $"; fails at {check.Failures.Length}: {DiagnosticBag.ListPoints(check.Failures)}";
+            value += $"; fails at {check.Failing}: {DiagnosticBag.ListPoints(check.Failures)}";
         return value;
     }
 

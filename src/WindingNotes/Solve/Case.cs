@@ -61,4 +61,23 @@ public sealed record Solution(
     public Complex LoadVoltage(LoadNet l) => Voltage(l.NodeA) - Voltage(l.NodeB);
 
     public Complex SupplyVoltage(SupplyNet s) => Voltage(s.NodeP) - Voltage(s.NodeQ);
+
+    /// <summary>The part of the network the case solved when it is not all of it; null when it is.</summary>
+    public CaseScope? Scope { get; init; }
+
+    /// <summary>False once <see cref="Compact"/> has let the vectors go.</summary>
+    public bool HasVectors => NodeVoltages.Length == Network.Nodes.Length;
+
+    /// <summary>
+    /// The same solution without its vectors, once its case's results hold what they say: the study
+    /// keeps fault cases and sweep points so, and a file of many units and faults, or a long sweep,
+    /// then holds its results and not every unknown of every case besides.
+    /// </summary>
+    public Solution Compact() => this with { NodeVoltages = [], SectionCurrents = [], CoreVoltsPerTurn = [], SupplyCurrents = [], LoadCurrents = [] };
 }
+
+/// <summary>
+/// The elements of the part of the network a case is about. A fault changes only the independent
+/// part it is in, so its case solves and reports that part; every other part is as in the normal case.
+/// </summary>
+public sealed record CaseScope(IReadOnlySet<string> Points, IReadOnlySet<int> Sections, IReadOnlySet<int> Cores, IReadOnlySet<int> Supplies, IReadOnlySet<int> Loads);

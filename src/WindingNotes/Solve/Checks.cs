@@ -17,6 +17,9 @@ public sealed record CheckResult(ExpectModel Expect, bool Passed, double? Value)
 
     public ImmutableArray<string> Failures { get; init; } = [];
 
+    /// <summary>How many points it failed at; <see cref="Failures"/> names the first <see cref="CheckTally.Named"/> of them.</summary>
+    public int Failing { get; init; }
+
     public int Points { get; init; } = 1;
 }
 
@@ -106,6 +109,9 @@ public static class Checks
 /// <summary>Gathers, per expect line, what each point and sample measured, then reports once per line.</summary>
 public sealed class CheckTally(ImmutableArray<ExpectModel> expects)
 {
+    /// <summary>The failing points named at most, per check: a long sweep may fail at a million.</summary>
+    public const int Named = 1000;
+
     private readonly Entry[] entries = [.. expects.Select(e => new Entry(e))];
     private int points;
     private string point = "";
@@ -117,6 +123,7 @@ public sealed class CheckTally(ImmutableArray<ExpectModel> expects)
         public string? Problem;
         public double Min = double.PositiveInfinity, Max = double.NegativeInfinity;
         public readonly List<string> Failures = [];
+        public int Failing;
         public double WorstExcess = double.NegativeInfinity;
         public double? WorstValue;
         public string WorstWhere = "";
@@ -165,7 +172,7 @@ public sealed class CheckTally(ImmutableArray<ExpectModel> expects)
 
     private void Fail(Entry e, double? value, double excess, string? sample)
     {
-        if (!e.FailedHere) e.Failures.Add(point);
+        if (!e.FailedHere && e.Failing++ < Named) e.Failures.Add(point);
         e.FailedHere = true;
         if (value is null || excess <= e.WorstExcess) return;
         e.WorstExcess = excess;
@@ -179,16 +186,17 @@ public sealed class CheckTally(ImmutableArray<ExpectModel> expects)
         var results = ImmutableArray.CreateBuilder<CheckResult>();
         foreach (var e in entries)
         {
-            var result = new CheckResult(e.Expect, e.Failures.Count == 0, e.Nominal)
+            var result = new CheckResult(e.Expect, e.Failing == 0, e.Nominal)
             {
                 Min = double.IsFinite(e.Min) ? e.Min : null,
                 Max = double.IsFinite(e.Max) ? e.Max : null,
                 Failures = [.. e.Failures],
+                Failing = e.Failing,
                 Points = points,
             };
             if (e.Problem is { } problem) diagnostics.ReportCannotCheck(e.Expect, problem);
-            else if (e.Failures.Count > 0 && e.WorstValue is { } worst) diagnostics.ReportCheckFailed(e.Expect, worst, e.WorstWhere, e.Failures, points);
-            else if (e.Failures.Count > 0) diagnostics.ReportCannotCheck(e.Expect, $"not solved at {DiagnosticBag.ListPoints(e.Failures)}");
+            else if (e.Failing > 0 && e.WorstValue is { } worst) diagnostics.ReportCheckFailed(e.Expect, worst, e.WorstWhere, e.Failures, e.Failing, points);
+            else if (e.Failing > 0) diagnostics.ReportCannotCheck(e.Expect, $"not solved at {DiagnosticBag.ListPoints(e.Failures)}");
             results.Add(result);
         }
         return results.ToImmutable();

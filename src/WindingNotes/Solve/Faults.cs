@@ -50,7 +50,7 @@ public static class Faults
         string? worstWinding = null;
         var worstTouches = false;
         var (a, b) = (network.Node(f.A.Name), network.Node(f.B.Name));
-        foreach (var s in network.Sections)
+        foreach (var s in network.Sections.Where(s => fault.Scope?.Sections.Contains(s.Index) ?? true))
         {
             if (network.Windings[s.Winding].RatedCurrent is not { } rated || rated <= 0) continue;
             var multiple = fault.SectionCurrents[s.Index].Magnitude / rated;

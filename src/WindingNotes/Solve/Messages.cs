@@ -57,11 +57,11 @@ public sealed partial class DiagnosticBag
     /// A check that failed: the worst value and where it was; over a sweep or a band, at how many of
     /// the points it failed, naming the first of them.
     /// </summary>
-    public Diagnostic ReportCheckFailed(ExpectModel expect, double value, string where, IReadOnlyList<string> failing, int points)
+    public Diagnostic ReportCheckFailed(ExpectModel expect, double value, string where, IReadOnlyList<string> failing, int count, int points)
     {
         var at = where.Length == 0 ? "" : $" {where}";
-        var count = points > 1 ? $"; fails at {failing.Count} of {points} points: {ListPoints(failing)}" : "";
-        return Error("expect-failed", expect.Line, $"{expect.MeasureText} is {Show(value, expect.Unit)}{at}: expected {expect.ConditionText}{count}");
+        var over = points > 1 ? $"; fails at {count} of {points} points: {ListPoints(failing)}" : "";
+        return Error("expect-failed", expect.Line, $"{expect.MeasureText} is {Show(value, expect.Unit)}{at}: expected {expect.ConditionText}{over}");
     }
 
     /// <summary>"as written, BR=90 %, BR=100 %", the first six and an ellipsis.</summary>
@@ -95,6 +95,11 @@ public sealed partial class DiagnosticBag
         Error("time-limit", default, $"the evaluation reached its time limit of {Seconds(limit)} while {stage}: there are no results");
 
     private static string Seconds(TimeSpan t) => $"{Numbers.Plain(t.TotalSeconds)} s";
+
+    /// <summary>A long sweep whose results are kept only at some of its points: which, and that the checks saw them all.</summary>
+    public Diagnostic ReportSweepThinned(TextSpan span, long solved, long kept, long stride) =>
+        Info("sweep-thinned", span,
+            $"{Thousands(solved)} sweep points solved: checks, ratings and cautions cover every one; the results of {Thousands(kept)} are kept, one point in every {Thousands(stride)} and the last");
 
     public Diagnostic ReportSweepDuplicate(TextSpan span, string name, TextSpan first) =>
         Amend(Error("sweep-duplicate", span, $"'{name}' is swept twice"), d => d with { Related = [new RelatedSpan("first swept here", first)] });

@@ -12,40 +12,46 @@ namespace WindingNotes.Solve;
 /// </summary>
 public static class NetworkSolver
 {
-    public static Solution Solve(Network network, CaseSpec spec, CancellationToken cancel = default) => Solve(network, spec, cancel, null);
-
-    /// <param name="parts">Parts solved before in another case of the same network (the normal case for its faults): a part the
-    /// case leaves as it was is taken from there, and every part solved cleanly here is kept there.</param>
-    internal static Solution Solve(Network network, CaseSpec spec, CancellationToken cancel, SolvedParts? parts)
+    public static Solution Solve(Network network, CaseSpec spec, CancellationToken cancel = default)
     {
         var diagnostics = new DiagnosticBag();
         var prefix = spec == CaseSpec.Normal ? "" : $"in case '{spec.Name}': ";
         (int, int)[] extra = spec.Fault is { } f ? [(network.Node(f.A.Name), network.Node(f.B.Name))] : [];
         var reference = Islands.References(network, extra);
-        var solvedParts = new List<(MnaSystem, Complex[])>();
+        var parts = new List<(MnaSystem, Complex[])>();
         var solved = true;
 
-        foreach (var group in SolveGroup.Find(network, spec))
+        var groups = SolveGroup.Find(network, spec);
+        // A fault leaves every part but its own as the normal case has it: its case is that part alone.
+        var faulted = groups.Where(g => g.HasFault).ToList();
+        if (faulted.Count > 0) groups = faulted;
+        foreach (var group in groups)
         {
             cancel.ThrowIfCancellationRequested();
             // A part with no source carries no current and no voltage.
             if (group.Supplies.Count == 0) continue;
-            if (parts?.Find(group, reference, spec) is { } known)
-            {
-                solvedParts.Add(known);
-                continue;
-            }
             var m = MnaSystem.Assemble(network, group, reference, spec);
-            var before = diagnostics.Count;
             var x = SolveSystem(m, network, diagnostics, prefix, cancel);
             if (x is null) solved = false;
-            else
-            {
-                solvedParts.Add((m, x));
-                if (diagnostics.Count == before) parts?.Keep(group, reference, spec, m, x);
-            }
+            else parts.Add((m, x));
         }
-        return Collect(network, spec, solvedParts, solved, diagnostics.ToImmutable());
+        var solution = Collect(network, spec, parts, solved, diagnostics.ToImmutable());
+        return faulted.Count > 0 ? solution with { Scope = ScopeOf(network, spec, faulted) } : solution;
+    }
+
+    /// <summary>The elements of the parts, and their points: those on their nodes, and at earth those their elements name.</summary>
+    private static CaseScope ScopeOf(Network network, CaseSpec spec, List<SolveGroup> groups)
+    {
+        var nodes = groups.SelectMany(g => g.Nodes).ToHashSet();
+        var sections = groups.SelectMany(g => g.Sections).ToHashSet();
+        var supplies = groups.SelectMany(g => g.Supplies).ToHashSet();
+        var loads = groups.SelectMany(g => g.Loads).ToHashSet();
+        var points = network.Model.Points.Select(p => p.Name).Where(p => nodes.Contains(network.Node(p))).ToHashSet(StringComparer.Ordinal);
+        foreach (var k in sections) points.UnionWith([network.Sections[k].FromPoint, network.Sections[k].ToPoint]);
+        foreach (var i in supplies) points.UnionWith([network.Supplies[i].Source.Positive.Name, network.Supplies[i].Source.Negative.Name]);
+        foreach (var i in loads) points.UnionWith([network.Loads[i].Source.A.Name, network.Loads[i].Source.B.Name]);
+        if (spec.Fault is { } f) points.UnionWith([f.A.Name, f.B.Name]);
+        return new CaseScope(points, sections, groups.SelectMany(g => g.Cores).ToHashSet(), supplies, loads);
     }
 
     /// <summary>The solution from the solved unknowns of each part (parts not listed carry nothing).</summary>
@@ -189,34 +195,5 @@ public static class NetworkSolver
                 var v = values[i];
                 values[i] = new Complex(Math.Abs(v.Real) <= limit ? 0 : v.Real, Math.Abs(v.Imaginary) <= limit ? 0 : v.Imaginary);
             }
-    }
-}
-
-/// <summary>
-/// Parts of a network solved cleanly in one case, for the other cases of the same network: a fault
-/// changes only the part it is in, so every other part has the same system, and so the same
-/// solution. Only parts that reported nothing are kept, so a case that takes one over says what it
-/// would have said: nothing.
-/// </summary>
-internal sealed class SolvedParts
-{
-    private readonly Dictionary<(int, int, bool), (SolveGroup Group, int[] Reference, MnaSystem System, Complex[] X)> parts = [];
-
-    private static (int, int, bool) Key(SolveGroup g, CaseSpec spec) =>
-        (g.Nodes.Count > 0 ? g.Nodes[0] : -1, g.Sections.Count > 0 ? g.Sections[0] : -1, spec.WithoutLoads);
-
-    public void Keep(SolveGroup group, int[] reference, CaseSpec spec, MnaSystem system, Complex[] x)
-    {
-        if (!group.HasFault) parts[Key(group, spec)] = (group, reference, system, x);
-    }
-
-    /// <summary>The part solved before with the same elements, references and loads, if any.</summary>
-    public (MnaSystem, Complex[])? Find(SolveGroup group, int[] reference, CaseSpec spec)
-    {
-        if (group.HasFault || !parts.TryGetValue(Key(group, spec), out var p)) return null;
-        var (g, r) = (p.Group, p.Reference);
-        var same = g.Nodes.SequenceEqual(group.Nodes) && g.Sections.SequenceEqual(group.Sections) && g.Supplies.SequenceEqual(group.Supplies)
-            && g.Loads.SequenceEqual(group.Loads) && g.Cores.SequenceEqual(group.Cores) && group.Nodes.All(n => r[n] == reference[n]);
-        return same ? (p.System, p.X) : null;
     }
 }

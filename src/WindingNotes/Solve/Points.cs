@@ -31,16 +31,11 @@ public static class Points
         return solved with { Diagnostics = [.. model.Diagnostics, .. network.Diagnostics, .. solved.Diagnostics] };
     }
 
-    public static PointResult Solve(Network network, CaseSpec spec, bool withFaults, CancellationToken cancel)
-    {
-        // The faults take over from the case every part they leave as it was.
-        var parts = withFaults ? new SolvedParts() : null;
-        return Solve(network, spec, withFaults, c => NetworkSolver.Solve(network, c, cancel, c == spec ? parts : null), cancel, parts);
-    }
+    public static PointResult Solve(Network network, CaseSpec spec, bool withFaults, CancellationToken cancel) =>
+        Solve(network, spec, withFaults, c => NetworkSolver.Solve(network, c, cancel), cancel);
 
     /// <summary>The same with the case and its no-load companion solved by <paramref name="solve"/>, which must give what <see cref="NetworkSolver"/> gives.</summary>
-    internal static PointResult Solve(Network network, CaseSpec spec, bool withFaults, Func<CaseSpec, Solution> solve, CancellationToken cancel,
-        SolvedParts? parts = null)
+    internal static PointResult Solve(Network network, CaseSpec spec, bool withFaults, Func<CaseSpec, Solution> solve, CancellationToken cancel)
     {
         var diagnostics = ImmutableArray.CreateBuilder<Diagnostic>();
         var main = solve(spec);
@@ -60,7 +55,7 @@ public static class Points
         if (withFaults)
             foreach (var fault in network.Model.Faults)
             {
-                var solved = NetworkSolver.Solve(network, CaseSpec.ForFault(fault), cancel, parts);
+                var solved = NetworkSolver.Solve(network, CaseSpec.ForFault(fault), cancel);
                 // A load the fault shorts has no voltage: that is the fault, not something to warn about.
                 diagnostics.AddRange(solved.Diagnostics.Where(d => d.Code != "load-without-voltage"));
                 if (solved.Solved) faults.Add(Results.Compute(solved, null, main));

@@ -98,16 +98,20 @@ public static class Results
     public static readonly double FormFactor = 2 * Math.PI / Math.Sqrt(2);
 
     /// <summary>
-    /// The results of a solved case. <paramref name="noLoad"/> (the same network without loads) gives
-    /// the regulation; <paramref name="normal"/> (the case without the fault) gives a fault's X/R.
+    /// The results of a solved case: of the whole network, or of the part its <see cref="Solution.Scope"/>
+    /// names (a fault's). <paramref name="noLoad"/> (the same network without loads) gives the
+    /// regulation; <paramref name="normal"/> (the case without the fault) gives a fault's X/R.
     /// </summary>
     public static CaseResult Compute(Solution solution, Solution? noLoad, Solution? normal = null)
     {
         var network = solution.Network;
         var model = network.Model;
-        var points = model.Points.Select(p => (p.Name, solution.Voltage(network.Node(p.Name)))).ToImmutableArray();
+        var scope = solution.Scope;
+        var points = model.Points
+            .Where(p => scope is null || scope.Points.Contains(p.Name))
+            .Select(p => (p.Name, solution.Voltage(network.Node(p.Name)))).ToImmutableArray();
 
-        var sections = network.Sections.Select(s =>
+        var sections = network.Sections.Where(s => scope is null || scope.Sections.Contains(s.Index)).Select(s =>
         {
             var w = network.Windings[s.Winding];
             var i = solution.SectionCurrents[s.Index];
@@ -119,7 +123,7 @@ public static class Results
             };
         }).ToImmutableArray();
 
-        var cores = network.Cores.Select(c =>
+        var cores = network.Cores.Where(c => scope is null || scope.Cores.Contains(c.Index)).Select(c =>
         {
             var e = solution.CoreVoltsPerTurn[c.Index];
             var known = c.Sections.All(k => network.Windings[network.Sections[k].Winding].TurnsKnown) && c.Sections.Length > 0;
@@ -133,14 +137,14 @@ public static class Results
             };
         }).ToImmutableArray();
 
-        var supplies = network.Supplies.Select(s =>
+        var supplies = network.Supplies.Where(s => scope is null || scope.Supplies.Contains(s.Index)).Select(s =>
         {
             var v = solution.SupplyVoltage(s);
             var i = solution.SupplyCurrents[s.Index];
             return new SupplyResult(s, v, i, Clean(v * Complex.Conjugate(i)));
         }).ToImmutableArray();
 
-        var loads = network.Loads.Select(l =>
+        var loads = network.Loads.Where(l => scope is null || scope.Loads.Contains(l.Index)).Select(l =>
         {
             var v = solution.LoadVoltage(l);
             var i = solution.LoadCurrents[l.Index];

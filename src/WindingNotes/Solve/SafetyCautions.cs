@@ -10,11 +10,14 @@ namespace WindingNotes.Solve;
 /// </summary>
 public static class SafetyCautions
 {
-    /// <summary><paramref name="cases"/>: the normal case, the fault cases and the sweep points.</summary>
-    public static void Report(Network network, IReadOnlyList<CaseResult> cases, DiagnosticBag diagnostics)
+    /// <summary>
+    /// <paramref name="cases"/>: the cases kept (the normal case, the fault cases, sweep points);
+    /// <paramref name="outputs"/> has seen every operating point, kept or not.
+    /// </summary>
+    public static void Report(Network network, IReadOnlyList<CaseResult> cases, OutputTally outputs, DiagnosticBag diagnostics)
     {
         var model = network.Model;
-        var connections = Connections.Find(network);
+        var connections = outputs.Connections;
         var warned = new HashSet<string>(StringComparer.Ordinal);
         foreach (var c in connections)
         {
@@ -31,17 +34,9 @@ public static class SafetyCautions
         foreach (var brush in model.Taps.Where(t => t.IsBrush && wound.Contains(t.Winding)))
             diagnostics.ReportFuseOutput(brush.NameSpan, brush.Name);
 
-        var operating = cases.Where(x => x.Case.Fault is null && !x.Case.WithoutLoads).ToList();
-        foreach (var c in connections)
+        foreach (var (c, highest) in connections.Zip(outputs.Highest))
         {
             var load = c.Load.Source;
-            (double Ratio, double Load, double Supply, string Where) highest = (0, 0, 0, "");
-            foreach (var x in operating)
-            {
-                var vl = x.Loads[c.Load.Index].Voltage.Magnitude;
-                var vs = x.Supplies[c.Supply.Index].Voltage.Magnitude;
-                if (vs > 0 && vl / vs > highest.Ratio) highest = (vl / vs, vl, vs, x.Case.Where == "as written" ? "" : $"at {x.Case.Where}");
-            }
             if (highest.Ratio <= 1 + 1e-6) continue;
             // Where the output hangs on a brush, the brush's line is where the setting is made.
             var brush = new[] { load.A.Name, load.B.Name }.Select(brushes.GetValueOrDefault).OfType<TapModel>().MinBy(t => t.NameSpan.Start);
@@ -51,5 +46,28 @@ public static class SafetyCautions
 
         foreach (var f in cases.Select(x => x.Fault).OfType<FaultResult>())
             diagnostics.ReportFaultDuty(f.Fault.NameSpan, f.Fault.Name, f.Current.Magnitude, f.Peak, f.WorstMultiple, f.WorstWinding);
+    }
+}
+
+/// <summary>
+/// The highest output against supply of each autotransformer connection, over every operating point
+/// (the normal case and each sweep point) as it is solved: a long sweep keeps only some of its points.
+/// </summary>
+public sealed class OutputTally(Network network)
+{
+    public IReadOnlyList<Connection> Connections { get; } = Solve.Connections.Find(network);
+
+    public List<(double Ratio, double Load, double Supply, string Where)> Highest { get; } = [];
+
+    public void Observe(CaseResult x)
+    {
+        if (Highest.Count == 0) Highest.AddRange(Connections.Select(_ => (0.0, 0.0, 0.0, "")));
+        for (var i = 0; i < Connections.Count; i++)
+        {
+            var c = Connections[i];
+            var vl = x.Loads[c.Load.Index].Voltage.Magnitude;
+            var vs = x.Supplies[c.Supply.Index].Voltage.Magnitude;
+            if (vs > 0 && vl / vs > Highest[i].Ratio) Highest[i] = (vl / vs, vl, vs, x.Case.Where == "as written" ? "" : $"at {x.Case.Where}");
+        }
     }
 }

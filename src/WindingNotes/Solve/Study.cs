@@ -40,17 +40,20 @@ public static class Study
         var run = new PointRun(syntax, new BrushSweep(syntax, model), diagnostics, cancel, progress, samples.Length + points * (1 + (bandsAtPoints ? samples.Length : 0)));
         var checks = new CheckTally(model.Expects);
         var ratings = new RatingTally();
+        var outputs = new OutputTally(network);
         var cases = ImmutableArray.CreateBuilder<CaseResult>();
+        var kept = new KeptPoints(Sweeps.KeptFor(normal));
 
         checks.BeginPoint(normal.Case.Where);
         checks.Observe(normal, null);
         ratings.Observe(nominal);
+        outputs.Observe(normal);
         var stopped = false;
         try
         {
             var (normalBands, faultBands) = SampleNominal();
             cases.Add(normal with { Bands = normalBands });
-            cases.AddRange(nominal.Faults.Select((f, i) => f with { Bands = faultBands.IsEmpty ? [] : faultBands[i] }));
+            cases.AddRange(nominal.Faults.Select((f, i) => Kept(f) with { Bands = faultBands.IsEmpty ? [] : faultBands[i] }));
             for (long k = 0; k < points; k++) SweepPoint(k);
         }
         catch (OperationCanceledException) when (budget.Exceeded)
@@ -59,14 +62,16 @@ public static class Study
             if (cases.Count == 0)
             {
                 cases.Add(normal);
-                cases.AddRange(nominal.Faults);
+                cases.AddRange(nominal.Faults.Select(Kept));
             }
         }
 
+        cases.AddRange(kept.Cases);
         var all = cases.ToImmutable();
+        if (kept.Stride > 1) diagnostics.ReportSweepThinned(model.Sweeps[0].Line, kept.Solved, kept.Count, kept.Stride);
         var checkResults = checks.Finish(diagnostics);
         ratings.Report(diagnostics);
-        SafetyCautions.Report(network, all, diagnostics);
+        SafetyCautions.Report(network, all, outputs, diagnostics);
         run.ReportNew();
         if (stopped)
             diagnostics.ReportTimeLimit(model.Sweeps.FirstOrDefault()?.Line ?? model.Tolerances.FirstOrDefault()?.Span ?? default, budget.Limit, run.Done, run.Total);
@@ -107,9 +112,10 @@ public static class Study
             }
             checks.Observe(at, null);
             ratings.Observe(p);
+            outputs.Observe(at);
             if (!bandsAtPoints)
             {
-                cases.Add(at);
+                kept.Add(k, Kept(at));
                 return;
             }
             var bands = new BandSet(at);
@@ -123,9 +129,12 @@ public static class Study
                     bands.Add(s.Case);
                 }
             }
-            cases.Add(at with { Bands = bands.ToBands() });
+            kept.Add(k, Kept(at) with { Bands = bands.ToBands() });
         }
     }
+
+    /// <summary>A fault case or a sweep point as the study keeps it: its results, not its solver's vectors.</summary>
+    private static CaseResult Kept(CaseResult c) => c with { Solution = c.Solution.Compact() };
 
     /// <summary>
     /// Solves points after the nominal one and keeps what they report that the nominal evaluation did

