@@ -18,6 +18,9 @@ public static class PhasorDiagram
 {
     private const double NameSize = 10, ValueSize = 9;
 
+    /// <summary>More texts than this do not fit on the grids legibly (a file of thousands of nodes would otherwise try each label against thousands).</summary>
+    private const int MaxLabels = 400;
+
     /// <summary>Node voltages within this ratio of the highest on a grid share it.</summary>
     private const double LevelRatio = 3;
 
@@ -172,9 +175,13 @@ public static class PhasorDiagram
         svg.Path($"M{Svg.N(x1)} {Svg.N(y1)} L{Svg.N(bx - uy * head * 0.38)} {Svg.N(by + ux * head * 0.38)} L{Svg.N(bx + uy * head * 0.38)} {Svg.N(by - ux * head * 0.38)} Z", style + "-head");
     }
 
-    /// <summary>The name just past the tip; moved further out along the arrow while it would cover another label, left out if it cannot be placed.</summary>
+    /// <summary>
+    /// The name just past the tip; moved further out along the arrow while it would cover another label, left out if it cannot be placed
+    /// or when the grids already hold <see cref="MaxLabels"/> texts (each one is tried against all of them; the table names every phasor).
+    /// </summary>
     private static void Label(Svg svg, List<Box> taken, string text, double x0, double y0, double x1, double y1, string style)
     {
+        if (taken.Count >= MaxLabels) return;
         var length = Math.Max(1, Math.Sqrt((x1 - x0) * (x1 - x0) + (y1 - y0) * (y1 - y0)));
         var (ux, uy) = ((x1 - x0) / length, (y1 - y0) / length);
         var anchor = ux > 0.35 ? Anchor.Start : ux < -0.35 ? Anchor.End : Anchor.Middle;
