@@ -53,9 +53,9 @@ public static class Sweeps
     /// </summary>
     public const int KeptElements = 100_000;
 
-    /// <summary>The sweep points kept of a network whose normal case has <paramref name="c"/>'s elements.</summary>
+    /// <summary>The sweep points kept of a network whose normal case has <paramref name="c"/>'s elements: at least the first and the last.</summary>
     public static int KeptFor(CaseResult c) =>
-        Math.Clamp(KeptElements / Math.Max(1, c.Points.Length + c.Sections.Length + c.Cores.Length + c.Supplies.Length + c.Loads.Length), 16, Kept);
+        Math.Clamp(KeptElements / Math.Max(1, c.Points.Length + c.Sections.Length + c.Cores.Length + c.Supplies.Length + c.Loads.Length), 2, Kept);
 
     /// <summary>The axes to run, or none after a diagnostic when a sweep line cannot run or the grid is over the budget.</summary>
     public static ImmutableArray<SweepAxis> Plan(Model.Model model, DiagnosticBag diagnostics)

@@ -9,7 +9,8 @@ namespace WindingNotes.Tests.Robustness;
 /// The fuzzer: seeded mutations of the examples and of generated files through every stage, report
 /// and editor feature (<see cref="FuzzTarget"/>), each input under a time budget the test enforces.
 /// CI runs 5,000 inputs; <c>WN_FUZZ_INPUTS=100000</c> runs the long one and <c>WN_FUZZ_SEED=N</c>
-/// starts at seed N, so <c>WN_FUZZ_SEED=N WN_FUZZ_INPUTS=1</c> replays one failure.
+/// starts at seed N, so <c>WN_FUZZ_SEED=N WN_FUZZ_INPUTS=1</c> replays one failure (with
+/// <c>WN_FUZZ_HUGE=1</c> for a five-megabyte one of the long run).
 /// </summary>
 public class FuzzTests(ITestOutputHelper output)
 {
@@ -23,8 +24,9 @@ public class FuzzTests(ITestOutputHelper output)
         var count = Setting("WN_FUZZ_INPUTS", 5000);
         var failures = new ConcurrentBag<(int Seed, string Report)>();
         var slowest = new ConcurrentBag<(TimeSpan Time, int Seed, string Recipe)>();
-        // Five-megabyte inputs cost seconds each: the short run leaves them to a test of their own.
-        var huge = count > 5000;
+        // Five-megabyte inputs cost seconds each: the short run leaves them to a test of their own;
+        // WN_FUZZ_HUGE=1 turns them on for a replay of one (seeds 4999, 9999, …).
+        var huge = Setting("WN_FUZZ_HUGE", count > 5000 ? 1 : 0) == 1;
         var clock = Stopwatch.StartNew();
         Parallel.For(first, first + count, new ParallelOptions { MaxDegreeOfParallelism = Environment.ProcessorCount }, seed =>
         {
