@@ -4,7 +4,7 @@ using Xunit;
 namespace WindingNotes.Tests.Robustness;
 
 /// <summary>
-/// Inputs the fuzzer found that broke something, kept exactly: as <c>Data/fuzz/seed-N.wn</c> (the
+/// Inputs the fuzzer found that broke something, kept exactly: as <c>Data/fuzz/input-N.wn</c> (the
 /// seed replays the same positions and renames), or here as C# strings where the text holds what no
 /// UTF-8 file can (a lone surrogate). <c>Data/fuzz/README.md</c> says what each one broke.
 /// </summary>
@@ -23,5 +23,5 @@ public static class FuzzRegressions
     public static (int Seed, string Text) Input(string name) =>
         Strings.TryGetValue(name, out var input)
             ? input
-            : (int.Parse(Path.GetFileNameWithoutExtension(name)["seed-".Length..]), File.ReadAllText(Path.Combine(Folder, name)));
+            : (int.Parse(Path.GetFileNameWithoutExtension(name)["input-".Length..]), File.ReadAllText(Path.Combine(Folder, name)));
 }

@@ -43,7 +43,7 @@ public class FuzzTests(ITestOutputHelper output)
         if (Environment.GetEnvironmentVariable("WN_FUZZ_OUT") is { Length: > 0 } folder)
         {
             Directory.CreateDirectory(folder);
-            foreach (var (seed, report) in sorted) File.WriteAllText(Path.Combine(folder, $"seed-{seed}.txt"), report);
+            foreach (var (seed, report) in sorted) File.WriteAllText(Path.Combine(folder, $"input-{seed}.txt"), report);
         }
         foreach (var kind in sorted.GroupBy(f => Kind(f.Report)).OrderByDescending(g => g.Count()))
             output.WriteLine($"  {kind.Count(),6} x {kind.Key} (first: seed {kind.First().Seed})");
