@@ -30,6 +30,7 @@ internal sealed class LowRankUpdate
     private readonly Complex[] firstB;
     private readonly bool[] inS;
     private readonly Complex[][] work;
+    private Complex[,] small = new Complex[0, 0];
     private readonly Dictionary<string, Complex[][]> solves = [];
 
     private LowRankUpdate(MnaSystem first, double[] rows, double[] columns, SparseLu lu)
@@ -105,7 +106,9 @@ internal sealed class LowRankUpdate
         }
         // K = I + V·W and V·z, with V's first k rows R = Δ[S, :] and the others E_Sᵀ.
         var size = 2 * k;
-        var kk = new Complex[size, size];
+        if (small.GetLength(0) != size) small = new Complex[size, size];
+        else Array.Clear(small);
+        var kk = small;
         var rhs = new Complex[size];
         for (var t = 0; t < k; t++)
         {

@@ -114,14 +114,14 @@ internal sealed class MnaSystem
         // Branch current leaving node a and entering node b.
         void Branch(int column, int a, int b)
         {
-            if (Column(a) is var ra and >= 0) A[ra, column] += 1;
-            if (Column(b) is var rb and >= 0) A[rb, column] -= 1;
+            if (Column(a) is var ra and >= 0) A.Add(ra, column, 1);
+            if (Column(b) is var rb and >= 0) A.Add(rb, column, -1);
         }
         // Row gets +V_a − V_b.
         void Across(int row, int a, int b)
         {
-            if (Column(a) is var ca and >= 0) A[row, ca] += 1;
-            if (Column(b) is var cb and >= 0) A[row, cb] -= 1;
+            if (Column(a) is var ca and >= 0) A.Add(row, ca, 1);
+            if (Column(b) is var cb and >= 0) A.Add(row, cb, -1);
         }
 
         foreach (var k in group.Sections)
@@ -131,14 +131,14 @@ internal sealed class MnaSystem
             Branch(row, s.NodeA, s.NodeB);
             Across(row, s.NodeA, s.NodeB);
             var core = network.Cores[s.Core];
-            A[row, CoreColumn[s.Core]] -= s.Turns;
-            A[CoreColumn[s.Core], row] += s.Turns;
+            A.Add(row, CoreColumn[s.Core], -s.Turns);
+            A.Add(CoreColumn[s.Core], row, s.Turns);
             var r = core.Sections.IndexOf(k);
             for (var c = 0; c < core.Sections.Length; c++)
-                A[row, SectionColumn[core.Sections[c]]] -= core.Impedance[r, c];
+                A.Add(row, SectionColumn[core.Sections[c]], -core.Impedance[r, c]);
         }
         foreach (var c in group.Cores)
-            A[CoreColumn[c], CoreColumn[c]] -= network.Cores[c].Admittance;
+            A.Add(CoreColumn[c], CoreColumn[c], -network.Cores[c].Admittance);
         foreach (var i in group.Supplies)
         {
             var s = network.Supplies[i];
@@ -146,7 +146,7 @@ internal sealed class MnaSystem
             // The supply's current leaves its positive terminal into the network.
             Branch(row, s.NodeQ, s.NodeP);
             Across(row, s.NodeP, s.NodeQ);
-            A[row, row] += s.Impedance;
+            A.Add(row, row, s.Impedance);
             B[row] = s.Voltage;
             HasSource |= s.Voltage != Complex.Zero;
         }
@@ -155,7 +155,7 @@ internal sealed class MnaSystem
             var (a, b) = (network.Node(spec.Fault!.A.Name), network.Node(spec.Fault.B.Name));
             Branch(FaultColumn, a, b);
             Across(FaultColumn, a, b);
-            A[FaultColumn, FaultColumn] -= spec.Fault.Impedance;
+            A.Add(FaultColumn, FaultColumn, -spec.Fault.Impedance);
         }
         if (spec.WithoutLoads) return;
         foreach (var i in group.Loads)
@@ -166,8 +166,8 @@ internal sealed class MnaSystem
             {
                 // Constant impedance: the S drawn at 1 V is |V|²·conj(Y), so Y = conj(S0)/V0².
                 var y = Complex.Conjugate(l.Source.S0) / (l.Source.V0 * l.Source.V0);
-                if (ca >= 0) { A[ca, ca] += y; if (cb >= 0) A[ca, cb] -= y; }
-                if (cb >= 0) { A[cb, cb] += y; if (ca >= 0) A[cb, ca] -= y; }
+                if (ca >= 0) { A.Add(ca, ca, y); if (cb >= 0) A.Add(ca, cb, -y); }
+                if (cb >= 0) { A.Add(cb, cb, y); if (ca >= 0) A.Add(cb, ca, -y); }
                 LinearLoads.Add((i, ca, cb));
             }
             else NonlinearLoads.Add(new NonlinearLoad(i, ca, cb, l.Source.S0, l.Source.V0, l.Source.Exponent));

@@ -56,6 +56,14 @@ internal sealed class SystemMatrix
         }
     }
 
+    /// <summary>Adds to an entry, finding its place once (the stamps' <c>+=</c>).</summary>
+    public void Add(int row, int column, Complex value)
+    {
+        var at = Array.BinarySearch(columns[row], 0, counts[row], column);
+        if (at < 0) at = Insert(row, ~at, column);
+        values[row][at] += value;
+    }
+
     private int Insert(int row, int at, int column)
     {
         var count = counts[row];
@@ -68,6 +76,7 @@ internal sealed class SystemMatrix
         Array.Copy(columns[row], at, columns[row], at + 1, count - at);
         Array.Copy(values[row], at, values[row], at + 1, count - at);
         columns[row][at] = column;
+        values[row][at] = Complex.Zero;
         counts[row] = count + 1;
         return at;
     }

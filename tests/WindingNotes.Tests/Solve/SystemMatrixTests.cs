@@ -16,7 +16,8 @@ public class SystemMatrixTests
         {
             var (i, j) = (random.Next(12), random.Next(12));
             var v = new Complex(random.NextDouble() - 0.5, random.NextDouble());
-            a[i, j] += v;
+            if (k % 2 == 0) a[i, j] += v;
+            else a.Add(i, j, v);
             dense[i, j] += v;
         }
         for (var i = 0; i < 12; i++)
