@@ -112,9 +112,12 @@ internal sealed class LowRankUpdate
         var rhs = new Complex[size];
         for (var t = 0; t < k; t++)
         {
-            foreach (var j in a.Columns(s[t]))
+            var row = a.Columns(s[t]);
+            var values = a.Values(s[t]);
+            for (var e = 0; e < row.Length; e++)
             {
-                var d = Delta(s[t], j);
+                var j = row[e];
+                var d = (values[e] - a0[s[t], j]) * rows[s[t]] * columns[j];
                 if (d == Complex.Zero) continue;
                 for (var u = 0; u < size; u++) kk[t, u] += d * w[u][j];
                 rhs[t] += d * zb[j];

@@ -16,12 +16,16 @@ internal sealed class SystemMatrix
     private readonly Complex[][] values;
     private readonly int[] counts;
 
+    /// <summary>Per row, the place after the entry <see cref="Add"/> last reached: stamps mostly go along a row.</summary>
+    private readonly int[] next;
+
     public SystemMatrix(int size)
     {
         Size = size;
         columns = new int[size][];
         values = new Complex[size][];
         counts = new int[size];
+        next = new int[size];
         for (var i = 0; i < size; i++) (columns[i], values[i]) = ([], []);
     }
 
@@ -31,6 +35,7 @@ internal sealed class SystemMatrix
         columns = [.. other.columns.Select(c => (int[])c.Clone())];
         values = [.. other.values.Select(v => (Complex[])v.Clone())];
         counts = (int[])other.counts.Clone();
+        next = new int[Size];
     }
 
     public int Size { get; }
@@ -59,9 +64,14 @@ internal sealed class SystemMatrix
     /// <summary>Adds to an entry, finding its place once (the stamps' <c>+=</c>).</summary>
     public void Add(int row, int column, Complex value)
     {
-        var at = Array.BinarySearch(columns[row], 0, counts[row], column);
-        if (at < 0) at = Insert(row, ~at, column);
+        var at = next[row];
+        if (at >= counts[row] || columns[row][at] != column)
+        {
+            at = Array.BinarySearch(columns[row], 0, counts[row], column);
+            if (at < 0) at = Insert(row, ~at, column);
+        }
         values[row][at] += value;
+        next[row] = at + 1;
     }
 
     private int Insert(int row, int at, int column)
