@@ -89,17 +89,18 @@ public static class NetworkSolver
     {
         if (m.NonlinearLoads.Count > 0) DropDanglingLoads(m, network, diagnostics, prefix);
         var first = LinearSolver.Solve(m.A, m.B);
+        if (m.NonlinearLoads.Count == 0) return Accept(first, m, diagnostics, prefix) ? first.X : null;
+
         var scale = m.B.Select(b => b.Magnitude).DefaultIfEmpty(0).Max();
         // Loads in series with nothing else at the nodes between them leave those nodes undetermined
         // without the loads: start from the loads as impedances drawing their demand at the source voltage.
-        if (first.Status != SolveStatus.Solved && m.NonlinearLoads.Count > 0 && scale > 0)
+        if (first.Status != SolveStatus.Solved && scale > 0)
         {
             var a0 = m.A.Clone();
             foreach (var load in m.NonlinearLoads) Stamp(a0, load, AdmittanceAt(load, scale));
             if (LinearSolver.Solve(a0, m.B) is { Status: SolveStatus.Solved } loaded) first = loaded;
         }
         if (!Accept(first, m, diagnostics, prefix)) return null;
-        if (m.NonlinearLoads.Count == 0) return first.X;
 
         // Start Newton from the loads as impedances that draw their demand at the open-circuit voltage.
         var a = m.A.Clone();
@@ -135,14 +136,16 @@ public static class NetworkSolver
     /// A constant-power or constant-current load that is the only element at a node (a winding left
     /// out for a mistyped core, say) carries no current by KCL, so it draws nothing; the linear start
     /// leaves it out and would find that node's voltage undetermined. Such a load is named and dropped,
-    /// and its node held at the voltage of its other end, so the rest of the part still solves.
+    /// and its node held at the voltage of its other end, so the rest of the part still solves (and a
+    /// load that then stands alone at that other end is dropped in turn).
     /// </summary>
     private static void DropDanglingLoads(MnaSystem m, Network network, DiagnosticBag diagnostics, string prefix)
     {
+        // No linear element stamps the node's own equation (its KCL row).
         bool Lone(int c)
         {
-            for (var j = 0; j < m.Size; j++)
-                if (m.A[c, j] != Complex.Zero || m.A[j, c] != Complex.Zero) return false;
+            foreach (var v in m.A.Values(c))
+                if (v != Complex.Zero) return false;
             return true;
         }
         for (var dropped = true; dropped;)

@@ -139,6 +139,17 @@ public partial class IllPosedNetworkTests
     }
 
     [Fact]
+    public void A_chain_of_constant_power_loads_ending_nowhere_draws_nothing()
+    {
+        // X1 has load b alone, so b carries nothing (KCL); then X3 has load a alone, and so on.
+        var e = Wn.Solved("frequency 60 Hz\nsupply mains H1 H2 208 V\nground H2\nload r H1 H2 impedance 10 ohm\nload a H1 X3 power 1 kW\nload b X3 X1 power 1 kW\n");
+        Assert.Empty(e.Errors());
+        Assert.Equal(["a", "b"], e.Diagnostics.Where(d => d.Code == "load-without-voltage").Select(d => e.TextAt(d.Span)).Order());
+        Assert.Equal(0, e.Normal!.Load("a").Current.Magnitude);
+        Wn.Near(20.8, e.Normal!.Load("r").Current.Magnitude, 1e-12, "208 V across 10 ohm");
+    }
+
+    [Fact]
     public void Constant_power_loads_in_series_share_one_current()
     {
         // Nothing but the two loads at M: the current is (P1 + P2) / V, each load's voltage P / I (circuit laws).
