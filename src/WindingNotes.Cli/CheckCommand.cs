@@ -17,7 +17,7 @@ internal static class CheckCommand
 
     private static int Run(ConsoleIo io, string[] files)
     {
-        int errors = 0, warnings = 0, checks = 0, passed = 0;
+        int errors = 0, warnings = 0, checks = 0, passed = 0, notEvaluated = 0;
         var unreadable = false;
         foreach (var path in files)
         {
@@ -33,8 +33,9 @@ internal static class CheckCommand
             warnings += evaluation.Diagnostics.Count(d => d.Severity == Text.Severity.Warning);
             checks += evaluation.Checks.Length;
             passed += evaluation.Checks.Count(c => c.Passed);
+            notEvaluated += evaluation.Checks.Count(c => !c.Evaluated);
         }
-        io.Output.WriteLine($"{files.Length} file{(files.Length == 1 ? "" : "s")}: {errors} error{(errors == 1 ? "" : "s")}, {warnings} warning{(warnings == 1 ? "" : "s")}, {passed} of {checks} check{(checks == 1 ? "" : "s")} passed");
+        io.Output.WriteLine($"{files.Length} file{(files.Length == 1 ? "" : "s")}: {errors} error{(errors == 1 ? "" : "s")}, {warnings} warning{(warnings == 1 ? "" : "s")}, {TextReport.CheckCount(passed, checks, notEvaluated)}");
         return unreadable ? Cli.Usage : errors > 0 || passed < checks ? Cli.Failed : Cli.Ok;
     }
 }

@@ -45,6 +45,7 @@ internal static class ResultText
     /// <summary>"pass: 228.1 V", "FAIL: 240.3 V", "pass: 0.000 V to 140.2 V over 11 points", "FAIL: cannot be measured".</summary>
     public static string Check(CheckResult c)
     {
+        if (!c.Evaluated) return "not evaluated";
         var verdict = c.Passed ? "pass" : "FAIL";
         if (c.Points > 1 && c.Min is { } min && c.Max is { } max)
             return $"{verdict}: {Range(min, max, c.Expect.Unit)} over {c.Points} points";

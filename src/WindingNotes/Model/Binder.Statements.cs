@@ -146,28 +146,33 @@ internal sealed partial class BindRun
         var at = s.Value("at");
         // A tap written without its position has none at any sweep point either.
         var position = at is not null && overrides.Values.TryGetValue(name.Text, out var moved) ? moved : Value(at, $"the position of {name.Text}");
-        if (winding is null || position is null || TapPosition(position.Value, at!.Span, name.Text) is not { } place) return;
+        if (winding is null || position is null || TapPosition(position.Value, at!, name.Text) is not { } place) return;
         TapRange? range = null;
         if (s.Clause("range") is { } r && Value(r.Value(0), "the start of the range") is { } a && Value(r.Value(1), "the end of the range") is { } b
-            && TapPosition(a, r.Value(0)!.Span, name.Text) is { } from && TapPosition(b, r.Value(1)!.Span, name.Text) is { } to)
+            && TapPosition(a, r.Value(0)!, name.Text) is { } from && TapPosition(b, r.Value(1)!, name.Text) is { } to)
             range = new TapRange(from.Position, from.Unit, to.Position, to.Unit, r.Span);
         taps.Add(new TapModel(name.Text, name.Name.Span, s.Span, winding.Name, place.Position, place.Unit, isBrush)
         {
             Range = range,
             CurrentLimit = Real(s.Value("current-limit"), Dimension.CurrentDim, $"the current limit of {name.Text}", positive: true),
-            PositionSpan = at.Span,
+            PositionSpan = at!.Span,
         });
     }
 
     /// <summary>A position in turns (or a bare number), in % of the winding, or in volts.</summary>
-    private (double Position, TapUnit Unit)? TapPosition(Quantity q, TextSpan span, string tap)
+    private (double Position, TapUnit Unit)? TapPosition(Quantity q, ValueSyntax value, string tap)
     {
+        if (IsBare(q))
+        {
+            MissingUnit(value, $"the position of {tap}", "turns", "%");
+            return null;
+        }
         if (Place(q) is { } place) return place;
-        diagnostics.ReportWrongDimension(span, $"turns, % or a voltage for the position of {tap}", q.Dimension);
+        diagnostics.ReportWrongDimension(value.Span, $"turns, % or a voltage for the position of {tap}", q.Dimension);
         return null;
     }
 
-    /// <summary>A position in turns (or a bare number), in % of the winding, or in volts; null for any other kind.</summary>
+    /// <summary>A position in turns, in % of the winding, or in volts; null for any other kind (the binder rejects a bare number first).</summary>
     internal static (double Position, TapUnit Unit)? Place(Quantity q) =>
         q.IsPercent && q.Dimension.IsNone ? (q.Real, TapUnit.Fraction)
         : q.Dimension.IsNone ? (q.Real, TapUnit.Turns)
@@ -275,6 +280,12 @@ internal sealed partial class BindRun
         var a = Node(s.Head.Name(1), s);
         var b = Node(s.Head.Name(2), s);
         var pfClause = s.Clause("pf");
+        // "pf 0.8 lag" reads 'lag' as a unit: say which word was meant instead.
+        if (pfClause?.Value()?.Expression is NumberSyntax { Unit: { } sense } && Units.Find(sense.Text) is null && Sense(sense.Text) is { } meant)
+        {
+            diagnostics.ReportPowerFactorSense(sense, meant);
+            return;
+        }
         var pf = Real(pfClause?.Value(), Dimension.None, "the power factor");
         if (pf is { } p && (p <= 0 || p > 1))
         {
@@ -330,15 +341,27 @@ internal sealed partial class BindRun
         loads.Add(new LoadModel(name.Text, name.Name.Span, s.Span, a, b, l.Behaviour, l.S0, l.V0));
     }
 
+    /// <summary>'lagging' or 'leading' for a word that begins one of them or is one mistyped.</summary>
+    private static string? Sense(string word)
+    {
+        string[] senses = ["lagging", "leading"];
+        return word.Length >= 3 && senses.FirstOrDefault(w => w.StartsWith(word, StringComparison.OrdinalIgnoreCase)) is { } prefix
+            ? prefix
+            : Spelling.Nearest(word, senses);
+    }
+
     private void BindFault(StatementSyntax s)
     {
         var name = s.Head.Name(0)!;
-        var a = Node(s.Head.Name(1), s);
-        var b = Node(s.Head.Name(2), s);
+        var a = Point(s.Head.Name(1));
+        var b = Point(s.Head.Name(2));
         var z = s.Clause("impedance") is { } imp ? Complex(imp.Value(), Dimension.Impedance, $"the impedance of {name.Text}") : 0;
         if (a is null || b is null || z is null) return;
         faults.Add(new FaultModel(name.Text, name.Name.Span, s.Span, a, b, z.Value));
     }
+
+    /// <summary>A point a fault or an expect names: it must exist in the network.</summary>
+    private NodeRef? Point(NameSyntax? name) => Observed(name) is { } symbol ? new NodeRef(symbol.Name, name!.Name.Span) : null;
 
     private void BindSweep(StatementSyntax s)
     {
@@ -349,7 +372,29 @@ internal sealed partial class BindRun
         var step = Value(s.Value("step"), "the step of the sweep");
         var points = Real(s.Value("points"), Dimension.None, "the number of points", positive: true);
         if (target is null || from is null || to is null || (step is null && points is null)) return;
+        if (!SweepUnits(s, target, (range!.Value(0)!, from.Value, "the lower bound"), (range.Value(1)!, to.Value, "the upper bound"), (s.Value("step"), step, "the step"))) return;
         sweeps.Add(new SweepModel(target, s.Span, from.Value, to.Value, step, points is { } n ? (int)Math.Round(n) : null));
+    }
+
+    /// <summary>
+    /// A brush, or a let that is a quantity, is swept over quantities: a bare bound or step there is
+    /// an error whose fix takes the unit the other values are written in ("give the lower bound a
+    /// unit: 0 %"). False when one was reported.
+    /// </summary>
+    private bool SweepUnits(StatementSyntax s, Symbol target, params (ValueSyntax? Syntax, Quantity? Value, string What)[] values)
+    {
+        var nominal = target.Kind == SymbolKind.Let ? lets.GetValueOrDefault(target.Name) : (Quantity?)null;
+        if (nominal is { } n && IsBare(n)) return true;
+        var unit = values.Select(v => UnitWord(v.Syntax)).FirstOrDefault(u => u is not null)
+            ?? (nominal is { } q ? (q.IsPercent ? "%" : q.Dimension.SiUnit()) : "%");
+        var fine = true;
+        foreach (var (syntax, value, what) in values)
+        {
+            if (syntax is null || value is not { } v || !IsBare(v)) continue;
+            MissingUnit(syntax, what, unit);
+            fine = false;
+        }
+        return fine;
     }
 
     private void BindExpect(StatementSyntax s)
@@ -363,9 +408,7 @@ internal sealed partial class BindRun
         for (var i = 0; i < names.Count; i++)
         {
             var isPoint = measure == MeasureKind.Voltage || i > 0;
-            var symbol = isPoint
-                ? Resolve(names[i], "a terminal or node", SymbolKind.Terminal, SymbolKind.Node)
-                : Resolve(names[i], names[i].Role.Label, names[i].Role.Kinds);
+            var symbol = isPoint ? Observed(names[i]) : Resolve(names[i], names[i].Role.Label, names[i].Role.Kinds);
             if (symbol is null) return;
             targets.Add(new NodeRef(symbol.Name, names[i].Name.Span));
         }
@@ -378,25 +421,31 @@ internal sealed partial class BindRun
             _ => (Dimension.None, "%"),
         };
         var what = $"a bound on {measureClause.Keyword.Text}";
+        var ratio = unit == "%";
         double low = double.NegativeInfinity, high = double.PositiveInfinity, target = double.NaN;
         switch (conditionClause.Keyword!.Text)
         {
             case "between":
-                if (Real(conditionClause.Value(0), dimension, what) is not { } lo || Real(conditionClause.Value(1), dimension, what) is not { } hi) return;
+                if (Real(conditionClause.Value(0), dimension, what, ratio: ratio) is not { } lo || Real(conditionClause.Value(1), dimension, what, ratio: ratio) is not { } hi) return;
                 (low, high) = (Math.Min(lo, hi), Math.Max(lo, hi));
                 break;
             case "below":
-                if (Real(conditionClause.Value(0), dimension, what) is not { } below) return;
+                if (Real(conditionClause.Value(0), dimension, what, ratio: ratio) is not { } below) return;
                 high = below;
                 break;
             case "above":
-                if (Real(conditionClause.Value(0), dimension, what) is not { } above) return;
+                if (Real(conditionClause.Value(0), dimension, what, ratio: ratio) is not { } above) return;
                 low = above;
                 break;
             default:
-                if (Real(conditionClause.Value(0), dimension, what) is not { } near) return;
+                if (Real(conditionClause.Value(0), dimension, what, ratio: ratio) is not { } near) return;
                 var withinSyntax = conditionClause.Value(1);
                 if (Value(withinSyntax, "the tolerance of the check") is not { } within) return;
+                if (IsBare(within))
+                {
+                    MissingUnit(withinSyntax!, "the tolerance", ratio ? ["%"] : ["%", unit]);
+                    return;
+                }
                 double band;
                 if (within.IsPercent && !dimension.IsNone) band = Math.Abs(near) * within.Real;
                 else if (within.Dimension.Fits(dimension) && within.IsReal) band = Math.Abs(within.Real);

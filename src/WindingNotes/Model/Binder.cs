@@ -156,6 +156,19 @@ internal sealed partial class BindRun
         return new NodeRef(symbol.Name, name!.Name.Span);
     }
 
+    /// <summary>
+    /// A point that an expect or a fault names: it observes the network and adds nothing to it,
+    /// so a name that no element touches is an error, not a new node at 0 V.
+    /// </summary>
+    private Symbol? Observed(NameSyntax? name)
+    {
+        var symbol = Resolve(name, "a terminal or node", SymbolKind.Terminal, SymbolKind.Node);
+        if (symbol is not null) observed.Add((symbol, name!));
+        return symbol;
+    }
+
+    private readonly List<(Symbol Symbol, NameSyntax Name)> observed = [];
+
     private static string KindWord(SymbolKind kind) => kind switch
     {
         SymbolKind.Let => "name",
@@ -166,14 +179,24 @@ internal sealed partial class BindRun
         _ => "name",
     };
 
+    /// <summary>
+    /// A free node (a name no winding, tap or brush defines) must join two elements: one touched by a
+    /// single load, supply, join or ground is a slip of the pen, and one only an expect or a fault
+    /// names does not exist. Both are errors, with the nearest real point as a suggestion. A winding
+    /// end left open stays legal: it is a terminal, not a free node.
+    /// </summary>
     private void CheckLonelyNodes()
     {
+        bool Real(Symbol s) => s.IsConnectionPoint && (s.Kind != SymbolKind.Node || nodeUses.GetValueOrDefault(s)?.Count > 1);
+        var real = symbols.Symbols.Where(Real).Select(s => s.Name).ToList();
         foreach (var (symbol, uses) in nodeUses)
         {
             if (symbol.Kind != SymbolKind.Node || uses.Count > 1) continue;
-            var others = symbols.Symbols.Where(s => s.IsConnectionPoint && s != symbol).Select(s => s.Name);
-            diagnostics.ReportLonelyNode(symbol.Span, symbol.Name, Spelling.Nearest(symbol.Name, others));
+            diagnostics.ReportLonelyNode(symbol.Span, symbol.Name, Spelling.Nearest(symbol.Name, real));
         }
+        foreach (var (symbol, name) in observed)
+            if (symbol.Kind == SymbolKind.Node && !nodeUses.ContainsKey(symbol))
+                diagnostics.ReportUnknownName(name.Name, "terminal or node", Spelling.Nearest(symbol.Name, real));
     }
 
     // ---- values ----
@@ -207,10 +230,18 @@ internal sealed partial class BindRun
 
     private Quantity? Value(ValueSyntax? value, string description) => value is null ? null : evaluator.Evaluate(value, description);
 
-    /// <summary>A real value of the given dimension, or null after a diagnostic.</summary>
-    private double? Real(ValueSyntax? value, Dimension dimension, string description, bool positive = false)
+    /// <summary>
+    /// A real value of the given dimension, or null after a diagnostic. With <paramref name="ratio"/>
+    /// it is a ratio written in % or pu (a loading, an efficiency): a bare number there is an error.
+    /// </summary>
+    private double? Real(ValueSyntax? value, Dimension dimension, string description, bool positive = false, bool ratio = false)
     {
         if (Value(value, description) is not { } q) return null;
+        if (IsBare(q) && (ratio || !dimension.IsNone))
+        {
+            MissingUnit(value!, description, ratio ? "%" : dimension.SiUnit());
+            return null;
+        }
         if (!q.Dimension.Fits(dimension))
         {
             diagnostics.ReportWrongDimension(value!.Span, dimension.Describe(), q.Dimension);
@@ -232,6 +263,11 @@ internal sealed partial class BindRun
     private System.Numerics.Complex? Complex(ValueSyntax? value, Dimension dimension, string description)
     {
         if (Value(value, description) is not { } q) return null;
+        if (IsBare(q) && !dimension.IsNone)
+        {
+            MissingUnit(value!, description, dimension.SiUnit());
+            return null;
+        }
         if (!q.Dimension.Fits(dimension))
         {
             diagnostics.ReportWrongDimension(value!.Span, dimension.Describe(), q.Dimension);
@@ -239,6 +275,28 @@ internal sealed partial class BindRun
         }
         return q.Value;
     }
+
+    /// <summary>A number with no unit, no % and no 'turns': never a quantity, never a silent fraction.</summary>
+    private static bool IsBare(Quantity q) => q.Dimension.IsNone && q.Flags == QuantityFlags.None;
+
+    /// <summary>
+    /// A bare number where a quantity is meant: the error, and where the number is written as a
+    /// literal a fix that adds the first of <paramref name="units"/>.
+    /// </summary>
+    private void MissingUnit(ValueSyntax value, string what, params string[] units)
+    {
+        var literal = value.Expression is NumberSyntax { Unit: null } or UnarySyntax { Operand: NumberSyntax { Unit: null } } && value.Angle is null;
+        var written = tree.Text[value.Expression.Span];
+        diagnostics.ReportMissingUnit(value.Expression.Span, what, written, units, literal);
+    }
+
+    /// <summary>The unit word a value is written with (<c>%</c> in <c>100 %</c>), or null.</summary>
+    private static string? UnitWord(ValueSyntax? value) => value?.Expression switch
+    {
+        NumberSyntax { Unit: { } unit } => unit.Text,
+        UnarySyntax { Operand: NumberSyntax { Unit: { } unit } } => unit.Text,
+        _ => null,
+    };
 
     private void BindLet(StatementSyntax statement)
     {

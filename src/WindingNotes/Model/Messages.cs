@@ -14,6 +14,14 @@ public sealed partial class DiagnosticBag
         return WithSuggestion(d, suggestion, unit.Span);
     }
 
+    /// <summary>"give a bound on loading a unit: 100 %", with the fix where the number is a literal.</summary>
+    public Diagnostic ReportMissingUnit(TextSpan span, string what, string written, IReadOnlyList<string> units, bool fixable)
+    {
+        var fixes = string.Join(" or ", units.Select(u => $"{written} {u}"));
+        var d = Error("missing-unit", span, $"give {what} a unit: {fixes}");
+        return fixable ? Amend(d, x => x with { Hints = [new DiagnosticHint("a bare number is not a quantity", span, $"{written} {units[0]}")] }) : d;
+    }
+
     public Diagnostic ReportWrongDimension(TextSpan span, string expected, Dimension found) =>
         Error("wrong-dimension", span, $"expected {expected}, found {found.Describe()}");
 
@@ -60,7 +68,7 @@ public sealed partial class DiagnosticBag
             d => d with { Related = [new RelatedSpan("first given here", first)] });
 
     public Diagnostic ReportLonelyNode(TextSpan span, string name, string? suggestion) =>
-        WithSuggestion(Warning("lonely-node", span, $"node '{name}' connects nothing else"), suggestion, span);
+        WithSuggestion(Error("lonely-node", span, $"node '{name}' connects nothing else: no winding, tap, join or other element touches it"), suggestion, span);
 
     public Diagnostic ReportNoFrequency(TextSpan span) =>
         Info("default-frequency", span, "no 'frequency' line: 50 Hz is assumed");
@@ -94,6 +102,9 @@ public sealed partial class DiagnosticBag
     public Diagnostic ReportResistanceMismatch(TextSpan span, double fromLine, double fromWindings) =>
         Warning("resistance-mismatch", span,
             $"this impedance implies {Numbers.Format(fromLine, "ohm")} of resistance but the windings' resistances give {Numbers.Format(fromWindings, "ohm")} (referred to the first winding)");
+
+    public Diagnostic ReportPowerFactorSense(Token word, string meant) =>
+        WithSuggestion(Error("unknown-word", word.Span, $"'{word.Text}' is not a unit; a power factor is followed by 'lagging' or 'leading'"), meant, word.Span);
 
     public Diagnostic ReportPowerFactor(TextSpan span) => Error("out-of-bounds", span, "a power factor must be above 0 and at most 1");
 

@@ -30,6 +30,18 @@ public static class JsonReport
             w.WriteStartArray("cases");
             foreach (var c in evaluation.Cases) WriteCase(w, evaluation, c);
             w.WriteEndArray();
+            if (evaluation.Checks.Any(c => !c.Evaluated))
+            {
+                w.WriteStartArray("notEvaluated");
+                foreach (var check in evaluation.Checks.Where(c => !c.Evaluated))
+                {
+                    w.WriteStartObject();
+                    w.WriteNumber("line", evaluation.Text.GetPosition(check.Expect.Line.Start).Line);
+                    w.WriteString("text", check.Expect.Text);
+                    w.WriteEndObject();
+                }
+                w.WriteEndArray();
+            }
             w.WriteString("note", Cautions.Judgement);
             w.WriteEndObject();
         }

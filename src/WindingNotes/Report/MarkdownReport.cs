@@ -45,7 +45,7 @@ public static class MarkdownReport
         var errors = evaluation.Diagnostics.Count(d => d.IsError);
         var warnings = evaluation.Diagnostics.Count(d => d.Severity == Severity.Warning);
         var passed = evaluation.Checks.Count(c => c.Passed);
-        var state = evaluation.Checks.Length == 0 ? "no checks" : $"{passed} of {evaluation.Checks.Length} checks pass";
+        var state = evaluation.Checks.Length == 0 ? "no checks" : TextReport.CheckCount(passed, evaluation.Checks.Length, evaluation.Checks.Count(c => !c.Evaluated), "pass");
         return $"**{state}**; {Count(errors, "error")}, {Count(warnings, "warning")}";
     }
 
@@ -157,7 +157,7 @@ public static class MarkdownReport
         o.Append("\n### Checks\n\n");
         Table(o, 3, ["", "line", "expectation", "value"], evaluation.Checks.Select(check => new[]
         {
-            check.Passed ? "pass" : "**FAIL**",
+            !check.Evaluated ? "not evaluated" : check.Passed ? "pass" : "**FAIL**",
             (evaluation.Text.GetPosition(check.Expect.Line.Start).Line + 1).ToString(CultureInfo.InvariantCulture),
             Code(check.Expect.Text),
             TextReport.CheckValue(check) is { Length: > 0 } v ? v : "not measured",

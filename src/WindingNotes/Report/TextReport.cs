@@ -27,7 +27,8 @@ public static class TextReport
             foreach (var d in findings)
                 o.Append("  ").Append(Location(evaluation, d)).Append(' ').Append(Severity(d.Severity)).Append(' ').Append(d.Code).Append(": ").Append(d.Message).Append('\n');
         }
-        if (evaluation.Cases.IsEmpty) o.Append("\nNo results: the network was not solved.\n");
+        if (evaluation.Cases.IsEmpty)
+            o.Append(evaluation.Model.HasErrors ? "\nNo results: the file has errors, so it was not solved.\n" : "\nNo results: the network was not solved.\n");
         foreach (var c in evaluation.Cases.Where(c => !c.Case.IsSweepPoint)) WriteCase(o, c);
         SweepTables.Write(o, [.. evaluation.Cases.Where(c => c.Case.IsSweepPoint)]);
         WriteChecks(o, evaluation);
@@ -124,9 +125,16 @@ public static class TextReport
         {
             var line = evaluation.Text.GetPosition(check.Expect.Line.Start).Line + 1;
             var value = CheckValue(check) is { Length: > 0 } v ? $" ({v})" : "";
-            o.Append("  ").Append(check.Passed ? "pass" : "FAIL").Append("  line ").Append(line).Append(": ").Append(check.Expect.Text).Append(value).Append('\n');
+            o.Append("  ").Append(Verdict(check)).Append("  line ").Append(line).Append(": ").Append(check.Expect.Text).Append(value).Append('\n');
         }
     }
+
+    /// <summary>"pass", "FAIL", or "not evaluated" where the file was not solved.</summary>
+    public static string Verdict(CheckResult check) => !check.Evaluated ? "not evaluated" : check.Passed ? "pass" : "FAIL";
+
+    /// <summary>"3 of 4 checks passed", with how many were not evaluated, apart.</summary>
+    public static string CheckCount(int passed, int checks, int notEvaluated, string verb = "passed") =>
+        $"{passed} of {checks} check{(checks == 1 ? "" : "s")} {verb}" + (notEvaluated > 0 ? $", {notEvaluated} not evaluated" : "");
 
     /// <summary>
     /// "117.7 V", or with sweep points and tolerances "69.98 V; 0.000 V to 139.9 V over 11 points;

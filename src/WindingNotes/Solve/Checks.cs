@@ -11,6 +11,15 @@ namespace WindingNotes.Solve;
 /// </summary>
 public sealed record CheckResult(ExpectModel Expect, bool Passed, double? Value)
 {
+    /// <summary>
+    /// False where the file was not solved (an error in it, or a network that could not be solved):
+    /// such a check neither passed nor failed, and is counted apart.
+    /// </summary>
+    public bool Evaluated { get; init; } = true;
+
+    /// <summary>A check of a file that was not solved: never "passed".</summary>
+    public static CheckResult NotEvaluated(ExpectModel expect) => new(expect, false, null) { Evaluated = false, Points = 0 };
+
     public double? Min { get; init; }
 
     public double? Max { get; init; }

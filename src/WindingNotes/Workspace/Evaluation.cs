@@ -27,7 +27,19 @@ public sealed record Evaluation(
     public bool HasErrors => Diagnostics.Any(d => d.IsError);
 
     public bool AllChecksPass => Checks.All(c => c.Passed);
+
+    /// <summary>Whether the normal case was solved: only a file that bound completely is.</summary>
+    public bool Solved => Normal is not null;
+
+    /// <summary>
+    /// Where this version was not solved: the last version of the document that was, kept by the
+    /// workspace so an editor can show its results, marked as that version's. Null for the CLI.
+    /// </summary>
+    public SolvedVersion? LastSolved { get; init; }
 }
+
+/// <summary>An earlier version of a document that was solved, and its evaluation.</summary>
+public sealed record SolvedVersion(int Version, Evaluation Evaluation);
 
 /// <summary>
 /// The pipeline: text → syntax → model → network → the study (normal case, faults, sweep points,
@@ -102,7 +114,9 @@ public static class Evaluator
         var diagnostics = stages.Diagnostics;
         stages.Model = model;
         diagnostics.AddRange(model.Diagnostics);
-        if (model.Supplies.IsEmpty) return Finish(path, stages);
+        // Only a model that bound completely is solved: a dropped load or an unknown name would
+        // leave a partial network whose numbers, and checks, would mislead.
+        if (model.HasErrors || model.Supplies.IsEmpty) return Finish(path, stages);
 
         stages.Doing = "building the network";
         var network = NetworkBuilder.Build(model);
@@ -119,6 +133,15 @@ public static class Evaluator
     private static Evaluation Finish(string path, Stages stages)
     {
         var ordered = stages.Diagnostics.OrderBy(d => d.Span.Start).ThenBy(d => d.Severity).ToImmutableArray();
-        return new Evaluation(path, stages.Syntax, stages.Model, stages.Network, stages.Study.Cases, stages.Study.Checks, ordered);
+        var checks = stages.Study.Cases.IsEmpty ? NotEvaluated(stages.Syntax, stages.Model) : stages.Study.Checks;
+        return new Evaluation(path, stages.Syntax, stages.Model, stages.Network, stages.Study.Cases, checks, ordered);
+    }
+
+    /// <summary>Every expect line of a file that was not solved, whether it bound or not.</summary>
+    private static ImmutableArray<CheckResult> NotEvaluated(SyntaxTree syntax, Model.Model model)
+    {
+        var bound = model.Expects.ToDictionary(e => e.Line.Start);
+        return [.. syntax.Statements.Where(s => s.Kind == StatementKind.Expect).Select(s => CheckResult.NotEvaluated(
+            bound.GetValueOrDefault(s.Span.Start) ?? new ExpectModel(s.Span, syntax.Text[s.Span], default, [], default, double.NaN, double.NaN, "")))];
     }
 }
