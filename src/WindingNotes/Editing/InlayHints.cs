@@ -17,17 +17,31 @@ public sealed record InlayHint(Position Position, string Label, string? Tooltip 
 /// </summary>
 public static class InlayHints
 {
+    /// <remarks>
+    /// A version that was not solved shows the results of the last version that was, on the lines
+    /// that read the same in both, each marked with that version: never a mix with a partial network.
+    /// </remarks>
     public static IReadOnlyList<InlayHint> For(Evaluation evaluation, TextRange? range = null)
     {
+        Func<StatementSyntax, string?> label = Labels(evaluation);
+        if (!evaluation.Solved && evaluation.LastSolved is { } last)
+        {
+            var before = Labels(last.Evaluation);
+            var kept = last.Evaluation.Syntax.Statements
+                .Select(s => (Text: last.Evaluation.Text[s.Span], Label: before(s)))
+                .Where(x => x.Label is not null)
+                .GroupBy(x => x.Text, x => x.Label!)
+                .ToDictionary(g => g.Key, g => new Queue<string>(g));
+            label = s => kept.TryGetValue(evaluation.Text[s.Span], out var labels) && labels.TryDequeue(out var l) ? $"{l} (version {last.Version})" : null;
+        }
         var hints = new List<InlayHint>();
         var text = evaluation.Text;
-        var index = new ResultIndex(evaluation);
         foreach (var line in evaluation.Syntax.Lines)
         {
             if (line.Statement is not { } statement) continue;
             var end = text.GetPosition(line.Span.End);
             if (range is { } r && (end.Line < r.Start.Line || text.GetPosition(line.Span.Start).Line > r.End.Line)) continue;
-            if (Label(evaluation, statement, index) is { } label) hints.Add(new InlayHint(end, label));
+            if (label(statement) is { } shown) hints.Add(new InlayHint(end, shown));
         }
         return hints;
     }

@@ -28,7 +28,8 @@ internal static class ResultText
         var parts = new List<string>();
         if (k.VoltsPerTurn is { } e) parts.Add($"{Magnitude(e, "V")}/turn");
         if (k.Flux is { } b) parts.Add(k.Core.FluxLimit is { } limit ? $"{Numbers.Format(b, "T")} of {Numbers.Format(limit, "T")}" : Numbers.Format(b, "T"));
-        return parts.Count == 0 ? "volts per turn unknown: give the windings' turns" : string.Join(", ", parts);
+        else parts.Add(TextReport.FluxUnknown(k));
+        return string.Join(", ", parts);
     }
 
     /// <summary>"208.0 V, 18.82 A, P 3.208 kW, pf 0.8196 lagging".</summary>

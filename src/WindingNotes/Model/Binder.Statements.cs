@@ -38,7 +38,19 @@ internal sealed partial class BindRun
             case StatementKind.Fault: BindFault(s); break;
             case StatementKind.Sweep: BindSweep(s); break;
             case StatementKind.Expect: BindExpect(s); break;
+            case StatementKind.FailOn: Policy(s, failOn); break;
+            case StatementKind.Acknowledge: Policy(s, acknowledged); break;
         }
+    }
+
+    private readonly Dictionary<string, TextSpan> failOn = [], acknowledged = [];
+
+    /// <summary>A 'fail-on' or 'acknowledge' line: the code it names, once.</summary>
+    private void Policy(StatementSyntax s, Dictionary<string, TextSpan> codes)
+    {
+        if (s.Head.Word(_ => true) is not { } code) return;
+        if (codes.TryGetValue(code.Text, out var first)) diagnostics.ReportDuplicateStatement(s.Keyword, first);
+        else codes[code.Text] = s.Span;
     }
 
     private bool Once(StatementSyntax s)

@@ -91,6 +91,8 @@ internal sealed partial class BindRun
             Points = points,
             Tolerances = [.. evaluator.Tolerances],
             Lets = lets.ToImmutableDictionary(),
+            FailOn = failOn.ToImmutableDictionary(),
+            Acknowledged = acknowledged.ToImmutableDictionary(),
             Diagnostics = [.. tree.Diagnostics, .. diagnostics],
         };
     }
@@ -189,14 +191,17 @@ internal sealed partial class BindRun
     {
         bool Real(Symbol s) => s.IsConnectionPoint && (s.Kind != SymbolKind.Node || nodeUses.GetValueOrDefault(s)?.Count > 1);
         var real = symbols.Symbols.Where(Real).Select(s => s.Name).ToList();
+        // Each suggestion searches every point: the first hundred slips get one, so a file stays linear in its length.
+        var suggestions = 100;
+        string? Nearest(string name) => suggestions-- > 0 ? Spelling.Nearest(name, real) : null;
         foreach (var (symbol, uses) in nodeUses)
         {
             if (symbol.Kind != SymbolKind.Node || uses.Count > 1) continue;
-            diagnostics.ReportLonelyNode(symbol.Span, symbol.Name, Spelling.Nearest(symbol.Name, real));
+            diagnostics.ReportLonelyNode(symbol.Span, symbol.Name, Nearest(symbol.Name));
         }
         foreach (var (symbol, name) in observed)
             if (symbol.Kind == SymbolKind.Node && !nodeUses.ContainsKey(symbol))
-                diagnostics.ReportUnknownName(name.Name, "terminal or node", Spelling.Nearest(symbol.Name, real));
+                diagnostics.ReportUnknownName(name.Name, "terminal or node", Nearest(symbol.Name));
     }
 
     // ---- values ----

@@ -144,6 +144,12 @@ public sealed record Model(SyntaxTree Syntax, SymbolTable Symbols, ImmutableArra
     public ImmutableArray<ExpectModel> Expects { get; init; } = [];
     public ImmutableArray<ToleranceSite> Tolerances { get; init; } = [];
 
+    /// <summary>Rating warnings this file makes errors ('fail-on'), each with the line that says so.</summary>
+    public ImmutableDictionary<string, TextSpan> FailOn { get; init; } = ImmutableDictionary<string, TextSpan>.Empty;
+
+    /// <summary>Cautions this file acknowledges ('acknowledge'), each with the line that says so.</summary>
+    public ImmutableDictionary<string, TextSpan> Acknowledged { get; init; } = ImmutableDictionary<string, TextSpan>.Empty;
+
     /// <summary>The value of every let that evaluated.</summary>
     public ImmutableDictionary<string, Quantity> Lets { get; init; } = ImmutableDictionary<string, Quantity>.Empty;
 

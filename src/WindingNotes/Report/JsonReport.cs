@@ -61,6 +61,7 @@ public static class JsonReport
         w.WriteString("code", d.Code);
         w.WriteString("message", d.Message);
         WriteRange(w, "range", text.GetRange(d.Span));
+        if (d.Acknowledged) w.WriteBoolean("acknowledged", true);
         w.WriteEndObject();
     }
 
@@ -130,7 +131,7 @@ public static class JsonReport
             w.WriteStartObject(k.Core.Name);
             if (k.VoltsPerTurn is { } e) Phasor(w, "voltsPerTurn", e);
             if (k.Flux is { } flux) Number(w, "flux", flux);
-            Number(w, "loss", k.Loss);
+            if (k.LossKnown) Number(w, "loss", k.Loss);
             if (k.NoLoadCurrent is { } i0) Phasor(w, "noLoadCurrent", i0);
             w.WriteEndObject();
         }
@@ -184,7 +185,9 @@ public static class JsonReport
 
         w.WriteStartObject("totals");
         Number(w, "copperLoss", c.Totals.CopperLoss);
-        Number(w, "coreLoss", c.Totals.CoreLoss);
+        // Unknown without an open-circuit test of every core: null, never a misleading zero.
+        if (c.Totals.CoreLossKnown) Number(w, "coreLoss", c.Totals.CoreLoss);
+        else w.WriteNull("coreLoss");
         if (c.Totals.Efficiency is { } eff) Number(w, "efficiency", eff);
         Number(w, "throughput", c.Totals.Throughput);
         Number(w, "transformed", c.Totals.Transformed);

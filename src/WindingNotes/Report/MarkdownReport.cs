@@ -33,7 +33,7 @@ public static class MarkdownReport
         o.Append("\n### Cautions\n\n");
         var cautions = evaluation.Diagnostics.Where(IsCaution).ToList();
         foreach (var d in cautions)
-            o.Append("- line ").Append(TextReport.Location(evaluation, d)).Append(": ").Append(Cell(d.Message)).Append('\n');
+            o.Append("- line ").Append(TextReport.Location(evaluation, d)).Append(": ").Append(Cell(d.Message)).Append(d.Acknowledged ? " (acknowledged)" : "").Append('\n');
         if (cautions.Count > 0) o.Append('\n');
         o.Append("> ").Append(Cautions.Judgement).Append('\n');
         return o.ToString();
@@ -45,9 +45,12 @@ public static class MarkdownReport
         var errors = evaluation.Diagnostics.Count(d => d.IsError);
         var warnings = evaluation.Diagnostics.Count(d => d.Severity == Severity.Warning);
         var passed = evaluation.Checks.Count(c => c.Passed);
-        var state = evaluation.Checks.Length == 0 ? "no checks" : TextReport.CheckCount(passed, evaluation.Checks.Length, evaluation.Checks.Count(c => !c.Evaluated), "pass");
+        var state = evaluation.Checks.Length == 0 ? "no checks" : $"{passed} of {evaluation.Checks.Length} checks pass" + NotEvaluated(evaluation);
         return $"**{state}**; {Count(errors, "error")}, {Count(warnings, "warning")}";
     }
+
+    private static string NotEvaluated(Evaluation evaluation) =>
+        evaluation.Checks.Count(c => !c.Evaluated) is > 0 and var n ? $", {n} not evaluated" : "";
 
     private static string Count(int n, string what) => $"{n} {what}{(n == 1 ? "" : "s")}";
 
@@ -82,8 +85,8 @@ public static class MarkdownReport
             o.Append('\n');
             Table(o, 1, ["core", "volts per turn", "peak flux", "flux limit", "core loss", .. If(noLoad, "no-load current")], c.Cores.Select(k => (string[])
             [
-                k.Core.Name, k.VoltsPerTurn is { } e ? V(e.Magnitude, "V") : "unknown", k.Flux is { } b ? V(b, "T") : "",
-                k.Core.FluxLimit is { } limit ? V(limit, "T") : "", k.Loss > 0 ? V(k.Loss, "W") : "",
+                k.Core.Name, k.VoltsPerTurn is { } e ? V(e.Magnitude, "V") : "unknown", k.Flux is { } b ? V(b, "T") : TextReport.FluxUnknown(k),
+                k.Core.FluxLimit is { } limit ? V(limit, "T") : "", k.LossKnown ? V(k.Loss, "W") : "unknown",
                 .. If(noLoad, k.NoLoadCurrent is { } i0 ? $"{V(i0.Magnitude, "A")} in {k.NoLoadWinding!.Name}" : ""),
             ]));
         }
@@ -128,7 +131,7 @@ public static class MarkdownReport
             ? [$"{V(load, "VA")} ({TextReport.Percent(fraction)} of this load)", TextReport.Percent(max)]
             : [];
         Table(o, 0, ["copper loss", "core loss", "efficiency", "throughput", "transformed", .. If(best.Length > 0, "best load", "efficiency there")],
-        [[V(t.CopperLoss, "W"), V(t.CoreLoss, "W"), t.Efficiency is { } eff ? TextReport.Percent(eff) : "", V(t.Throughput, "VA"), V(t.Transformed, "VA"), .. best]]);
+        [[V(t.CopperLoss, "W"), TextReport.CoreLoss(t), t.Efficiency is { } eff ? TextReport.Percent(eff) : t.CoreLossKnown ? "" : "unknown without the core loss", V(t.Throughput, "VA"), V(t.Transformed, "VA"), .. best]]);
         WriteBands(o, c);
     }
 

@@ -62,7 +62,7 @@ public static class SweepTables
         tables.Add(Build("Totals", axes, points, c => new[]
         {
             ("copper loss", TextReport.Value(c.Totals.CopperLoss, "W")),
-            ("core loss", TextReport.Value(c.Totals.CoreLoss, "W")),
+            ("core loss", c.Totals.CoreLossKnown ? TextReport.Value(c.Totals.CoreLoss, "W") : "-"),
             ("efficiency", c.Totals.Efficiency is { } e ? TextReport.Percent(e) : "-"),
         }));
         foreach (var t in tables.OfType<Table>()) yield return t;

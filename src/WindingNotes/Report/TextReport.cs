@@ -34,7 +34,7 @@ public static class TextReport
         WriteChecks(o, evaluation);
         o.Append("\nCautions\n");
         foreach (var d in evaluation.Diagnostics.Where(d => d.Code.StartsWith("caution")))
-            o.Append("  ").Append(Location(evaluation, d)).Append(' ').Append(d.Message).Append('\n');
+            o.Append("  ").Append(Location(evaluation, d)).Append(' ').Append(d.Message).Append(d.Acknowledged ? " (acknowledged)" : "").Append('\n');
         o.Append("  ").Append(Cautions.Judgement).Append('\n');
         return o.ToString();
     }
@@ -68,9 +68,10 @@ public static class TextReport
                 var parts = new List<string>();
                 if (k.VoltsPerTurn is { } e) parts.Add($"{Numbers.Format(e.Magnitude, "V")}/turn");
                 if (k.Flux is { } b) parts.Add($"peak flux {Numbers.Format(b, "T")}" + (k.Core.FluxLimit is { } limit ? $" (limit {Numbers.Format(limit, "T")})" : ""));
-                if (k.Loss > 0) parts.Add($"core loss {Numbers.Format(k.Loss, "W")}");
+                else parts.Add(FluxUnknown(k));
+                parts.Add(k.LossKnown ? $"core loss {Numbers.Format(k.Loss, "W")}" : "core loss unknown (no 'no-load' line)");
                 if (k.NoLoadCurrent is { } i0) parts.Add($"no-load current {Numbers.Format(i0.Magnitude, "A")} in {k.NoLoadWinding!.Name}");
-                Line(o, k.Core.Name, parts.Count == 0 ? "turns not given: volts per turn unknown" : string.Join(", ", parts));
+                Line(o, k.Core.Name, string.Join(", ", parts));
             }
         }
         Heading(o, "Supplies");
@@ -98,14 +99,23 @@ public static class TextReport
         }
         Heading(o, "Totals");
         Line(o, "copper loss", Numbers.Format(c.Totals.CopperLoss, "W"));
-        Line(o, "core loss", Numbers.Format(c.Totals.CoreLoss, "W"));
+        Line(o, "core loss", CoreLoss(c.Totals));
         if (c.Totals.Efficiency is { } eff) Line(o, "efficiency", Percent(eff));
+        else if (!c.Totals.CoreLossKnown) Line(o, "efficiency", "unknown without the core loss");
         Line(o, "throughput", Numbers.Format(c.Totals.Throughput, "VA"));
         Line(o, "transformed", Numbers.Format(c.Totals.Transformed, "VA"));
         if (c.Totals is { MaxEfficiencyLoad: { } best, MaxEfficiencyFraction: { } fraction, MaxEfficiency: { } max })
             Line(o, "best load", $"{Numbers.Format(best, "VA")} ({Percent(fraction)} of this load), efficiency {Percent(max)} there");
         WriteBands(o, c);
     }
+
+    /// <summary>Why a core shows no flux density: what is missing to compute it.</summary>
+    public static string FluxUnknown(CoreResult k) =>
+        k.VoltsPerTurn is null ? "flux unknown: give the windings' turns" + (k.Core.Source.Area is null ? " and the core's area" : "")
+        : "flux unknown: give the core's area";
+
+    /// <summary>The total core loss, or "unknown" where a core has no open-circuit test.</summary>
+    public static string CoreLoss(Totals t) => t.CoreLossKnown ? Numbers.Format(t.CoreLoss, "W") : "unknown (no 'no-load' line)";
 
     private static void WriteBands(StringBuilder o, CaseResult c)
     {
@@ -133,8 +143,8 @@ public static class TextReport
     public static string Verdict(CheckResult check) => !check.Evaluated ? "not evaluated" : check.Passed ? "pass" : "FAIL";
 
     /// <summary>"3 of 4 checks passed", with how many were not evaluated, apart.</summary>
-    public static string CheckCount(int passed, int checks, int notEvaluated, string verb = "passed") =>
-        $"{passed} of {checks} check{(checks == 1 ? "" : "s")} {verb}" + (notEvaluated > 0 ? $", {notEvaluated} not evaluated" : "");
+    public static string CheckCount(int passed, int checks, int notEvaluated) =>
+        $"{passed} of {checks} check{(checks == 1 ? "" : "s")} passed" + (notEvaluated > 0 ? $", {notEvaluated} not evaluated" : "");
 
     /// <summary>
     /// "117.7 V", or with sweep points and tolerances "69.98 V; 0.000 V to 139.9 V over 11 points;

@@ -105,7 +105,9 @@ public static class Checks
                 return null;
             case MeasureKind.Efficiency:
                 if (result.Totals.Efficiency is { } efficiency) return efficiency;
-                problem = "efficiency needs a supply that delivers power to a load";
+                problem = result.Totals.CoreLossKnown
+                    ? "efficiency needs a supply that delivers power to a load"
+                    : $"efficiency needs the core loss: give a 'no-load' line for {string.Join(", ", result.Cores.Where(k => !k.LossKnown).Select(k => $"core '{k.Core.Name}'"))}";
                 return null;
             default:
                 if (result.Loads.FirstOrDefault(l => l.Load.Name == t[0].Name)?.Regulation is { } regulation) return regulation;

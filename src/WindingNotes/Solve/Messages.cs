@@ -48,7 +48,16 @@ public sealed partial class DiagnosticBag
 
     public Diagnostic ReportCurrentDensityHigh(TextSpan span, string winding, double density, double low, double high, string where) =>
         Warning("current-density-high", span,
-            $"the current density in '{winding}' is {Numbers.Format(density / 1e6, "A/mm2")}{where}, above the {Numbers.Plain(low / 1e6)} to {Numbers.Plain(high / 1e6)} A/mm2 usual for naturally cooled copper windings (common practice)");
+            $"the current density in '{winding}' is {Numbers.Format(density / 1e6, "A/mm2")}{where}, above the {Numbers.Plain(low / 1e6)} to {Numbers.Plain(high / 1e6)} A/mm2 usual for naturally cooled copper windings");
+
+    /// <summary>One message for every core without an open-circuit test, at the first of them.</summary>
+    public Diagnostic ReportCoreLossUnknown(IReadOnlyList<CoreModel> cores)
+    {
+        var names = string.Join(", ", cores.Select(c => $"'{c.Name}'"));
+        return Amend(Info("core-loss-unknown", cores[0].NameSpan,
+                $"{(cores.Count == 1 ? "core" : "cores")} {names} {(cores.Count == 1 ? "has" : "have")} no 'no-load' line: core loss is unknown, so the efficiency and the load of highest efficiency are not given"),
+            d => d with { Related = [.. cores.Skip(1).Select(c => new RelatedSpan($"core '{c.Name}'", c.NameSpan))] });
+    }
 
     public Diagnostic ReportInternalError(Exception e) =>
         Error("internal-error", default, $"internal error, please report it: {e.GetType().Name}: {e.Message}");
@@ -141,7 +150,7 @@ public sealed partial class DiagnosticBag
 
     public Diagnostic ReportOverexcited(TextSpan span, string core, double ratio, double limit, string condition, string where) =>
         Warning("overexcited", span,
-            $"core '{core}' runs at {Show(ratio, "%")} of its rated volts per turn {condition}, above the {Show(limit, "%")} IEEE C57.12.00 allows (from memory){where}");
+            $"core '{core}' runs at {Show(ratio, "%")} of its rated volts per turn {condition}, above the {Show(limit, "%")} IEEE C57.12.00 allows{where}");
 
     public Diagnostic ReportBrushCurrentHigh(TextSpan span, string brush, double current, double limit, string where) =>
         Warning("brush-current-high", span, $"brush '{brush}' carries {Numbers.Format(current, "A")}, above its current-limit of {Numbers.Format(limit, "A")}{where}");
@@ -151,27 +160,33 @@ public sealed partial class DiagnosticBag
             $"the autotransformer connection needs a two-winding rating of {Numbers.Format(needed, "VA")} ({detail}) but core '{cores}' is rated {Numbers.Format(rating, "VA")}{where}");
 }
 
-// Cautions: information where a result bears on safety, each with its source.
+// Cautions: information where a result bears on safety. Users read facts here; where each comes
+// from stays in these comments and in the tests (REFERENCES.md): no isolation and the open common
+// winding (published encyclopedic articles); the common terminal to the grounded conductor with no
+// overcurrent device in the common winding (NEC 210.9, 215.11, 450.4, from memory for edition
+// details); fusing a variable autotransformer's output and rating what an output above the supply
+// feeds (common practice, no source); the fault duty's 2 s (IEC 60076-5 thermal ability, from memory).
+// The current-density band is common practice; the over-excitation limits are IEEE C57.12.00 (from memory).
 public sealed partial class DiagnosticBag
 {
     public Diagnostic ReportNoIsolation(TextSpan span, string load, string supply) =>
         Info("caution-no-isolation", span,
-            $"load '{load}' is connected to supply '{supply}' through the windings: an autotransformer connection gives no galvanic isolation, a fault can put the full input voltage on the output, and an open common winding leaves the series winding in the line (published encyclopedic articles)");
+            $"load '{load}' is connected to supply '{supply}' through the windings: an autotransformer connection gives no galvanic isolation, a fault can put the full input voltage on the output, and an open common winding leaves the series winding in the line");
 
     public Diagnostic ReportCommonTerminal(TextSpan span, string node, bool grounded) =>
         Info("caution-common-terminal", span, grounded
-            ? $"the common terminal '{node}' goes to the grounded conductor, and no overcurrent device goes in the common winding (NEC 210.9, 215.11, 450.4; from memory for edition details)"
-            : $"the common terminal '{node}' is not grounded: it goes to the grounded conductor, and no overcurrent device goes in the common winding (NEC 210.9, 215.11, 450.4; from memory for edition details)");
+            ? $"the common terminal '{node}' goes to the grounded conductor, and no overcurrent device goes in the common winding"
+            : $"the common terminal '{node}' is not grounded: it goes to the grounded conductor, and no overcurrent device goes in the common winding");
 
     public Diagnostic ReportFuseOutput(TextSpan span, string brush) =>
         Info("caution-fuse-output", span,
-            $"fuse the output of the variable autotransformer at brush '{brush}': at a low setting the output current is far above the input current, so a fuse on the supply side does not protect the brush and winding (common practice, no source)");
+            $"fuse the output of the variable autotransformer at brush '{brush}': at a low setting the output current is far above the input current, so a fuse on the supply side does not protect the brush and winding");
 
     public Diagnostic ReportAboveSupply(TextSpan span, string load, double voltage, string supply, double supplyVoltage, string where) =>
         Info("caution-above-supply", span,
-            $"the output at load '{load}' reaches {Numbers.Format(voltage, "V")}{(where.Length == 0 ? "" : $" {where}")}, above the {Numbers.Format(supplyVoltage, "V")} of supply '{supply}': the connection raises the output above the supply, and what it feeds must be rated for that (common practice, no source)");
+            $"the output at load '{load}' reaches {Numbers.Format(voltage, "V")}{(where.Length == 0 ? "" : $" {where}")}, above the {Numbers.Format(supplyVoltage, "V")} of supply '{supply}': the connection raises the output above the supply, and what it feeds must be rated for that");
 
     public Diagnostic ReportFaultDuty(TextSpan span, string fault, double current, double peak, double? multiple, string? winding) =>
         Info("caution-fault-duty", span,
-            $"fault '{fault}' drives {Numbers.Format(current, "A")} (asymmetrical peak {Numbers.Format(peak, "A")}){(multiple is { } m && winding is not null ? $", {Numbers.Plain(m)} times the rated current of '{winding}'" : "")}: the windings must carry it for {Numbers.Plain(Solve.Faults.ThermalDuration)} s (IEC 60076-5 thermal ability, from memory) and the protection must clear it");
+            $"fault '{fault}' drives {Numbers.Format(current, "A")} (asymmetrical peak {Numbers.Format(peak, "A")}){(multiple is { } m && winding is not null ? $", {Numbers.Plain(m)} times the rated current of '{winding}'" : "")}: the windings must carry it for {Numbers.Plain(Solve.Faults.ThermalDuration)} s (IEC 60076-5, thermal ability to withstand short circuit) and the protection must clear it");
 }

@@ -24,7 +24,8 @@ public static class Points
     public static PointResult Solve(SyntaxTree syntax, BindOverrides overrides, CaseSpec spec, bool withFaults, CancellationToken cancel)
     {
         var model = Binder.Bind(syntax, overrides);
-        if (model.Supplies.IsEmpty) return new PointResult(null, null, [], model.Diagnostics);
+        // As for the document itself: a point whose model did not bind completely is not solved.
+        if (model.HasErrors || model.Supplies.IsEmpty) return new PointResult(null, null, [], model.Diagnostics);
         var network = NetworkBuilder.Build(model);
         if (network.Diagnostics.Any(d => d.IsError)) return new PointResult(null, null, [], [.. model.Diagnostics, .. network.Diagnostics]);
         var solved = Solve(network, spec, withFaults, cancel);

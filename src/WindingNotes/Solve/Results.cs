@@ -13,6 +13,9 @@ public sealed record SectionResult(Section Section, WindingNet Winding, Complex 
 /// <summary>Volts per turn and peak flux density, where the turns are known (not only derived from voltages).</summary>
 public sealed record CoreResult(CoreNet Core, Complex? VoltsPerTurn, double? Flux, double Loss)
 {
+    /// <summary>Whether an open-circuit test gives the core's loss; without one <see cref="Loss"/> is unknown, not zero.</summary>
+    public bool LossKnown => Core.NoLoadWinding >= 0;
+
     /// <summary>The magnetising current the open-circuit test winding draws at this volts per turn, and that winding.</summary>
     public Complex? NoLoadCurrent { get; init; }
 
@@ -36,6 +39,12 @@ public sealed record LoadResult(LoadNet Load, Complex Voltage, Complex Current, 
 /// </summary>
 public sealed record Totals(double CopperLoss, double CoreLoss, double? Efficiency, double Throughput, double Transformed)
 {
+    /// <summary>
+    /// False where a core has no open-circuit test: its loss is unknown, so <see cref="CoreLoss"/>
+    /// is a part only and the efficiency and maximum-efficiency load are not given.
+    /// </summary>
+    public bool CoreLossKnown { get; init; } = true;
+
     /// <summary>VA of load at maximum efficiency; null without both copper and core loss.</summary>
     public double? MaxEfficiencyLoad { get; init; }
 
@@ -154,12 +163,14 @@ public static class Results
 
         var supplied = supplies.Sum(s => s.Power.Real);
         var delivered = loads.Sum(l => l.Power.Real);
+        // Without an open-circuit test a core's loss is unknown: an efficiency of copper loss alone would flatter.
+        var coreLossKnown = cores.All(c => c.LossKnown);
         var totals = MaximumEfficiency(new Totals(
             sections.Sum(s => s.Loss),
             cores.Sum(c => c.Loss),
-            supplied > 0 && loads.Length > 0 ? delivered / supplied : null,
+            coreLossKnown && supplied > 0 && loads.Length > 0 ? delivered / supplied : null,
             loads.Sum(l => l.Power.Magnitude),
-            sections.Sum(s => s.Apparent) / 2), delivered);
+            sections.Sum(s => s.Apparent) / 2) { CoreLossKnown = coreLossKnown }, delivered);
         return new CaseResult(solution.Case, solution, points, sections, cores, supplies, loads, totals)
         {
             Connections = ConnectionsOf(network, solution, supplies, loads),
@@ -173,7 +184,7 @@ public static class Results
     /// </summary>
     private static Totals MaximumEfficiency(Totals t, double delivered)
     {
-        if (t.CopperLoss <= 0 || t.CoreLoss <= 0 || t.Throughput <= 0 || delivered <= 0) return t;
+        if (!t.CoreLossKnown || t.CopperLoss <= 0 || t.CoreLoss <= 0 || t.Throughput <= 0 || delivered <= 0) return t;
         var x = Math.Sqrt(t.CoreLoss / t.CopperLoss);
         var p = x * delivered;
         return t with { MaxEfficiencyLoad = x * t.Throughput, MaxEfficiencyFraction = x, MaxEfficiency = p / (p + 2 * t.CoreLoss) };

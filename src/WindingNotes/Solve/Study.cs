@@ -29,6 +29,8 @@ public static class Study
         diagnostics.AddRange(nominal.Diagnostics);
         if (nominal.Case is not { } normal) return new StudyResult([], []);
 
+        if (!normal.Totals.CoreLossKnown && !normal.Loads.IsEmpty)
+            diagnostics.ReportCoreLossUnknown([.. normal.Cores.Where(k => !k.LossKnown).Select(k => k.Core.Source)]);
         var axes = Sweeps.Plan(model, diagnostics);
         var samples = Tolerances.Plan(model, diagnostics);
         RatingTally.CheckBrushRanges(network, axes, diagnostics);

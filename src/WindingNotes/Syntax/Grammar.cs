@@ -2,7 +2,7 @@ using System.Collections.Frozen;
 
 namespace WindingNotes.Syntax;
 
-public enum StatementKind { Frequency, Temperature, Let, Core, Winding, Tap, Brush, Impedance, NoLoad, Join, Ground, Supply, Load, Fault, Sweep, Expect }
+public enum StatementKind { Frequency, Temperature, Let, Core, Winding, Tap, Brush, Impedance, NoLoad, Join, Ground, Supply, Load, Fault, Sweep, Expect, FailOn, Acknowledge }
 
 /// <summary>What a name stands for. One namespace holds them all.</summary>
 public enum SymbolKind { Let, Core, Winding, Terminal, Tap, Brush, Node, Supply, Load, Fault }
@@ -60,6 +60,12 @@ public static class Grammar
     private static readonly ValuePart Value = new("a value");
 
     private static ClauseForm Clause(string keyword, string summary, params Part[] parts) => new(keyword, parts, Summary: summary);
+
+    /// <summary>The rating warnings a file may make errors of with 'fail-on' (their wording is in Solve/Messages.cs).</summary>
+    public static readonly string[] RatingWarnings = ["loading-high", "flux-high", "overexcited", "brush-current-high", "connection-rating", "current-density-high"];
+
+    /// <summary>The cautions a file may acknowledge (their wording is in Solve/Messages.cs).</summary>
+    public static readonly string[] Cautions = ["caution-no-isolation", "caution-common-terminal", "caution-fuse-output", "caution-above-supply", "caution-fault-duty"];
 
     public static readonly StatementForm[] Statements =
     [
@@ -168,6 +174,10 @@ public static class Grammar
                 new("near", [Value, new WordPart("within"), Value], Group: "condition", Summary: "a target with a tolerance"),
             ],
             "expect voltage X1 N between 225 V and 235 V", "a check that must hold", ["measure", "condition"]),
+        new(StatementKind.FailOn, "fail-on", [new ChoicePart("a rating warning", RatingWarnings)], [],
+            "fail-on loading-high", "a rating warning that is an error in this file, so check fails on it"),
+        new(StatementKind.Acknowledge, "acknowledge", [new ChoicePart("a caution", Cautions)], [],
+            "acknowledge caution-no-isolation", "a caution read and accepted: check stops printing it, reports keep it"),
     ];
 
     public static readonly FrozenDictionary<string, StatementForm> ByKeyword = Statements.ToFrozenDictionary(s => s.Keyword);
@@ -177,6 +187,10 @@ public static class Grammar
 
     /// <summary>Keywords written with a hyphen; the lexer reads them as one word.</summary>
     public static readonly FrozenSet<string> HyphenatedKeywords = Keywords.Where(k => k.Contains('-')).ToFrozenSet();
+
+    /// <summary>The beginnings of hyphenated keywords up to a hyphen ("caution-no" of caution-no-isolation), so the lexer reads on.</summary>
+    public static readonly FrozenSet<string> HyphenatedPrefixes =
+        HyphenatedKeywords.SelectMany(k => k.Select((c, i) => c == '-' ? k[..i] : null).OfType<string>()).ToFrozenSet();
 
     /// <summary>Words with a fixed meaning inside values.</summary>
     public static readonly FrozenSet<string> ValueWords = new[] { "angle", "sqrt" }.ToFrozenSet();

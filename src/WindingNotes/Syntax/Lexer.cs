@@ -92,13 +92,15 @@ public static class Lexer
         if (text[i] == '%') return i + 1;
         var start = i;
         while (i < text.Length && IsWordPart(text[i])) i++;
-        // A hyphenated keyword such as flux-limit is one word; elsewhere '-' is an operator.
-        while (i + 1 < text.Length && text[i] == '-' && char.IsLetter(text[i + 1]))
+        // A hyphenated keyword such as flux-limit or caution-no-isolation is one word; elsewhere '-' is an operator.
+        for (var j = i; j + 1 < text.Length && text[j] == '-' && char.IsLetter(text[j + 1]);)
         {
-            var end = i + 1;
+            var end = j + 1;
             while (end < text.Length && IsWordPart(text[end])) end++;
-            if (!Grammar.HyphenatedKeywords.Contains(text[start..end])) break;
-            i = end;
+            var word = text[start..end];
+            if (Grammar.HyphenatedKeywords.Contains(word)) i = end;
+            else if (!Grammar.HyphenatedPrefixes.Contains(word)) break;
+            j = end;
         }
         return i;
     }

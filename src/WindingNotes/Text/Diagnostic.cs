@@ -15,6 +15,9 @@ public sealed record Diagnostic(Severity Severity, string Code, string Message, 
     /// <summary>Other places that take part (the second of two duplicates, the loop of a singular network).</summary>
     public ImmutableArray<RelatedSpan> Related { get; init; } = [];
 
+    /// <summary>A caution the file acknowledges: check no longer prints it, reports keep it.</summary>
+    public bool Acknowledged { get; init; }
+
     public bool IsError => Severity == Severity.Error;
 }
 

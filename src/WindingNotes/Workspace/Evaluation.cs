@@ -132,9 +132,17 @@ public static class Evaluator
 
     private static Evaluation Finish(string path, Stages stages)
     {
-        var ordered = stages.Diagnostics.OrderBy(d => d.Span.Start).ThenBy(d => d.Severity).ToImmutableArray();
+        var ordered = stages.Diagnostics.Select(d => AsTheFileSays(d, stages.Model)).OrderBy(d => d.Span.Start).ThenBy(d => d.Severity).ToImmutableArray();
         var checks = stages.Study.Cases.IsEmpty ? NotEvaluated(stages.Syntax, stages.Model) : stages.Study.Checks;
         return new Evaluation(path, stages.Syntax, stages.Model, stages.Network, stages.Study.Cases, checks, ordered);
+    }
+
+    /// <summary>A rating warning the file fails on becomes an error; a caution it acknowledges is marked so.</summary>
+    private static Diagnostic AsTheFileSays(Diagnostic d, Model.Model model)
+    {
+        if (d.Severity == Severity.Warning && model.FailOn.TryGetValue(d.Code, out var failOn))
+            return d with { Severity = Severity.Error, Related = [.. d.Related, new RelatedSpan($"an error by 'fail-on {d.Code}'", failOn)] };
+        return model.Acknowledged.ContainsKey(d.Code) ? d with { Acknowledged = true } : d;
     }
 
     /// <summary>Every expect line of a file that was not solved, whether it bound or not.</summary>

@@ -17,7 +17,8 @@ public sealed class DocumentWorkspace
     /// diagnostics and a request for hints evaluate once between them). Its token is cancelled
     /// when the version is overtaken or closed, so the evaluation of a stale version stops early.
     /// </summary>
-    private sealed class Entry(Document document)
+    /// <param name="lastSolved">The last earlier version that was solved, shown while this one is not.</param>
+    private sealed class Entry(Document document, SolvedVersion? lastSolved)
     {
         private readonly CancellationTokenSource stale = new();
         private readonly TaskCompletionSource<Evaluation> done = new(TaskCreationOptions.RunContinuationsAsynchronously);
@@ -35,7 +36,8 @@ public sealed class DocumentWorkspace
             {
                 try
                 {
-                    done.SetResult(Evaluator.Evaluate(Document.Text, Document.Path, stale.Token));
+                    var evaluation = Evaluator.Evaluate(Document.Text, Document.Path, stale.Token);
+                    done.SetResult(evaluation.Solved ? evaluation : evaluation with { LastSolved = lastSolved });
                 }
                 catch (Exception e)
                 {
@@ -49,6 +51,10 @@ public sealed class DocumentWorkspace
 
         // Never disposed: a token source without timers holds nothing, and disposing it would race with Cancel.
         public void Overtake() => stale.Cancel();
+
+        /// <summary>This version where it was solved, else the one before it that was: one evaluation is kept, never a chain.</summary>
+        public SolvedVersion? LatestSolved =>
+            done.Task.IsCompletedSuccessfully && done.Task.Result.Solved ? new SolvedVersion(Document.Version, done.Task.Result) : lastSolved;
     }
 
     private readonly ConcurrentDictionary<string, Entry> entries = new();
@@ -63,11 +69,11 @@ public sealed class DocumentWorkspace
     {
         Entry? previous = null;
         entries.AddOrUpdate(uri,
-            _ => new Entry(new Document(uri, path ?? uri, version, text)),
+            _ => new Entry(new Document(uri, path ?? uri, version, text), null),
             (_, old) =>
             {
                 previous = old;
-                return new Entry(new Document(uri, path ?? old.Document.Path, version, text));
+                return new Entry(new Document(uri, path ?? old.Document.Path, version, text), old.LatestSolved);
             });
         previous?.Overtake();
     }
