@@ -29,7 +29,7 @@ A bare program name is looked up on `exec-path' and then in
 ;; tests/WindingNotes.Tests/Editors keeps them equal to its keyword table.
 (defconst windingnotes-statement-keywords
   '("frequency" "temperature" "let" "core" "winding" "tap" "brush" "impedance" "no-load"
-    "join" "ground" "supply" "load" "fault" "sweep" "expect")
+    "join" "ground" "supply" "load" "fault" "sweep" "expect" "fail-on" "acknowledge")
   "Words that start a statement.")
 
 (defconst windingnotes-clause-keywords
@@ -41,7 +41,10 @@ A bare program name is looked up on `exec-path' and then in
 
 (defconst windingnotes-option-keywords
   '("copper" "aluminium" "length" "mean-turn" "lagging" "leading"
-    "constant-impedance" "constant-current" "constant-power")
+    "constant-impedance" "constant-current" "constant-power"
+    "loading-high" "flux-high" "overexcited" "brush-current-high" "connection-rating"
+    "current-density-high" "caution-no-isolation" "caution-common-terminal"
+    "caution-fuse-output" "caution-above-supply" "caution-fault-duty")
   "Words chosen from a fixed set inside a clause.")
 
 (defconst windingnotes-value-keywords '("angle" "sqrt")

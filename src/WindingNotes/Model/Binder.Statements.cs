@@ -365,15 +365,12 @@ internal sealed partial class BindRun
     private void BindFault(StatementSyntax s)
     {
         var name = s.Head.Name(0)!;
-        var a = Point(s.Head.Name(1));
-        var b = Point(s.Head.Name(2));
+        var a = Node(s.Head.Name(1), s);
+        var b = Node(s.Head.Name(2), s);
         var z = s.Clause("impedance") is { } imp ? Complex(imp.Value(), Dimension.Impedance, $"the impedance of {name.Text}") : 0;
         if (a is null || b is null || z is null) return;
         faults.Add(new FaultModel(name.Text, name.Name.Span, s.Span, a, b, z.Value));
     }
-
-    /// <summary>A point a fault or an expect names: it must exist in the network.</summary>
-    private NodeRef? Point(NameSyntax? name) => Observed(name) is { } symbol ? new NodeRef(symbol.Name, name!.Name.Span) : null;
 
     private void BindSweep(StatementSyntax s)
     {

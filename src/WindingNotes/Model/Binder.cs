@@ -159,8 +159,9 @@ internal sealed partial class BindRun
     }
 
     /// <summary>
-    /// A point that an expect or a fault names: it observes the network and adds nothing to it,
-    /// so a name that no element touches is an error, not a new node at 0 V.
+    /// A point that an expect names: it observes the network and adds nothing to it, so a name that
+    /// no element touches is an error, not a new node at 0 V. (A fault is an element: a fault on a
+    /// node nothing else touches is a lonely node.)
     /// </summary>
     private Symbol? Observed(NameSyntax? name)
     {
@@ -183,8 +184,8 @@ internal sealed partial class BindRun
 
     /// <summary>
     /// A free node (a name no winding, tap or brush defines) must join two elements: one touched by a
-    /// single load, supply, join or ground is a slip of the pen, and one only an expect or a fault
-    /// names does not exist. Both are errors, with the nearest real point as a suggestion. A winding
+    /// single load, supply, join, ground or fault is a slip of the pen, and one only an expect names
+    /// does not exist. Both are errors, with the nearest real point as a suggestion. A winding
     /// end left open stays legal: it is a terminal, not a free node.
     /// </summary>
     private void CheckLonelyNodes()

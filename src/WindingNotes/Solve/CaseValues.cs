@@ -26,7 +26,7 @@ public static class CaseValues
             var key = $"cores.{k.Core.Name}";
             if (k.VoltsPerTurn is { } e) yield return new($"{key}.voltsPerTurn.rms", e.Magnitude, "V");
             if (k.Flux is { } flux) yield return new($"{key}.flux", flux, "T");
-            yield return new($"{key}.loss", k.Loss, "W");
+            if (k.LossKnown) yield return new($"{key}.loss", k.Loss, "W");
         }
         foreach (var s in c.Supplies)
         {
@@ -54,7 +54,7 @@ public static class CaseValues
         }
         var t = c.Totals;
         yield return new("totals.copperLoss", t.CopperLoss, "W");
-        yield return new("totals.coreLoss", t.CoreLoss, "W");
+        if (t.CoreLossKnown) yield return new("totals.coreLoss", t.CoreLoss, "W");
         if (t.Efficiency is { } eff) yield return new("totals.efficiency", eff, "%");
         yield return new("totals.throughput", t.Throughput, "VA");
         yield return new("totals.transformed", t.Transformed, "VA");

@@ -96,7 +96,8 @@ public static class Formatter
         NameSyntaxExpression n => n.Name.Text,
         CallSyntax c => $"{c.Function.Text}({Expression(c.Argument)})",
         ParenthesisedSyntax p => $"({Expression(p.Inner)})",
-        UnarySyntax u => u.Operator.Text + Expression(u.Operand),
+        // "+ -2" written together would read as "+-", the tolerance sign.
+        UnarySyntax u => u.Operand is UnarySyntax ? $"{u.Operator.Text} {Expression(u.Operand)}" : u.Operator.Text + Expression(u.Operand),
         BinarySyntax b => $"{Expression(b.Left)} {b.Operator.Text} {Expression(b.Right)}",
         _ => "",
     };

@@ -52,14 +52,17 @@ public class CautionTests
         Assert.Equal(["caution-above-supply", "caution-common-terminal", "caution-no-isolation"], Codes(e));
         var isolation = e.Single("caution-no-isolation");
         Assert.Equal("motor", e.TextAt(isolation.Span));
-        Assert.EndsWith("(published encyclopedic articles)", isolation.Message);
+        // No isolation, and an open common winding leaves the series winding in the line (published encyclopedic articles).
+        Assert.EndsWith("an open common winding leaves the series winding in the line", isolation.Message);
         var common = e.Single("caution-common-terminal");
         Assert.Equal("H2", e.TextAt(common.Span));
         Assert.Equal(8, e.Text.GetPosition(common.Span.Start).Line + 1);
-        Assert.Equal("the common terminal 'H2' goes to the grounded conductor, and no overcurrent device goes in the common winding (NEC 210.9, 215.11, 450.4; from memory for edition details)", common.Message);
+        // NEC 210.9, 215.11, 450.4 (from memory for edition details); the message states the rule, not its source.
+        Assert.Equal("the common terminal 'H2' goes to the grounded conductor, and no overcurrent device goes in the common winding", common.Message);
         var above = e.Single("caution-above-supply");
         Assert.Equal("motor", e.TextAt(above.Span));
-        Assert.EndsWith("(common practice, no source)", above.Message);
+        // Common practice, no source: what the output feeds must be rated for it.
+        Assert.EndsWith("what it feeds must be rated for that", above.Message);
     }
 
     [Fact]
@@ -83,12 +86,13 @@ public class CautionTests
         Assert.Equal(["caution-common-terminal", "caution-fuse-output", "caution-no-isolation"], Codes(below));
         var fuse = below.Single("caution-fuse-output");
         Assert.Equal("BR", below.TextAt(fuse.Span));
-        Assert.EndsWith("(common practice, no source)", fuse.Message);
+        // Common practice, no source.
+        Assert.EndsWith("does not protect the brush and winding", fuse.Message);
 
         var swept = Wn.Solved(SweepTests.Variable("sweep BR from 0 % to 100 % step 10 %"));
         var above = swept.Single("caution-above-supply");
         Assert.Equal("BR", swept.TextAt(above.Span));
-        Assert.Equal("the output at load 'bench' reaches 140.4 V at BR=100 %, above the 120.0 V of supply 'line': the connection raises the output above the supply, and what it feeds must be rated for that (common practice, no source)", above.Message);
+        Assert.Equal("the output at load 'bench' reaches 140.4 V at BR=100 %, above the 120.0 V of supply 'line': the connection raises the output above the supply, and what it feeds must be rated for that", above.Message);
     }
 
     [Fact]

@@ -83,6 +83,8 @@ public partial class FormatKeepsMeaningTests
         foreach (var c in json["cases"]!.AsArray())
             foreach (var check in c!["checks"]?.AsArray() ?? [])
                 check!["text"] = Canonical(check["text"]!.GetValue<string>());
+        foreach (var check in json["notEvaluated"]?.AsArray() ?? [])
+            check!["text"] = Canonical(check["text"]!.GetValue<string>());
         return json.ToJsonString();
     }
 
