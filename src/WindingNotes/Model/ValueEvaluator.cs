@@ -58,6 +58,14 @@ internal sealed class ValueEvaluator(
 
         var tolerance = Evaluate(value.Tolerance, 0);
         if (tolerance is null) return q;
+        // "5.75 % +- 7.5" would be ±7.5 as a fraction, 130 times the value: a quantity's tolerance carries % or a unit.
+        if (tolerance.Value is { Flags: QuantityFlags.None } t && t.Dimension.IsNone && !(q.Flags == QuantityFlags.None && q.Dimension.IsNone))
+        {
+            var written = value.Tolerance is NumberSyntax { Unit: null } n ? n.Number.Text : null;
+            var unit = q.IsPercent ? "" : q.Flags.HasFlag(QuantityFlags.Turns) ? "turns" : q.Dimension.SiUnit();
+            diagnostics.ReportMissingUnit(value.Tolerance.Span, "the tolerance", written ?? "…", unit.Length == 0 ? ["%"] : ["%", unit], written is not null);
+            return null;
+        }
         double spread;
         if (tolerance.Value.IsPercent) spread = tolerance.Value.Real;
         else if (tolerance.Value.Dimension.Fits(q.Dimension) && q.Magnitude > 0) spread = tolerance.Value.Magnitude / q.Magnitude;

@@ -15,18 +15,7 @@ namespace WindingNotes.Tests.Analysis;
 public class GateTests
 {
     /// <summary>The notation's example (examples/alder-creek-boost.wn) without its checks: lines 1 to 9, so what a test adds is line 10.</summary>
-    private const string Boost = """
-        frequency 60 Hz
-        core K1 rating 0.5 kVA area 26 cm2 flux-limit 1.6 T
-        winding HV on K1 turns 240 rated 240 V from H1 to H2 resistance 1.4 ohm
-        winding LV on K1 turns 24 rated 24 V from X1 to X2 resistance 0.014 ohm
-        impedance HV LV 3.6 % xr 1.1
-        supply mains H1 H2 208 V
-        ground H2
-        join H1 X2
-        load planer X1 H2 power 3.2 kW pf 0.82 lagging
-
-        """;
+    private static readonly string Boost = RatingTests.Boost("power 3.2 kW pf 0.82 lagging");
 
     private static Diagnostic Only(Evaluation e, string code, string at)
     {
@@ -78,6 +67,9 @@ public class GateTests
     [InlineData("expect voltage X1 H2 near 230 V within 1", "1", "give the tolerance a unit: 1 % or 1 V")]
     [InlineData("expect current planer below 20", "20", "give a bound on current a unit: 20 A")]
     [InlineData("tap T6 on LV at 6", "6", "give the position of T6 a unit: 6 turns or 6 %")]
+    // Before: ±7.5 as a fraction of 5.75 %, a band 130 times the value.
+    [InlineData("let z = 5.75 % +- 7.5", "7.5", "give the tolerance a unit: 7.5 %")]
+    [InlineData("supply aux H1 H2 208", "208", "give the voltage of aux a unit: 208 V")]
     public void Bounds_tolerances_and_positions_need_their_unit(string line, string at, string message)
     {
         var e = Wn.Eval(Boost + line + "\n");

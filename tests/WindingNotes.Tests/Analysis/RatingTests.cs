@@ -6,7 +6,7 @@ namespace WindingNotes.Tests.Analysis;
 /// <summary>Rating checks: warnings at the line of what is over its rating, and silence where all is within it.</summary>
 public class RatingTests
 {
-    private static string Boost(string load) => $"""
+    internal static string Boost(string load) => $"""
         frequency 60 Hz
         core K1 rating 0.5 kVA area 26 cm2 flux-limit 1.6 T
         winding HV on K1 turns 240 rated 240 V from H1 to H2 resistance 1.4 ohm
