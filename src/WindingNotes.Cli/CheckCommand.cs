@@ -31,6 +31,7 @@ internal static class CheckCommand
             }
             var evaluation = ProgressDisplay.Evaluate(io, text, ConsoleIo.DisplayName(path));
             foreach (var d in evaluation.Diagnostics.Where(d => !d.Acknowledged)) io.Output.WriteLine(DiagnosticLines.Format(evaluation, d));
+            foreach (var c in evaluation.Checks.Where(c => !c.Evaluated)) io.Output.WriteLine(DiagnosticLines.NotEvaluated(evaluation, c));
             errors += evaluation.Diagnostics.Count(d => d.IsError);
             warnings += evaluation.Diagnostics.Count(d => d.Severity == Text.Severity.Warning);
             checks += evaluation.Checks.Length;

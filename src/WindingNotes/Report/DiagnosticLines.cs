@@ -12,4 +12,11 @@ public static class DiagnosticLines
         var hints = string.Concat(d.Hints.Select(h => $" ({h.Message})"));
         return $"{evaluation.Path}:{p.Line + 1}:{p.Character + 1}: {TextReport.Severity(d.Severity)} {d.Code}: {d.Message}{hints}";
     }
+
+    /// <summary>A check of a file that was not solved, in the same form: it neither passed nor failed.</summary>
+    public static string NotEvaluated(Evaluation evaluation, Solve.CheckResult check)
+    {
+        var p = evaluation.Text.GetPosition(check.Expect.Line.Start);
+        return $"{evaluation.Path}:{p.Line + 1}:{p.Character + 1}: not evaluated: {check.Expect.Text}";
+    }
 }

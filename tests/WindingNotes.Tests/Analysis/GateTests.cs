@@ -155,6 +155,7 @@ public class GateTests
 
         var (code, output, _) = Command.Run(text, "check", "-");
         Assert.Equal(1, code);
+        Assert.Contains("<stdin>:10:1: not evaluated: expect voltage X1 H2 between 200 V and 240 V\n", output.Replace("\r\n", "\n"));
         Assert.EndsWith("1 file: 1 error, 0 warnings, 0 of 1 check passed, 1 not evaluated\n", output.Replace("\r\n", "\n"));
     }
 
@@ -281,6 +282,17 @@ public class GateTests
         var report = TextReport.Write(Wn.Eval(text));
         Assert.Contains("gives no galvanic isolation, a fault can put the full input voltage on the output, and an open common winding leaves the series winding in the line (acknowledged)", report);
         Assert.Contains("\"acknowledged\": true", JsonReport.Write(Wn.Eval(text)));
+    }
+
+    [Fact]
+    public void The_readme_ci_recipe_passes_on_every_example()
+    {
+        var readme = File.ReadAllText(Path.Combine(Snapshot.RepositoryRoot, "README.md"));
+        Assert.Contains("windingnotes check --strict calculations/*.wn", readme);
+        var files = Directory.GetFiles(Path.Combine(Snapshot.RepositoryRoot, "examples"), "*.wn").OrderBy(f => f).ToArray();
+        var (code, output, _) = Command.Run("", ["check", "--strict", .. files]);
+        Assert.True(code == 0, output);
+        Assert.Matches($@"{files.Length} files: 0 errors, 0 warnings, (\d+) of \1 checks passed\n$", output.Replace("\r\n", "\n"));
     }
 
     [Fact]
