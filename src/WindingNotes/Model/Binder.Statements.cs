@@ -174,7 +174,7 @@ internal sealed partial class BindRun
     /// <summary>A position in turns (or a bare number), in % of the winding, or in volts.</summary>
     private (double Position, TapUnit Unit)? TapPosition(Quantity q, ValueSyntax value, string tap)
     {
-        if (IsBare(q))
+        if (q.IsBare)
         {
             MissingUnit(value, $"the position of {tap}", "turns", "%");
             return null;
@@ -381,7 +381,7 @@ internal sealed partial class BindRun
         var step = Value(s.Value("step"), "the step of the sweep");
         var points = Real(s.Value("points"), Dimension.None, "the number of points", positive: true);
         if (target is null || from is null || to is null || (step is null && points is null)) return;
-        if (!SweepUnits(s, target, (range!.Value(0)!, from.Value, "the lower bound"), (range.Value(1)!, to.Value, "the upper bound"), (s.Value("step"), step, "the step"))) return;
+        if (!SweepUnits(target, (range!.Value(0)!, from.Value, "the lower bound"), (range.Value(1)!, to.Value, "the upper bound"), (s.Value("step"), step, "the step"))) return;
         sweeps.Add(new SweepModel(target, s.Span, from.Value, to.Value, step, points is { } n ? (int)Math.Round(n) : null));
     }
 
@@ -390,16 +390,16 @@ internal sealed partial class BindRun
     /// an error whose fix takes the unit the other values are written in ("give the lower bound a
     /// unit: 0 %"). False when one was reported.
     /// </summary>
-    private bool SweepUnits(StatementSyntax s, Symbol target, params (ValueSyntax? Syntax, Quantity? Value, string What)[] values)
+    private bool SweepUnits(Symbol target, params (ValueSyntax? Syntax, Quantity? Value, string What)[] values)
     {
         var nominal = target.Kind == SymbolKind.Let ? lets.GetValueOrDefault(target.Name) : (Quantity?)null;
-        if (nominal is { } n && IsBare(n)) return true;
+        if (nominal is { } n && n.IsBare) return true;
         var unit = values.Select(v => UnitWord(v.Syntax)).FirstOrDefault(u => u is not null)
             ?? (nominal is { } q ? (q.IsPercent ? "%" : q.Dimension.SiUnit()) : "%");
         var fine = true;
         foreach (var (syntax, value, what) in values)
         {
-            if (syntax is null || value is not { } v || !IsBare(v)) continue;
+            if (syntax is null || value is not { } v || !v.IsBare) continue;
             MissingUnit(syntax, what, unit);
             fine = false;
         }
@@ -450,7 +450,7 @@ internal sealed partial class BindRun
                 if (Real(conditionClause.Value(0), dimension, what, ratio: ratio) is not { } near) return;
                 var withinSyntax = conditionClause.Value(1);
                 if (Value(withinSyntax, "the tolerance of the check") is not { } within) return;
-                if (IsBare(within))
+                if (within.IsBare)
                 {
                     MissingUnit(withinSyntax!, "the tolerance", ratio ? ["%"] : ["%", unit]);
                     return;

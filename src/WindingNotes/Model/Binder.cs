@@ -243,9 +243,10 @@ internal sealed partial class BindRun
     private double? Real(ValueSyntax? value, Dimension dimension, string description, bool positive = false, bool ratio = false)
     {
         if (Value(value, description) is not { } q) return null;
-        if (IsBare(q) && (ratio || !dimension.IsNone))
+        if (q.IsBare && (ratio || !dimension.IsNone))
         {
-            MissingUnit(value!, description, ratio ? "%" : dimension.SiUnit());
+            // A ratio of 1 or less was likely meant as a fraction: 0.99 pu keeps that meaning.
+            MissingUnit(value!, description, !ratio ? [dimension.SiUnit()] : Math.Abs(q.Real) <= 1 ? ["pu", "%"] : ["%"]);
             return null;
         }
         if (!q.Dimension.Fits(dimension))
@@ -269,7 +270,7 @@ internal sealed partial class BindRun
     private System.Numerics.Complex? Complex(ValueSyntax? value, Dimension dimension, string description)
     {
         if (Value(value, description) is not { } q) return null;
-        if (IsBare(q) && !dimension.IsNone)
+        if (q.IsBare && !dimension.IsNone)
         {
             MissingUnit(value!, description, dimension.SiUnit());
             return null;
@@ -282,16 +283,13 @@ internal sealed partial class BindRun
         return q.Value;
     }
 
-    /// <summary>A number with no unit, no % and no 'turns': never a quantity, never a silent fraction.</summary>
-    private static bool IsBare(Quantity q) => q.Dimension.IsNone && q.Flags == QuantityFlags.None;
-
     /// <summary>
     /// A bare number where a quantity is meant: the error, and where the number is written as a
     /// literal a fix that adds the first of <paramref name="units"/>.
     /// </summary>
     private void MissingUnit(ValueSyntax value, string what, params string[] units)
     {
-        var literal = value.Expression is NumberSyntax { Unit: null } or UnarySyntax { Operand: NumberSyntax { Unit: null } } && value.Angle is null;
+        var literal = value.Expression is NumberSyntax { Unit: null } or UnarySyntax { Operand: NumberSyntax { Unit: null } };
         var written = tree.Text[value.Expression.Span];
         diagnostics.ReportMissingUnit(value.Expression.Span, what, written, units, literal);
     }

@@ -17,5 +17,8 @@ public readonly record struct Quantity(Complex Value, Dimension Dimension, Quant
 
     public bool IsPercent => Flags.HasFlag(QuantityFlags.Percent);
 
+    /// <summary>A number with no unit, no % and no 'turns': never a quantity, never a silent fraction.</summary>
+    public bool IsBare => Dimension.IsNone && Flags == QuantityFlags.None;
+
     public static Quantity Number(double value) => new(value, Dimension.None);
 }

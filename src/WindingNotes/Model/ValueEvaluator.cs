@@ -59,7 +59,7 @@ internal sealed class ValueEvaluator(
         var tolerance = Evaluate(value.Tolerance, 0);
         if (tolerance is null) return q;
         // "5.75 % +- 7.5" would be ±7.5 as a fraction, 130 times the value: a quantity's tolerance carries % or a unit.
-        if (tolerance.Value is { Flags: QuantityFlags.None } t && t.Dimension.IsNone && !(q.Flags == QuantityFlags.None && q.Dimension.IsNone))
+        if (tolerance.Value.IsBare && !q.IsBare)
         {
             var written = value.Tolerance is NumberSyntax { Unit: null } n ? n.Number.Text : null;
             var unit = q.IsPercent ? "" : q.Flags.HasFlag(QuantityFlags.Turns) ? "turns" : q.Dimension.SiUnit();

@@ -60,6 +60,11 @@ public class GateTests
         var e = Wn.Eval(Boost + "expect efficiency above 99\n");
         Assert.Equal("give a bound on efficiency a unit: 99 %", Only(e, "missing-unit", "99").Message);
         NotEvaluated(e);
+        // 0.99 was likely meant as a fraction: the fix keeps that meaning (1 pu = 100 %).
+        var fraction = Wn.Eval(Boost + "expect efficiency above 0.99\n");
+        var d = Only(fraction, "missing-unit", "0.99");
+        Assert.Equal("give a bound on efficiency a unit: 0.99 pu or 0.99 %", d.Message);
+        Assert.Equal("0.99 pu", Assert.Single(d.Hints).Replacement);
     }
 
     [Theory]
