@@ -14,7 +14,8 @@ public sealed record HoverInfo(TextRange Range, string Markdown);
 /// <summary>
 /// Hover on a name shows its full result (a winding's sections, a core's flux, a node's voltage, a
 /// supply's or load's powers, a fault's current); on a value, the value in other units; on a
-/// keyword, what the statement or clause means.
+/// keyword, what the statement or clause means. While a version is not solved, a name shows its
+/// result in the last version that was, marked as that version's.
 /// </summary>
 public static class Hovers
 {
@@ -23,7 +24,12 @@ public static class Hovers
         var text = evaluation.Text;
         var offset = text.GetOffset(position);
         if (evaluation.Model.Symbols.At(offset) is { } reference)
-            return new HoverInfo(text.GetRange(reference.Span), Symbol(evaluation, reference.Symbol));
+        {
+            var range = text.GetRange(reference.Span);
+            if (!evaluation.Solved && evaluation.LastSolved is { } last && last.Evaluation.Model.Symbols.Find(reference.Symbol.Name) is { } before)
+                return new HoverInfo(range, $"{Symbol(last.Evaluation, before)}\n\n*results of version {last.Version}: this version has errors and is not solved*");
+            return new HoverInfo(range, Symbol(evaluation, reference.Symbol));
+        }
         var line = evaluation.Syntax.Lines.FirstOrDefault(l => l.Span.Touches(offset));
         if (line?.Statement is not { } statement) return null;
         if (Keyword(statement, offset) is { } keyword) return new HoverInfo(text.GetRange(keyword.Span), KeywordText(statement, keyword));

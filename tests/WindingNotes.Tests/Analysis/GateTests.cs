@@ -170,7 +170,8 @@ public class GateTests
         var workspace = new DocumentWorkspace();
         var good = Boost + "expect voltage X1 H2 between 225 V and 235 V\n";
         workspace.Open("file:///a.wn", "a.wn", 1, good);
-        var first = InlayHints.For(workspace.Evaluate("file:///a.wn")!);
+        var solved = workspace.Evaluate("file:///a.wn")!;
+        var first = InlayHints.For(solved);
 
         // Version 2 drops the load's unit: nothing of it is solved; version 1's hints stay, marked.
         workspace.Update("file:///a.wn", 2, good.Replace("power 3.2 kW", "power 3.2"));
@@ -183,6 +184,10 @@ public class GateTests
         // The changed line has no hint (its old one would describe another load), and every hint is marked.
         Assert.DoesNotContain(kept, h => h.Position.Line == 8);
         Assert.All(kept, h => Assert.EndsWith(" (version 1)", h.Label));
+
+        // A hover on a name shows its result in version 1, marked so.
+        var mains = new Position(5, 8);
+        Assert.Equal(Hovers.At(solved, mains)!.Markdown + "\n\n*results of version 1: this version has errors and is not solved*", Hovers.At(broken, mains)!.Markdown);
 
         // Version 3 binds again: its own results, unmarked.
         workspace.Update("file:///a.wn", 3, good);
