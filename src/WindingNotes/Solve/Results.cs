@@ -111,13 +111,14 @@ public static class Results
             .Where(p => scope is null || scope.Points.Contains(p.Name))
             .Select(p => (p.Name, solution.Voltage(network.Node(p.Name)))).ToImmutableArray();
 
+        var losses = SectionLosses(network, solution);
         var sections = network.Sections.Where(s => scope is null || scope.Sections.Contains(s.Index)).Select(s =>
         {
             var w = network.Windings[s.Winding];
             var i = solution.SectionCurrents[s.Index];
             var v = solution.SectionVoltage(s);
             var loading = w.RatedCurrent is { } rated ? i.Magnitude / rated : (double?)null;
-            return new SectionResult(s, w, i, v, v.Magnitude * i.Magnitude, loading, SectionLoss(network, s, solution))
+            return new SectionResult(s, w, i, v, v.Magnitude * i.Magnitude, loading, losses[s.Index])
             {
                 CurrentDensity = w.Source.Conductor is { } conductor ? i.Magnitude / conductor.Area : null,
             };
@@ -200,18 +201,45 @@ public static class Results
     }
 
     /// <summary>
-    /// Copper loss of a section: Re(conj(I_k)·Σ_j R_kj·I_j) with R the real part of the core's
-    /// impedance matrix. It is R_kk·|I_k|² where only the diagonal is real; where the leakage matrix
-    /// carries resistance its series resistances could not, the sections' losses still add up to
-    /// the total Re(Iᴴ·R·I).
+    /// Copper loss by section. A core's copper loss is Re(Iᴴ·R·I) over its sections, R the real part
+    /// of its impedance matrix: exact, whatever the matrix. Its split by section is not: where three
+    /// or more windings' resistances come from pairwise tests and do not split into non-negative
+    /// winding resistances, the leakage matrix carries resistance between sections that belongs to no
+    /// one section, and the term-by-term split Re(conj(I_p)·Σ R_pq·I_q) can be negative. So the core's
+    /// loss is shared in proportion to each section's I²R through its own series resistance
+    /// (R_p·|I_p|², the loss in its own conductor). Where all the resistance is on the diagonal that
+    /// is the core's loss term by term, so nothing changes; a section with no series resistance of
+    /// its own gets a share of none, and no share is ever negative. On a core whose series
+    /// resistances are all zero, the diagonal of R (zero where negative) stands in for them.
     /// </summary>
-    private static double SectionLoss(Network network, Section s, Solution solution)
+    private static double[] SectionLosses(Network network, Solution solution)
     {
-        var core = network.Cores[s.Core];
-        var row = core.Sections.IndexOf(s.Index);
-        var sum = Complex.Zero;
-        for (var j = 0; j < core.Sections.Length; j++)
-            sum += core.Impedance[row, j].Real * solution.SectionCurrents[core.Sections[j]];
-        return (Complex.Conjugate(solution.SectionCurrents[s.Index]) * sum).Real;
+        var result = new double[network.Sections.Length];
+        if (!solution.HasVectors) return result;
+        foreach (var core in network.Cores)
+        {
+            var n = core.Sections.Length;
+            var currents = core.Sections.Select(s => solution.SectionCurrents[s]).ToArray();
+            var total = 0.0;
+            for (var p = 0; p < n; p++)
+            {
+                var sum = Complex.Zero;
+                for (var q = 0; q < n; q++) sum += core.Impedance[p, q].Real * currents[q];
+                total += (Complex.Conjugate(currents[p]) * sum).Real;
+            }
+            var own = new double[n];
+            for (var p = 0; p < n; p++)
+            {
+                var section = network.Sections[core.Sections[p]];
+                var r = core.Coupling is { } c ? c.Series[c.MemberOf[p]] * section.Turns : 0;
+                own[p] = r * currents[p].Magnitude * currents[p].Magnitude;
+            }
+            if (own.Sum() <= 0)
+                for (var p = 0; p < n; p++) own[p] = Math.Max(core.Impedance[p, p].Real, 0) * currents[p].Magnitude * currents[p].Magnitude;
+            var weight = own.Sum();
+            if (weight <= 0) continue;
+            for (var p = 0; p < n; p++) result[core.Sections[p]] = total * own[p] / weight;
+        }
+        return result;
     }
 }
