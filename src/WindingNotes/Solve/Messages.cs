@@ -141,7 +141,7 @@ public sealed partial class DiagnosticBag
 
     public Diagnostic ReportOverexcited(TextSpan span, string core, double ratio, double limit, string condition, string where) =>
         Warning("overexcited", span,
-            $"core '{core}' runs at {Show(ratio, "%")} of its rated volts per turn {condition}, above the {Show(limit, "%")} IEEE C57.12.00 allows (from memory){where}");
+            $"core '{core}' runs at {Show(ratio, "%")} of its rated volts per hertz {condition}, above the {Show(limit, "%")} IEEE C57.12.00 allows (from memory){where}");
 
     public Diagnostic ReportBrushCurrentHigh(TextSpan span, string brush, double current, double limit, string where) =>
         Warning("brush-current-high", span, $"brush '{brush}' carries {Numbers.Format(current, "A")}, above its current-limit of {Numbers.Format(limit, "A")}{where}");

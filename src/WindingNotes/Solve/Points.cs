@@ -24,6 +24,7 @@ public static class Points
     public static PointResult Solve(SyntaxTree syntax, BindOverrides overrides, CaseSpec spec, bool withFaults, CancellationToken cancel)
     {
         var model = Binder.Bind(syntax, overrides);
+        if (overrides.RatedFrequency is { } rated) model = model with { RatedFrequency = rated };
         if (model.Supplies.IsEmpty) return new PointResult(null, null, [], model.Diagnostics);
         var network = NetworkBuilder.Build(model);
         if (network.Diagnostics.Any(d => d.IsError)) return new PointResult(null, null, [], [.. model.Diagnostics, .. network.Diagnostics]);

@@ -92,7 +92,7 @@ public class RatingTests
         // IEEE C57.12.00 (from memory): 105 % of rated volts per turn on load, 110 % at no load.
         var onLoad = Wn.Solved(Excited(240 * 1.07, loaded: true));
         var d = onLoad.Single("overexcited");
-        Assert.Equal("core 'K' runs at 107.0 % of its rated volts per turn on load, above the 105.0 % IEEE C57.12.00 allows (from memory)", d.Message);
+        Assert.Equal("core 'K' runs at 107.0 % of its rated volts per hertz on load, above the 105.0 % IEEE C57.12.00 allows (from memory)", d.Message);
         Assert.Equal("K", onLoad.TextAt(d.Span));
         Assert.DoesNotContain(Wn.Solved(Excited(240 * 1.07, loaded: false)).Diagnostics, x => x.Code == "overexcited");
         Assert.Contains("at no load, above the 110.0 %", Wn.Solved(Excited(240 * 1.12, loaded: false)).Single("overexcited").Message);
