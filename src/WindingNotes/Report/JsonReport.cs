@@ -163,7 +163,7 @@ public static class JsonReport
             if (l.Regulation is { } r) Number(w, "regulation", r);
             if (c.Connections.FirstOrDefault(x => x.Connection.Load == l.Load) is { } connection)
             {
-                Number(w, "coRatio", connection.CoRatio);
+                if (connection.CoRatio is { } coRatio) Number(w, "coRatio", coRatio);
                 Number(w, "twoWindingRating", connection.TwoWindingRating);
             }
             w.WriteEndObject();

@@ -117,7 +117,7 @@ public static class MarkdownReport
                         l.Load.Name, V(l.Voltage.Magnitude, "V"), Angle(l.Voltage), V(l.Current.Magnitude, "A"),
                         V(l.Power.Real, "W"), V(l.Power.Imaginary, "var"), V(l.Power.Magnitude, "VA"), TextReport.PowerFactor(l.Power),
                         l.Regulation is { } r ? TextReport.Percent(r) : "",
-                        .. If(auto, a is null ? "" : Numbers.Fixed(a.CoRatio), a is null ? "" : V(a.TwoWindingRating, "VA")),
+                        .. If(auto, a?.CoRatio is { } coRatio ? Numbers.Fixed(coRatio) : "", a is null ? "" : V(a.TwoWindingRating, "VA")),
                     ];
                 }));
         }

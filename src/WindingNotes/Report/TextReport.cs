@@ -83,7 +83,7 @@ public static class TextReport
                 var text = $"{Phasor(l.Voltage, "V")}, {Phasor(l.Current, "A")}: {Powers(l.Power)}";
                 if (l.Regulation is { } r) text += $", regulation {Percent(r)}";
                 if (c.Connections.FirstOrDefault(x => x.Connection.Load == l.Load) is { } a)
-                    text += $", co-ratio {Numbers.Fixed(a.CoRatio)}, two-winding rating needed {Numbers.Format(a.TwoWindingRating, "VA")}";
+                    text += $"{(a.CoRatio is { } coRatio ? $", co-ratio {Numbers.Fixed(coRatio)}" : "")}, two-winding rating needed {Numbers.Format(a.TwoWindingRating, "VA")}";
                 Line(o, l.Load.Name, text);
             }
         }

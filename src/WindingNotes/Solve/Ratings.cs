@@ -62,15 +62,17 @@ public sealed class RatingTally
             var current = BrushCurrent(c, brush.Name);
             if (current > brush.CurrentLimit!.Value * (1 + 1e-9)) Found("brush-current-high", brush.Name, brush.NameSpan, brush.Name, current, brush.CurrentLimit.Value);
         }
-        foreach (var island in c.Connections.GroupBy(x => string.Join(",", x.Connection.Cores)))
+        foreach (var island in c.Connections.GroupBy(x => x.Connection.Island))
         {
             var cores = island.First().Connection.Cores.Select(i => network.Cores[i]).ToList();
             if (cores.Count == 0 || cores.Any(k => k.Source.Rating is null)) continue;
             var rating = cores.Sum(k => k.Source.Rating!.Value);
-            var needed = island.Sum(x => x.TwoWindingRating);
-            var throughput = island.Sum(x => x.Throughput);
+            // A load fed from two supplies (two legs, two lines) is one load.
+            var loads = island.DistinctBy(x => x.Connection.Load.Index).ToList();
+            var needed = loads.Sum(x => x.TwoWindingRating);
+            var throughput = loads.Sum(x => x.Throughput);
             if (needed > rating * (1 + 1e-9))
-                Found("connection-rating", island.Key, cores[0].Source.NameSpan, string.Join(", ", cores.Select(k => k.Name)), needed, rating,
+                Found("connection-rating", string.Join(",", island.First().Connection.Cores), cores[0].Source.NameSpan, string.Join(", ", cores.Select(k => k.Name)), needed, rating,
                     $"{Numbers.Format(throughput, "VA")} throughput at a co-ratio of {Numbers.Fixed(needed / throughput)}");
         }
     }

@@ -47,10 +47,16 @@ public sealed record Totals(double CopperLoss, double CoreLoss, double? Efficien
 
 /// <summary>
 /// An autotransformer connection in a case: the supply and the load galvanically linked through
-/// windings, the co-ratio (V_H − V_X)/V_H, and the two-winding rating the connection needs,
-/// S_load·(V_H − V_X)/V_H (R5).
+/// windings, the two-winding (transformed) rating the connection needs, and the co-ratio, that rating
+/// over the throughput. The rating is the series winding's voltage times its current, whatever the
+/// wiring: |V|·|I| of the sections between the load's terminals and the supply points they are fed
+/// from. For a step-up or step-down connection with the common winding across the lower voltage
+/// that is S_load·(V_H − V_X)/V_H (R5); where the common winding is across the line of a buck, the
+/// series winding opposes, or the load spans two legs of a supply, the formula in voltages misstates
+/// it. Loads on one island share the rating of its series windings in proportion to their throughput.
+/// With no throughput (an output at 0 V) the co-ratio is 0/0: absent.
 /// </summary>
-public sealed record ConnectionResult(Connection Connection, double CoRatio, double Throughput, double TwoWindingRating);
+public sealed record ConnectionResult(Connection Connection, double? CoRatio, double Throughput, double TwoWindingRating);
 
 /// <summary>The range of one result over the tolerances, by its JSON path.</summary>
 public sealed record Band(string Path, string Unit, double Min, double Max);
@@ -183,13 +189,16 @@ public static class Results
     private static ImmutableArray<ConnectionResult> ConnectionsOf(Network network, Solution solution, ImmutableArray<SupplyResult> supplies, ImmutableArray<LoadResult> loads)
     {
         if (solution.Case.WithoutLoads || solution.Case.Fault is not null) return [];
-        return [.. Solve.Connections.Find(network).Select(c =>
+        var connections = Solve.Connections.Find(network);
+        var carried = connections.GroupBy(c => c.Island).ToDictionary(g => g.Key,
+            g => g.SelectMany(c => c.Series).Distinct().Sum(s => solution.SectionVoltage(network.Sections[s]).Magnitude * solution.SectionCurrents[s].Magnitude));
+        var throughput = connections.DistinctBy(c => (c.Island, c.Load.Index)).GroupBy(c => c.Island)
+            .ToDictionary(g => g.Key, g => g.Sum(c => loads[c.Load.Index].Power.Magnitude));
+        return [.. connections.Select(c =>
         {
-            var (vs, vl) = (supplies[c.Supply.Index].Voltage.Magnitude, loads[c.Load.Index].Voltage.Magnitude);
-            var high = Math.Max(vs, vl);
-            var coRatio = high > 0 ? (high - Math.Min(vs, vl)) / high : 0;
+            double? coRatio = throughput[c.Island] > 0 ? carried[c.Island] / throughput[c.Island] : null;
             var s = loads[c.Load.Index].Power.Magnitude;
-            return new ConnectionResult(c, coRatio, s, s * coRatio);
+            return new ConnectionResult(c, coRatio, s, s * coRatio ?? 0);
         })];
     }
 

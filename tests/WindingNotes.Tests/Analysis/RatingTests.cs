@@ -127,7 +127,7 @@ public class RatingTests
             load out S1 C2 apparent {load} pf 0.8
             """;
         var ok = Wn.Solved(Unit("90 kVA"));
-        Wn.Near(1.0 / 6, ok.Normal!.Connections.Single().CoRatio, 1e-9, "co-ratio");
+        Wn.Near(1.0 / 6, ok.Normal!.Connections.Single().CoRatio!.Value, 1e-9, "co-ratio");
         Wn.Near(15e3, ok.Normal.Connections.Single().TwoWindingRating, 1e-9, "two-winding rating needed");
         Assert.DoesNotContain(ok.Diagnostics, d => d.Code == "connection-rating");
         var over = Wn.Solved(Unit("100 kVA"));
