@@ -112,6 +112,19 @@ public static class JsonReport
         }
         w.WriteEndObject();
 
+        if (!c.Taps.IsEmpty)
+        {
+            w.WriteStartObject("taps");
+            foreach (var t in c.Taps)
+            {
+                w.WriteStartObject(t.Point);
+                w.WriteString("winding", t.Winding.Name);
+                Phasor(w, "i", t.Current);
+                w.WriteEndObject();
+            }
+            w.WriteEndObject();
+        }
+
         w.WriteStartObject("cores");
         foreach (var k in c.Cores)
         {

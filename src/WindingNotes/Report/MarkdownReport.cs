@@ -76,6 +76,11 @@ public static class MarkdownReport
             o.Append('\n');
             Table(o, 1, ["winding", "loss"], split.Select(g => new[] { g.Key, V(g.Sum(s => s.Loss), "W") }));
         }
+        if (!c.Taps.IsEmpty)
+        {
+            o.Append('\n');
+            Table(o, 2, ["tap", "winding", "current out", "angle"], c.Taps.Select(t => new[] { t.Point, t.Winding.Name, V(t.Current.Magnitude, "A"), Angle(t.Current) }));
+        }
         if (!c.Cores.IsEmpty)
         {
             var noLoad = c.Cores.Any(k => k.NoLoadCurrent is not null);

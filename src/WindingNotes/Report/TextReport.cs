@@ -59,6 +59,11 @@ public static class TextReport
             Heading(o, "Windings");
             foreach (var winding in split) Line(o, winding.Key, $"loss {Numbers.Format(winding.Sum(s => s.Loss), "W")}");
         }
+        if (!c.Taps.IsEmpty)
+        {
+            Heading(o, "Taps, current out of the winding");
+            foreach (var t in c.Taps) Line(o, t.Point, $"on {t.Winding.Name}: {Phasor(t.Current, "A")}");
+        }
         if (!c.Cores.IsEmpty)
         {
             Heading(o, "Cores");

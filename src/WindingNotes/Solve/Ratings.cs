@@ -98,17 +98,8 @@ public sealed class RatingTally
         }
     }
 
-    /// <summary>The current the brush passes to what it feeds: what enters its node from the sections ending there, less what leaves into the sections starting there.</summary>
-    public static double BrushCurrent(CaseResult c, string brush)
-    {
-        var sum = Complex.Zero;
-        foreach (var s in c.Sections)
-        {
-            if (s.Section.ToPoint == brush) sum += s.Current;
-            if (s.Section.FromPoint == brush) sum -= s.Current;
-        }
-        return sum.Magnitude;
-    }
+    /// <summary>The current the brush passes to what it feeds.</summary>
+    public static double BrushCurrent(CaseResult c, string brush) => c.Taps.FirstOrDefault(t => t.Point == brush)?.Current.Magnitude ?? 0;
 
     public void Report(DiagnosticBag diagnostics)
     {

@@ -10,6 +10,13 @@ public sealed record SectionResult(Section Section, WindingNet Winding, Complex 
     public double? CurrentDensity { get; init; }
 }
 
+/// <summary>
+/// The current a winding gives out at one of its taps or brushes, into what that point feeds: what
+/// enters the point from the section ending there less what leaves into the section starting
+/// there. At a centre tap it is the neutral (return) current; at a brush, the current the brush carries.
+/// </summary>
+public sealed record TapResult(string Point, WindingNet Winding, Complex Current);
+
 /// <summary>Volts per turn and peak flux density, where the turns are known (not only derived from voltages).</summary>
 public sealed record CoreResult(CoreNet Core, Complex? VoltsPerTurn, double? Flux, double Loss)
 {
@@ -90,6 +97,9 @@ public sealed record CaseResult(
     /// <summary>For a fault case: the fault current, the loop's X/R and the asymmetrical peak.</summary>
     public FaultResult? Fault { get; init; }
 
+    /// <summary>Taps and brushes in source order, with the current each gives out.</summary>
+    public ImmutableArray<TapResult> Taps { get; init; } = [];
+
     /// <summary>Autotransformer connections: each supply and load linked through windings.</summary>
     public ImmutableArray<ConnectionResult> Connections { get; init; } = [];
 
@@ -118,10 +128,13 @@ public static class Results
             .Select(p => (p.Name, solution.Voltage(network.Node(p.Name)))).ToImmutableArray();
 
         var losses = SectionLosses(network, solution);
-        var sections = network.Sections.Where(s => scope is null || scope.Sections.Contains(s.Index)).Select(s =>
+        var inScope = network.Sections.Where(s => scope is null || scope.Sections.Contains(s.Index)).ToList();
+        var sections = inScope.Select(s =>
         {
             var w = network.Windings[s.Winding];
-            var i = solution.SectionCurrents[s.Index];
+            // A section of no turns (a brush at an end) is no part of the winding: what the solver
+            // passes through it goes from the brush's contact to the end terminal, not through turns.
+            var i = s.Turns > 0 ? solution.SectionCurrents[s.Index] : Complex.Zero;
             var v = solution.SectionVoltage(s);
             var loading = w.RatedCurrent is { } rated ? i.Magnitude / rated : (double?)null;
             return new SectionResult(s, w, i, v, v.Magnitude * i.Magnitude, loading, losses[s.Index])
@@ -169,6 +182,7 @@ public static class Results
             sections.Sum(s => s.Apparent) / 2), delivered);
         return new CaseResult(solution.Case, solution, points, sections, cores, supplies, loads, totals)
         {
+            Taps = TapsOf(network, solution, inScope),
             Connections = ConnectionsOf(network, solution, supplies, loads),
             Fault = solution.Case.Fault is not null && normal is not null ? Faults.Compute(solution, normal) : null,
         };
@@ -184,6 +198,20 @@ public static class Results
         var x = Math.Sqrt(t.CoreLoss / t.CopperLoss);
         var p = x * delivered;
         return t with { MaxEfficiencyLoad = x * t.Throughput, MaxEfficiencyFraction = x, MaxEfficiency = p / (p + 2 * t.CoreLoss) };
+    }
+
+    /// <summary>The current out of each tap and brush of the sections given, by Kirchhoff's current law at the point.</summary>
+    private static ImmutableArray<TapResult> TapsOf(Network network, Solution solution, List<Section> sections)
+    {
+        var at = new Dictionary<string, (int Winding, Complex Current)>(StringComparer.Ordinal);
+        foreach (var s in sections)
+        {
+            var i = solution.SectionCurrents[s.Index];
+            at[s.ToPoint] = (s.Winding, at.GetValueOrDefault(s.ToPoint).Current + i);
+            at[s.FromPoint] = (s.Winding, at.GetValueOrDefault(s.FromPoint).Current - i);
+        }
+        return [.. network.Model.Taps.DistinctBy(t => t.Name).Where(t => at.ContainsKey(t.Name))
+            .Select(t => new TapResult(t.Name, network.Windings[at[t.Name].Winding], at[t.Name].Current))];
     }
 
     private static ImmutableArray<ConnectionResult> ConnectionsOf(Network network, Solution solution, ImmutableArray<SupplyResult> supplies, ImmutableArray<LoadResult> loads)
