@@ -57,9 +57,10 @@ public sealed class RatingTally
         var network = c.Solution.Network;
         Excitation(c, network, c.Loads.Length > 0 && !c.Case.WithoutLoads, Found);
         if (p.NoLoad is { } noLoad && noLoad != c) Excitation(noLoad, network, false, Found);
+        var carried = c.Taps.ToDictionary(t => t.Point, t => t.Current.Magnitude);
         foreach (var brush in network.Model.Taps.Where(t => t.IsBrush && t.CurrentLimit is not null))
         {
-            var current = BrushCurrent(c, brush.Name);
+            var current = carried.GetValueOrDefault(brush.Name);
             if (current > brush.CurrentLimit!.Value * (1 + 1e-9)) Found("brush-current-high", brush.Name, brush.NameSpan, brush.Name, current, brush.CurrentLimit.Value);
         }
         foreach (var island in c.Connections.GroupBy(x => x.Connection.Island))
@@ -97,9 +98,6 @@ public sealed class RatingTally
                 found("overexcited", $"{core.Name}/{(onLoad ? "load" : "no-load")}", core.Source.NameSpan, core.Name, ratio, limit, onLoad ? "on load" : "at no load");
         }
     }
-
-    /// <summary>The current the brush passes to what it feeds.</summary>
-    public static double BrushCurrent(CaseResult c, string brush) => c.Taps.FirstOrDefault(t => t.Point == brush)?.Current.Magnitude ?? 0;
 
     public void Report(DiagnosticBag diagnostics)
     {

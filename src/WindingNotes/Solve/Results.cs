@@ -127,7 +127,7 @@ public static class Results
             .Where(p => scope is null || scope.Points.Contains(p.Name))
             .Select(p => (p.Name, solution.Voltage(network.Node(p.Name)))).ToImmutableArray();
 
-        var losses = SectionLosses(network, solution);
+        var losses = SectionLosses(network, solution, scope);
         var inScope = network.Sections.Where(s => scope is null || scope.Sections.Contains(s.Index)).ToList();
         var sections = inScope.Select(s =>
         {
@@ -249,12 +249,13 @@ public static class Results
     /// its own gets a share of none, and no share is ever negative. On a core whose series
     /// resistances are all zero, the diagonal of R (zero where negative) stands in for them.
     /// </summary>
-    private static double[] SectionLosses(Network network, Solution solution)
+    private static double[] SectionLosses(Network network, Solution solution, CaseScope? scope)
     {
         var result = new double[network.Sections.Length];
         if (!solution.HasVectors) return result;
         foreach (var core in network.Cores)
         {
+            if (scope is not null && !scope.Cores.Contains(core.Index)) continue;
             var n = core.Sections.Length;
             var currents = core.Sections.Select(s => solution.SectionCurrents[s]).ToArray();
             var total = 0.0;

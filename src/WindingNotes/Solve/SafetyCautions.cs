@@ -85,8 +85,13 @@ public sealed class OutputTally(Network network)
             : $"between {PointName(a)} and {PointName(b)}";
     }
 
-    /// <summary>A supply point as the supplies name it.</summary>
-    private string PointName(int node) =>
-        network.Supplies.Select(s => s.NodeP == node ? s.Source.Positive.Name : s.NodeQ == node ? s.Source.Negative.Name : null).FirstOrDefault(n => n is not null)
-        ?? network.Nodes[node].Name;
+    /// <summary>A supply point as the first supply that ends there names it.</summary>
+    private string PointName(int node)
+    {
+        pointNames ??= network.Supplies.SelectMany(s => new[] { (s.NodeP, s.Source.Positive.Name), (s.NodeQ, s.Source.Negative.Name) })
+            .DistinctBy(p => p.Item1).ToDictionary(p => p.Item1, p => p.Item2);
+        return pointNames.GetValueOrDefault(node) ?? network.Nodes[node].Name;
+    }
+
+    private Dictionary<int, string>? pointNames;
 }
