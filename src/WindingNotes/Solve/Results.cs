@@ -183,7 +183,7 @@ public static class Results
         return new CaseResult(solution.Case, solution, points, sections, cores, supplies, loads, totals)
         {
             Taps = TapsOf(network, solution, inScope),
-            Connections = ConnectionsOf(network, solution, supplies, loads),
+            Connections = ConnectionsOf(network, solution, loads),
             Fault = solution.Case.Fault is not null && normal is not null ? Faults.Compute(solution, normal) : null,
         };
     }
@@ -214,7 +214,7 @@ public static class Results
             .Select(t => new TapResult(t.Name, network.Windings[at[t.Name].Winding], at[t.Name].Current))];
     }
 
-    private static ImmutableArray<ConnectionResult> ConnectionsOf(Network network, Solution solution, ImmutableArray<SupplyResult> supplies, ImmutableArray<LoadResult> loads)
+    private static ImmutableArray<ConnectionResult> ConnectionsOf(Network network, Solution solution, ImmutableArray<LoadResult> loads)
     {
         if (solution.Case.WithoutLoads || solution.Case.Fault is not null) return [];
         var connections = Solve.Connections.Find(network);

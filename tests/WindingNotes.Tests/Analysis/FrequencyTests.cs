@@ -90,4 +90,22 @@ public class FrequencyTests
         Wn.Near(0.5, At(e, 60).Supply("s").Current.Magnitude, 1e-9, "no-load current at 60 Hz, as tested");
         Wn.Near(30, At(e, 50).Totals.CoreLoss, 1e-9, "core loss at 50 Hz");
     }
+
+    [Fact]
+    public void A_supply_impedance_is_given_at_the_frequency_as_written()
+    {
+        // 100 V behind 3 + j4 ohm (at 60 Hz) into a 5 ohm load: |I| = 100/|8 + j4·f/60|, as for the
+        // leakage above: 12.127 A at 30 Hz, 11.180 A at 60 Hz.
+        var e = Wn.Solved("""
+            let f = 60 Hz
+            frequency f
+            supply s P N 100 V impedance 3 + j4 ohm
+            ground N
+            load r P N impedance 5 ohm
+            sweep f from 30 Hz to 60 Hz step 30 Hz
+
+            """);
+        Wn.Near(100 / Math.Sqrt(8 * 8 + 2 * 2), At(e, 30).Load("r").Current.Magnitude, 1e-9, "at 30 Hz");
+        Wn.Near(100 / Math.Sqrt(8 * 8 + 4 * 4), At(e, 60).Load("r").Current.Magnitude, 1e-9, "at 60 Hz");
+    }
 }
