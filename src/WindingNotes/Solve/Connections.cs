@@ -57,6 +57,10 @@ public static class Connections
         {
             int[] loadNodes = [load.NodeA, load.NodeB];
             var candidates = new SortedSet<int>(loadNodes.Where(a => a != earth).SelectMany(a => suppliesIn.GetValueOrDefault(sets.Find(a)) ?? []));
+            if (candidates.Count == 0) continue;
+            // The supply points the load's terminals are fed from, and the series winding between.
+            var fedB = FedFrom(touching, earth, load.NodeB, load.NodeA, supplyPoints);
+            var fedA = FedFrom(touching, earth, load.NodeA, fedB.Point, supplyPoints);
             foreach (var supply in candidates.Select(i => network.Supplies[i]))
             {
                 int[] supplyNodes = [supply.NodeP, supply.NodeQ];
@@ -69,13 +73,11 @@ public static class Connections
                 var island = sets.Find(fed >= 0 ? loadNodes[fed] : own);
                 var cores = (coresIn.GetValueOrDefault(island) ?? []).ToImmutableArray();
                 var common = loadNodes.Intersect(supplyNodes).ToImmutableArray();
-                var b = supplyPoints.Contains(load.NodeB) ? (Point: load.NodeB, Series: ImmutableArray<int>.Empty) : FedFrom(touching, earth, load.NodeB, load.NodeA, supplyPoints);
-                var a = FedFrom(touching, earth, load.NodeA, b.Point, supplyPoints);
                 result.Add(new Connection(supply, load, common, cores)
                 {
                     Island = island,
-                    Series = [.. a.Series, .. b.Series],
-                    FedFrom = a.Point == b.Point ? (supply.NodeP, supply.NodeQ) : (a.Point, b.Point),
+                    Series = [.. fedA.Series, .. fedB.Series],
+                    FedFrom = fedA.Point == fedB.Point ? (supply.NodeP, supply.NodeQ) : (fedA.Point, fedB.Point),
                 });
             }
         }
