@@ -132,6 +132,7 @@ public static class Hovers
         if (core.Rating is { } rating) parts.Add($"rating {Numbers.Format(rating, "VA")}");
         if (core.Area is { } area) parts.Add($"area {Numbers.Format(area * 1e4, "cm2")}");
         if (core.FluxLimit is { } limit) parts.Add($"flux limit {Numbers.Format(limit, "T")}");
+        if (core.Frequency is { } hertz) parts.Add($"rated frequency {Numbers.Format(hertz, "Hz")}");
         return parts.Count == 0 ? "no rating, area or flux limit given" : string.Join(", ", parts);
     }
 

@@ -74,6 +74,7 @@ internal sealed partial class BindRun
             Rating = Real(s.Value("rating"), Dimension.ApparentPower, $"the rating of {name.Text}", positive: true),
             Area = Real(s.Value("area"), Dimension.Area, $"the area of {name.Text}", positive: true),
             FluxLimit = Real(s.Value("flux-limit"), Dimension.FluxDensity, $"the flux limit of {name.Text}", positive: true),
+            Frequency = Real(s.Value("frequency"), Dimension.Frequency, $"the rated frequency of {name.Text}", positive: true),
         });
     }
 

@@ -207,8 +207,8 @@ internal static class Leakage
             var z = value / n2;
             var stated = (a.StatedPerTurn ?? 0) + (b.StatedPerTurn ?? 0);
             var bothStated = a.StatedPerTurn is not null && b.StatedPerTurn is not null;
-            // The line is given at the frequency as written; leakage reactance follows the frequency, resistance does not.
-            var f = model.Frequency / model.RatedFrequency;
+            // The line is given at the core's rated frequency; leakage reactance follows the frequency, resistance does not.
+            var f = model.Frequency / model.RatedFrequencyOf(core);
             if (z.Imaginary != 0 || line.XR is not null)
             {
                 var (r, x) = z.Imaginary != 0 ? (z.Real, z.Imaginary) : SplitByXR(z.Magnitude, line.XR!.Value);

@@ -18,6 +18,9 @@ public sealed record CoreModel(string Name, TextSpan NameSpan, TextSpan Line)
 
     /// <summary>Peak tesla.</summary>
     public double? FluxLimit { get; init; }
+
+    /// <summary>The core's rated frequency, Hz, where the file states one for it.</summary>
+    public double? Frequency { get; init; }
 }
 
 /// <summary>An open-circuit test: no-load current (a fraction of rated, or amperes) and loss, at a winding's voltage.</summary>
@@ -129,12 +132,19 @@ public sealed record Model(SyntaxTree Syntax, SymbolTable Symbols, ImmutableArra
 
     /// <summary>
     /// The frequency the document's impedances, tests and ratings are given at: the frequency as
-    /// written. A sweep point or tolerance sample that changes the frequency keeps it, so reactances
-    /// follow (X ∝ f) and excitation is judged in volts per hertz.
+    /// written, where a core states no rated frequency of its own. A sweep point or tolerance sample
+    /// that changes the frequency keeps it, so reactances follow (X ∝ f) and excitation is judged in
+    /// volts per hertz.
     /// </summary>
     public double RatedFrequency { get => ratedFrequency ?? Frequency; init => ratedFrequency = value; }
 
     private readonly double? ratedFrequency;
+
+    /// <summary>
+    /// The frequency a core's impedances, open-circuit test and volts per hertz are given at: its own
+    /// rated frequency where stated, else the frequency as written.
+    /// </summary>
+    public double RatedFrequencyOf(CoreModel core) => core.Frequency ?? RatedFrequency;
 
     /// <summary>Kelvin.</summary>
     public double Temperature { get; init; } = 348.15;

@@ -175,7 +175,7 @@ public static class NetworkBuilder
         {
             var test = NoLoadTest(core, index);
             var coupling = Leakage.SectionMatrix(model, index, onCore, windings, lines, test?.Winding.Name, diagnostics);
-            var admittance = test is { } t ? MagnetisingAdmittance(t.Test, t.Winding) : Complex.Zero;
+            var admittance = test is { } t ? MagnetisingAdmittance(t.Test, t.Winding, model.RatedFrequencyOf(core)) : Complex.Zero;
             return new CoreNet(index, core, [.. onCore.Select(s => s.Index)], coupling.Matrix([.. onCore.Select(s => s.Turns)]), admittance, core.FluxLimit)
             {
                 NoLoadWinding = test?.Winding.Index ?? -1,
@@ -202,7 +202,7 @@ public static class NetworkBuilder
         /// (open-circuit test relations): G = P/V², |Y| = I/V, B = √(|Y|² − G²), each times N_W² (a
         /// winding of N turns sees Y/N²). Core loss then goes with the square of the volts per turn.
         /// </summary>
-        private Complex MagnetisingAdmittance(NoLoadModel test, WindingNet w)
+        private Complex MagnetisingAdmittance(NoLoadModel test, WindingNet w, double ratedFrequency)
         {
             var current = test.CurrentIsFraction
                 ? test.Current * (w.RatedCurrent ?? double.NaN)
@@ -219,8 +219,8 @@ public static class NetworkBuilder
                 diagnostics.ReportNoLoadInconsistent(test.Line);
                 return Complex.Zero;
             }
-            // The test was made at the frequency as written: the magnetising reactance follows the frequency (B ∝ 1/f).
-            var b = Math.Sqrt(y * y - g * g) * model.RatedFrequency / model.Frequency;
+            // The test was made at the core's rated frequency: the magnetising reactance follows the frequency (B ∝ 1/f).
+            var b = Math.Sqrt(y * y - g * g) * ratedFrequency / model.Frequency;
             return new Complex(g, -b) * w.Turns * w.Turns;
         }
 

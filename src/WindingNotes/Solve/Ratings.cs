@@ -80,9 +80,10 @@ public sealed class RatingTally
 
     /// <summary>
     /// Volts per hertz against rated: the core's volts per turn over the rated voltage per turn of the
-    /// first winding on it that states a rated voltage, times the rated frequency (as written) over
-    /// the frequency. Flux goes with V/f, so a core fed at rated voltage below its rated frequency is
-    /// over-excited: at 50 Hz a 60 Hz core at rated voltage is at 120 %.
+    /// first winding on it that states a rated voltage, times the core's rated frequency (its own, or
+    /// the frequency as written) over the frequency. Flux goes with V/f, so a core fed at rated
+    /// voltage below its rated frequency is over-excited: at 50 Hz a 60 Hz core at rated voltage is
+    /// at 120 %.
     /// </summary>
     private static void Excitation(CaseResult c, Network network, bool onLoad, Action<string, string, TextSpan, string, double, double, string> found)
     {
@@ -93,7 +94,7 @@ public sealed class RatingTally
             var rated = ratedOn[core.Index].FirstOrDefault();
             if (rated is null) continue;
             var ratio = c.Solution.CoreVoltsPerTurn[core.Index].Magnitude / (rated.Source.Rated!.Value / rated.Turns)
-                * network.Model.RatedFrequency / network.Model.Frequency;
+                * network.Model.RatedFrequencyOf(core.Source) / network.Model.Frequency;
             if (ratio > limit * (1 + 1e-9))
                 found("overexcited", $"{core.Name}/{(onLoad ? "load" : "no-load")}", core.Source.NameSpan, core.Name, ratio, limit, onLoad ? "on load" : "at no load");
         }

@@ -80,6 +80,7 @@ public static class Grammar
                 Clause("rating", "the core's kVA rating", Value),
                 Clause("area", "the net cross-section of the core", Value),
                 Clause("flux-limit", "the highest peak flux density allowed", Value),
+                Clause("frequency", "the core's rated frequency, where it is not the file's", Value),
             ],
             "core K1 rating 0.5 kVA area 26 cm2 flux-limit 1.6 T", "a magnetic core: all windings on it link the same flux"),
         new(StatementKind.Winding, "winding", [new NamePart(Def(SymbolKind.Winding, "a new winding name"))],
