@@ -207,19 +207,21 @@ internal static class Leakage
             var z = value / n2;
             var stated = (a.StatedPerTurn ?? 0) + (b.StatedPerTurn ?? 0);
             var bothStated = a.StatedPerTurn is not null && b.StatedPerTurn is not null;
+            // The line is given at the frequency as written; leakage reactance follows the frequency, resistance does not.
+            var f = model.Frequency / model.RatedFrequency;
             if (z.Imaginary != 0 || line.XR is not null)
             {
                 var (r, x) = z.Imaginary != 0 ? (z.Real, z.Imaginary) : SplitByXR(z.Magnitude, line.XR!.Value);
-                if (!bothStated) return new Pair(i, k, r, x, FitsResistance: true);
+                if (!bothStated) return new Pair(i, k, r, x * f, FitsResistance: true);
                 if (Math.Abs(r - stated) > 0.1 * stated) diagnostics.ReportResistanceMismatch(line.ValueSpan, r * n2, stated * n2);
-                return new Pair(i, k, stated, x, FitsResistance: false);
+                return new Pair(i, k, stated, x * f, FitsResistance: false);
             }
             if (stated >= z.Magnitude)
             {
                 diagnostics.ReportResistanceExceedsImpedance(line.ValueSpan, stated * n2, z.Magnitude * n2);
                 return null;
             }
-            return new Pair(i, k, stated, Math.Sqrt(z.Magnitude * z.Magnitude - stated * stated), FitsResistance: false);
+            return new Pair(i, k, stated, Math.Sqrt(z.Magnitude * z.Magnitude - stated * stated) * f, FitsResistance: false);
         }
 
         private static (double R, double X) SplitByXR(double magnitude, double xr)

@@ -127,6 +127,15 @@ public sealed record Model(SyntaxTree Syntax, SymbolTable Symbols, ImmutableArra
 {
     public double Frequency { get; init; } = 50;
 
+    /// <summary>
+    /// The frequency the document's impedances, tests and ratings are given at: the frequency as
+    /// written. A sweep point or tolerance sample that changes the frequency keeps it, so reactances
+    /// follow (X ∝ f) and excitation is judged in volts per hertz.
+    /// </summary>
+    public double RatedFrequency { get => ratedFrequency ?? Frequency; init => ratedFrequency = value; }
+
+    private readonly double? ratedFrequency;
+
     /// <summary>Kelvin.</summary>
     public double Temperature { get; init; } = 348.15;
 
@@ -169,4 +178,7 @@ public sealed record BindOverrides
 
     /// <summary>Deviation in [-1, 1] of each toleranced value, by the value's start offset.</summary>
     public ImmutableDictionary<int, double> Deviations { get; init; } = ImmutableDictionary<int, double>.Empty;
+
+    /// <summary>The frequency as written, where the values above may change the frequency.</summary>
+    public double? RatedFrequency { get; init; }
 }

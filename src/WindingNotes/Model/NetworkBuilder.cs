@@ -219,7 +219,8 @@ public static class NetworkBuilder
                 diagnostics.ReportNoLoadInconsistent(test.Line);
                 return Complex.Zero;
             }
-            var b = Math.Sqrt(y * y - g * g);
+            // The test was made at the frequency as written: the magnetising reactance follows the frequency (B ∝ 1/f).
+            var b = Math.Sqrt(y * y - g * g) * model.RatedFrequency / model.Frequency;
             return new Complex(g, -b) * w.Turns * w.Turns;
         }
 
@@ -234,7 +235,7 @@ public static class NetworkBuilder
                     diagnostics.ReportSupplyShorted(s.NameSpan, s.Name, s.Positive.Name, s.Negative.Name);
                     continue;
                 }
-                result.Add(new SupplyNet(result.Count, s, p, q, s.Voltage, SupplyImpedance(s)));
+                result.Add(new SupplyNet(result.Count, s, p, q, s.Voltage, SupplyImpedance(s, model.Frequency / model.RatedFrequency)));
             }
             return result.ToImmutable();
         }
@@ -242,16 +243,18 @@ public static class NetworkBuilder
         /// <summary>
         /// The internal impedance: stated, or from the fault level (|Z| = |E|/I_f, or |E|²/S_f) split by
         /// X/R. Without an X/R the impedance is taken as pure reactance, the conservative case for peaks.
+        /// It is given at the frequency as written; its reactance is scaled by <paramref name="f"/>, the
+        /// frequency over that one.
         /// </summary>
-        private static Complex SupplyImpedance(SupplyModel s)
+        private static Complex SupplyImpedance(SupplyModel s, double f)
         {
-            if (s.Impedance is { } z) return z;
+            if (s.Impedance is { } z) return new Complex(z.Real, z.Imaginary * f);
             var e = s.Voltage.Magnitude;
             double? magnitude = s.FaultCurrent is { } i ? e / i : s.FaultPower is { } sf ? e * e / sf : null;
             if (magnitude is not { } m) return Complex.Zero;
-            if (s.XR is not { } xr) return new Complex(0, m);
+            if (s.XR is not { } xr) return new Complex(0, m * f);
             var r = m / Math.Sqrt(1 + xr * xr);
-            return new Complex(r, r * xr);
+            return new Complex(r, r * xr * f);
         }
 
         /// <summary>

@@ -125,6 +125,19 @@ public static class JsonReport
         }
         w.WriteEndObject();
 
+        if (!c.Taps.IsEmpty)
+        {
+            w.WriteStartObject("taps");
+            foreach (var t in c.Taps)
+            {
+                w.WriteStartObject(t.Point);
+                w.WriteString("winding", t.Winding.Name);
+                Phasor(w, "i", t.Current);
+                w.WriteEndObject();
+            }
+            w.WriteEndObject();
+        }
+
         w.WriteStartObject("cores");
         foreach (var k in c.Cores)
         {
@@ -176,7 +189,7 @@ public static class JsonReport
             if (l.Regulation is { } r) Number(w, "regulation", r);
             if (c.Connections.FirstOrDefault(x => x.Connection.Load == l.Load) is { } connection)
             {
-                Number(w, "coRatio", connection.CoRatio);
+                if (connection.CoRatio is { } coRatio) Number(w, "coRatio", coRatio);
                 Number(w, "twoWindingRating", connection.TwoWindingRating);
             }
             w.WriteEndObject();

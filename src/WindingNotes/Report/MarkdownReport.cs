@@ -79,6 +79,11 @@ public static class MarkdownReport
             o.Append('\n');
             Table(o, 1, ["winding", "loss"], split.Select(g => new[] { g.Key, V(g.Sum(s => s.Loss), "W") }));
         }
+        if (!c.Taps.IsEmpty)
+        {
+            o.Append('\n');
+            Table(o, 2, ["tap", "winding", "current out", "angle"], c.Taps.Select(t => new[] { t.Point, t.Winding.Name, V(t.Current.Magnitude, "A"), Angle(t.Current) }));
+        }
         if (!c.Cores.IsEmpty)
         {
             var noLoad = c.Cores.Any(k => k.NoLoadCurrent is not null);
@@ -120,7 +125,7 @@ public static class MarkdownReport
                         l.Load.Name, V(l.Voltage.Magnitude, "V"), Angle(l.Voltage), V(l.Current.Magnitude, "A"),
                         V(l.Power.Real, "W"), V(l.Power.Imaginary, "var"), V(l.Power.Magnitude, "VA"), TextReport.PowerFactor(l.Power),
                         l.Regulation is { } r ? TextReport.Percent(r) : "",
-                        .. If(auto, a is null ? "" : Numbers.Fixed(a.CoRatio), a is null ? "" : V(a.TwoWindingRating, "VA")),
+                        .. If(auto, a?.CoRatio is { } coRatio ? Numbers.Fixed(coRatio) : "", a is null ? "" : V(a.TwoWindingRating, "VA")),
                     ];
                 }));
         }

@@ -7,7 +7,7 @@ namespace WindingNotes.Report;
 /// <summary>
 /// Sweep points as tables in the text report: one row a point, one column a result, every column
 /// the same fixed width (never the widest entry's), so a changed value rewrites only its own row.
-/// A result a point does not have (a section a brush has moved past) shows as "-".
+/// A result a point does not have shows as "-".
 /// </summary>
 public static class SweepTables
 {
@@ -16,9 +16,12 @@ public static class SweepTables
     /// <summary>One table: its title, its header (the swept names, then the results) and a row per point.</summary>
     public sealed record Table(string Title, IReadOnlyList<string> Header, IReadOnlyList<IReadOnlyList<string>> Rows);
 
-    /// <summary>"BR (11 points)", or "BR by load (121 points)" for a grid.</summary>
+    /// <summary>
+    /// "BR (11 points; 12 with the file as written)", or "BR by load (121 points; ...)" for a grid: checks and
+    /// rating warnings count the case as written beside the sweep points, and the two counts must agree.
+    /// </summary>
     public static string Heading(IReadOnlyList<CaseResult> points) =>
-        $"{string.Join(" by ", points[0].Case.Sweep.Select(v => v.Name))} ({points.Count} point{(points.Count == 1 ? "" : "s")})";
+        $"{string.Join(" by ", points[0].Case.Sweep.Select(v => v.Name))} ({points.Count} point{(points.Count == 1 ? "" : "s")}; {points.Count + 1} with the file as written)";
 
     public static void Write(StringBuilder o, IReadOnlyList<CaseResult> points)
     {
@@ -37,13 +40,16 @@ public static class SweepTables
     {
         if (points.Count == 0) yield break;
         var axes = points[0].Case.Sweep.Select(v => v.Name).ToList();
+        var (column, note) = SectionColumns(points);
         var tables = new List<Table?>
         {
             Build("Nodes, voltage", axes, points, c => c.Points.Select(p => (p.Point, TextReport.Value(p.Voltage.Magnitude, "V")))),
-            Build("Sections, current", axes, points, c => c.Sections.Select(s => (s.Section.Name, TextReport.Value(s.Current.Magnitude, "A")))),
+            Build($"Sections, current{note}", axes, points, c => c.Sections.Select(s => (column(s), TextReport.Value(s.Current.Magnitude, "A")))),
         };
         if (points.Any(c => c.Sections.Any(s => s.Loading is not null)))
-            tables.Add(Build("Sections, loading", axes, points, c => c.Sections.Where(s => s.Loading is not null).Select(s => (s.Section.Name, TextReport.Percent(s.Loading!.Value)))));
+            tables.Add(Build($"Sections, loading{note}", axes, points, c => c.Sections.Where(s => s.Loading is not null).Select(s => (column(s), TextReport.Percent(s.Loading!.Value)))));
+        if (points.Any(c => !c.Taps.IsEmpty))
+            tables.Add(Build("Taps, current out of the winding", axes, points, c => c.Taps.Select(t => (t.Point, TextReport.Value(t.Current.Magnitude, "A")))));
         if (points.Any(c => c.Cores.Any(k => k.Flux is not null)))
             tables.Add(Build("Cores, peak flux", axes, points, c => c.Cores.Where(k => k.Flux is not null).Select(k => (k.Core.Name, TextReport.Value(k.Flux!.Value, "T")))));
         tables.Add(Build("Supplies, current and power", axes, points, c => c.Supplies.SelectMany(s => new[]
@@ -66,6 +72,27 @@ public static class SweepTables
             ("efficiency", c.Totals.Efficiency is { } e ? TextReport.Percent(e) : "-"),
         }));
         foreach (var t in tables.OfType<Table>()) yield return t;
+    }
+
+    /// <summary>
+    /// Column names for sections. Where a brush passes a fixed tap, a winding's sections change names
+    /// mid-sweep (W:A-BR, W:BR-LINE become W:A-LINE, W:LINE-BR); that winding's columns are then named
+    /// by the point each section ends at (W:..BR, W:..LINE), which every point has, so no column
+    /// starts or stops mid-way.
+    /// </summary>
+    private static (Func<SectionResult, string> Column, string Note) SectionColumns(IReadOnlyList<CaseResult> points)
+    {
+        var named = new Dictionary<string, string>(StringComparer.Ordinal);
+        var moving = new SortedSet<string>(StringComparer.Ordinal);
+        foreach (var c in points)
+            foreach (var w in c.Sections.GroupBy(s => s.Winding.Name))
+            {
+                var names = string.Join(" ", w.Select(s => s.Section.Name));
+                if (!named.TryAdd(w.Key, names) && named[w.Key] != names) moving.Add(w.Key);
+            }
+        if (moving.Count == 0) return (s => s.Section.Name, "");
+        return (s => moving.Contains(s.Winding.Name) ? $"{s.Winding.Name}:..{s.Section.ToPoint}" : s.Section.Name,
+            $" ({string.Join(", ", moving)} by the point each section ends at)");
     }
 
     private static Table? Build(string title, List<string> axes, IReadOnlyList<CaseResult> points, Func<CaseResult, IEnumerable<(string Column, string Text)>> cells)

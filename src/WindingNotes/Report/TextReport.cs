@@ -60,6 +60,11 @@ public static class TextReport
             Heading(o, "Windings");
             foreach (var winding in split) Line(o, winding.Key, $"loss {Numbers.Format(winding.Sum(s => s.Loss), "W")}");
         }
+        if (!c.Taps.IsEmpty)
+        {
+            Heading(o, "Taps, current out of the winding");
+            foreach (var t in c.Taps) Line(o, t.Point, $"on {t.Winding.Name}: {Phasor(t.Current, "A")}");
+        }
         if (!c.Cores.IsEmpty)
         {
             Heading(o, "Cores");
@@ -85,7 +90,7 @@ public static class TextReport
                 var text = $"{Phasor(l.Voltage, "V")}, {Phasor(l.Current, "A")}: {Powers(l.Power)}";
                 if (l.Regulation is { } r) text += $", regulation {Percent(r)}";
                 if (c.Connections.FirstOrDefault(x => x.Connection.Load == l.Load) is { } a)
-                    text += $", co-ratio {Numbers.Fixed(a.CoRatio)}, two-winding rating needed {Numbers.Format(a.TwoWindingRating, "VA")}";
+                    text += $"{(a.CoRatio is { } coRatio ? $", co-ratio {Numbers.Fixed(coRatio)}" : "")}, two-winding rating needed {Numbers.Format(a.TwoWindingRating, "VA")}";
                 Line(o, l.Load.Name, text);
             }
         }

@@ -21,6 +21,7 @@ public static class CaseValues
             if (s.Loading is { } loading) yield return new($"{key}.loading", loading, "%");
             yield return new($"{key}.loss", s.Loss, "W");
         }
+        foreach (var tap in c.Taps) yield return new($"taps.{tap.Point}.i.rms", tap.Current.Magnitude, "A");
         foreach (var k in c.Cores)
         {
             var key = $"cores.{k.Core.Name}";

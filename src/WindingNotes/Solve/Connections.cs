@@ -7,8 +7,19 @@ namespace WindingNotes.Solve;
 /// A supply and a load joined by wire through windings (not through earth): an autotransformer
 /// connection, with no galvanic isolation between input and output. <see cref="Common"/> holds the
 /// nodes both sides share (the common terminal), <see cref="Cores"/> the cores of the windings involved.
+/// <see cref="Island"/> names the galvanic island (connections of one island share its windings),
+/// <see cref="FedFrom"/> the two supply points the load's terminals are fed from: what the output is
+/// compared with, whichever supplies they belong to (two legs of a split-phase supply, two lines);
+/// <see cref="Series"/> the sections between them and the load's terminals, the series winding.
 /// </summary>
-public sealed record Connection(SupplyNet Supply, LoadNet Load, ImmutableArray<int> Common, ImmutableArray<int> Cores);
+public sealed record Connection(SupplyNet Supply, LoadNet Load, ImmutableArray<int> Common, ImmutableArray<int> Cores)
+{
+    public int Island { get; init; }
+
+    public ImmutableArray<int> Series { get; init; } = [];
+
+    public (int A, int B) FedFrom { get; init; }
+}
 
 public static class Connections
 {
@@ -39,11 +50,17 @@ public static class Connections
                 if (!coresIn.TryGetValue(sets.Find(n), out var set)) coresIn[sets.Find(n)] = set = [];
                 set.Add(s.Core);
             }
+        var supplyPoints = network.Supplies.SelectMany(s => new[] { s.NodeP, s.NodeQ }).ToHashSet();
+        var touching = network.Sections.SelectMany(s => new[] { (Node: s.NodeA, Section: s), (Node: s.NodeB, Section: s) }).ToLookup(x => x.Node, x => x.Section);
         var result = ImmutableArray.CreateBuilder<Connection>();
         foreach (var load in network.Loads)
         {
             int[] loadNodes = [load.NodeA, load.NodeB];
             var candidates = new SortedSet<int>(loadNodes.Where(a => a != earth).SelectMany(a => suppliesIn.GetValueOrDefault(sets.Find(a)) ?? []));
+            if (candidates.Count == 0) continue;
+            // The supply points the load's terminals are fed from, and the series winding between.
+            var fedB = FedFrom(touching, earth, load.NodeB, load.NodeA, supplyPoints);
+            var fedA = FedFrom(touching, earth, load.NodeA, fedB.Point, supplyPoints);
             foreach (var supply in candidates.Select(i => network.Supplies[i]))
             {
                 int[] supplyNodes = [supply.NodeP, supply.NodeQ];
@@ -56,9 +73,49 @@ public static class Connections
                 var island = sets.Find(fed >= 0 ? loadNodes[fed] : own);
                 var cores = (coresIn.GetValueOrDefault(island) ?? []).ToImmutableArray();
                 var common = loadNodes.Intersect(supplyNodes).ToImmutableArray();
-                result.Add(new Connection(supply, load, common, cores));
+                result.Add(new Connection(supply, load, common, cores)
+                {
+                    Island = island,
+                    Series = [.. fedA.Series, .. fedB.Series],
+                    FedFrom = fedA.Point == fedB.Point ? (supply.NodeP, supply.NodeQ) : (fedA.Point, fedB.Point),
+                });
             }
         }
         return result.ToImmutable();
+    }
+
+    /// <summary>
+    /// The supply point a load terminal is fed from and the sections between them (the series
+    /// winding): the terminal itself and none when a supply ends there, else the supply point fewest
+    /// sections away along the windings (not through earth), other than <paramref name="other"/>
+    /// (the point of the load's other terminal), so that a brush between two supply points is
+    /// compared with the voltage between them.
+    /// </summary>
+    private static (int Point, ImmutableArray<int> Series) FedFrom(ILookup<int, Section> touching, int earth, int terminal, int other, HashSet<int> supplyPoints)
+    {
+        if (supplyPoints.Contains(terminal) || terminal == earth) return (terminal, []);
+        var via = new Dictionary<int, Section?> { [terminal] = null };
+        var frontier = new List<int> { terminal };
+        while (frontier.Count > 0)
+        {
+            var next = new List<int>();
+            foreach (var node in frontier)
+                foreach (var s in touching[node])
+                {
+                    var far = s.NodeA == node ? s.NodeB : s.NodeA;
+                    if (!via.TryAdd(far, s)) continue;
+                    if (supplyPoints.Contains(far) && far != other) return (far, Path(far));
+                    if (far != earth) next.Add(far);
+                }
+            frontier = next;
+        }
+        return (other, []);
+
+        ImmutableArray<int> Path(int end)
+        {
+            var path = ImmutableArray.CreateBuilder<int>();
+            for (var n = end; via[n] is { } s; n = s.NodeA == n ? s.NodeB : s.NodeA) path.Add(s.Index);
+            return path.ToImmutable();
+        }
     }
 }

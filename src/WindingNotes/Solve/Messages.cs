@@ -150,7 +150,7 @@ public sealed partial class DiagnosticBag
 
     public Diagnostic ReportOverexcited(TextSpan span, string core, double ratio, double limit, string condition, string where) =>
         Warning("overexcited", span,
-            $"core '{core}' runs at {Show(ratio, "%")} of its rated volts per turn {condition}, above the {Show(limit, "%")} IEEE C57.12.00 allows{where}");
+            $"core '{core}' runs at {Show(ratio, "%")} of its rated volts per hertz {condition}, above the {Show(limit, "%")} IEEE C57.12.00 allows{where}");
 
     public Diagnostic ReportBrushCurrentHigh(TextSpan span, string brush, double current, double limit, string where) =>
         Warning("brush-current-high", span, $"brush '{brush}' carries {Numbers.Format(current, "A")}, above its current-limit of {Numbers.Format(limit, "A")}{where}");
@@ -182,9 +182,10 @@ public sealed partial class DiagnosticBag
         Info("caution-fuse-output", span,
             $"fuse the output of the variable autotransformer at brush '{brush}': at a low setting the output current is far above the input current, so a fuse on the supply side does not protect the brush and winding");
 
-    public Diagnostic ReportAboveSupply(TextSpan span, string load, double voltage, string supply, double supplyVoltage, string where) =>
+    /// <param name="source">"of supply 'mains'", or "between L1 and L2" where the output spans points of two supplies.</param>
+    public Diagnostic ReportAboveSupply(TextSpan span, string load, double voltage, string source, double supplyVoltage, string where) =>
         Info("caution-above-supply", span,
-            $"the output at load '{load}' reaches {Numbers.Format(voltage, "V")}{(where.Length == 0 ? "" : $" {where}")}, above the {Numbers.Format(supplyVoltage, "V")} of supply '{supply}': the connection raises the output above the supply, and what it feeds must be rated for that");
+            $"the output at load '{load}' reaches {Numbers.Format(voltage, "V")}{(where.Length == 0 ? "" : $" {where}")}, above the {Numbers.Format(supplyVoltage, "V")} {source}: the connection raises the output above the supply, and what it feeds must be rated for that");
 
     public Diagnostic ReportFaultDuty(TextSpan span, string fault, double current, double peak, double? multiple, string? winding) =>
         Info("caution-fault-duty", span,

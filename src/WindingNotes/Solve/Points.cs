@@ -26,6 +26,7 @@ public static class Points
         var model = Binder.Bind(syntax, overrides);
         // As for the document itself: a point whose model did not bind completely is not solved.
         if (model.HasErrors || model.Supplies.IsEmpty) return new PointResult(null, null, [], model.Diagnostics);
+        if (overrides.RatedFrequency is { } rated) model = model with { RatedFrequency = rated };
         var network = NetworkBuilder.Build(model);
         if (network.Diagnostics.Any(d => d.IsError)) return new PointResult(null, null, [], [.. model.Diagnostics, .. network.Diagnostics]);
         var solved = Solve(network, spec, withFaults, cancel);

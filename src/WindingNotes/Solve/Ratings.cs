@@ -57,27 +57,32 @@ public sealed class RatingTally
         var network = c.Solution.Network;
         Excitation(c, network, c.Loads.Length > 0 && !c.Case.WithoutLoads, Found);
         if (p.NoLoad is { } noLoad && noLoad != c) Excitation(noLoad, network, false, Found);
+        var carried = c.Taps.ToDictionary(t => t.Point, t => t.Current.Magnitude);
         foreach (var brush in network.Model.Taps.Where(t => t.IsBrush && t.CurrentLimit is not null))
         {
-            var current = BrushCurrent(c, brush.Name);
+            var current = carried.GetValueOrDefault(brush.Name);
             if (current > brush.CurrentLimit!.Value * (1 + 1e-9)) Found("brush-current-high", brush.Name, brush.NameSpan, brush.Name, current, brush.CurrentLimit.Value);
         }
-        foreach (var island in c.Connections.GroupBy(x => string.Join(",", x.Connection.Cores)))
+        foreach (var island in c.Connections.GroupBy(x => x.Connection.Island))
         {
             var cores = island.First().Connection.Cores.Select(i => network.Cores[i]).ToList();
             if (cores.Count == 0 || cores.Any(k => k.Source.Rating is null)) continue;
             var rating = cores.Sum(k => k.Source.Rating!.Value);
-            var needed = island.Sum(x => x.TwoWindingRating);
-            var throughput = island.Sum(x => x.Throughput);
+            // A load fed from two supplies (two legs, two lines) is one load.
+            var loads = island.DistinctBy(x => x.Connection.Load.Index).ToList();
+            var needed = loads.Sum(x => x.TwoWindingRating);
+            var throughput = loads.Sum(x => x.Throughput);
             if (needed > rating * (1 + 1e-9))
-                Found("connection-rating", island.Key, cores[0].Source.NameSpan, string.Join(", ", cores.Select(k => k.Name)), needed, rating,
+                Found("connection-rating", string.Join(",", island.First().Connection.Cores), cores[0].Source.NameSpan, string.Join(", ", cores.Select(k => k.Name)), needed, rating,
                     $"{Numbers.Format(throughput, "VA")} throughput at a co-ratio of {Numbers.Fixed(needed / throughput)}");
         }
     }
 
     /// <summary>
-    /// Volts per turn against rated: the core's volts per turn over the rated voltage per turn of the
-    /// first winding on it that states a rated voltage.
+    /// Volts per hertz against rated: the core's volts per turn over the rated voltage per turn of the
+    /// first winding on it that states a rated voltage, times the rated frequency (as written) over
+    /// the frequency. Flux goes with V/f, so a core fed at rated voltage below its rated frequency is
+    /// over-excited: at 50 Hz a 60 Hz core at rated voltage is at 120 %.
     /// </summary>
     private static void Excitation(CaseResult c, Network network, bool onLoad, Action<string, string, TextSpan, string, double, double, string> found)
     {
@@ -87,22 +92,11 @@ public sealed class RatingTally
         {
             var rated = ratedOn[core.Index].FirstOrDefault();
             if (rated is null) continue;
-            var ratio = c.Solution.CoreVoltsPerTurn[core.Index].Magnitude / (rated.Source.Rated!.Value / rated.Turns);
+            var ratio = c.Solution.CoreVoltsPerTurn[core.Index].Magnitude / (rated.Source.Rated!.Value / rated.Turns)
+                * network.Model.RatedFrequency / network.Model.Frequency;
             if (ratio > limit * (1 + 1e-9))
                 found("overexcited", $"{core.Name}/{(onLoad ? "load" : "no-load")}", core.Source.NameSpan, core.Name, ratio, limit, onLoad ? "on load" : "at no load");
         }
-    }
-
-    /// <summary>The current the brush passes to what it feeds: what enters its node from the sections ending there, less what leaves into the sections starting there.</summary>
-    public static double BrushCurrent(CaseResult c, string brush)
-    {
-        var sum = Complex.Zero;
-        foreach (var s in c.Sections)
-        {
-            if (s.Section.ToPoint == brush) sum += s.Current;
-            if (s.Section.FromPoint == brush) sum -= s.Current;
-        }
-        return sum.Magnitude;
     }
 
     public void Report(DiagnosticBag diagnostics)

@@ -10,6 +10,13 @@ public sealed record SectionResult(Section Section, WindingNet Winding, Complex 
     public double? CurrentDensity { get; init; }
 }
 
+/// <summary>
+/// The current a winding gives out at one of its taps or brushes, into what that point feeds: what
+/// enters the point from the section ending there less what leaves into the section starting
+/// there. At a centre tap it is the neutral (return) current; at a brush, the current the brush carries.
+/// </summary>
+public sealed record TapResult(string Point, WindingNet Winding, Complex Current);
+
 /// <summary>Volts per turn and peak flux density, where the turns are known (not only derived from voltages).</summary>
 public sealed record CoreResult(CoreNet Core, Complex? VoltsPerTurn, double? Flux, double Loss)
 {
@@ -56,10 +63,16 @@ public sealed record Totals(double CopperLoss, double CoreLoss, double? Efficien
 
 /// <summary>
 /// An autotransformer connection in a case: the supply and the load galvanically linked through
-/// windings, the co-ratio (V_H − V_X)/V_H, and the two-winding rating the connection needs,
-/// S_load·(V_H − V_X)/V_H (R5).
+/// windings, the two-winding (transformed) rating the connection needs, and the co-ratio, that rating
+/// over the throughput. The rating is the series winding's voltage times its current, whatever the
+/// wiring: |V|·|I| of the sections between the load's terminals and the supply points they are fed
+/// from. For a step-up or step-down connection with the common winding across the lower voltage
+/// that is S_load·(V_H − V_X)/V_H (R5); where the common winding is across the line of a buck, the
+/// series winding opposes, or the load spans two legs of a supply, the formula in voltages misstates
+/// it. Loads on one island share the rating of its series windings in proportion to their throughput.
+/// With no throughput (an output at 0 V) the co-ratio is 0/0: absent.
 /// </summary>
-public sealed record ConnectionResult(Connection Connection, double CoRatio, double Throughput, double TwoWindingRating);
+public sealed record ConnectionResult(Connection Connection, double? CoRatio, double Throughput, double TwoWindingRating);
 
 /// <summary>The range of one result over the tolerances, by its JSON path.</summary>
 public sealed record Band(string Path, string Unit, double Min, double Max);
@@ -93,6 +106,9 @@ public sealed record CaseResult(
     /// <summary>For a fault case: the fault current, the loop's X/R and the asymmetrical peak.</summary>
     public FaultResult? Fault { get; init; }
 
+    /// <summary>Taps and brushes in source order, with the current each gives out.</summary>
+    public ImmutableArray<TapResult> Taps { get; init; } = [];
+
     /// <summary>Autotransformer connections: each supply and load linked through windings.</summary>
     public ImmutableArray<ConnectionResult> Connections { get; init; } = [];
 
@@ -120,13 +136,17 @@ public static class Results
             .Where(p => scope is null || scope.Points.Contains(p.Name))
             .Select(p => (p.Name, solution.Voltage(network.Node(p.Name)))).ToImmutableArray();
 
-        var sections = network.Sections.Where(s => scope is null || scope.Sections.Contains(s.Index)).Select(s =>
+        var losses = SectionLosses(network, solution, scope);
+        var inScope = network.Sections.Where(s => scope is null || scope.Sections.Contains(s.Index)).ToList();
+        var sections = inScope.Select(s =>
         {
             var w = network.Windings[s.Winding];
-            var i = solution.SectionCurrents[s.Index];
+            // A section of no turns (a brush at an end) is no part of the winding: what the solver
+            // passes through it goes from the brush's contact to the end terminal, not through turns.
+            var i = s.Turns > 0 ? solution.SectionCurrents[s.Index] : Complex.Zero;
             var v = solution.SectionVoltage(s);
             var loading = w.RatedCurrent is { } rated ? i.Magnitude / rated : (double?)null;
-            return new SectionResult(s, w, i, v, v.Magnitude * i.Magnitude, loading, SectionLoss(network, s, solution))
+            return new SectionResult(s, w, i, v, v.Magnitude * i.Magnitude, loading, losses[s.Index])
             {
                 CurrentDensity = w.Source.Conductor is { } conductor ? i.Magnitude / conductor.Area : null,
             };
@@ -173,7 +193,8 @@ public static class Results
             sections.Sum(s => s.Apparent) / 2) { CoreLossKnown = coreLossKnown }, delivered);
         return new CaseResult(solution.Case, solution, points, sections, cores, supplies, loads, totals)
         {
-            Connections = ConnectionsOf(network, solution, supplies, loads),
+            Taps = TapsOf(network, solution, inScope),
+            Connections = ConnectionsOf(network, solution, loads),
             Fault = solution.Case.Fault is not null && normal is not null ? Faults.Compute(solution, normal) : null,
         };
     }
@@ -190,16 +211,33 @@ public static class Results
         return t with { MaxEfficiencyLoad = x * t.Throughput, MaxEfficiencyFraction = x, MaxEfficiency = p / (p + 2 * t.CoreLoss) };
     }
 
-    private static ImmutableArray<ConnectionResult> ConnectionsOf(Network network, Solution solution, ImmutableArray<SupplyResult> supplies, ImmutableArray<LoadResult> loads)
+    /// <summary>The current out of each tap and brush of the sections given, by Kirchhoff's current law at the point.</summary>
+    private static ImmutableArray<TapResult> TapsOf(Network network, Solution solution, List<Section> sections)
+    {
+        var at = new Dictionary<string, (int Winding, Complex Current)>(StringComparer.Ordinal);
+        foreach (var s in sections)
+        {
+            var i = solution.SectionCurrents[s.Index];
+            at[s.ToPoint] = (s.Winding, at.GetValueOrDefault(s.ToPoint).Current + i);
+            at[s.FromPoint] = (s.Winding, at.GetValueOrDefault(s.FromPoint).Current - i);
+        }
+        return [.. network.Model.Taps.DistinctBy(t => t.Name).Where(t => at.ContainsKey(t.Name))
+            .Select(t => new TapResult(t.Name, network.Windings[at[t.Name].Winding], at[t.Name].Current))];
+    }
+
+    private static ImmutableArray<ConnectionResult> ConnectionsOf(Network network, Solution solution, ImmutableArray<LoadResult> loads)
     {
         if (solution.Case.WithoutLoads || solution.Case.Fault is not null) return [];
-        return [.. Solve.Connections.Find(network).Select(c =>
+        var connections = Solve.Connections.Find(network);
+        var carried = connections.GroupBy(c => c.Island).ToDictionary(g => g.Key,
+            g => g.SelectMany(c => c.Series).Distinct().Sum(s => solution.SectionVoltage(network.Sections[s]).Magnitude * solution.SectionCurrents[s].Magnitude));
+        var throughput = connections.DistinctBy(c => (c.Island, c.Load.Index)).GroupBy(c => c.Island)
+            .ToDictionary(g => g.Key, g => g.Sum(c => loads[c.Load.Index].Power.Magnitude));
+        return [.. connections.Select(c =>
         {
-            var (vs, vl) = (supplies[c.Supply.Index].Voltage.Magnitude, loads[c.Load.Index].Voltage.Magnitude);
-            var high = Math.Max(vs, vl);
-            var coRatio = high > 0 ? (high - Math.Min(vs, vl)) / high : 0;
+            double? coRatio = throughput[c.Island] > 0 ? carried[c.Island] / throughput[c.Island] : null;
             var s = loads[c.Load.Index].Power.Magnitude;
-            return new ConnectionResult(c, coRatio, s, s * coRatio);
+            return new ConnectionResult(c, coRatio, s, s * coRatio ?? 0);
         })];
     }
 
@@ -211,18 +249,46 @@ public static class Results
     }
 
     /// <summary>
-    /// Copper loss of a section: Re(conj(I_k)·Σ_j R_kj·I_j) with R the real part of the core's
-    /// impedance matrix. It is R_kk·|I_k|² where only the diagonal is real; where the leakage matrix
-    /// carries resistance its series resistances could not, the sections' losses still add up to
-    /// the total Re(Iᴴ·R·I).
+    /// Copper loss by section. A core's copper loss is Re(Iᴴ·R·I) over its sections, R the real part
+    /// of its impedance matrix: exact, whatever the matrix. Its split by section is not: where three
+    /// or more windings' resistances come from pairwise tests and do not split into non-negative
+    /// winding resistances, the leakage matrix carries resistance between sections that belongs to no
+    /// one section, and the term-by-term split Re(conj(I_p)·Σ R_pq·I_q) can be negative. So the core's
+    /// loss is shared in proportion to each section's I²R through its own series resistance
+    /// (R_p·|I_p|², the loss in its own conductor). Where all the resistance is on the diagonal that
+    /// is the core's loss term by term, so nothing changes; a section with no series resistance of
+    /// its own gets a share of none, and no share is ever negative. On a core whose series
+    /// resistances are all zero, the diagonal of R (zero where negative) stands in for them.
     /// </summary>
-    private static double SectionLoss(Network network, Section s, Solution solution)
+    private static double[] SectionLosses(Network network, Solution solution, CaseScope? scope)
     {
-        var core = network.Cores[s.Core];
-        var row = core.Sections.IndexOf(s.Index);
-        var sum = Complex.Zero;
-        for (var j = 0; j < core.Sections.Length; j++)
-            sum += core.Impedance[row, j].Real * solution.SectionCurrents[core.Sections[j]];
-        return (Complex.Conjugate(solution.SectionCurrents[s.Index]) * sum).Real;
+        var result = new double[network.Sections.Length];
+        if (!solution.HasVectors) return result;
+        foreach (var core in network.Cores)
+        {
+            if (scope is not null && !scope.Cores.Contains(core.Index)) continue;
+            var n = core.Sections.Length;
+            var currents = core.Sections.Select(s => solution.SectionCurrents[s]).ToArray();
+            var total = 0.0;
+            for (var p = 0; p < n; p++)
+            {
+                var sum = Complex.Zero;
+                for (var q = 0; q < n; q++) sum += core.Impedance[p, q].Real * currents[q];
+                total += (Complex.Conjugate(currents[p]) * sum).Real;
+            }
+            var own = new double[n];
+            for (var p = 0; p < n; p++)
+            {
+                var section = network.Sections[core.Sections[p]];
+                var r = core.Coupling is { } c ? c.Series[c.MemberOf[p]] * section.Turns : 0;
+                own[p] = r * currents[p].Magnitude * currents[p].Magnitude;
+            }
+            if (own.Sum() <= 0)
+                for (var p = 0; p < n; p++) own[p] = Math.Max(core.Impedance[p, p].Real, 0) * currents[p].Magnitude * currents[p].Magnitude;
+            var weight = own.Sum();
+            if (weight <= 0) continue;
+            for (var p = 0; p < n; p++) result[core.Sections[p]] = total * own[p] / weight;
+        }
+        return result;
     }
 }

@@ -41,7 +41,7 @@ public static class SafetyCautions
             // Where the output hangs on a brush, the brush's line is where the setting is made.
             var brush = new[] { load.A.Name, load.B.Name }.Select(brushes.GetValueOrDefault).OfType<TapModel>().MinBy(t => t.NameSpan.Start);
             if (warned.Add($"above/{load.Name}"))
-                diagnostics.ReportAboveSupply(brush?.NameSpan ?? load.NameSpan, load.Name, highest.Load, c.Supply.Name, highest.Supply, highest.Where);
+                diagnostics.ReportAboveSupply(brush?.NameSpan ?? load.NameSpan, load.Name, highest.Load, outputs.Source(c), highest.Supply, highest.Where);
         }
 
         foreach (var f in cases.Select(x => x.Fault).OfType<FaultResult>())
@@ -52,6 +52,8 @@ public static class SafetyCautions
 /// <summary>
 /// The highest output against supply of each autotransformer connection, over every operating point
 /// (the normal case and each sweep point) as it is solved: a long sweep keeps only some of its points.
+/// Like is compared with like: the load's voltage with the voltage between the two supply points its
+/// terminals are fed from (a 264 V output across two 120 V legs is compared with the 240 V between them).
 /// </summary>
 public sealed class OutputTally(Network network)
 {
@@ -66,8 +68,30 @@ public sealed class OutputTally(Network network)
         {
             var c = Connections[i];
             var vl = x.Loads[c.Load.Index].Voltage.Magnitude;
-            var vs = x.Supplies[c.Supply.Index].Voltage.Magnitude;
+            var vs = x.Solution.HasVectors
+                ? (x.Solution.Voltage(c.FedFrom.A) - x.Solution.Voltage(c.FedFrom.B)).Magnitude
+                : x.Supplies[c.Supply.Index].Voltage.Magnitude;
             if (vs > 0 && vl / vs > Highest[i].Ratio) Highest[i] = (vl / vs, vl, vs, x.Case.Where == "as written" ? "" : $"at {x.Case.Where}");
         }
     }
+
+    /// <summary>What the output was compared with, for the message: the supply, or the two points between which it was measured.</summary>
+    public string Source(Connection c)
+    {
+        var (a, b) = c.FedFrom;
+        var s = c.Supply;
+        return (a, b) == (s.NodeP, s.NodeQ) || (a, b) == (s.NodeQ, s.NodeP)
+            ? $"of supply '{s.Name}'"
+            : $"between {PointName(a)} and {PointName(b)}";
+    }
+
+    /// <summary>A supply point as the first supply that ends there names it.</summary>
+    private string PointName(int node)
+    {
+        pointNames ??= network.Supplies.SelectMany(s => new[] { (s.NodeP, s.Source.Positive.Name), (s.NodeQ, s.Source.Negative.Name) })
+            .DistinctBy(p => p.Item1).ToDictionary(p => p.Item1, p => p.Item2);
+        return pointNames.GetValueOrDefault(node) ?? network.Nodes[node].Name;
+    }
+
+    private Dictionary<int, string>? pointNames;
 }

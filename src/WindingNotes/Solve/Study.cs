@@ -39,7 +39,7 @@ public static class Study
         if (samples.Length > 0 && points > 0 && !bandsAtPoints)
             diagnostics.ReportBandsNotSwept(model.Sweeps[0].Line, points, samples.Length, Sweeps.Budget);
 
-        var run = new PointRun(syntax, new BrushSweep(syntax, model), diagnostics, cancel, progress, samples.Length + points * (1 + (bandsAtPoints ? samples.Length : 0)));
+        var run = new PointRun(syntax, model.Frequency, new BrushSweep(syntax, model), diagnostics, cancel, progress, samples.Length + points * (1 + (bandsAtPoints ? samples.Length : 0)));
         var checks = new CheckTally(model.Expects);
         var ratings = new RatingTally();
         var outputs = new OutputTally(network);
@@ -142,7 +142,7 @@ public static class Study
     /// Solves points after the nominal one and keeps what they report that the nominal evaluation did
     /// not: each such message once, with the first point it came from and how many more.
     /// </summary>
-    private sealed class PointRun(SyntaxTree syntax, BrushSweep brushes, DiagnosticBag diagnostics, CancellationToken cancel, Action<StudyProgress>? progress, long total)
+    private sealed class PointRun(SyntaxTree syntax, double ratedFrequency, BrushSweep brushes, DiagnosticBag diagnostics, CancellationToken cancel, Action<StudyProgress>? progress, long total)
     {
         private readonly HashSet<(string, TextSpan, string)> known = [.. diagnostics.Select(d => (d.Code, d.Span, d.Message))];
         private readonly Dictionary<(string, TextSpan), (Diagnostic First, string Where, int More)> fresh = [];
@@ -156,6 +156,8 @@ public static class Study
         public PointResult Solve(BindOverrides overrides, CaseSpec spec, bool withFaults, string sample)
         {
             cancel.ThrowIfCancellationRequested();
+            // Every point keeps the frequency as written as the one its impedances are given at.
+            overrides = overrides with { RatedFrequency = ratedFrequency };
             var p = !withFaults && spec.IsSweepPoint && brushes.Covers(overrides)
                 ? brushes.Solve(overrides, spec, cancel)
                 : Points.Solve(syntax, overrides, spec, withFaults, cancel);
