@@ -10,8 +10,9 @@ namespace WindingNotes.LanguageServer.Protocol;
 /// (the resolver has no reflection fallback), so the tests find it.
 /// </summary>
 [JsonSourceGenerationOptions(PropertyNamingPolicy = JsonKnownNamingPolicy.CamelCase, DefaultIgnoreCondition = JsonIgnoreCondition.WhenWritingNull)]
-// Parameters.
+// Parameters; RequestId is what StreamJsonRpc's own '$/cancelRequest' reads through these options.
 [JsonSerializable(typeof(JsonElement?))]
+[JsonSerializable(typeof(StreamJsonRpc.RequestId))]
 [JsonSerializable(typeof(InitializeParams))]
 [JsonSerializable(typeof(DidOpenTextDocumentParams))]
 [JsonSerializable(typeof(DidChangeTextDocumentParams))]

@@ -53,6 +53,9 @@ public static class Units
 
     public static UnitInfo? Find(string symbol) => BySymbol.GetValueOrDefault(symbol);
 
+    /// <summary>UnitsNet's quantities the table reads, in priority order.</summary>
+    internal static IEnumerable<QuantityInfo> Quantities => Kinds.Select(k => k.Info);
+
     public static string? Suggest(string symbol) => Text.Spelling.Nearest(symbol, Common);
 
     private static FrozenDictionary<string, UnitInfo> Build()

@@ -7,8 +7,8 @@ namespace WindingNotes.Tests.Cli;
 
 /// <summary>
 /// The command as a user installs it (in CI the NativeAOT .NET tool, named by WINDINGNOTES_TOOL)
-/// prints byte for byte what the built command prints, on every example and every output: the
-/// shipped form is the tested form. Locally the test skips without the tool; CI requires it.
+/// prints byte for byte what the built command prints, on every example and every output, and on
+/// every annotated diagnostics file: the shipped form is the tested form. Locally the test skips without the tool; CI requires it.
 /// </summary>
 public class InstalledToolTests
 {
@@ -43,6 +43,12 @@ public class InstalledToolTests
                 Assert.True(built.Err == installed.Err, $"{what}: standard error differs:\n{installed.Err}\nbuilt:\n{built.Err}");
             }
         }
+        // The annotated diagnostics files: every message, and the parsers' error paths.
+        var annotated = Directory.GetFiles(Path.Combine(Snapshot.RepositoryRoot, "tests", "WindingNotes.Tests", "Data", "diagnostics"), "*.wn").Order(StringComparer.Ordinal).ToArray();
+        Assert.NotEmpty(annotated);
+        var builtCheck = Command.Run("", ["check", .. annotated]);
+        var installedCheck = Run(tool, ["check", .. annotated]);
+        Assert.Equal((builtCheck.Code, builtCheck.Out, builtCheck.Err), installedCheck);
     }
 
     private static (int Code, string Out, string Err) Run(string program, string[] args)

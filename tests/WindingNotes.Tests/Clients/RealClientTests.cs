@@ -9,6 +9,7 @@ namespace WindingNotes.Tests.Clients;
 /// package, and a headless Neovim. Locally a test skips when its client is absent; CI sets
 /// WINDINGNOTES_REQUIRE_CLIENTS=1 (in .ci/run, which installs both), and a missing client fails.
 /// </summary>
+[Trait("Category", "Long")]
 public class RealClientTests
 {
     public const string Require = "WINDINGNOTES_REQUIRE_CLIENTS";

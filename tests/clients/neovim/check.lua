@@ -44,6 +44,8 @@ local function main()
   vim.cmd('edit ' .. vim.fn.fnameescape(repo .. '/examples/alder-creek-boost.wn'))
   local buf = vim.api.nvim_get_current_buf()
   check('setup() gives *.wn its file type', vim.bo[buf].filetype == 'windingnotes', vim.bo[buf].filetype)
+  -- The buffer lists its client once the server has answered 'initialize'.
+  vim.wait(30000, function() return next(vim.lsp.buf_get_clients(buf)) ~= nil end, 20)
   local id = next(vim.lsp.buf_get_clients(buf))
   if not check('the client started', id ~= nil) then return end
 
