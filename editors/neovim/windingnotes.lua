@@ -7,6 +7,8 @@ local M = {}
 
 M.defaults = {
   cmd = { 'windingnotes', 'lsp' },
+  -- Results at the end of each line, where Neovim draws inlay hints (0.10 and later).
+  inlay_hints = true,
   -- Extra fields for vim.lsp.start_client (handlers, on_attach, on_exit, flags, ...).
   client = {},
 }
@@ -37,13 +39,21 @@ function M.attach(bufnr, opts)
     }, opts.client))
     clients[root] = id
   end
-  if id ~= nil then vim.lsp.buf_attach_client(bufnr, id) end
+  if id ~= nil then
+    vim.lsp.buf_attach_client(bufnr, id)
+    if opts.inlay_hints and vim.lsp.inlay_hint then vim.lsp.inlay_hint.enable(true, { bufnr = bufnr }) end
+  end
   return id
 end
 
 -- Registers the filetype and attaches every buffer of it.
 function M.setup(opts)
   vim.filetype.add({ extension = { wn = 'windingnotes' } })
+  if vim.fn.has('nvim-0.8') == 0 then
+    -- Neovim 0.7 reads vim.filetype.add only with vim.g.do_filetype_lua set; without it, *.wn would
+    -- stay 'conf' (a file that starts with a comment). An autocommand names the type there.
+    vim.api.nvim_create_autocmd({ 'BufRead', 'BufNewFile' }, { pattern = '*.wn', command = 'setlocal filetype=windingnotes' })
+  end
   vim.api.nvim_create_autocmd('FileType', {
     pattern = 'windingnotes',
     callback = function(args) M.attach(args.buf, opts) end,

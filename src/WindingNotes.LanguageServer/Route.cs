@@ -1,6 +1,7 @@
 using System.Diagnostics;
 using System.Reflection;
 using System.Text.Json;
+using System.Text.Json.Serialization.Metadata;
 using StreamJsonRpc;
 using WindingNotes.LanguageServer.Protocol;
 
@@ -19,11 +20,13 @@ internal abstract class Route(string method)
 
     protected static T Read<T>(JsonElement? parameters, JsonSerializerOptions options)
     {
+        // Outside the guard: a shape missing from ProtocolJson is the server's fault, not the client's.
+        var shape = (JsonTypeInfo<T>)options.GetTypeInfo(typeof(T));
         try
         {
             if (typeof(T) == typeof(JsonElement?)) return (T)(object?)parameters!;
             if (parameters is not { ValueKind: JsonValueKind.Object } given) throw new JsonException("the parameters are missing");
-            return given.Deserialize<T>(options) ?? throw new JsonException("the parameters are null");
+            return given.Deserialize(shape) ?? throw new JsonException("the parameters are null");
         }
         catch (Exception e) when (e is JsonException or NotSupportedException or InvalidOperationException)
         {

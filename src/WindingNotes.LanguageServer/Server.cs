@@ -1,4 +1,5 @@
 using System.Diagnostics;
+using System.Diagnostics.CodeAnalysis;
 using System.Text.Json;
 using Microsoft.VisualStudio.Threading;
 using StreamJsonRpc;
@@ -51,8 +52,13 @@ public sealed partial class Server
         trace = new TraceSource("windingnotes-lsp", SourceLevels.Warning);
         trace.Listeners.Clear();
         if (options.Log is { } log) trace.Listeners.Add(new TextWriterTraceListener(log) { TraceOutputOptions = TraceOptions.None, Filter = new AnsweredErrors() });
-        publisher = new Publisher(workspace, p => rpc!.NotifyWithParameterObjectAsync("textDocument/publishDiagnostics", p), options.Debounce, trace);
+        publisher = new Publisher(workspace, Publish, options.Debounce, trace);
     }
+
+    // Safe to suppress: the formatter writes the parameter object whole through the options' resolver,
+    // which ProtocolJson generates (PublishDiagnosticsParams is in it); nothing reflects over it.
+    [UnconditionalSuppressMessage("Trimming", "IL2026", Justification = "Serialised by ProtocolJson; see above.")]
+    private Task Publish(PublishDiagnosticsParams p) => rpc!.NotifyWithParameterObjectAsync("textDocument/publishDiagnostics", p);
 
     /// <summary>Serves one client until 'exit' or until its end closes; the exit code is 0 after 'shutdown', else 1.</summary>
     public static async Task<int> RunAsync(Stream input, Stream output, ServerOptions? options = null)

@@ -1,7 +1,8 @@
+using System.Diagnostics.CodeAnalysis;
 using System.Text.Json;
-using System.Text.Json.Serialization;
 using StreamJsonRpc;
 using StreamJsonRpc.Protocol;
+using WindingNotes.LanguageServer.Protocol;
 
 namespace WindingNotes.LanguageServer;
 
@@ -13,13 +14,16 @@ namespace WindingNotes.LanguageServer;
 internal sealed class LspMessageHandler(Stream sending, Stream receiving, SystemTextJsonFormatter formatter, Action<Exception> report)
     : HeaderDelimitedMessageHandler(sending, receiving, formatter)
 {
-    /// <summary>The protocol's JSON: camelCase names, nulls left out.</summary>
-    public static readonly JsonSerializerOptions Options = new()
-    {
-        PropertyNamingPolicy = JsonNamingPolicy.CamelCase,
-        DefaultIgnoreCondition = JsonIgnoreCondition.WhenWritingNull,
-    };
+    /// <summary>The protocol's JSON: camelCase names, nulls left out, every shape from the generated <see cref="ProtocolJson"/>.</summary>
+    public static readonly JsonSerializerOptions Options = new(ProtocolJson.Default.Options);
 
+    // Safe to suppress: the formatter is marked for its unhardened paths (marshalled IProgress,
+    // IAsyncEnumerable and pipes, exceptions serialised with their type), none of which the server
+    // uses: every route takes its parameters as JsonElement and answers with a shape of ProtocolJson,
+    // and every fault is answered as a LocalRpcException with a code and a message. CI runs the real
+    // clients against the NativeAOT tool, so a path that needed reflection would fail there.
+    [UnconditionalSuppressMessage("Trimming", "IL2026", Justification = "The paths it marks are not used; see above.")]
+    [UnconditionalSuppressMessage("AOT", "IL3050", Justification = "The paths it marks are not used; see above.")]
     public static SystemTextJsonFormatter CreateFormatter() => new() { JsonSerializerOptions = Options };
 
     protected override async ValueTask<JsonRpcMessage?> ReadCoreAsync(CancellationToken cancellationToken)

@@ -192,8 +192,9 @@ internal sealed partial class BindRun
     {
         bool Real(Symbol s) => s.IsConnectionPoint && (s.Kind != SymbolKind.Node || nodeUses.GetValueOrDefault(s)?.Count > 1);
         var real = symbols.Symbols.Where(Real).Select(s => s.Name).ToList();
-        // Each suggestion searches every point: the first hundred slips get one, so a file stays linear in its length.
-        var suggestions = 100;
+        // Each suggestion compares with every point: the first slips get one, up to about 100,000
+        // comparisons in all, so a file of many thousand points stays linear in its length.
+        var suggestions = 100_000 / Math.Max(100, real.Count);
         string? Nearest(string name) => suggestions-- > 0 ? Spelling.Nearest(name, real) : null;
         foreach (var (symbol, uses) in nodeUses)
         {

@@ -1,7 +1,6 @@
 using System.Collections.Frozen;
 using System.Globalization;
 using UnitsNet;
-using UnitsNet.Units;
 
 namespace WindingNotes.Model;
 
@@ -15,24 +14,33 @@ public sealed record UnitInfo(string Symbol, double Factor, Dimension Dimension,
 /// </summary>
 public static class Units
 {
-    // Quantity types in priority order, each with its dimension and SI unit.
-    private static readonly (Type UnitType, Enum SiUnit, Dimension Dimension)[] Kinds =
+    // Quantities in priority order, each with its dimension and its value in SI units of a value in
+    // any of its units. Typed, so that building the table touches these 14 quantities only: UnitsNet's
+    // untyped conversion (Quantity.From) and its default abbreviation cache take in all of its ~130
+    // quantities, which cost the command a tenth of a second at every start.
+    private static readonly Kind[] Kinds =
     [
-        (typeof(ElectricPotentialUnit), ElectricPotentialUnit.Volt, Dimension.Voltage),
-        (typeof(ElectricCurrentUnit), ElectricCurrentUnit.Ampere, Dimension.CurrentDim),
-        (typeof(PowerUnit), PowerUnit.Watt, Dimension.ActivePower),
-        (typeof(ApparentPowerUnit), ApparentPowerUnit.Voltampere, Dimension.ApparentPower),
-        (typeof(ReactivePowerUnit), ReactivePowerUnit.VoltampereReactive, Dimension.ReactivePower),
-        (typeof(ElectricResistanceUnit), ElectricResistanceUnit.Ohm, Dimension.Impedance),
-        (typeof(FrequencyUnit), FrequencyUnit.Hertz, Dimension.Frequency),
-        (typeof(MagneticFieldUnit), MagneticFieldUnit.Tesla, Dimension.FluxDensity),
-        (typeof(ElectricInductanceUnit), ElectricInductanceUnit.Henry, Dimension.Inductance),
-        (typeof(AreaUnit), AreaUnit.SquareMeter, Dimension.Area),
-        (typeof(LengthUnit), LengthUnit.Meter, Dimension.LengthDim),
-        (typeof(TemperatureUnit), TemperatureUnit.Kelvin, Dimension.TemperatureDim),
-        (typeof(DurationUnit), DurationUnit.Second, Dimension.TimeDim),
-        (typeof(AngleUnit), AngleUnit.Radian, Dimension.AngleDim),
+        Kind.Of(ElectricPotential.Info, Dimension.Voltage, (v, u) => ElectricPotential.From(v, u).Volts),
+        Kind.Of(ElectricCurrent.Info, Dimension.CurrentDim, (v, u) => ElectricCurrent.From(v, u).Amperes),
+        Kind.Of(Power.Info, Dimension.ActivePower, (v, u) => (double)Power.From(v, u).Watts),
+        Kind.Of(ElectricApparentPower.Info, Dimension.ApparentPower, (v, u) => ElectricApparentPower.From(v, u).Voltamperes),
+        Kind.Of(ElectricReactivePower.Info, Dimension.ReactivePower, (v, u) => ElectricReactivePower.From(v, u).VoltamperesReactive),
+        Kind.Of(ElectricResistance.Info, Dimension.Impedance, (v, u) => ElectricResistance.From(v, u).Ohms),
+        Kind.Of(Frequency.Info, Dimension.Frequency, (v, u) => Frequency.From(v, u).Hertz),
+        Kind.Of(MagneticField.Info, Dimension.FluxDensity, (v, u) => MagneticField.From(v, u).Teslas),
+        Kind.Of(ElectricInductance.Info, Dimension.Inductance, (v, u) => ElectricInductance.From(v, u).Henries),
+        Kind.Of(Area.Info, Dimension.Area, (v, u) => Area.From(v, u).SquareMeters),
+        Kind.Of(Length.Info, Dimension.LengthDim, (v, u) => Length.From(v, u).Meters),
+        Kind.Of(Temperature.Info, Dimension.TemperatureDim, (v, u) => Temperature.From(v, u).Kelvins),
+        Kind.Of(Duration.Info, Dimension.TimeDim, (v, u) => Duration.From(v, u).Seconds),
+        Kind.Of(Angle.Info, Dimension.AngleDim, (v, u) => Angle.From(v, u).Radians),
     ];
+
+    private sealed record Kind(QuantityInfo Info, Dimension Dimension, Func<double, Enum, double> ToSi)
+    {
+        public static Kind Of<TUnit>(QuantityInfo<TUnit> info, Dimension dimension, Func<double, TUnit, double> toSi) where TUnit : struct, Enum =>
+            new(info, dimension, (value, unit) => toSi(value, (TUnit)unit));
+    }
 
     private static readonly FrozenDictionary<string, UnitInfo> BySymbol = Build();
 
@@ -45,21 +53,24 @@ public static class Units
 
     public static UnitInfo? Find(string symbol) => BySymbol.GetValueOrDefault(symbol);
 
+    /// <summary>UnitsNet's quantities the table reads, in priority order.</summary>
+    internal static IEnumerable<QuantityInfo> Quantities => Kinds.Select(k => k.Info);
+
     public static string? Suggest(string symbol) => Text.Spelling.Nearest(symbol, Common);
 
     private static FrozenDictionary<string, UnitInfo> Build()
     {
         var table = new Dictionary<string, UnitInfo>(StringComparer.Ordinal);
-        var abbreviations = UnitsNetSetup.Default.UnitAbbreviations;
-        foreach (var (unitType, siUnit, dimension) in Kinds)
+        // An empty cache reads each unit's abbreviations from UnitsNet's resources when asked.
+        var abbreviations = UnitAbbreviationsCache.CreateEmpty();
+        foreach (var (info, dimension, toSi) in Kinds)
         {
-            foreach (Enum unit in Enum.GetValues(unitType))
+            // In the order of the unit enumeration, so the first unit to claim a shared abbreviation keeps it.
+            foreach (var unit in info.UnitInfos.OrderBy(u => Convert.ToInt32(u.Value)))
             {
-                if (!UnitsNet.Quantity.TryFrom(1.0, unit, out var one)) continue;
-                var factor = one.As(siUnit);
-                var offset = unitType == typeof(TemperatureUnit) ? UnitsNet.Quantity.From(0.0, unit).As(siUnit) : 0;
-                if (offset != 0) factor -= offset;
-                foreach (var symbol in abbreviations.GetUnitAbbreviations(unitType, Convert.ToInt32(unit), CultureInfo.InvariantCulture))
+                var offset = toSi(0, unit.Value);
+                var factor = toSi(1, unit.Value) - offset;
+                foreach (var symbol in abbreviations.GetAbbreviations(unit, CultureInfo.InvariantCulture))
                     table.TryAdd(symbol, new UnitInfo(symbol, factor, dimension, offset));
             }
         }

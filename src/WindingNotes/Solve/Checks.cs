@@ -107,7 +107,7 @@ public static class Checks
                 if (result.Totals.Efficiency is { } efficiency) return efficiency;
                 problem = result.Totals.CoreLossKnown
                     ? "efficiency needs a supply that delivers power to a load"
-                    : $"efficiency needs the core loss: give a 'no-load' line for {string.Join(", ", result.Cores.Where(k => !k.LossKnown).Select(k => $"core '{k.Core.Name}'"))}";
+                    : $"efficiency needs the core loss: give a 'no-load' line for {string.Join(", ", result.Cores.Where(k => !k.LossKnown).Take(4).Select(k => $"core '{k.Core.Name}'"))}";
                 return null;
             default:
                 if (result.Loads.FirstOrDefault(l => l.Load.Name == t[0].Name)?.Regulation is { } regulation) return regulation;

@@ -50,13 +50,13 @@ public sealed partial class DiagnosticBag
         Warning("current-density-high", span,
             $"the current density in '{winding}' is {Numbers.Format(density / 1e6, "A/mm2")}{where}, above the {Numbers.Plain(low / 1e6)} to {Numbers.Plain(high / 1e6)} A/mm2 usual for naturally cooled copper windings");
 
-    /// <summary>One message for every core without an open-circuit test, at the first of them.</summary>
+    /// <summary>One message for every core without an open-circuit test, at the first of them (a file of many units names four).</summary>
     public Diagnostic ReportCoreLossUnknown(IReadOnlyList<CoreModel> cores)
     {
-        var names = string.Join(", ", cores.Select(c => $"'{c.Name}'"));
+        var names = string.Join(", ", cores.Take(4).Select(c => $"'{c.Name}'")) + (cores.Count > 4 ? $" and {cores.Count - 4} more" : "");
         return Amend(Info("core-loss-unknown", cores[0].NameSpan,
                 $"{(cores.Count == 1 ? "core" : "cores")} {names} {(cores.Count == 1 ? "has" : "have")} no 'no-load' line: core loss is unknown, so the efficiency and the load of highest efficiency are not given"),
-            d => d with { Related = [.. cores.Skip(1).Select(c => new RelatedSpan($"core '{c.Name}'", c.NameSpan))] });
+            d => d with { Related = [.. cores.Skip(1).Take(3).Select(c => new RelatedSpan($"core '{c.Name}'", c.NameSpan))] });
     }
 
     public Diagnostic ReportInternalError(Exception e) =>

@@ -9,11 +9,17 @@ namespace WindingNotes.Tests.Clients;
 /// package, and a headless Neovim. Locally a test skips when its client is absent; CI sets
 /// WINDINGNOTES_REQUIRE_CLIENTS=1 (in .ci/run, which installs both), and a missing client fails.
 /// </summary>
+[Trait("Category", "Long")]
 public class RealClientTests
 {
     public const string Require = "WINDINGNOTES_REQUIRE_CLIENTS";
 
-    private static string Server => Path.Combine(AppContext.BaseDirectory, "windingnotes.dll");
+    /// <summary>Names the installed command (CI: the native .NET tool) for the clients to start instead of the built windingnotes.dll.</summary>
+    public const string Tool = "WINDINGNOTES_TOOL";
+
+    /// <summary>How the clients start the command, without its arguments.</summary>
+    public static string[] Server =>
+        Environment.GetEnvironmentVariable(Tool) is { Length: > 0 } tool ? [tool] : [Dotnet, Path.Combine(AppContext.BaseDirectory, "windingnotes.dll")];
 
     private static string Dotnet => Environment.GetEnvironmentVariable("DOTNET_HOST_PATH") is { Length: > 0 } host ? host : "dotnet";
 
@@ -21,13 +27,13 @@ public class RealClientTests
 
     [NodeClientFact]
     public void The_official_node_protocol_client_covers_every_feature() =>
-        Run(Clients.Find("node") ?? throw new InvalidOperationException("node is not installed"), NodeClient, ["client.mjs", Dotnet, Server, "lsp", "--stdio"], []);
+        Run(Clients.Find("node") ?? throw new InvalidOperationException("node is not installed"), NodeClient, ["client.mjs", .. Server, "lsp", "--stdio"], []);
 
     [NeovimFact]
     public void Neovim_opens_edits_hovers_and_shuts_the_server_down() =>
         Run(Clients.Find("nvim") ?? throw new InvalidOperationException("nvim is not installed"), Snapshot.RepositoryRoot,
-            ["--headless", "-u", "NONE", "-n", "-i", "NONE", "-c", "luafile tests/clients/neovim/check.lua"],
-            new() { ["WINDINGNOTES_REPO"] = Snapshot.RepositoryRoot, ["WINDINGNOTES_SERVER"] = Server });
+            ["--headless", "--clean", "-n", "-c", "luafile tests/clients/neovim/check.lua"],
+            new() { ["WINDINGNOTES_REPO"] = Snapshot.RepositoryRoot, ["WINDINGNOTES_SERVER"] = string.Join('\n', Server) });
 
     private static void Run(string program, string directory, string[] arguments, Dictionary<string, string> environment)
     {

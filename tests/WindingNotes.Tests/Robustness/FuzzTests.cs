@@ -17,6 +17,7 @@ public class FuzzTests(ITestOutputHelper output)
     private static int Setting(string name, int fallback) =>
         int.TryParse(Environment.GetEnvironmentVariable(name), out var value) ? value : fallback;
 
+    [Trait("Category", "Long")]
     [Fact]
     public void Mutated_inputs_never_crash_hang_or_reach_outside_the_document()
     {
@@ -68,6 +69,7 @@ public class FuzzTests(ITestOutputHelper output)
         Assert.True(report is null, report);
     }
 
+    [Trait("Category", "Long")]
     [Fact]
     public void Five_megabyte_files_are_read_within_their_budget()
     {

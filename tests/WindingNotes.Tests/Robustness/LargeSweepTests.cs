@@ -12,6 +12,7 @@ namespace WindingNotes.Tests.Robustness;
 /// without its solver's vectors, while checks, ratings and cautions cover every point, and a check
 /// names at most <see cref="CheckTally.Named"/> of the points it fails at but counts them all.
 /// </summary>
+[Trait("Category", "Long")]
 public class LargeSweepTests
 {
     [Fact]

@@ -14,6 +14,7 @@ namespace WindingNotes.Tests.Robustness;
 /// resident set stays under 300 MB. The figure goes to the test's output; RESULTS.md beside the
 /// benchmarks records it with the machine.
 /// </summary>
+[Trait("Category", "Long")]
 public class ServerMemoryTests(ITestOutputHelper output)
 {
     public const int Documents = 50, Lines = 1000;

@@ -37,6 +37,7 @@ public class StatementReaderTests
         Assert.NotEqual(Dump(a.Head), Dump(b.Head));
     }
 
+    [Trait("Category", "Long")]
     [Fact]
     public void Every_line_of_fuzzed_documents_reads_alike()
     {

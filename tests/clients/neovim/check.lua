@@ -1,7 +1,10 @@
--- Headless Neovim 0.7.2 against windingnotes lsp, through editors/neovim/windingnotes.lua.
--- Run: nvim --headless -u NONE -n -i NONE -c 'luafile tests/clients/neovim/check.lua'
--- with WINDINGNOTES_REPO (the repository) and WINDINGNOTES_SERVER (windingnotes.dll) set.
--- Prints one line per check and "N passed, N failed"; exits 0 when all passed.
+-- Headless Neovim 0.7.2 against windingnotes lsp, set up as the README says: setup() from
+-- editors/neovim/windingnotes.lua, then a *.wn file opened.
+-- Run: nvim --headless --clean -n -c 'luafile tests/clients/neovim/check.lua'
+-- with WINDINGNOTES_REPO (the repository) and WINDINGNOTES_SERVER (the command that starts the
+-- server without its 'lsp', one word a line: 'dotnet' and windingnotes.dll, or the installed tool).
+-- --clean keeps Neovim's own filetype detection (which reads a *.wn file as 'conf') and skips the
+-- user's configuration. Prints one line per check and "N passed, N failed"; exits 0 when all passed.
 local passed, failed = 0, 0
 local function out(line) io.stdout:write(line .. '\n') end
 local function check(name, ok, detail)
@@ -17,17 +20,16 @@ end
 -- Any error in the checks themselves is a failure too, and Neovim still quits.
 local function main()
   local repo = assert(os.getenv('WINDINGNOTES_REPO'), 'WINDINGNOTES_REPO is not set')
-  local server = assert(os.getenv('WINDINGNOTES_SERVER'), 'WINDINGNOTES_SERVER is not set')
+  local cmd = vim.split(assert(os.getenv('WINDINGNOTES_SERVER'), 'WINDINGNOTES_SERVER is not set'), '\n', { trimempty = true })
+  table.insert(cmd, 'lsp')
   package.path = repo .. '/editors/neovim/?.lua;' .. package.path
   local windingnotes = require('windingnotes')
-  -- No swap file (-n), no shada (-i NONE); the client logs only its own errors.
+  -- No swap file (-n), no shada (--clean); the client logs only its own errors.
   vim.lsp.set_log_level('ERROR')
 
   local publishes, exit_code = 0, nil
-  vim.cmd('edit ' .. vim.fn.fnameescape(repo .. '/examples/alder-creek-boost.wn'))
-  local buf = vim.api.nvim_get_current_buf()
-  local id = windingnotes.attach(buf, {
-    cmd = { 'dotnet', server, 'lsp' },
+  windingnotes.setup({
+    cmd = cmd,
     client = {
       flags = { debounce_text_changes = 0 },
       handlers = {
@@ -39,6 +41,12 @@ local function main()
       on_exit = function(code) exit_code = code end,
     },
   })
+  vim.cmd('edit ' .. vim.fn.fnameescape(repo .. '/examples/alder-creek-boost.wn'))
+  local buf = vim.api.nvim_get_current_buf()
+  check('setup() gives *.wn its file type', vim.bo[buf].filetype == 'windingnotes', vim.bo[buf].filetype)
+  -- The buffer lists its client once the server has answered 'initialize'.
+  vim.wait(30000, function() return next(vim.lsp.buf_get_clients(buf)) ~= nil end, 20)
+  local id = next(vim.lsp.buf_get_clients(buf))
   if not check('the client started', id ~= nil) then return end
 
   local function errors() return vim.diagnostic.get(buf, { severity = vim.diagnostic.severity.ERROR }) end
