@@ -68,10 +68,12 @@ internal sealed partial class BindRun
         if (!statements.Any(s => s.Kind == StatementKind.Frequency) && statements.Count > 0)
             diagnostics.ReportNoFrequency(tree.Lines[0].Span);
         CheckLonelyNodes();
+        // Points the three-phase statements made (star points) come after the author's, so a node keeps the author's name.
         var points = symbols.References
             .Where(r => r.Symbol.IsConnectionPoint)
             .OrderBy(r => r.Span.Start)
             .Select(r => r.Symbol)
+            .Concat(derivedPoints)
             .Distinct()
             .ToImmutableArray();
         return model with
@@ -91,6 +93,7 @@ internal sealed partial class BindRun
             Points = points,
             Tolerances = [.. evaluator.Tolerances],
             Lets = lets.ToImmutableDictionary(),
+            ThreePhase = ThreePhaseResult(),
             Diagnostics = [.. tree.Diagnostics, .. diagnostics],
         };
     }
@@ -110,6 +113,7 @@ internal sealed partial class BindRun
             diagnostics.ReportDuplicateName(name.Name, existing.Span, existing.Describe());
             rejected.Add(statement);
         }
+        DeclarePhases(statement);
     }
 
     /// <summary>Statements that define a name already taken; they are reported once and not bound.</summary>

@@ -94,6 +94,11 @@ public static class Checks
                 if (result.Loads.FirstOrDefault(l => l.Load.Name == t[0].Name) is { } pl) return pl.Power.Real;
                 problem = $"'{t[0].Name}' was left out of the network";
                 return null;
+            case MeasureKind.VectorGroup:
+                var group = result.ThreePhase.VectorGroups.FirstOrDefault(g => g.Core == t[0].Name);
+                if (group?.Symbol is { } symbol) return symbol == expect.Symbol ? 1 : 0;
+                problem = group?.Problem ?? $"'{t[0].Name}' has no two three-phase windings to compare";
+                return null;
             case MeasureKind.Efficiency:
                 if (result.Totals.Efficiency is { } efficiency) return efficiency;
                 problem = "efficiency needs a supply that delivers power to a load";
@@ -128,6 +133,9 @@ public sealed class CheckTally(ImmutableArray<ExpectModel> expects)
         public double? WorstValue;
         public string WorstWhere = "";
         public bool FailedHere;
+
+        /// <summary>What a check that is not a number found as written: the connection symbol.</summary>
+        public string? Shown;
     }
 
     /// <summary>Starts a point: the normal case ("as written") or a sweep point ("BR=25 %").</summary>
@@ -149,6 +157,8 @@ public sealed class CheckTally(ImmutableArray<ExpectModel> expects)
             {
                 e.Nominal = value;
                 e.Problem = problem;
+                if (e.Expect.Measure == MeasureKind.VectorGroup)
+                    e.Shown = result.ThreePhase.VectorGroups.FirstOrDefault(g => g.Core == e.Expect.Targets[0].Name)?.Symbol;
             }
             if (value is not { } v)
             {
@@ -195,6 +205,7 @@ public sealed class CheckTally(ImmutableArray<ExpectModel> expects)
                 Points = points,
             };
             if (e.Problem is { } problem) diagnostics.ReportCannotCheck(e.Expect, problem);
+            else if (e.Failing > 0 && e.Expect.Measure == MeasureKind.VectorGroup) diagnostics.ReportVectorGroupFailed(e.Expect, e.Shown);
             else if (e.Failing > 0 && e.WorstValue is { } worst) diagnostics.ReportCheckFailed(e.Expect, worst, e.WorstWhere, e.Failures, e.Failing, points);
             else if (e.Failing > 0) diagnostics.ReportCannotCheck(e.Expect, $"not solved at {DiagnosticBag.ListPoints(e.Failures)}");
             results.Add(result);

@@ -89,6 +89,9 @@ public sealed record CaseResult(
 
     /// <summary>Results that vary over the tolerances, with their range; empty without tolerances.</summary>
     public ImmutableArray<Band> Bands { get; init; } = [];
+
+    /// <summary>Three-phase terminal sets and vector groups; empty without three-phase statements.</summary>
+    public ThreePhaseResult ThreePhase { get; init; } = ThreePhaseResult.Empty;
 }
 
 /// <summary>Derives what engineers read from a solution: powers, loading, losses, flux density, totals.</summary>
@@ -160,11 +163,12 @@ public static class Results
             supplied > 0 && loads.Length > 0 ? delivered / supplied : null,
             loads.Sum(l => l.Power.Magnitude),
             sections.Sum(s => s.Apparent) / 2), delivered);
-        return new CaseResult(solution.Case, solution, points, sections, cores, supplies, loads, totals)
+        var result = new CaseResult(solution.Case, solution, points, sections, cores, supplies, loads, totals)
         {
             Connections = ConnectionsOf(network, solution, supplies, loads),
             Fault = solution.Case.Fault is not null && normal is not null ? Faults.Compute(solution, normal) : null,
         };
+        return model.ThreePhase.IsEmpty ? result : result with { ThreePhase = ThreePhaseResults.Of(network, result) };
     }
 
     /// <summary>

@@ -92,15 +92,18 @@ public static class Lexer
         if (text[i] == '%') return i + 1;
         var start = i;
         while (i < text.Length && IsWordPart(text[i])) i++;
-        // A hyphenated keyword such as flux-limit is one word; elsewhere '-' is an operator.
+        // A hyphenated keyword such as flux-limit (or three-phase-load, read through its prefix
+        // three-phase) is one word; elsewhere '-' is an operator.
+        var word = i;
         while (i + 1 < text.Length && text[i] == '-' && char.IsLetter(text[i + 1]))
         {
             var end = i + 1;
             while (end < text.Length && IsWordPart(text[end])) end++;
-            if (!Grammar.HyphenatedKeywords.Contains(text[start..end])) break;
+            if (!Grammar.HyphenatedPrefixes.Contains(text[start..end])) break;
             i = end;
+            if (Grammar.HyphenatedKeywords.Contains(text[start..end])) word = end;
         }
-        return i;
+        return word;
     }
 
     private static int ScanNumber(string text, int i, out double value)
