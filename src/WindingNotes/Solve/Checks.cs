@@ -21,6 +21,9 @@ public sealed record CheckResult(ExpectModel Expect, bool Passed, double? Value)
     public int Failing { get; init; }
 
     public int Points { get; init; } = 1;
+
+    /// <summary>What a check that is not a number found as written: the connection symbol of a 'vector-group' check.</summary>
+    public string? Shown { get; init; }
 }
 
 /// <summary>
@@ -203,6 +206,7 @@ public sealed class CheckTally(ImmutableArray<ExpectModel> expects)
                 Failures = [.. e.Failures],
                 Failing = e.Failing,
                 Points = points,
+                Shown = e.Shown,
             };
             if (e.Problem is { } problem) diagnostics.ReportCannotCheck(e.Expect, problem);
             else if (e.Failing > 0 && e.Expect.Measure == MeasureKind.VectorGroup) diagnostics.ReportVectorGroupFailed(e.Expect, e.Shown);
