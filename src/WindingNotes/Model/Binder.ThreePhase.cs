@@ -79,7 +79,7 @@ internal sealed partial class BindRun
 
     private Symbol? Derive(string name, SymbolKind kind, NameSyntax from, StatementSyntax s)
     {
-        var symbol = new Symbol(name, kind, from.Name.Span, s.Span, kind == SymbolKind.Node ? null : from.Text);
+        var symbol = new Symbol(name, kind, from.Name.Span, s.Span, from.Text);
         if (symbols.TryDefineDerived(symbol, out var existing)) return existing;
         // Reported once, at the statement that names it in its text or, failing that, here.
         if (!existing.Derived) diagnostics.ReportPhaseNameTaken(from.Name, name, existing.Span);
@@ -194,11 +194,17 @@ internal sealed partial class BindRun
             default:
                 var ends = names.Select(n => Node(n, s)).ToList();
                 if (ends.Any(e => e is null)) return true;
-                // A point named twice here links two phase windings: it is used, not lonely.
-                foreach (var twice in names.GroupBy(n => n.Text).Where(g => g.Count() > 1))
-                    nodeUses[symbols.Find(twice.Key)!].Add(twice.ElementAt(1).Name.Span.Start);
+                // The ends are the winding's own terminals: used here, never lonely.
+                foreach (var end in names) nodeUses[symbols.Find(end.Text)!].Add(end.Name.Span.Start);
                 for (var k = 0; k < 3; k++) made.Add(Phase(phases[k], limbs[k], ends[2 * k]!, ends[2 * k + 1]!));
-                lines = [ends[0]!, ends[2]!, ends[4]!];
+                // A point on every phase is a star point; the line terminals are then the other ends, else the from ends.
+                var common = Enumerable.Range(0, 3).Select(k => new[] { names[2 * k].Text, names[2 * k + 1].Text })
+                    .Aggregate((IEnumerable<string> a, IEnumerable<string> b) => a.Intersect(b)).FirstOrDefault();
+                lines = common is null
+                    ? [ends[0]!, ends[2]!, ends[4]!]
+                    : [.. Enumerable.Range(0, 3).Select(k => ends[2 * k]!.Name == common ? ends[2 * k + 1]! : ends[2 * k]!)];
+                star = common;
+                neutral = common is not null;
                 break;
         }
         windings.AddRange(made);

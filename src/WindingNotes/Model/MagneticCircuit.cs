@@ -26,6 +26,7 @@ public static class MagneticCircuit
     {
         var result = ImmutableArray.CreateBuilder<MagneticCoupling>();
         var coreIndex = cores.ToDictionary(c => c.Name, c => c.Index, StringComparer.Ordinal);
+        var windingsOn = windings.ToLookup(w => w.Core);
         foreach (var core in model.ThreePhase.Cores)
         {
             if (core.Construction == CoreConstruction.Bank) continue;
@@ -38,8 +39,8 @@ public static class MagneticCircuit
             if (limbs.Any(l => l < 0 || cores[l].Sections.IsEmpty)) continue;
             // Y0 per turn from the per-unit impedance on the core's rating: a winding of N turns rated V
             // per phase has the base impedance V²/S_phase, so Y0·N² = S_phase/(z0·V²) and Y0 = S_phase/(z0·(V/N)²).
-            var rated = windings.FirstOrDefault(w => w.Core == limbs[0] && w.TurnsKnown && w.RatedVoltage is not null)
-                ?? windings.FirstOrDefault(w => w.Core == limbs[0] && w.RatedVoltage is not null);
+            var rated = windingsOn[limbs[0]].FirstOrDefault(w => w.TurnsKnown && w.RatedVoltage is not null)
+                ?? windingsOn[limbs[0]].FirstOrDefault(w => w.RatedVoltage is not null);
             if (core.Rating is not { } rating || rated is null)
             {
                 diagnostics.ReportPercentNeedsRating(core.Line, core.Name);

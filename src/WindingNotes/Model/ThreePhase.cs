@@ -77,4 +77,10 @@ public sealed record ThreePhaseModel
     public ImmutableArray<ThreePhaseLoadModel> Loads { get; init; } = [];
 
     public bool IsEmpty => Cores.IsEmpty && Supplies.IsEmpty && Loads.IsEmpty;
+
+    private HashSet<int>? phaseLines;
+
+    /// <summary>Whether a statement (by its span) is a three-phase supply or load; a set built once, so a file of many units stays linear.</summary>
+    public bool IsSupplyOrLoad(TextSpan line) =>
+        (phaseLines ??= [.. Supplies.Select(s => s.Line.Start), .. Loads.Select(l => l.Line.Start)]).Contains(line.Start);
 }

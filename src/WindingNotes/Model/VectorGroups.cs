@@ -28,14 +28,18 @@ public static class VectorGroups
     {
         var result = ImmutableArray.CreateBuilder<VectorGroup>();
         var three = network.Model.ThreePhase;
-        var windingIndex = network.Windings.ToDictionary(w => w.Name, w => w.Index, StringComparer.Ordinal);
+        // Sorted out once, so that a file of many units stays linear in its length.
+        var windingIndex = new Dictionary<string, int>(StringComparer.Ordinal);
+        foreach (var w in network.Windings) windingIndex.TryAdd(w.Name, w.Index);
+        var windingsOn = three.Windings.ToLookup(w => w.Core, StringComparer.Ordinal);
+        var sectionsOn = network.Sections.ToLookup(s => network.Cores[s.Core].Name, StringComparer.Ordinal);
         foreach (var core in three.Cores)
         {
-            var onCore = three.Windings.Where(w => w.Core == core.Name && w.PhaseWindings.All(windingIndex.ContainsKey)).ToList();
+            var onCore = windingsOn[core.Name].Where(w => w.PhaseWindings.All(windingIndex.ContainsKey)).ToList();
             if (onCore.Count < 2) continue;
-            var sets = TerminalSets(network, onCore);
+            var sets = TerminalSets(network, onCore, windingIndex);
             var limbOf = core.Limbs.Select((l, k) => (l, k)).ToDictionary(x => x.l, x => x.k);
-            var sections = network.Sections.Where(s => limbOf.ContainsKey(network.Cores[s.Core].Name)).ToList();
+            var sections = core.Limbs.SelectMany(l => sectionsOn[l]).ToList();
             Complex Limb(Section s) => Complex.Pow(Phases.A, -limbOf[network.Cores[s.Core].Name]);
             var (potential, conflict) = Walk(network, sections, Limb, []);
             var symbols = ImmutableArray.CreateBuilder<WindingSymbol>();
@@ -78,8 +82,9 @@ public static class VectorGroups
     /// an autotransformer, whose high-voltage set is the series winding's line ends and whose
     /// low-voltage set ("a") the wye's.
     /// </summary>
-    private static List<TerminalSet> TerminalSets(Network network, List<ThreePhaseWindingModel> onCore)
+    private static List<TerminalSet> TerminalSets(Network network, List<ThreePhaseWindingModel> onCore, Dictionary<string, int> windingIndex)
     {
+        WindingNet Phase(string name) => network.Windings[windingIndex[name]];
         int[] Nodes(IEnumerable<NodeRef> refs) => [.. refs.Select(r => network.Node(r.Name))];
         var sets = new List<(TerminalSet Set, double Voltage)>();
         var common = new HashSet<string>();
@@ -90,18 +95,18 @@ public static class VectorGroups
             if (wye is null) continue;
             common.Add(wye.Name);
             var star = wye.NeutralTerminal ? "yn" : "y";
-            sets.Add((new TerminalSet(series, Nodes(series.LineTerminals), star), LineVoltage(network, series) + LineVoltage(network, wye)));
-            sets.Add((new TerminalSet(wye, ends, "a"), LineVoltage(network, wye)));
+            sets.Add((new TerminalSet(series, Nodes(series.LineTerminals), star), LineVoltage(Phase(series.PhaseWindings[0]), series) + LineVoltage(Phase(wye.PhaseWindings[0]), wye)));
+            sets.Add((new TerminalSet(wye, ends, "a"), LineVoltage(Phase(wye.PhaseWindings[0]), wye)));
         }
         foreach (var w in onCore.Where(w => !common.Contains(w.Name) && !sets.Any(s => s.Set.Winding == w)))
-            sets.Add((new TerminalSet(w, Nodes(w.LineTerminals), Letters(network, w)), LineVoltage(network, w)));
+            sets.Add((new TerminalSet(w, Nodes(w.LineTerminals), Letters(network, w, Phase)), LineVoltage(Phase(w.PhaseWindings[0]), w)));
         // Stable: equal voltages keep their source order.
         return [.. sets.Select((s, i) => (s, i)).OrderByDescending(x => x.s.Voltage).ThenBy(x => x.i).Select(x => x.s.Set)];
     }
 
-    private static double LineVoltage(Network network, ThreePhaseWindingModel w)
+    private static double LineVoltage(WindingNet first, ThreePhaseWindingModel w)
     {
-        var phase = network.Windings.First(p => p.Name == w.PhaseWindings[0]).RatedVoltage ?? 0;
+        var phase = first.RatedVoltage ?? 0;
         return w.Connection switch
         {
             PhaseConnection.Wye or PhaseConnection.Series => phase * Math.Sqrt(3),
@@ -111,7 +116,7 @@ public static class VectorGroups
     }
 
     /// <summary>IEC 60076-1 letters: y, d, z (n where the star point is a terminal), iii for independent phase windings.</summary>
-    private static string Letters(Network network, ThreePhaseWindingModel w)
+    private static string Letters(Network network, ThreePhaseWindingModel w, Func<string, WindingNet> phaseNamed)
     {
         switch (w.Connection)
         {
@@ -119,7 +124,7 @@ public static class VectorGroups
             case PhaseConnection.Zigzag: return w.NeutralTerminal ? "zn" : "z";
             case PhaseConnection.Delta: return "d";
         }
-        var phases = w.PhaseWindings.Select(p => network.Windings.First(x => x.Name == p).Source).ToList();
+        var phases = w.PhaseWindings.Select(p => phaseNamed(p).Source).ToList();
         var from = phases.Select(p => network.Node(p.From.Name)).ToList();
         var to = phases.Select(p => network.Node(p.To.Name)).ToList();
         if (to.Distinct().Count() == 1 || from.Distinct().Count() == 1) return "yn";
@@ -177,7 +182,7 @@ public static class VectorGroups
             {
                 var (potential, conflict) = Walk(network, sections, limb, [windingIndex[phase]]);
                 if (conflict is not null) continue;
-                var sets = TerminalSets(network, onCore);
+                var sets = TerminalSets(network, onCore, windingIndex);
                 var clean = true;
                 foreach (var s in sets)
                 {

@@ -45,9 +45,13 @@ internal static class ThreePhaseReport
     {
         var three = c.ThreePhase;
         if (!three.VectorGroups.IsEmpty)
+        {
+            o.Append('\n');
             MarkdownReport.Table(o, 1, ["unit", "vector group"], three.VectorGroups.Select(g => new[] { MarkdownReport.Code(g.Core), g.Symbol ?? $"none: {g.Problem}" }));
+        }
         if (three.Sets.IsEmpty) return;
-        MarkdownReport.Table(o, 2, ["three-phase set", "kind", "V ab", "V bc", "V ca", "I a", "I b", "I c", "I neutral", "P", "Q", "V1", "V2", "V0", "unbalance |V2|/|V1|"],
+        o.Append('\n');
+        MarkdownReport.Table(o, 2, ["three-phase set", "kind", "V ab", "V bc", "V ca", "I a", "I b", "I c", "I neutral", "P", "Q", "V1", "V2", "V0", "unbalance V2/V1"],
             three.Sets.Select(s => (string[])
             [
                 MarkdownReport.Code(s.Name), s.Kind,

@@ -98,7 +98,7 @@ public static class Checks
                 problem = $"'{t[0].Name}' was left out of the network";
                 return null;
             case MeasureKind.VectorGroup:
-                var group = result.ThreePhase.VectorGroups.FirstOrDefault(g => g.Core == t[0].Name);
+                var group = result.ThreePhase.GroupOf(t[0].Name);
                 if (group?.Symbol is { } symbol) return symbol == expect.Symbol ? 1 : 0;
                 problem = group?.Problem ?? $"'{t[0].Name}' has no two three-phase windings to compare";
                 return null;
@@ -161,7 +161,7 @@ public sealed class CheckTally(ImmutableArray<ExpectModel> expects)
                 e.Nominal = value;
                 e.Problem = problem;
                 if (e.Expect.Measure == MeasureKind.VectorGroup)
-                    e.Shown = result.ThreePhase.VectorGroups.FirstOrDefault(g => g.Core == e.Expect.Targets[0].Name)?.Symbol;
+                    e.Shown = result.ThreePhase.GroupOf(e.Expect.Targets[0].Name)?.Symbol;
             }
             if (value is not { } v)
             {

@@ -186,7 +186,7 @@ public static class Results
     private static ImmutableArray<ConnectionResult> ConnectionsOf(Network network, Solution solution, ImmutableArray<SupplyResult> supplies, ImmutableArray<LoadResult> loads)
     {
         if (solution.Case.WithoutLoads || solution.Case.Fault is not null) return [];
-        return [.. Solve.Connections.Find(network).Select(c =>
+        return [.. Solve.Connections.Find(network).Where(c => !c.IsPhaseElement(network.Model)).Select(c =>
         {
             var (vs, vl) = (supplies[c.Supply.Index].Voltage.Magnitude, loads[c.Load.Index].Voltage.Magnitude);
             var high = Math.Max(vs, vl);

@@ -36,6 +36,19 @@ public sealed record PhaseSetResult(string Name, string Kind, ImmutableArray<Com
 public sealed record ThreePhaseResult(ImmutableArray<PhaseSetResult> Sets, ImmutableArray<VectorGroup> VectorGroups)
 {
     public static readonly ThreePhaseResult Empty = new([], []);
+
+    private Dictionary<string, VectorGroup>? byCore;
+
+    /// <summary>The vector group of a core, found through an index built once (a file of many units checks many).</summary>
+    public VectorGroup? GroupOf(string core)
+    {
+        if (byCore is null)
+        {
+            byCore = new Dictionary<string, VectorGroup>(StringComparer.Ordinal);
+            foreach (var g in VectorGroups) byCore.TryAdd(g.Core, g);
+        }
+        return byCore.GetValueOrDefault(core);
+    }
 }
 
 public static class ThreePhaseResults
