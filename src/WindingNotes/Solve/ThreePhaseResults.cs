@@ -49,6 +49,19 @@ public sealed record ThreePhaseResult(ImmutableArray<PhaseSetResult> Sets, Immut
         }
         return byCore.GetValueOrDefault(core);
     }
+
+    private Dictionary<string, PhaseSetResult>? byName;
+
+    /// <summary>The terminal set of a three-phase winding, supply or load by its name.</summary>
+    public PhaseSetResult? SetOf(string name)
+    {
+        if (byName is null)
+        {
+            byName = new Dictionary<string, PhaseSetResult>(StringComparer.Ordinal);
+            foreach (var s in Sets) byName.TryAdd(s.Name, s);
+        }
+        return byName.GetValueOrDefault(name);
+    }
 }
 
 public static class ThreePhaseResults
