@@ -147,6 +147,35 @@ public class ThreePhaseTests
         Assert.Equal(12, ll.XR, 1e-6);
     }
 
+    [Fact]
+    public void A_line_to_ground_fault_behind_a_delta_wye_unit_sees_the_unit_alone_in_zero_sequence()
+    {
+        // R30 and R34: I = 3E/(Z1 + Z2 + Z0) (any power-systems textbook); the delta blocks the source's
+        // zero sequence, so from the wye side Z0 is the unit's own impedance Zt while Z1 = Z2 = Zs + Zt.
+        // By hand, in ohms on the 480 V side: Zs = 480²/250 MVA at X/R 12, Zt = 5.75 %·480²/1.5 MVA at
+        // X/R 6, E = 480/√3 V (no load, ideal core).
+        var e = Wn.Solved("""
+            frequency 60 Hz
+            core T1 construction bank rating 1500 kVA
+            winding HV on T1 rated 13.8 kV delta H1 H2 H3
+            winding LV on T1 rated 480 V wye X1 X2 X3 neutral X0
+            impedance HV LV 5.75 % xr 6
+            three-phase-supply utility H1 H2 H3 13.8 kV fault-level 250 MVA xr 12
+            ground X0
+            fault LG X2 X0
+
+            """);
+        var zs = 480.0 * 480 / 250e6 * new Complex(1, 12) / Math.Sqrt(145);
+        var zt = 0.0575 * 480 * 480 / 1.5e6 * new Complex(1, 6) / Math.Sqrt(37);
+        var expected = 3 * (480 / Math.Sqrt(3)) / (2 * (zs + zt) + zt);
+        var fault = e.Cases.Single(c => c.Fault is not null);
+        Assert.Equal(expected.Magnitude, fault.Fault!.Current.Magnitude, 1e-6);
+        // The fault current is all on phase b: the lines a and c of the wye side carry none.
+        var lv = fault.ThreePhase.SetOf("LV")!;
+        Assert.True(lv.LineCurrents[0].Magnitude < 1e-6 * expected.Magnitude && lv.LineCurrents[2].Magnitude < 1e-6 * expected.Magnitude);
+        Wn.Near(expected.Magnitude / 3, lv.CurrentSequence.Zero.Magnitude, 1e-9, "I0 = I/3");
+    }
+
     private static string ZeroSequenceUnit(string construction, string angleB, string angleC) => $"""
         frequency 50 Hz
         core T1 construction {construction} rating 300 kVA
