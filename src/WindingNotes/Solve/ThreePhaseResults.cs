@@ -37,30 +37,20 @@ public sealed record ThreePhaseResult(ImmutableArray<PhaseSetResult> Sets, Immut
 {
     public static readonly ThreePhaseResult Empty = new([], []);
 
-    private Dictionary<string, VectorGroup>? byCore;
+    // Indices built once: a file of many units looks up many sets and vector groups.
+    private readonly Dictionary<string, VectorGroup> byCore = Index(VectorGroups, g => g.Core);
+    private readonly Dictionary<string, PhaseSetResult> byName = Index(Sets, s => s.Name);
 
-    /// <summary>The vector group of a core, found through an index built once (a file of many units checks many).</summary>
-    public VectorGroup? GroupOf(string core)
-    {
-        if (byCore is null)
-        {
-            byCore = new Dictionary<string, VectorGroup>(StringComparer.Ordinal);
-            foreach (var g in VectorGroups) byCore.TryAdd(g.Core, g);
-        }
-        return byCore.GetValueOrDefault(core);
-    }
-
-    private Dictionary<string, PhaseSetResult>? byName;
+    public VectorGroup? GroupOf(string core) => byCore.GetValueOrDefault(core);
 
     /// <summary>The terminal set of a three-phase winding, supply or load by its name.</summary>
-    public PhaseSetResult? SetOf(string name)
+    public PhaseSetResult? SetOf(string name) => byName.GetValueOrDefault(name);
+
+    private static Dictionary<string, T> Index<T>(IEnumerable<T> items, Func<T, string> key)
     {
-        if (byName is null)
-        {
-            byName = new Dictionary<string, PhaseSetResult>(StringComparer.Ordinal);
-            foreach (var s in Sets) byName.TryAdd(s.Name, s);
-        }
-        return byName.GetValueOrDefault(name);
+        var index = new Dictionary<string, T>(StringComparer.Ordinal);
+        foreach (var item in items) index.TryAdd(key(item), item);
+        return index;
     }
 }
 

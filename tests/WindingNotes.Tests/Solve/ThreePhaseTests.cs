@@ -253,6 +253,36 @@ public class ThreePhaseTests
         Assert.Equal(Math.Sqrt(3) / 3, Math.Sqrt(3) * 50 / 150, 12);
     }
 
+    [Fact]
+    public void A_Scott_T_pair_gives_two_outputs_in_quadrature()
+    {
+        // R33 (any machines textbook): the main winding centre-tapped across two lines, the teaser
+        // from the third line to the centre tap with √3/2 = 86.6 % of the main's turns; with ideal
+        // windings the two secondaries are equal and exactly 90° apart.
+        var e = Wn.Solved("""
+            frequency 60 Hz
+            core KM rating 10 kVA
+            winding M on KM turns 400 rated 480 V from H1 to H2
+            tap MC on M at 50 %
+            winding SM on KM turns 100 rated 120 V from X1 to X2
+            core KT rating 10 kVA
+            winding T on KT turns 400 * sqrt(3) / 2 from H3 to TT
+            winding ST on KT turns 100 from Y1 to Y2
+            join TT MC
+            three-phase-supply grid H1 H2 H3 480 V
+            load lamps X1 X2 impedance 4 ohm
+            load heater Y1 Y2 impedance 4 ohm
+            ground X2
+            ground Y2
+
+            """).Normal!;
+        var main = e.V("X1", "X2");
+        var teaser = e.V("Y1", "Y2");
+        Assert.Equal(main.Magnitude, teaser.Magnitude, 9);
+        Assert.Equal(90, Math.Abs(Math.IEEERemainder((teaser / main).Phase * 180 / Math.PI, 360)), 9);
+        Assert.Equal(120, main.Magnitude, 9);
+    }
+
     // The examples, each held to the same network written phase by phase in the single-phase notation.
     [Theory]
     [InlineData("maple-ford-station-unit")]
