@@ -44,6 +44,7 @@ public static class SafetyCautions
                 diagnostics.ReportAboveSupply(brush?.NameSpan ?? load.NameSpan, load.Name, highest.Load, c.Supply.Name, highest.Supply, highest.Where);
         }
 
+        OpenDelta.Report(network, cases.FirstOrDefault(x => x.Case == CaseSpec.Normal), diagnostics);
         foreach (var f in cases.Select(x => x.Fault).OfType<FaultResult>())
             diagnostics.ReportFaultDuty(f.Fault.NameSpan, f.Fault.Name, f.Current.Magnitude, f.Peak, f.WorstMultiple, f.WorstWinding);
     }

@@ -235,7 +235,11 @@ public class ThreePhaseTests
     {
         // R32 (any machines textbook): two units in open delta carry √3·S_unit at their rated
         // current, 57.7 % of the 3·S_unit of a closed bank of three, 86.6 % of the pair's 2·S_unit.
-        var open = Wn.Solved(OpenDelta.Replace("LOAD", $"{Math.Sqrt(3) * 50} kVA")).Normal!;
+        var evaluation = Wn.Solved(OpenDelta.Replace("LOAD", $"{Math.Sqrt(3) * 50} kVA"));
+        var open = evaluation.Normal!;
+        // At the limit the 0.1 mΩ windings put the units just past it, and the pair is named.
+        Assert.Contains("form an open delta on 'grid'", evaluation.Single("open-delta-overload").Message);
+        Assert.Contains("57.7 %", Wn.Eval(OpenDelta.Replace("LOAD", "80 kVA")).Single("caution-open-delta").Message);
         // Windings of 0.1 mΩ (a closed delta of ideal windings has no unique circulating current) move it by under 1e-4.
         Wn.Near(1, open.Section("SA").Loading!.Value, 1e-4, "open delta, unit A");
         Wn.Near(1, open.Section("SB").Loading!.Value, 1e-4, "open delta, unit B");
