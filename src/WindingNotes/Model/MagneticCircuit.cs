@@ -24,6 +24,7 @@ public static class MagneticCircuit
 {
     public static ImmutableArray<MagneticCoupling> Couplings(Model model, ImmutableArray<WindingNet> windings, ImmutableArray<CoreNet> cores, DiagnosticBag diagnostics)
     {
+        if (model.ThreePhase.Cores.IsEmpty) return [];
         var result = ImmutableArray.CreateBuilder<MagneticCoupling>();
         var coreIndex = cores.ToDictionary(c => c.Name, c => c.Index, StringComparer.Ordinal);
         var windingsOn = windings.ToLookup(w => w.Core);

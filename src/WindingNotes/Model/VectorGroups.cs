@@ -28,6 +28,7 @@ public static class VectorGroups
     {
         var result = ImmutableArray.CreateBuilder<VectorGroup>();
         var three = network.Model.ThreePhase;
+        if (three.Cores.IsEmpty) return [];
         // Sorted out once, so that a file of many units stays linear in its length.
         var windingIndex = new Dictionary<string, int>(StringComparer.Ordinal);
         foreach (var w in network.Windings) windingIndex.TryAdd(w.Name, w.Index);

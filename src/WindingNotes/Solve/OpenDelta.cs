@@ -16,24 +16,28 @@ public static class OpenDelta
         var three = network.Model.ThreePhase;
         if (three.Supplies.IsEmpty && three.Loads.IsEmpty) return;
         var limbs = three.Cores.SelectMany(c => c.Limbs).ToHashSet(StringComparer.Ordinal);
-        var windingsOn = network.Windings.Where(w => w.Core >= 0 && !limbs.Contains(network.Cores[w.Core].Name)).ToLookup(w => w.Core);
+        // Indexed once by the node each winding starts at, so a file of many units stays linear.
+        var startingAt = network.Windings
+            .Where(w => w.Core >= 0 && !limbs.Contains(network.Cores[w.Core].Name))
+            .ToLookup(w => network.Node(w.Source.From.Name));
+        var sectionsOf = (normal?.Sections ?? []).ToLookup(s => s.Section.Core);
         var sets = three.Supplies.Select(s => (s.Name, s.LineTerminals)).Concat(three.Loads.Select(l => (l.Name, l.LineTerminals)));
         var said = new HashSet<string>(StringComparer.Ordinal);
         foreach (var (name, terminals) in sets)
         {
             var lines = terminals.Select(t => network.Node(t.Name)).ToArray();
             // Each single-phase core with a winding across two different lines of the set, and the pair it bridges.
-            var bridges = windingsOn
-                .Select(g => (Core: g.Key, Pairs: g.Select(w => Pair(lines, network.Node(w.Source.From.Name), network.Node(w.Source.To.Name))).Where(p => p >= 0).Distinct().ToList()))
+            var bridges = lines.Distinct().SelectMany(n => startingAt[n])
+                .Select(w => (w.Core, Pair: Pair(lines, network.Node(w.Source.From.Name), network.Node(w.Source.To.Name))))
+                .Where(b => b.Pair >= 0)
+                .GroupBy(b => b.Core)
+                .Select(g => (Core: g.Key, Pairs: g.Select(b => b.Pair).Distinct().ToList()))
                 .Where(b => b.Pairs.Count == 1)
                 .ToList();
             if (bridges.Count != 2 || bridges[0].Pairs[0] == bridges[1].Pairs[0]) continue;
             var cores = bridges.Select(b => network.Cores[b.Core]).ToList();
-            var key = string.Join(",", cores.Select(c => c.Name));
-            if (!said.Add(key)) continue;
-            var over = normal?.Sections
-                .Where(s => cores.Any(c => c.Index == s.Section.Core) && s.Loading > 1 + 1e-9)
-                .MaxBy(s => s.Loading);
+            if (!said.Add(string.Join(",", cores.Select(c => c.Name)))) continue;
+            var over = cores.SelectMany(c => sectionsOf[c.Index]).Where(s => s.Loading > 1 + 1e-9).MaxBy(s => s.Loading);
             diagnostics.ReportOpenDelta(cores[0].Source.NameSpan, cores[0].Name, cores[1].Name, name, over?.Winding.Name, over?.Loading);
         }
     }
