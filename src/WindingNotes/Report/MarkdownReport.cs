@@ -137,6 +137,7 @@ public static class MarkdownReport
             : [];
         Table(o, 0, ["copper loss", "core loss", "efficiency", "throughput", "transformed", .. If(best.Length > 0, "best load", "efficiency there")],
         [[V(t.CopperLoss, "W"), TextReport.CoreLoss(t), t.Efficiency is { } eff ? TextReport.Percent(eff) : t.CoreLossKnown ? "" : "unknown without the core loss", V(t.Throughput, "VA"), V(t.Transformed, "VA"), .. best]]);
+        ThreePhaseReport.Markdown(o, c);
         WriteBands(o, c);
     }
 
