@@ -123,7 +123,7 @@ public static class FuzzInputs
 
     // ---- mutations ----
 
-    private static (string, string) Mutate(string text, Random random) => random.Next(18) switch
+    private static (string, string) Mutate(string text, Random random) => random.Next(21) switch
     {
         0 => TokenEdit(text, random, "delete token", (_, _) => ""),
         1 => TokenEdit(text, random, "duplicate token", (t, _) => t + " " + t),
@@ -143,6 +143,11 @@ public static class FuzzInputs
             var depth = Pick([1, 2, 10, 63, 64, 65, 200, 3000], r);
             return r.Next(3) == 0 ? new string('(', depth) + t : new string('(', depth) + t + new string(')', depth);
         }),
+        // Classes of input that once made the formatter change meaning: a sign before a signed value,
+        // a break inside a clause (with any line break, a lone CR too), a clause written twice.
+        17 => TokenEdit(text, random, "sign", (t, r) => Pick(["+ ", "- ", "+ -", "- +", "+", "-"], r) + t),
+        18 => TokenEdit(text, random, "break before", (t, r) => Pick([" \\\n", " \\\r", " \\\r\n", "\\\n  ", " \\\n# why\n", " \\\n\n"], r) + t),
+        19 => TokenEdit(text, random, "repeat clause", (t, r) => $"{t} {Pick(Keywords, r)} {Pick(Numbers, r)}"),
         _ => TokenEdit(text, random, "repeat token", (t, r) => string.Join(" ", Enumerable.Repeat(t, Math.Min(Pick([2, 10, 100, 1999, 2001, 5000], r), 1 + MaxLength / (t.Length + 1))))),
     };
 
