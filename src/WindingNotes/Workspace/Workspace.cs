@@ -17,9 +17,12 @@ public sealed class DocumentWorkspace
     /// diagnostics and a request for hints evaluate once between them). Its token is cancelled
     /// when the version is overtaken or closed, so the evaluation of a stale version stops early.
     /// </summary>
-    private sealed class Entry(Document document)
+    private sealed class Entry(Document document, Entry? previous)
     {
         private readonly CancellationTokenSource stale = new();
+
+        /// <summary>The last finished evaluation of an earlier version, kept until this one finishes.</summary>
+        private (Evaluation, int)? earlier = previous?.LastComplete;
         private readonly TaskCompletionSource<Evaluation> done = new(TaskCreationOptions.RunContinuationsAsynchronously);
         private int started;
 
@@ -36,6 +39,7 @@ public sealed class DocumentWorkspace
                 try
                 {
                     done.SetResult(Evaluator.Evaluate(Document.Text, Document.Path, stale.Token));
+                    earlier = null;
                 }
                 catch (Exception e)
                 {
@@ -46,6 +50,10 @@ public sealed class DocumentWorkspace
             if (!task.IsCompleted) task.WaitAsync(cancel).GetAwaiter().GetResult();
             return task.GetAwaiter().GetResult();
         }
+
+        /// <summary>This version's evaluation when it has finished, else the last finished one of an earlier version.</summary>
+        public (Evaluation Evaluation, int Version)? LastComplete =>
+            done.Task.IsCompletedSuccessfully ? (done.Task.Result, Document.Version) : earlier;
 
         // Never disposed: a token source without timers holds nothing, and disposing it would race with Cancel.
         public void Overtake() => stale.Cancel();
@@ -63,11 +71,11 @@ public sealed class DocumentWorkspace
     {
         Entry? previous = null;
         entries.AddOrUpdate(uri,
-            _ => new Entry(new Document(uri, path ?? uri, version, text)),
+            _ => new Entry(new Document(uri, path ?? uri, version, text), null),
             (_, old) =>
             {
                 previous = old;
-                return new Entry(new Document(uri, path ?? old.Document.Path, version, text));
+                return new Entry(new Document(uri, path ?? old.Document.Path, version, text), old);
             });
         previous?.Overtake();
     }
@@ -87,6 +95,18 @@ public sealed class DocumentWorkspace
         cancel.ThrowIfCancellationRequested();
         return entries.TryGetValue(uri, out var entry) ? entry.Evaluate(cancel) : null;
     }
+
+    /// <summary>
+    /// The last evaluation of the document that finished, with its version: the current version's
+    /// when it is done, else an earlier one's (what an editor shows while a long study runs); null
+    /// when the document is not open or none has finished.
+    /// </summary>
+    public (Evaluation Evaluation, int Version)? LastComplete(string uri) => entries.GetValueOrDefault(uri)?.LastComplete;
+
+    /// <summary>Said beside results shown from an earlier version while the current one is still evaluated.</summary>
+    public static Text.Diagnostic StillRunning(int shown, int running) =>
+        new(Text.Severity.Information, "evaluation-running",
+            $"results are from version {shown}: the evaluation of version {running} is still running", default);
 
     /// <summary>The evaluation of one version, or null when that version is no longer the current one.</summary>
     public Evaluation? Evaluate(string uri, int version, CancellationToken cancel = default)
