@@ -9,22 +9,34 @@ public sealed partial record ConsoleIo
 
     private static ReadOnlySpan<byte> Bom => [0xEF, 0xBB, 0xBF];
 
+    /// <summary>The largest input read, in bytes: a calculation file is a few hundred kilobytes at most, and a larger input (a device, an endless pipe) would only exhaust memory.</summary>
+    public const int MaxInput = 16 << 20;
+
     /// <summary>
-    /// A file's text, refusing bytes that are not UTF-8: reading them as replacement characters and
-    /// writing the file back would lose them. Null after a message when the file cannot be read.
+    /// The text of a file, or of standard input for "-", read the same way: a regular file only (a
+    /// named pipe or a device is refused before it is opened), at most <see cref="MaxInput"/> bytes,
+    /// a byte-order mark dropped, bytes that are not UTF-8 refused (read as replacement characters
+    /// they would be lost, and written back by fmt). Null after a message when it cannot be read.
     /// </summary>
-    public string? ReadExact(string path)
+    public string? Read(string path)
     {
-        byte[] bytes;
+        var name = DisplayName(path);
+        byte[]? bytes;
         try
         {
-            bytes = File.ReadAllBytes(path);
+            if (path == "-") bytes = ReadAtMost(Input);
+            else
+            {
+                if (FileStatus.Of(path) is { IsRegular: false } status) return Refuse(name, $"it is {status.TypeName}, not a calculation file");
+                using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read);
+                bytes = stream.Length > MaxInput ? null : ReadAtMost(stream);
+            }
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
         {
-            Error.WriteLine($"windingnotes: cannot read '{path}': {e.Message}");
-            return null;
+            return Refuse(name, e.Message);
         }
+        if (bytes is null) return Refuse(name, $"it is larger than {MaxInput >> 20} MB, the most a calculation file may be");
         var start = bytes.AsSpan().StartsWith(Bom) ? Bom.Length : 0;
         try
         {
@@ -32,9 +44,28 @@ public sealed partial record ConsoleIo
         }
         catch (DecoderFallbackException)
         {
-            Error.WriteLine($"windingnotes: '{path}' is not UTF-8 text; it was left as it is");
-            return null;
+            return Refuse(name, "it is not UTF-8 text; it was left as it is");
         }
+    }
+
+    private string? Refuse(string name, string why)
+    {
+        Error.WriteLine($"windingnotes: cannot read '{name}': {why}");
+        return null;
+    }
+
+    /// <summary>The whole stream, or null as soon as it passes <see cref="MaxInput"/> bytes.</summary>
+    private static byte[]? ReadAtMost(Stream stream)
+    {
+        var o = new MemoryStream();
+        var buffer = new byte[81920];
+        int read;
+        while ((read = stream.Read(buffer)) > 0)
+        {
+            if (o.Length + read > MaxInput) return null;
+            o.Write(buffer, 0, read);
+        }
+        return o.ToArray();
     }
 
     /// <summary>
