@@ -30,8 +30,9 @@ public static class Formatter
                 _ => AsWritten(line),
             };
             o.Append(text);
-            // The last line gets a line break unless it ends in one (a continuation may have taken it).
-            var broken = text.EndsWith('\n') || text.EndsWith('\r');
+            // The last line gets a line break unless it ends in one, or in a continuation kept as
+            // written, which would take the break and move what is said of the file's end to a new line.
+            var broken = text.EndsWith('\n') || text.EndsWith('\r') || (line.Comment is null && text.TrimEnd(' ', '\t').EndsWith('\\'));
             if (line.Index == tree.Lines.Length - 1 && text.Length > 0 && !broken) o.Append(tree.Text.Text.Contains("\r\n") ? "\r\n" : "\n");
         }
         return o.ToString();

@@ -15,21 +15,26 @@ public static class FormatProperty
     public static string? Problem(string text)
     {
         var tree = Parser.Parse(text);
-        var formatted = Formatter.Format(tree);
+        return Problem(tree, Formatter.Format(tree));
+    }
+
+    /// <summary>The same for a text already parsed and formatted; <paramref name="bind"/> false compares the diagnostics of parsing alone (for five-megabyte inputs, whose binding the fuzzer has done once already).</summary>
+    public static string? Problem(SyntaxTree tree, string formatted, bool bind = true)
+    {
         var again = Parser.Parse(formatted);
         if (Formatter.Format(again) != formatted) return $"formatting is not idempotent:\n{Quote(formatted)}\n--- formatted again ---\n{Quote(Formatter.Format(again))}";
         var (before, after) = (Statements(tree), Statements(again));
         if (before != after) return $"formatting changed the statements:\n{First(before, after)}\n--- formatted ---\n{Quote(formatted)}";
-        var (linesBefore, linesAfter) = (Diagnostics(tree), Diagnostics(again));
+        var (linesBefore, linesAfter) = (Diagnostics(tree, bind), Diagnostics(again, bind));
         if (linesBefore != linesAfter) return $"formatting moved or changed diagnostics:\n{First(linesBefore, linesAfter)}\n--- formatted ---\n{Quote(formatted)}";
         return null;
     }
 
     /// <summary>Each diagnostic of parsing and binding as its code and its first and last line, in order.</summary>
-    private static string Diagnostics(SyntaxTree tree)
+    private static string Diagnostics(SyntaxTree tree, bool bind)
     {
-        var model = Binder.Bind(tree);
-        var lines = model.Diagnostics.Select(d => $"{d.Code} {tree.Text.GetPosition(d.Span.Start).Line}-{tree.Text.GetPosition(d.Span.End).Line}");
+        var diagnostics = bind ? Binder.Bind(tree).Diagnostics : tree.Diagnostics;
+        var lines = diagnostics.Select(d => $"{d.Code} {tree.Text.GetPosition(d.Span.Start).Line}-{tree.Text.GetPosition(d.Span.End).Line}");
         return string.Join('\n', lines.Order(StringComparer.Ordinal));
     }
 

@@ -113,7 +113,7 @@ public sealed class FuzzTarget(FuzzInput input, TimeSpan timeLimit, Cancellation
         if (formatted is null) return;
         Do("format again", () =>
         {
-            if (FormatProperty.Problem(input.Text) is { } problem) Fail(problem);
+            if (FormatProperty.Problem(e.Syntax, formatted, bind: !input.IsLarge) is { } problem) Fail(problem);
         });
         Do("formatting edits", () =>
         {
