@@ -71,27 +71,53 @@ public sealed partial record ConsoleIo
     /// <summary>
     /// Writes a file, or replaces its content without a moment in which it is lost: the text goes to
     /// a new file beside it, flushed to disk, which is then renamed over the old one (atomic on one
-    /// file system). An existing file's byte-order mark and permissions are kept; a symbolic link
-    /// stays a link. False after a message when it fails, with the original untouched.
+    /// file system). The new file is made readable by its owner alone, then given the original's
+    /// byte-order mark, permissions, owner and group before the rename. A symbolic link is followed
+    /// only to a file inside the folder it was named from (and stays a link); a file with other
+    /// names (hard links) or without write permission is refused, since a rename would part it from
+    /// its other names or overrule its protection. The temporary file's name says whose it is, so a
+    /// later run removes one a killed run left. False after a message when it fails, with the
+    /// original untouched.
     /// </summary>
     public bool Replace(string path, string text)
     {
-        var target = Path.GetFullPath(path);
+        var given = Path.GetFullPath(path);
+        var target = given;
         string? temporary = null;
+        bool Refuse(string why)
+        {
+            Error.WriteLine($"windingnotes: cannot write '{path}': {why}; the file was left as it was");
+            return false;
+        }
         try
         {
-            var info = new FileInfo(target);
-            if (info.LinkTarget is not null && info.ResolveLinkTarget(returnFinalTarget: true) is { } linked) target = linked.FullName;
+            var info = new FileInfo(given);
+            if (info.LinkTarget is not null)
+            {
+                if (info.ResolveLinkTarget(returnFinalTarget: true) is not { } linked) return Refuse("it is a symbolic link to nothing");
+                target = linked.FullName;
+                var folder = Path.GetDirectoryName(given)! + Path.DirectorySeparatorChar;
+                if (!target.StartsWith(folder, StringComparison.Ordinal)) return Refuse($"it is a symbolic link to '{target}', outside the folder it was named from; format that file itself");
+            }
+            var status = FileStatus.Of(target);
+            if (status is { Links: > 1 }) return Refuse($"it has {status.Links} names (hard links), and replacing it would part them");
             var exists = File.Exists(target);
+            if (exists && (status is { } s ? (s.Mode & 0x80) == 0 : new FileInfo(target).IsReadOnly)) return Refuse("it is read-only");
             var keepBom = exists && File.ReadAllBytes(target).AsSpan().StartsWith(Bom);
             var directory = Path.GetDirectoryName(target)!;
-            temporary = Path.Combine(directory, $".{Path.GetFileName(target)}.{Environment.ProcessId}.{Guid.NewGuid():N}.tmp");
-            using (var stream = new FileStream(temporary, FileMode.CreateNew, FileAccess.Write))
+            RemoveLeftovers(directory, Path.GetFileName(target));
+            temporary = Path.Combine(directory, $"{TemporaryPrefix(Path.GetFileName(target))}{Environment.ProcessId}.tmp");
+            var options = new FileStreamOptions { Mode = FileMode.CreateNew, Access = FileAccess.Write };
+            if (!OperatingSystem.IsWindows()) options.UnixCreateMode = UnixFileMode.UserRead | UnixFileMode.UserWrite;
+            using (var stream = new FileStream(temporary, options))
             {
                 if (keepBom) stream.Write(Bom);
                 stream.Write(StrictUtf8.GetBytes(text));
                 stream.Flush(flushToDisk: true);
             }
+            if (status is { } original && FileStatus.Of(temporary) is { } made && (made.Owner != original.Owner || made.Group != original.Group)
+                && !FileStatus.SetOwner(temporary, original.Owner, original.Group))
+                return Refuse($"its owner and group ({original.Owner}:{original.Group}) cannot be kept by this user");
             if (exists && !OperatingSystem.IsWindows()) File.SetUnixFileMode(temporary, File.GetUnixFileMode(target));
             File.Move(temporary, target, overwrite: true);
             temporary = null;
@@ -99,12 +125,38 @@ public sealed partial record ConsoleIo
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
         {
-            Error.WriteLine($"windingnotes: cannot write '{path}': {e.Message}; the file was left as it was");
-            return false;
+            return Refuse(e.Message);
         }
         finally
         {
             if (temporary is not null) TryDelete(temporary);
+        }
+    }
+
+    private static string TemporaryPrefix(string name) => $".{name}.windingnotes-fmt.";
+
+    /// <summary>Removes the temporary files of runs on this file that are no longer running (killed before their rename).</summary>
+    private static void RemoveLeftovers(string directory, string name)
+    {
+        var prefix = TemporaryPrefix(name);
+        foreach (var file in Directory.EnumerateFiles(directory, prefix + "*.tmp"))
+        {
+            var id = Path.GetFileName(file)[prefix.Length..^".tmp".Length];
+            if (int.TryParse(id, out var pid) && !Running(pid)) TryDelete(file);
+        }
+    }
+
+    private static bool Running(int pid)
+    {
+        if (pid == Environment.ProcessId) return false;
+        try
+        {
+            using var process = System.Diagnostics.Process.GetProcessById(pid);
+            return !process.HasExited;
+        }
+        catch (Exception e) when (e is ArgumentException or InvalidOperationException)
+        {
+            return false;
         }
     }
 
