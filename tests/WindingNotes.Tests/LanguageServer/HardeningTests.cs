@@ -18,8 +18,6 @@ public class HardeningTests
 
     private static int? Code(JsonObject response) => (int?)response["error"]?["code"];
 
-    private static string Frame(string body, string header) => header + body;
-
     private static string Hover(int id) => "{\"jsonrpc\":\"2.0\",\"id\":" + id + ",\"method\":\"textDocument/hover\",\"params\":" + LspPipe.At("file:///not-open.wn", 0, 0) + "}";
 
     public static TheoryData<string, string> FramingFaults() => new()
