@@ -74,7 +74,8 @@ public static class Formatter
             foreach (var element in clause.Elements) Put(element, Element(element));
         }
         var text = o.ToString();
-        return SameMeaning(line, text) ? text : null;
+        var reordered = !s.Clauses.SequenceEqual(ordered);
+        return SameMeaning(line, text, reordered) ? text : null;
     }
 
     /// <summary>
@@ -103,25 +104,33 @@ public static class Formatter
         return result;
     }
 
-    /// <summary>The formatted text parses alone to the same statement, without a diagnostic, each token on the physical line it had.</summary>
-    private static bool SameMeaning(LineSyntax line, string formatted)
+    /// <summary>
+    /// The formatted text reads as the same statement, without a diagnostic, each token on the
+    /// physical line it had. The parser sees only a line's significant tokens, so where the clauses
+    /// kept their order the same tokens are the same statement and lexing suffices; where they moved,
+    /// the text is parsed again.
+    /// </summary>
+    private static bool SameMeaning(LineSyntax line, string formatted, bool reordered)
     {
+        var tokens = Lexer.Lex(formatted);
+        if (tokens.Exists(t => t.Kind == TokenKind.Newline) || !PhysicalLines(tokens).Order().SequenceEqual(PhysicalLines(line.Tokens).Order())) return false;
+        if (!reordered)
+            return tokens.Where(t => !t.IsTrivia).Select(t => (t.Kind, t.Text)).SequenceEqual(line.Significant.Select(t => (t.Kind, t.Text)));
         var again = Parser.Parse(formatted);
-        if (!again.Diagnostics.IsEmpty || again.Lines is not [{ Statement: { } statement } parsed, ..] || again.Lines.Length > 1) return false;
-        return Shape(statement) == Shape(line.Statement!) && PhysicalLines(parsed).SequenceEqual(PhysicalLines(line));
+        return again.Diagnostics.IsEmpty && again.Lines is [{ Statement: { } statement }] && Shape(statement) == Shape(line.Statement!);
     }
 
-    /// <summary>The significant tokens with the physical line each is on, in a canonical order.</summary>
-    private static IEnumerable<(string, int)> PhysicalLines(LineSyntax line)
+    /// <summary>The significant tokens with the physical line each is on.</summary>
+    private static List<(string, int)> PhysicalLines(IEnumerable<Token> tokens)
     {
         var result = new List<(string, int)>();
         var physical = 0;
-        foreach (var t in line.Tokens)
+        foreach (var t in tokens)
         {
             if (t.Kind is TokenKind.Continuation && t.Text.AsSpan().IndexOfAny('\r', '\n') >= 0) physical++;
             else if (!t.IsTrivia) result.Add((t.Text, physical));
         }
-        return result.Order();
+        return result;
     }
 
     /// <summary>A statement as structure: clauses in the grammar's order, values as trees.</summary>
