@@ -295,6 +295,12 @@ internal sealed partial class BindRun
         });
     }
 
+    /// <summary>
+    /// A load impedance below this is taken for a slip rather than a load (common practice, no
+    /// source): a milliohm across a few hundred volts draws hundreds of kiloamperes.
+    /// </summary>
+    public const double NearShort = 1e-3;
+
     private void BindLoad(StatementSyntax s)
     {
         var name = s.Head.Name(0)!;
@@ -381,6 +387,12 @@ internal sealed partial class BindRun
                     diagnostics.ReportOutOfBounds(value.Span, "a load's impedance", "above zero; a short circuit is a 'join' or a 'fault'");
                     return null;
                 }
+                if (z.Real < 0)
+                {
+                    diagnostics.ReportOutOfBounds(value.Span, "the resistance of a load", "zero or above: a negative one would deliver power; a source is a 'supply'");
+                    return null;
+                }
+                if (z.Magnitude < NearShort) diagnostics.ReportNearShort(value.Span, z.Magnitude);
                 if (hasPf && z.Imaginary == 0) z = System.Numerics.Complex.FromPolarCoordinates(z.Real, angle);
                 // S drawn at 1 V by a constant impedance: |V|² conj(Y).
                 return (LoadBehaviour.ConstantImpedance, System.Numerics.Complex.Conjugate(1 / z), 1);
@@ -416,6 +428,11 @@ internal sealed partial class BindRun
         var to = Value(range?.Value(1), "the end of the sweep");
         var step = Value(s.Value("step"), "the step of the sweep");
         var points = Real(s.Value("points"), Dimension.None, "the number of points", positive: true);
+        if (points is { } count && count != Math.Floor(count))
+        {
+            diagnostics.ReportOutOfBounds(s.Value("points")!.Span, "the number of points", "a whole number");
+            return;
+        }
         if (target is null || from is null || to is null || (step is null && points is null)) return;
         if (!SweepUnits(target, (range!.Value(0)!, from.Value, "the lower bound"), (range.Value(1)!, to.Value, "the upper bound"), (s.Value("step"), step, "the step"))) return;
         sweeps.Add(new SweepModel(target, s.Span, from.Value, to.Value, step, points is { } n ? (int)Math.Round(n) : null));

@@ -123,4 +123,40 @@ public class DiffAndTextconvTests
         Assert.Equal(2, code);
         Assert.Contains("cannot read", error);
     }
+
+    [Fact]
+    public void A_revision_or_a_path_never_reaches_git_as_an_option_or_outside_the_repository()
+    {
+        using var dir = new TemporaryDirectory();
+        var file = dir.File("feed.wn");
+        Git(dir.Path, "init", "-q");
+        File.WriteAllText(file, Alder);
+        Git(dir.Path, "add", ".");
+        Git(dir.Path, "commit", "-q", "-m", "first");
+        var written = dir.File("written-by-git");
+        // Reproductions: git once took these for its own options, writing or reading a file.
+        foreach (var revision in new[] { $"--output={written}", "-O/etc/passwd", "-", "HEAD:feed.wn", "HEAD --output=x" })
+        {
+            var (code, output, error) = Command.Run("", "diff", $"--rev={revision}", file);
+            Assert.True(code == 2 && error.Contains("cannot read"), $"{revision}: {code} {output} {error}");
+        }
+        Assert.False(File.Exists(written));
+        // A file outside the working tree, or inside the repository's own folder, is refused by its place.
+        using var outside = new TemporaryDirectory();
+        File.WriteAllText(outside.File("feed.wn"), Alder);
+        var (outsideCode, _, outsideError) = Command.Run("", "diff", "--rev", "HEAD", outside.File("feed.wn"));
+        Assert.Equal(2, outsideCode);
+        Assert.Contains("cannot read", outsideError);
+        var (gitCode, _, gitError) = Command.Run("", "diff", "--rev", "HEAD", Path.Combine(dir.Path, ".git", "HEAD"));
+        Assert.Equal(2, gitCode);
+        Assert.Contains("not inside a git working tree", gitError);
+        // A file in a folder of the repository is named by its path there; the revision is any commit-ish.
+        Directory.CreateDirectory(dir.File("sub"));
+        File.Move(file, dir.File("sub/feed.wn"));
+        Git(dir.Path, "add", "-A");
+        Git(dir.Path, "commit", "-q", "-m", "moved");
+        var (subCode, subOutput, subError) = Command.Run("", "diff", "--rev", "main", dir.File("sub/feed.wn"));
+        Assert.True(subCode == 0, subError);
+        Assert.Contains("no result moved", subOutput);
+    }
 }
