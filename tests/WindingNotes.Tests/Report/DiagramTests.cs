@@ -202,6 +202,47 @@ public class DiagramTests
         Assert.Contains("I bench_a", texts);
     }
 
+    /// <summary>The grids of a phasor drawing, by their captions, with the arrow labels and the largest current ring drawn on each.</summary>
+    private static List<(string Caption, List<string> Labels, double OuterCurrent)> Grids(string svg)
+    {
+        var texts = Parse(svg).Descendants(SvgNs + "text")
+            .Select(t => (Class: t.Attribute("class")!.Value, X: double.Parse(t.Attribute("x")!.Value, System.Globalization.CultureInfo.InvariantCulture), Text: t.Value)).ToList();
+        var captions = texts.Where(t => t.Class == "note" && t.Text.StartsWith("nodes ")).ToList();
+        int GridOf(double x) => captions.FindLastIndex(c => c.X <= x);
+        static double Amperes(string ring) => double.Parse(ring.Split(' ')[0], System.Globalization.CultureInfo.InvariantCulture) * (ring.EndsWith(" kA") ? 1e3 : ring.EndsWith(" mA") ? 1e-3 : 1);
+        return [.. captions.Select((c, i) => (c.Text,
+            texts.Where(t => t.Class is "vlabel" or "ilabel" && GridOf(t.X) == i).Select(t => t.Text).ToList(),
+            texts.Where(t => t.Class == "igrid" && GridOf(t.X) == i).Select(t => Amperes(t.Text)).DefaultIfEmpty(0).Max()))];
+    }
+
+    [Fact]
+    public void A_current_from_the_grounded_neutral_goes_on_the_grid_of_its_own_voltage_level()
+    {
+        // Pine Ridge, fault F_half from X1 to the grounded neutral X2: some 29 kA on the 120 V side. It
+        // used to be drawn on the 7.2 kV grid (X1, shorted to the neutral, had no voltage to give it a level).
+        var pine = Evaluator.Evaluate(File.ReadAllText(Command.Example("pine-ridge-fault-study.wn")), "p.wn");
+        var half = pine.Cases.Single(c => c.Case.Name == "fault F_half");
+        var amperes = half.Solution.FaultCurrent.Magnitude;
+        Assert.InRange(amperes, 20e3, 40e3);
+        var grids = Grids(PhasorDiagram.Draw(pine, half).Svg);
+        Assert.Equal(["nodes H1", "nodes X1, X3"], grids.Select(g => g.Caption));
+        Assert.Contains("utility", grids[0].Labels);
+        Assert.Contains("F_half", grids[1].Labels);
+        // Each grid's current rings reach its own largest current: kiloamperes on the secondary, hundreds of amperes on the primary.
+        Assert.True(grids[1].OuterCurrent >= amperes, $"{grids[1].OuterCurrent} A");
+        Assert.True(grids[0].OuterCurrent < amperes / 10, $"{grids[0].OuterCurrent} A");
+        // The bolted fault across the two outer ends too: both are near zero under the fault, yet the current is on the secondary's grid.
+        var bolted = Grids(PhasorDiagram.Draw(pine, pine.Cases.Single(c => c.Case.Name == "fault F_bolted")).Svg);
+        Assert.Contains(bolted, g => g.Caption == "nodes X1, X3" && g.Labels.Contains("F_bolted"));
+
+        // Birchwood: load bench_b runs from the grounded centre tap X2 to X3, a 120 V load.
+        var birchwood = Evaluator.Evaluate(File.ReadAllText(Command.Example("birchwood-service.wn")), "b.wn");
+        var normal = Grids(PhasorDiagram.Draw(birchwood, birchwood.Normal!).Svg);
+        Assert.Equal(["nodes H1", "nodes X1, X3"], normal.Select(g => g.Caption));
+        Assert.Contains("bench_b", normal[1].Labels);
+        Assert.DoesNotContain("bench_b", normal[0].Labels);
+    }
+
     [Fact]
     public void The_sweep_plot_draws_a_line_per_result_with_a_mark_per_point_and_a_gap_where_a_section_ends()
     {
