@@ -164,7 +164,72 @@ public class DiagramTests
     public void The_network_drawing_is_wired_as_the_network(string name, string kind)
     {
         if (kind != "network") return;
-        AssertWiredAsTheNetwork(Evaluator.Evaluate(File.ReadAllText(PathOf(name)), name), name);
+        var evaluation = Evaluator.Evaluate(File.ReadAllText(PathOf(name)), name);
+        AssertWiredAsTheNetwork(evaluation, name);
+        AssertEarthsClear(NetworkDiagram.Draw(evaluation), name);
+    }
+
+    /// <summary>The wire segments of a drawing: its lines and the legs of its polylines.</summary>
+    private static List<(double X1, double Y1, double X2, double Y2)> Wires(string svg)
+    {
+        var segments = new List<(double, double, double, double)>();
+        double D(string v) => double.Parse(v, System.Globalization.CultureInfo.InvariantCulture);
+        foreach (var e in Parse(svg).Descendants().Where(e => e.Attribute("class")?.Value == "wire"))
+        {
+            if (e.Name == SvgNs + "line") segments.Add((D(e.Attribute("x1")!.Value), D(e.Attribute("y1")!.Value), D(e.Attribute("x2")!.Value), D(e.Attribute("y2")!.Value)));
+            else if (e.Name == SvgNs + "polyline")
+            {
+                var p = e.Attribute("points")!.Value.Split(' ').Select(xy => xy.Split(',').Select(D).ToArray()).ToList();
+                for (var i = 0; i + 1 < p.Count; i++) segments.Add((p[i][0], p[i][1], p[i + 1][0], p[i + 1][1]));
+            }
+        }
+        return segments;
+    }
+
+    /// <summary>Whether a segment passes through a box (Liang and Barsky's clipping: the part of the segment inside each slab).</summary>
+    private static bool Crosses((double X1, double Y1, double X2, double Y2) s, double left, double top, double right, double bottom)
+    {
+        double t0 = 0, t1 = 1;
+        foreach (var (p, q) in new[] { (s.X1 - s.X2, s.X1 - left), (s.X2 - s.X1, right - s.X1), (s.Y1 - s.Y2, s.Y1 - top), (s.Y2 - s.Y1, bottom - s.Y1) })
+        {
+            if (p == 0)
+            {
+                if (q < 0) return false;
+                continue;
+            }
+            var t = q / p;
+            if (p < 0) t0 = Math.Max(t0, t);
+            else t1 = Math.Min(t1, t);
+        }
+        return t0 <= t1;
+    }
+
+    /// <summary>
+    /// No wire but an earth's own comes within 2 px of its bars (7 px either side of its lead, 7 to
+    /// 13 px below its top): an earth drawn over another lead makes that lead look earthed.
+    /// </summary>
+    private static void AssertEarthsClear(Drawing drawing, string what)
+    {
+        var wires = Wires(drawing.Svg);
+        foreach (var (x, y) in drawing.Earths)
+        {
+            bool Own(double px, double py) => Math.Abs(px - x) <= 7.01 && py >= y - 0.01 && py <= y + 13.01;
+            foreach (var w in wires)
+                if (!(Own(w.X1, w.Y1) && Own(w.X2, w.Y2)) && Crosses(w, x - 9, y + 5, x + 9, y + 15))
+                    Assert.Fail($"{what}: the wire from ({w.X1}, {w.Y1}) to ({w.X2}, {w.Y2}) runs through the earth at ({x}, {y})");
+        }
+    }
+
+    [Fact]
+    public void An_earth_at_the_end_of_a_variable_autotransformer_winding_keeps_clear_of_the_brush_output()
+    {
+        // Cedar Hollow: A, the winding's top end, is earthed; the brush's lead rises past it to the heater.
+        // The earth used to hang over that lead, 8 px from it with bars 7 px wide, so the output looked earthed.
+        var evaluation = Evaluator.Evaluate(File.ReadAllText(Command.Example("cedar-hollow-bench-sweep.wn")), "c.wn");
+        var drawing = NetworkDiagram.Draw(evaluation);
+        // The earths of the supply, the winding's end A and the heater.
+        Assert.Equal(3, drawing.Earths.Count);
+        AssertEarthsClear(drawing, "cedar-hollow-bench-sweep.wn");
     }
 
     [Fact]
@@ -175,6 +240,7 @@ public class DiagramTests
             var evaluation = Wn.Eval(RandomNetworks.Write(seed));
             AssertLegible(NetworkDiagram.Draw(evaluation), $"network of random network {seed}");
             AssertWiredAsTheNetwork(evaluation, $"random network {seed}");
+            AssertEarthsClear(NetworkDiagram.Draw(evaluation), $"random network {seed}");
             AssertLegible(PhasorDiagram.Draw(evaluation, evaluation.Normal!), $"phasors of random network {seed}");
         }
     }

@@ -10,6 +10,9 @@ public sealed record Drawing(string Svg, IReadOnlyList<Box> Labels, double Width
 {
     /// <summary>In a network drawing: where each terminal meets its element, so a test can follow the wires from it.</summary>
     public IReadOnlyList<(string Point, double X, double Y)> Terminals { get; init; } = [];
+
+    /// <summary>In a network drawing: the top of each earth symbol, so a test can check that no other lead runs through one.</summary>
+    public IReadOnlyList<(double X, double Y)> Earths { get; init; } = [];
 }
 
 /// <summary>
@@ -47,6 +50,7 @@ public static class NetworkDiagram
         private readonly Svg svg = new();
         private readonly List<Pin> pins = [];
         private readonly List<(string, double, double)> terminals = [];
+        private readonly List<(double, double)> earths = [];
         private readonly CaseResult? results = evaluation.Normal;
         private readonly HashSet<int> railNodes = RailNodes(network);
         private double elementsTop;
@@ -96,7 +100,7 @@ public static class NetworkDiagram
                 ? $"{Legend()} The network has {elements} supplies, cores, loads and faults, too many to draw legibly: the first {MaxElements} are drawn."
                 : Legend();
             var height = svg.Notes(Margin, bottom + 26, width - 2 * Margin, [legend, .. cautions]) + Margin - 8;
-            return new Drawing(svg.Document(width, height, Symbols.Css), svg.TextBoxes, width, height) { Terminals = terminals };
+            return new Drawing(svg.Document(width, height, Symbols.Css), svg.TextBoxes, width, height) { Terminals = terminals, Earths = earths };
         }
 
         private static (double, double) Next(double x, double bottom, (double Right, double Bottom) element) =>
@@ -185,6 +189,7 @@ public static class NetworkDiagram
                 var at = direct ? x : column ?? x;
                 if (at != x) svg.Line(x, y, at, y);
                 Symbols.Earth(svg, at, y);
+                earths.Add((at, y));
                 return;
             }
             if (node >= 0 && railNodes.Contains(node))
@@ -225,7 +230,7 @@ public static class NetworkDiagram
             // x positions: left columns, left lane, left coil, core, right coil, right lane, right columns.
             var leftLabels = leftCoils.SelectMany(c => Labels(c)).DefaultIfEmpty(0).Max() + 10;
             var rightLabels = rightCoils.SelectMany(c => Labels(c)).DefaultIfEmpty(0).Max() + 10;
-            var leftPins = leftCoils.Sum(c => Points(c).Count(p => railNodes.Contains(NodeOf(p))));
+            var leftPins = leftCoils.Sum(c => Points(c).Count(p => railNodes.Contains(NodeOf(p)) || IsEarth(p)));
             var leftAxis = left + leftPins * ColumnPitch + leftLabels;
             var coreX = leftAxis + 14;
             var rightAxis = coreX + 19;
@@ -336,7 +341,9 @@ public static class NetworkDiagram
                     pins.Add(new Pin(point, NodeOf(point), axis, py, outward) { Column = column });
                     terminals.Add((point, axis, py));
                 }
-                // Earthed and unconnected terminals end at the lane's edge: no lead rises past them there.
+                // An earth takes a column of its own, as wide as the symbol, so the leads of the points
+                // below it rise a column further out, clear of it; an open terminal ends at the lane's edge.
+                else if (IsEarth(point)) Terminal(point, axis, py, outward, column: axis + outward * (lane + ColumnPitch * (1 + columns++)));
                 else Terminal(point, axis, py, outward, column: axis + outward * (lane + 6), named: false);
             }
         }
