@@ -221,6 +221,21 @@ public class DiagramTests
     }
 
     [Fact]
+    public void Values_within_rounding_of_the_largest_of_their_kind_are_drawn_as_zero()
+    {
+        // A 1 TΩ leak beside the planer draws about 0.2 nA (240 V / 1e12 Ω), some 1e-11 of the planer's
+        // 17 A: below what the solve resolves, so it is drawn as zero (the rule the result diff counts by),
+        // never as "228.1 pA" or a loading of "1.3E-09 %".
+        var text = File.ReadAllText(Command.Example("alder-creek-boost.wn")) + "load leak X1 H2 impedance 1e12 ohm\n";
+        var evaluation = Wn.Solved(text);
+        Assert.InRange(evaluation.Normal!.Load("leak").Current.Magnitude, 1e-10, 1e-9);
+        var texts = Parse(NetworkDiagram.Draw(evaluation).Svg).Descendants(SvgNs + "text").Select(t => t.Value).ToList();
+        var leak = texts.IndexOf("load leak");
+        Assert.Equal(["228.1 V", "0.000 A", "0.000 W, pf 1.00"], texts.Skip(leak + 1).Take(3));
+        Assert.DoesNotContain(texts, t => t.Contains("pA") || t.Contains("nA") || t.Contains("E-"));
+    }
+
+    [Fact]
     public void An_earth_at_the_end_of_a_variable_autotransformer_winding_keeps_clear_of_the_brush_output()
     {
         // Cedar Hollow: A, the winding's top end, is earthed; the brush's lead rises past it to the heater.

@@ -64,6 +64,11 @@ public static class NetworkDiagram
         private readonly Dictionary<int, CoreResult> coreResults = evaluation.Normal?.Cores.DistinctBy(x => x.Core.Index).ToDictionary(x => x.Core.Index) ?? [];
         private readonly Dictionary<int, SupplyResult> supplyResults = evaluation.Normal?.Supplies.DistinctBy(x => x.Supply.Index).ToDictionary(x => x.Supply.Index) ?? [];
         private readonly Dictionary<int, LoadResult> loadResults = evaluation.Normal?.Loads.DistinctBy(x => x.Load.Index).ToDictionary(x => x.Load.Index) ?? [];
+        // The largest current, voltage and power of the normal case: what is within 1e-9 of them is the
+        // solve's rounding (as the result diff counts it) and is drawn as zero, never as "0.07358 pA".
+        private readonly double currentScale = evaluation.Normal is { } n ? n.Sections.Select(x => x.Current.Magnitude).Concat(n.Supplies.Select(x => x.Current.Magnitude)).Concat(n.Loads.Select(x => x.Current.Magnitude)).DefaultIfEmpty(0).Max() : 0;
+        private readonly double voltageScale = evaluation.Normal?.Points.Select(p => p.Voltage.Magnitude).DefaultIfEmpty(0).Max() ?? 0;
+        private readonly double powerScale = evaluation.Normal is { } n ? n.Supplies.Select(x => x.Power.Magnitude).Concat(n.Loads.Select(x => x.Power.Magnitude)).DefaultIfEmpty(0).Max() : 0;
         private readonly Dictionary<string, CaseResult> faultCases = evaluation.Cases.Where(x => x.Case.Fault is not null).DistinctBy(x => x.Case.Fault!.Name).ToDictionary(x => x.Case.Fault!.Name);
 
         public Drawing Draw()
@@ -309,7 +314,8 @@ public static class NetworkDiagram
         {
             var r = sectionResults.GetValueOrDefault(s.Index);
             if (r is null) return "";
-            return r.Loading is { } loading ? $"{Numbers.Format(r.Current.Magnitude, "A")}, {Numbers.Plain(loading * 100, 3)} %" : Numbers.Format(r.Current.Magnitude, "A");
+            var current = Clean(r.Current.Magnitude, currentScale);
+            return r.Loading is { } loading ? $"{Numbers.Format(current, "A")}, {Numbers.Plain(current == 0 ? 0 : loading * 100, 3)} %" : Numbers.Format(current, "A");
         }
 
         private void DrawCoil(Coil coil, double axis, double top, int outward, double lane, ref int columns)
@@ -396,21 +402,25 @@ public static class NetworkDiagram
         {
             var name = network.Nodes[node].Name;
             var v = results?.PointVoltage(name);
-            return v is { } phasor ? $"{name}: {TextReport.Phasor(phasor, "V").Replace(" angle ", " ∠").Replace(" deg", "°")}" : name;
+            return v is { } phasor ? $"{name}: {TextReport.Phasor(Clean(phasor, voltageScale), "V").Replace(" angle ", " ∠").Replace(" deg", "°")}" : name;
         }
 
         // ---- values ----
 
+        private static double Clean(double value, double scale) => Math.Abs(value) <= 1e-9 * scale ? 0 : value;
+
+        private static System.Numerics.Complex Clean(System.Numerics.Complex value, double scale) => value.Magnitude <= 1e-9 * scale ? 0 : value;
+
         private IReadOnlyList<string> SupplyValues(SupplyNet s)
         {
             var r = supplyResults.GetValueOrDefault(s.Index);
-            return r is null ? [Numbers.Format(s.Voltage.Magnitude, "V")] : [Numbers.Format(r.Voltage.Magnitude, "V"), Numbers.Format(r.Current.Magnitude, "A"), $"{Numbers.Format(r.Power.Magnitude, "VA")}, pf {Numbers.Fixed(r.PowerFactor, 3)}"];
+            return r is null ? [Numbers.Format(s.Voltage.Magnitude, "V")] : [Numbers.Format(Clean(r.Voltage.Magnitude, voltageScale), "V"), Numbers.Format(Clean(r.Current.Magnitude, currentScale), "A"), $"{Numbers.Format(Clean(r.Power.Magnitude, powerScale), "VA")}, pf {Numbers.Fixed(r.PowerFactor, 3)}"];
         }
 
         private IReadOnlyList<string> LoadValues(LoadNet l)
         {
             var r = loadResults.GetValueOrDefault(l.Index);
-            return r is null ? [] : [Numbers.Format(r.Voltage.Magnitude, "V"), Numbers.Format(r.Current.Magnitude, "A"), $"{Numbers.Format(r.Power.Real, "W")}, pf {Numbers.Fixed(r.PowerFactor, 3)}"];
+            return r is null ? [] : [Numbers.Format(Clean(r.Voltage.Magnitude, voltageScale), "V"), Numbers.Format(Clean(r.Current.Magnitude, currentScale), "A"), $"{Numbers.Format(Clean(r.Power.Real, powerScale), "W")}, pf {Numbers.Fixed(r.PowerFactor, 3)}"];
         }
 
         private IReadOnlyList<string> FaultValues(FaultModel f)
