@@ -355,6 +355,30 @@ public class DiagramTests
         Assert.Equal("the file has no sweep", problem);
     }
 
+    /// <summary>The built command in a process of its own, started in the repository's folder, so a relative path is relative to it.</summary>
+    private static (int Code, string Out, string Err) InRepository(params string[] args)
+    {
+        var start = new System.Diagnostics.ProcessStartInfo("dotnet") { WorkingDirectory = Snapshot.RepositoryRoot, RedirectStandardOutput = true, RedirectStandardError = true };
+        foreach (var a in args.Prepend(typeof(WindingNotes.Cli.Cli).Assembly.Location)) start.ArgumentList.Add(a);
+        using var process = System.Diagnostics.Process.Start(start)!;
+        var error = process.StandardError.ReadToEndAsync();
+        var output = process.StandardOutput.ReadToEnd();
+        process.WaitForExit();
+        return (process.ExitCode, output, error.Result);
+    }
+
+    [Theory]
+    [InlineData("network", "Network of examples/cedar-hollow-bench-sweep.wn, with the results of the normal case")]
+    [InlineData("phasors", "Phasors of examples/cedar-hollow-bench-sweep.wn, case normal")]
+    [InlineData("sweep", "Sweep of BR in examples/cedar-hollow-bench-sweep.wn")]
+    public void The_title_carries_the_path_as_given_on_the_command_line(string kind, string title)
+    {
+        var (code, svg, error) = InRepository("diagram", "examples/cedar-hollow-bench-sweep.wn", "--kind", kind);
+        Assert.True(code == 0, error);
+        Assert.Equal(title, Parse(svg).Descendants(SvgNs + "text").Single(t => t.Attribute("class")?.Value == "title").Value);
+        Assert.DoesNotContain(Snapshot.RepositoryRoot, svg);
+    }
+
     [Fact]
     public void The_diagram_command_writes_the_file_or_standard_output_and_says_when_a_case_is_missing()
     {
