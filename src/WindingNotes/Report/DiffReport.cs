@@ -95,7 +95,7 @@ public static class DiffReport
         var others = diff.Diagnostics.Where(d => !d.RatingCrossed).ToList();
         if (others.Count > 0)
         {
-            o.Append('\n');
+            o.Append("\nDiagnostics:\n\n");
             MarkdownReport.Table(o, 4, ["", "severity", "code", "message"], others.Select(d => new[]
             {
                 Word(d), TextReport.Severity(d.Severity), MarkdownReport.Code(d.Code), Message(d, "→"),

@@ -118,20 +118,18 @@ public sealed record ResultDiff(
         var sweeps = values.Where(v => sweepPoints.Contains(v.Case)).GroupBy(v => v.Label).Select(g => new SweepChange(
             g.First().Element, g.Key, g.First().Unit, g.Count(), Math.Max(g.Count(), compared.GetValueOrDefault(g.Key)), g.MaxBy(v => v.Size ?? -1)!));
         var rest = values.Where(v => !sweepPoints.Contains(v.Case)).ToList();
-        var bands = rest.Where(v => v.Element.StartsWith(BandOf)).GroupBy(v => (v.Case, v.Element)).Select(g => Band(g.Key.Case, g.Key.Element, g.First().Unit, oldByKey, newByKey));
+        var bands = rest.Where(v => v.Element.StartsWith(ResultValues.BandOf)).GroupBy(v => (v.Case, v.Element)).Select(g => Band(g.Key.Case, g.Key.Element, g.First().Unit, oldByKey, newByKey));
 
         return new ResultDiff(
             oldName ?? old.Path, newName ?? @new.Path, threshold,
             CompareChecks(old, @new, threshold),
-            [.. rest.Where(v => !v.Element.StartsWith(BandOf))],
+            [.. rest.Where(v => !v.Element.StartsWith(ResultValues.BandOf))],
             [.. sweeps],
             [.. bands],
             [.. @new.Cases.Select(c => c.Case.Name).Where(n => !oldCases.Contains(n))],
             [.. old.Cases.Select(c => c.Case.Name).Where(n => !newCases.Contains(n))],
             CompareDiagnostics(old, @new));
     }
-
-    private const string BandOf = "band of ";
 
     private static ValueChange Change(ResultValue v, double? old, double? @new) => new(v.Case, v.Element, v.Label, v.Unit, old, @new);
 
@@ -140,7 +138,7 @@ public sealed record ResultDiff(
         Dictionary<(string, string, string), ResultValue> before, Dictionary<(string, string, string), ResultValue> after)
     {
         double? End(Dictionary<(string, string, string), ResultValue> values, string field) => values.TryGetValue((@case, element, field), out var v) ? v.Value : null;
-        return new BandChange(@case, element[BandOf.Length..].TrimEnd(':'), unit, End(before, "min"), End(before, "max"), End(after, "min"), End(after, "max"));
+        return new BandChange(@case, element[ResultValues.BandOf.Length..].TrimEnd(':'), unit, End(before, "min"), End(before, "max"), End(after, "min"), End(after, "max"));
     }
 
     private static Dictionary<(string, string, string), ResultValue> Index(IEnumerable<ResultValue> values)
