@@ -247,18 +247,39 @@ public sealed record ResultDiff(
             [.. e.Diagnostics.Where(d => d.Code != "expect-failed").Select(d => (d.Severity, d.Code, d.Message))];
         var before = Of(old);
         var after = Of(@new);
-        var added = after.ToList();
-        foreach (var d in before) added.Remove(d);
-        var gone = before.ToList();
-        foreach (var d in after) gone.Remove(d);
+        // Each side less what the other has, as multisets: linear in the diagnostics, for files of thousands.
+        static Dictionary<(Severity, string, string), int> Counts(List<(Severity, string, string)> list)
+        {
+            var counts = new Dictionary<(Severity, string, string), int>();
+            foreach (var d in list) counts[d] = counts.GetValueOrDefault(d) + 1;
+            return counts;
+        }
+        static bool Take(Dictionary<(Severity, string, string), int> counts, (Severity, string, string) d)
+        {
+            if (counts.GetValueOrDefault(d) == 0) return false;
+            counts[d]--;
+            return true;
+        }
+        var inBefore = Counts(before);
+        var added = after.Where(d => !Take(inBefore, d)).ToList();
+        var inAfter = Counts(after);
+        var gone = before.Where(d => !Take(inAfter, d)).ToList();
+        // A gone diagnostic that says what an added one says, with other numbers, is its old wording.
+        var byWording = gone.Select((d, i) => (Key: (d.Severity, d.Code, Wording(d.Message)), Index: i)).GroupBy(x => x.Key)
+            .ToDictionary(g => g.Key, g => new Queue<int>(g.Select(x => x.Index)));
+        var paired = new HashSet<int>();
         var changes = new List<DiagnosticChange>();
         foreach (var d in added)
         {
-            var was = gone.FindIndex(g => g.Severity == d.Severity && g.Code == d.Code && Wording(g.Message) == Wording(d.Message));
-            changes.Add(new DiagnosticChange(d.Severity, d.Code, was < 0 ? null : gone[was].Message, d.Message));
-            if (was >= 0) gone.RemoveAt(was);
+            string? was = null;
+            if (byWording.TryGetValue((d.Severity, d.Code, Wording(d.Message)), out var queue) && queue.TryDequeue(out var i))
+            {
+                paired.Add(i);
+                was = gone[i].Message;
+            }
+            changes.Add(new DiagnosticChange(d.Severity, d.Code, was, d.Message));
         }
-        changes.AddRange(gone.Select(d => new DiagnosticChange(d.Severity, d.Code, d.Message, null)));
+        changes.AddRange(gone.Where((_, i) => !paired.Contains(i)).Select(d => new DiagnosticChange(d.Severity, d.Code, d.Message, null)));
         return [.. changes];
     }
 
