@@ -29,14 +29,17 @@ A bare program name is looked up on `exec-path' and then in
 ;; tests/WindingNotes.Tests/Editors keeps them equal to its keyword table.
 (defconst windingnotes-statement-keywords
   '("frequency" "temperature" "let" "core" "winding" "tap" "brush" "impedance" "no-load"
-    "join" "ground" "supply" "load" "fault" "sweep" "expect" "fail-on" "acknowledge")
+    "join" "ground" "supply" "load" "fault" "sweep" "expect" "fail-on" "acknowledge"
+    "three-phase-supply" "three-phase-load")
   "Words that start a statement.")
 
 (defconst windingnotes-clause-keywords
   '("rating" "area" "flux-limit" "on" "turns" "rated" "rated-current" "from" "to"
     "resistance" "at" "conductor" "AWG" "range" "current-limit" "xr" "base" "current" "loss"
     "fault-level" "power" "apparent" "pf" "model" "step" "points" "voltage" "loading" "flux"
-    "efficiency" "regulation" "between" "and" "below" "above" "near" "within")
+    "efficiency" "regulation" "between" "and" "below" "above" "near" "within"
+    "construction" "zero-sequence" "wye" "delta" "zigzag" "series" "ends" "neutral"
+    "vector-group" "is" "sequence")
   "Words that start a clause or join its parts.")
 
 (defconst windingnotes-option-keywords
@@ -44,7 +47,8 @@ A bare program name is looked up on `exec-path' and then in
     "constant-impedance" "constant-current" "constant-power"
     "loading-high" "flux-high" "overexcited" "brush-current-high" "connection-rating"
     "current-density-high" "caution-no-isolation" "caution-common-terminal"
-    "caution-fuse-output" "caution-above-supply" "caution-fault-duty")
+    "caution-fuse-output" "caution-above-supply" "caution-fault-duty"
+    "bank" "three-limb" "five-limb" "shell" "abc" "acb")
   "Words chosen from a fixed set inside a clause.")
 
 (defconst windingnotes-value-keywords '("angle" "sqrt")
@@ -97,7 +101,7 @@ it.  Group 1 is the number, group 2 the unit when there is one."
 (defconst windingnotes-font-lock-keywords
   `((,(concat "^[ \t]*\\(" (regexp-opt '("let")) "\\)\\_>[ \t]+\\([A-Za-z_][A-Za-z0-9_]*\\)")
      (2 font-lock-variable-name-face))
-    (,(concat "^[ \t]*" (regexp-opt '("core" "winding" "tap" "brush" "supply" "load" "fault"))
+    (,(concat "^[ \t]*" (regexp-opt '("core" "winding" "tap" "brush" "supply" "load" "fault" "three-phase-supply" "three-phase-load"))
               "\\_>[ \t]+\\([A-Za-z_][A-Za-z0-9_]*\\)")
      (1 font-lock-function-name-face))
     (windingnotes--match-unit (1 'windingnotes-number-face) (2 'windingnotes-unit-face nil t))

@@ -10,7 +10,7 @@ public static class Cli
 {
     public const int Ok = 0, Failed = 1, Usage = 2;
 
-    public static int Run(string[] args, TextWriter output, TextWriter error, TextReader input)
+    public static int Run(string[] args, TextWriter output, TextWriter error, Stream input)
     {
         var io = new ConsoleIo(output, error, input);
         var root = new RootCommand("Evaluate tapped-winding calculation files (*.wn): voltages, currents, losses, ratings and checks.");
@@ -41,21 +41,7 @@ public static class Cli
 }
 
 /// <summary>Where a command reads and writes; tests pass their own.</summary>
-public sealed partial record ConsoleIo(TextWriter Output, TextWriter Error, TextReader Input)
+public sealed partial record ConsoleIo(TextWriter Output, TextWriter Error, Stream Input)
 {
-    /// <summary>A file's text, or standard input for "-"; null after a message when it cannot be read.</summary>
-    public string? Read(string path)
-    {
-        try
-        {
-            return path == "-" ? Input.ReadToEnd() : File.ReadAllText(path);
-        }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
-        {
-            Error.WriteLine($"windingnotes: cannot read '{path}': {e.Message}");
-            return null;
-        }
-    }
-
     public static string DisplayName(string path) => path == "-" ? "<stdin>" : path;
 }

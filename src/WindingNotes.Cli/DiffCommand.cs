@@ -18,8 +18,10 @@ internal static class DiffCommand
         var revision = new Option<string?>("--rev", "-r") { Description = "compare each file with its version at this git revision" };
         var threshold = new Option<double>("--threshold", "-t")
         {
-            Description = "show results that moved by more than this, in percent ('0.1 %', '0.1%' or '0.1')",
-            DefaultValueFactory = _ => ResultDiff.DefaultThreshold,
+            Description = "show results that moved by more than this percentage of their value ('0.1 %', '0.1%' or '0.1')",
+            HelpName = "percent",
+            // Held in percent, as typed, so the help shows the default as the README gives it.
+            DefaultValueFactory = _ => ResultDiff.DefaultThreshold * 100,
             CustomParser = ParseThreshold,
         };
         var format = new Option<string>("--format", "-f") { Description = "text or md (Markdown)", DefaultValueFactory = _ => "text" };
@@ -30,7 +32,7 @@ internal static class DiffCommand
             var count = result.GetValue(files)?.Length ?? 0;
             if (result.GetValue(revision) is null && count != 2) result.AddError("diff needs two files, OLD and NEW, or --rev REV and a file");
         });
-        command.SetAction(parsed => Run(io, parsed.GetValue(files)!, parsed.GetValue(revision), parsed.GetValue(threshold), parsed.GetValue(format)!));
+        command.SetAction(parsed => Run(io, parsed.GetValue(files)!, parsed.GetValue(revision), parsed.GetValue(threshold) / 100, parsed.GetValue(format)!));
         return command;
     }
 
@@ -49,7 +51,7 @@ internal static class DiffCommand
         return [.. joined];
     }
 
-    /// <summary>Accepts "0.1", "0.1%" and "0.1 %"; a lone number is in percent.</summary>
+    /// <summary>Accepts "0.1", "0.1%" and "0.1 %"; a lone number is in percent, and so is the value returned.</summary>
     private static double ParseThreshold(ArgumentResult result)
     {
         var tokens = result.Tokens;
@@ -58,9 +60,9 @@ internal static class DiffCommand
         if (!double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out var percent) || percent < 0 || !double.IsFinite(percent))
         {
             result.AddError($"--threshold wants a percentage such as '0.1 %', not '{tokens[0].Value}'");
-            return ResultDiff.DefaultThreshold;
+            return ResultDiff.DefaultThreshold * 100;
         }
-        return percent / 100;
+        return percent;
     }
 
     private static int Run(ConsoleIo io, string[] files, string? revision, double threshold, string format)

@@ -24,7 +24,7 @@ internal static class FmtCommand
         var status = Cli.Ok;
         foreach (var path in files)
         {
-            var text = path == "-" ? io.Read(path) : io.ReadExact(path);
+            var text = io.Read(path);
             if (text is null)
             {
                 status = Cli.Usage;

@@ -21,6 +21,11 @@ internal sealed class Publisher(DocumentWorkspace workspace, Func<PublishDiagnos
     // their half-built evaluations in memory together (50 opened at once would otherwise all run).
     private readonly SemaphoreSlim evaluating = new(Environment.ProcessorCount);
 
+    // Publishing one at a time, with the version each document was last published at: results shown
+    // from an earlier version while a long evaluation runs never follow the current version's.
+    private readonly SemaphoreSlim sending = new(1, 1);
+    private readonly Dictionary<string, int> published = [];
+
     public void Changed(string uri)
     {
         lock (gate)
@@ -62,7 +67,7 @@ internal sealed class Publisher(DocumentWorkspace workspace, Func<PublishDiagnos
     {
         if (workspace.Find(uri) is not { } document)
         {
-            await publish(new PublishDiagnosticsParams(uri, null, []));
+            await Send(uri, int.MinValue, () => new PublishDiagnosticsParams(uri, null, []));
             return;
         }
         Evaluation? evaluation;
@@ -79,7 +84,26 @@ internal sealed class Publisher(DocumentWorkspace workspace, Func<PublishDiagnos
         {
             evaluating.Release();
         }
-        if (evaluation is not null && workspace.Find(uri)?.Version == document.Version)
-            await publish(Conversion.ToLsp(evaluation, uri, document.Version));
+        if (evaluation is not null)
+            await Send(uri, document.Version, () => workspace.Find(uri)?.Version == document.Version ? Conversion.ToLsp(evaluation, uri, document.Version) : null);
+    }
+
+    /// <summary>Publishes an earlier version's evaluation (with its "still running" diagnostic) unless the current one is out.</summary>
+    public Task Stale(string uri, Evaluation shown, int version) =>
+        Send(uri, version, () => workspace.Find(uri) is { } d && published.GetValueOrDefault(uri, int.MinValue) < d.Version ? Conversion.ToLsp(shown, uri, version) : null);
+
+    private async Task Send(string uri, int version, Func<PublishDiagnosticsParams?> message)
+    {
+        await sending.WaitAsync();
+        try
+        {
+            if (message() is not { } p) return;
+            published[uri] = version;
+            await publish(p);
+        }
+        finally
+        {
+            sending.Release();
+        }
     }
 }

@@ -35,13 +35,17 @@ internal abstract class Route(string method)
     }
 }
 
-/// <summary>A request: refused before 'initialize' (unless it is 'initialize') and after 'shutdown'.</summary>
+/// <summary>
+/// A request: refused before 'initialize' (unless it is 'initialize') and after 'shutdown'. A
+/// lifecycle request runs in its turn among the messages; any other runs off that order, so a
+/// request that waits for one document's evaluation holds up no message after it.
+/// </summary>
 internal sealed class RequestRoute<TParams, TResult>(string method, Server server, Func<TParams, CancellationToken, TResult> handler, bool beforeInitialize, JsonSerializerOptions options)
     : Route(method)
 {
     public override MethodInfo Target => typeof(RequestRoute<TParams, TResult>).GetMethod(nameof(Invoke))!;
 
-    public TResult Invoke(JsonElement? parameters = null, CancellationToken cancel = default) =>
+    public Task<TResult> Invoke(JsonElement? parameters = null, CancellationToken cancel = default) =>
         server.Guarded(Method, beforeInitialize, cancel, () => handler(Read<TParams>(parameters, options), cancel));
 }
 

@@ -15,6 +15,12 @@ public sealed record ServerOptions
     /// <summary>A wait after a change before evaluating. Zero: changes that come while an evaluation runs are coalesced instead.</summary>
     public TimeSpan Debounce { get; init; } = TimeSpan.Zero;
 
+    /// <summary>
+    /// How long a request waits for its document's current evaluation before it is answered from the
+    /// last one that finished (when there is one), so a long study never leaves the editor without answers.
+    /// </summary>
+    public TimeSpan RequestBudget { get; init; } = TimeSpan.FromSeconds(2);
+
     /// <summary>Where the trace of the connection goes (handler faults included); standard error for the command.</summary>
     public TextWriter? Log { get; init; }
 }
@@ -42,6 +48,7 @@ public sealed partial class Server
     private readonly TraceSource trace;
     private readonly TaskCompletionSource<int> exited = new(TaskCreationOptions.RunContinuationsAsynchronously);
     private readonly Publisher publisher;
+    private readonly ServerOptions options;
     private JsonRpc? rpc;
     private volatile bool initialized;
     private volatile bool shuttingDown;
@@ -49,6 +56,7 @@ public sealed partial class Server
 
     private Server(ServerOptions options)
     {
+        this.options = options;
         trace = new TraceSource("windingnotes-lsp", SourceLevels.Warning);
         trace.Listeners.Clear();
         if (options.Log is { } log) trace.Listeners.Add(new TextWriterTraceListener(log) { TraceOutputOptions = TraceOptions.None, Filter = new AnsweredErrors() });
@@ -69,7 +77,7 @@ public sealed partial class Server
         ThreadPool.SetMinThreads(Math.Max(workers, 8), completions);
         var server = new Server(options ?? new ServerOptions());
         var handler = new LspMessageHandler(output, input, LspMessageHandler.CreateFormatter(),
-            e => server.trace.TraceEvent(TraceEventType.Warning, 0, $"skipped a message that is not JSON-RPC: {e.Message}"));
+            message => server.trace.TraceEvent(TraceEventType.Warning, 0, message));
         using var rpc = new JsonRpc(handler)
         {
             // One handler at a time, in the order the messages came: a didChange is never overtaken by the request after it.
@@ -90,23 +98,25 @@ public sealed partial class Server
     // ---- guards ----
 
     private RequestRoute<TParams, TResult> Request<TParams, TResult>(string method, Func<TParams, CancellationToken, TResult> handler, bool beforeInitialize = false) =>
-        new(method, this, handler, beforeInitialize, LspMessageHandler.Options);
+        new(method, this, handler, beforeInitialize, LspMessageHandler.ParameterOptions);
 
     private NotificationRoute<TParams> Notification<TParams>(string method, Action<TParams> handler, bool beforeInitialize = false) =>
-        new(method, this, handler, beforeInitialize, LspMessageHandler.Options);
+        new(method, this, handler, beforeInitialize, LspMessageHandler.ParameterOptions);
 
     /// <summary>
-    /// Runs a request: refused before 'initialize' and after 'shutdown'; a document changed under it
-    /// answers "content modified"; any fault of the server becomes an internal error with its message.
+    /// Runs a request: refused before 'initialize' and after 'shutdown' (checked in its turn); a
+    /// lifecycle request (one allowed before 'initialize') runs in its turn, any other on the thread
+    /// pool; a document changed under it answers "content modified"; any fault of the server becomes
+    /// an internal error with its message.
     /// </summary>
-    internal T Guarded<T>(string method, bool beforeInitialize, CancellationToken cancel, Func<T> body)
+    internal async Task<T> Guarded<T>(string method, bool beforeInitialize, CancellationToken cancel, Func<T> body)
     {
         if (!initialized && !beforeInitialize) throw Error(ErrorCodes.ServerNotInitialized, "the server is not initialized yet");
         if (shuttingDown && method != "shutdown") throw Error(ErrorCodes.InvalidRequest, "the server is shutting down");
         try
         {
             cancel.ThrowIfCancellationRequested();
-            return body();
+            return beforeInitialize ? body() : await Task.Run(body, CancellationToken.None).ConfigureAwait(false);
         }
         catch (OperationCanceledException) when (cancel.IsCancellationRequested)
         {
@@ -143,9 +153,31 @@ public sealed partial class Server
 
     internal static LocalRpcException Error(int code, string message) => new(message) { ErrorCode = code };
 
-    /// <summary>The evaluation of an open document's current version, or a request failure naming the document.</summary>
-    private Evaluation Evaluation(string uri, CancellationToken cancel) =>
-        workspace.Evaluate(uri, cancel) ?? throw Error(ErrorCodes.RequestFailed, $"the document {uri} is not open");
+    /// <summary>
+    /// The evaluation of an open document's current version, or a request failure naming the
+    /// document. Past the request budget, while an earlier version's evaluation is at hand, that one
+    /// answers, with a diagnostic (published too) that the current one is still running.
+    /// </summary>
+    private Evaluation Evaluation(string uri, CancellationToken cancel)
+    {
+        var current = Task.Run(() => workspace.Evaluate(uri, cancel), CancellationToken.None);
+        try
+        {
+            return current.WaitAsync(options.RequestBudget, cancel).GetAwaiter().GetResult() ?? throw NotOpen(uri);
+        }
+        catch (TimeoutException) when (workspace.LastComplete(uri) is var (last, version) && workspace.Find(uri) is { } document && document.Version != version)
+        {
+            var shown = last with { Diagnostics = [.. last.Diagnostics, DocumentWorkspace.StillRunning(version, document.Version)] };
+            _ = publisher.Stale(uri, shown, version);
+            return shown;
+        }
+        catch (TimeoutException)
+        {
+            return current.WaitAsync(cancel).GetAwaiter().GetResult() ?? throw NotOpen(uri);
+        }
+    }
+
+    private static LocalRpcException NotOpen(string uri) => Error(ErrorCodes.RequestFailed, $"the document {uri} is not open");
 
     // ---- lifecycle ----
 

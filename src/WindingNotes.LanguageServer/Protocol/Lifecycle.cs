@@ -3,7 +3,7 @@ using System.Text.Json;
 namespace WindingNotes.LanguageServer.Protocol;
 
 /// <summary>Only the capabilities the server looks at are read; the rest of the client's are kept as JSON.</summary>
-public sealed record InitializeParams(int? ProcessId, JsonElement? Capabilities);
+public sealed record InitializeParams(int? ProcessId = null, JsonElement? Capabilities = null);
 
 public sealed record InitializeResult(ServerCapabilities Capabilities, ServerInfo ServerInfo);
 
@@ -38,7 +38,7 @@ public sealed record CodeActionOptions(string[] CodeActionKinds);
 
 public sealed record DidOpenTextDocumentParams(TextDocumentItem TextDocument);
 
-public sealed record TextDocumentContentChangeEvent(LspRange? Range, string Text);
+public sealed record TextDocumentContentChangeEvent(string Text, LspRange? Range = null);
 
 public sealed record DidChangeTextDocumentParams(VersionedTextDocumentIdentifier TextDocument, TextDocumentContentChangeEvent[] ContentChanges);
 

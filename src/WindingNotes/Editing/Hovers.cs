@@ -122,6 +122,7 @@ public static class Hovers
                     lines.Add($"fault current {TextReport.Phasor(faultCase.Solution.FaultCurrent, "A")}");
                 break;
         }
+        lines.AddRange(ThreePhaseText.HoverLines(normal, symbol.Name));
         if (lines.Count == 0 && symbol.Kind != SymbolKind.Let) lines.Add("no results: the network was not solved");
         return $"**{symbol.Name}**: {symbol.Describe()}\n\n" + string.Join("\n", lines.Select(l => "- " + l));
     }

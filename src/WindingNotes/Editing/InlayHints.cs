@@ -56,7 +56,7 @@ public static class InlayHints
     private static string? Label(Evaluation evaluation, StatementSyntax s, ResultIndex index)
     {
         var name = s.Head.Name(0)?.Text ?? "";
-        return s.Kind switch
+        var label = s.Kind switch
         {
             StatementKind.Expect => index.Checks.GetValueOrDefault(s.Span.Start) is { } check ? ResultText.Check(check) : null,
             StatementKind.Fault => index.Faults.GetValueOrDefault(name) is { } fault ? $"{ResultText.Magnitude(fault.Solution.FaultCurrent, "A")} fault current" : null,
@@ -69,6 +69,9 @@ public static class InlayHints
             StatementKind.Tap or StatementKind.Brush => Tap(evaluation.Normal, index.AtPoint[name].ToList(), name),
             _ => null,
         };
+        // A three-phase core, winding, supply or load: its vector group or line-to-line voltages.
+        return label ?? (s.Kind is StatementKind.Core or StatementKind.Winding or StatementKind.ThreePhaseSupply or StatementKind.ThreePhaseLoad
+            ? ThreePhaseText.Hint(evaluation.Normal, name) : null);
     }
 
     /// <summary>The normal case's results by name, so that a thousand lines cost a thousand look-ups.</summary>

@@ -36,14 +36,23 @@ public static class Navigation
     {
         if (SymbolAt(evaluation, position) is not { } symbol) return new RenameResult([], "there is no name here to rename");
         if (newName == symbol.Name) return new RenameResult([]);
+        if (symbol.Derived) return new RenameResult([], $"'{symbol.Name}' is a phase element of '{symbol.Owner}': rename '{symbol.Owner}'");
         if (!IsName(newName)) return new RenameResult([], $"'{newName}' is not a name: a letter or '_', then letters, digits or '_', and no keyword");
         if (evaluation.Model.Symbols.Find(newName) is { } taken)
             return new RenameResult([], $"'{newName}' is already {taken.Describe()}");
         // A use of the new name that binds to nothing yet would bind to the renamed symbol.
         if (evaluation.Diagnostics.Any(d => d.Code == "unknown-name" && evaluation.Text[d.Span] == newName))
             return new RenameResult([], $"'{newName}' is already used in the document, where it names nothing yet");
+        // A three-phase element's phase elements (HV_a of HV) are renamed with it wherever they are written.
+        var phases = evaluation.Model.Symbols.Symbols.Where(s => s.Derived && s.Owner == symbol.Name).ToList();
+        if (phases.Select(p => newName + p.Name[symbol.Name.Length..]).FirstOrDefault(n => evaluation.Model.Symbols.Find(n) is not null) is { } clash)
+            return new RenameResult([], $"'{clash}' is already defined, and '{newName}' would name a phase element so");
         var edits = evaluation.Model.Symbols.ReferencesTo(symbol)
             .Select(r => new TextEdit(evaluation.Text.GetRange(r.Span), newName))
+            .Concat(phases.SelectMany(p => evaluation.Model.Symbols.ReferencesTo(p)
+                .Where(r => !r.IsDefinition)
+                .Select(r => new TextEdit(evaluation.Text.GetRange(r.Span), newName + p.Name[symbol.Name.Length..]))))
+            .OrderBy(e => e.Range.Start.Line).ThenBy(e => e.Range.Start.Character)
             .ToList();
         return new RenameResult(edits);
     }

@@ -48,6 +48,7 @@ internal static class ResultText
     {
         if (!c.Evaluated) return "not evaluated";
         var verdict = c.Passed ? "pass" : "FAIL";
+        if (c.Expect.Measure == Model.MeasureKind.VectorGroup) return $"{verdict}: {c.Shown ?? "no clock number"}";
         if (c.Points > 1 && c.Min is { } min && c.Max is { } max)
             return $"{verdict}: {Range(min, max, c.Expect.Unit)} over {c.Points} points";
         return $"{verdict}: " + (c.Value is { } v ? DiagnosticBag.Show(v, c.Expect.Unit) : "cannot be measured");

@@ -71,7 +71,8 @@ public static class SemanticTokens
                 {
                     case NameSyntax n:
                         // Unresolved names keep the colour of the kind their place asks for.
-                        classes[n.Name.Span.Start] = (ForSymbol(n.Role.Kinds[0]), n.Role.Defines);
+                        // A name no symbol can stand for (a connection symbol such as Dyn11) is a fixed word.
+                        classes[n.Name.Span.Start] = n.Role.Kinds.Length == 0 ? (TokenClass.Choice, false) : (ForSymbol(n.Role.Kinds[0]), n.Role.Defines);
                         if (n.SectionFrom is { } from) classes[from.Span.Start] = (TokenClass.Point, false);
                         if (n.SectionTo is { } to) classes[to.Span.Start] = (TokenClass.Point, false);
                         break;

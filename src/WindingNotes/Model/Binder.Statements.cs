@@ -40,6 +40,8 @@ internal sealed partial class BindRun
             case StatementKind.Expect: BindExpect(s); break;
             case StatementKind.FailOn: Policy(s, failOn); break;
             case StatementKind.Acknowledge: Policy(s, acknowledged); break;
+            case StatementKind.ThreePhaseSupply: BindThreePhaseSupply(s); break;
+            case StatementKind.ThreePhaseLoad: BindThreePhaseLoad(s); break;
         }
     }
 
@@ -69,13 +71,14 @@ internal sealed partial class BindRun
     private void BindCore(StatementSyntax s)
     {
         var name = s.Head.Name(0)!;
-        cores.Add(new CoreModel(name.Text, name.Name.Span, s.Span)
+        var core = new CoreModel(name.Text, name.Name.Span, s.Span)
         {
             Rating = Real(s.Value("rating"), Dimension.ApparentPower, $"the rating of {name.Text}", positive: true),
             Area = Real(s.Value("area"), Dimension.Area, $"the area of {name.Text}", positive: true),
             FluxLimit = Real(s.Value("flux-limit"), Dimension.FluxDensity, $"the flux limit of {name.Text}", positive: true),
             Frequency = Real(s.Value("frequency"), Dimension.Frequency, $"the rated frequency of {name.Text}", positive: true),
-        });
+        };
+        if (!BindThreePhaseCore(s, core)) cores.Add(core);
     }
 
     private void BindWinding(StatementSyntax s)
@@ -98,6 +101,7 @@ internal sealed partial class BindRun
             ResistanceTemperature = Real(resistance?.Value(1), Dimension.TemperatureDim, "the measuring temperature", positive: true),
             Conductor = Conductor(s.Clause("conductor"), name.Text),
         };
+        if (core is not null && BindThreePhaseWinding(s, winding, core)) return;
         if (core is null || ends is null || winding.From.Name.Length == 0 || winding.To.Name.Length == 0) return;
         windings.Add(winding);
     }
@@ -156,6 +160,11 @@ internal sealed partial class BindRun
         var name = s.Head.Name(0)!;
         var isBrush = s.Kind == StatementKind.Brush;
         var winding = Resolve(s.Clause("on")?.Name(0), "a winding", SymbolKind.Winding);
+        if (winding is not null && declaredThreePhase.Contains(winding.Name))
+        {
+            diagnostics.ReportNamePhase(s.Clause("on")!.Name(0)!.Name, winding.Name);
+            return;
+        }
         var at = s.Value("at");
         // A tap written without its position has none at any sweep point either.
         var position = at is not null && overrides.Values.TryGetValue(name.Text, out var moved) ? moved : Value(at, $"the position of {name.Text}");
@@ -218,7 +227,7 @@ internal sealed partial class BindRun
             diagnostics.ReportOutOfBounds(s.Clause("base")!.Span, "'base'", "left out when the impedance is in ohms");
             return;
         }
-        impedances.Add(new ImpedanceModel(parts[0]!, parts[1]!, z.Value, perUnit, xr, s.Span, valueSyntax!.Span) { Base = basePower });
+        AddImpedance(new ImpedanceModel(parts[0]!, parts[1]!, z.Value, perUnit, xr, s.Span, valueSyntax!.Span) { Base = basePower });
     }
 
     private WindingPart? WindingPartOf(NameSyntax name)
@@ -256,7 +265,7 @@ internal sealed partial class BindRun
             diagnostics.ReportWrongDimension(currentSyntax!.Span, "a current or a percentage of rated current", i.Dimension);
             return;
         }
-        noLoads.Add(new NoLoadModel(core.Name, s.Span, i.Real, fraction, loss.Value, new NodeRef(winding.Name, at!.Name(0)!.Span), voltage.Value));
+        AddNoLoad(new NoLoadModel(core.Name, s.Span, i.Real, fraction, loss.Value, new NodeRef(winding.Name, at!.Name(0)!.Span), voltage.Value));
     }
 
     private void BindSupply(StatementSyntax s)
@@ -287,71 +296,110 @@ internal sealed partial class BindRun
         });
     }
 
+    /// <summary>
+    /// A load impedance below this is taken for a slip rather than a load (common practice, no
+    /// source): a milliohm across a few hundred volts draws hundreds of kiloamperes.
+    /// </summary>
+    public const double NearShort = 1e-3;
+
     private void BindLoad(StatementSyntax s)
     {
         var name = s.Head.Name(0)!;
         var a = Node(s.Head.Name(1), s);
         var b = Node(s.Head.Name(2), s);
+        if (Demands(s, name.Text, 1, a is not null && b is not null) is not { } l || a is null || b is null) return;
+        loads.Add(new LoadModel(name.Text, name.Name.Span, s.Span, a, b, l[0].Behaviour, l[0].S0, l[0].V0));
+    }
+
+    /// <summary>
+    /// The demand of each of a load's phases as S0 at V0 with its behaviour: one value (a power
+    /// shared out among the phases, an impedance or current for each) or one value a phase.
+    /// Null after a diagnostic; the load model is read only where the load's nodes are bound.
+    /// </summary>
+    private (LoadBehaviour Behaviour, System.Numerics.Complex S0, double V0)[]? Demands(StatementSyntax s, string name, int phases, bool nodesBound)
+    {
         var pfClause = s.Clause("pf");
         // "pf 0.8 lag" reads 'lag' as a unit: say which word was meant instead.
         if (pfClause?.Value()?.Expression is NumberSyntax { Unit: { } sense } && Units.Find(sense.Text) is null && Sense(sense.Text) is { } meant)
         {
             diagnostics.ReportPowerFactorSense(sense, meant);
-            return;
+            return null;
         }
         var pf = Real(pfClause?.Value(), Dimension.None, "the power factor");
         if (pf is { } p && (p <= 0 || p > 1))
         {
             diagnostics.ReportPowerFactor(pfClause!.Value()!.Span);
-            pf = null;
-            return;
+            return null;
         }
         var leading = pfClause?.Word(w => w == "leading") is not null;
         var angle = Math.Acos(pf ?? 1) * (leading ? -1 : 1);
-        var what = $"the demand of {name.Text}";
-        (LoadBehaviour Behaviour, System.Numerics.Complex S0, double V0)? load = null;
-        if (s.Clause("power") is { } power && Real(power.Value(), Dimension.ActivePower, what) is { } watts)
-            load = (LoadBehaviour.ConstantPower, new System.Numerics.Complex(watts, watts * Math.Tan(angle)), double.NaN);
-        else if (s.Clause("apparent") is { } apparent && Real(apparent.Value(), Dimension.ApparentPower, what) is { } va)
-            load = (LoadBehaviour.ConstantPower, System.Numerics.Complex.FromPolarCoordinates(va, angle), double.NaN);
-        else if (s.Clause("current") is { } current && Real(current.Value(), Dimension.CurrentDim, what) is { } amperes)
-            load = (LoadBehaviour.ConstantCurrent, System.Numerics.Complex.FromPolarCoordinates(amperes, angle), 1);
-        else if (s.Clause("impedance") is { } imp && Complex(imp.Value(), Dimension.Impedance, what) is { } z)
+        var what = $"the demand of {name}";
+        var demand = s.Clauses.FirstOrDefault(c => c.Form?.Group == "demand");
+        var values = demand?.Values.ToList() ?? [];
+        var each = new List<(LoadBehaviour Behaviour, System.Numerics.Complex S0, double V0)>();
+        foreach (var value in values)
         {
-            if (z == System.Numerics.Complex.Zero)
-            {
-                diagnostics.ReportOutOfBounds(imp.Value()!.Span, "a load's impedance", "above zero; a short circuit is a 'join' or a 'fault'");
-                return;
-            }
-            if (pf is not null && z.Imaginary == 0) z = System.Numerics.Complex.FromPolarCoordinates(z.Real, angle);
-            // S drawn at 1 V by a constant impedance: |V|² conj(Y).
-            load = (LoadBehaviour.ConstantImpedance, System.Numerics.Complex.Conjugate(1 / z), 1);
+            if (Demand(demand!.Keyword!.Text, value, angle, pf is not null, what) is not { } d) return null;
+            each.Add(d);
         }
-        if (a is null || b is null || load is not { } l) return;
+        if (each.Count == 0 || !nodesBound) return null;
+        // One power for all phases is the total; one impedance or current is each phase's.
+        var share = demand!.Keyword!.Text is "power" or "apparent" ? 1.0 / phases : 1;
+        var result = Enumerable.Range(0, phases).Select(k => each.Count == phases ? each[k] : each[0] with { S0 = each[0].S0 * share }).ToArray();
+        if (s.Clause("model") is not { } modelClause) return result;
+        var behaviour = modelClause.Word(w => w.StartsWith("constant-"))?.Text switch
+        {
+            "constant-impedance" => LoadBehaviour.ConstantImpedance,
+            "constant-current" => LoadBehaviour.ConstantCurrent,
+            _ => LoadBehaviour.ConstantPower,
+        };
+        var at = Real(modelClause.Value(), Dimension.Voltage, "the voltage of the load model", positive: true);
+        for (var k = 0; k < phases; k++)
+        {
+            var l = result[k];
+            if (behaviour == l.Behaviour) continue;
+            if (at is not { } v)
+            {
+                if (modelClause.Value() is null) diagnostics.ReportOutOfBounds(modelClause.Span, "a change of load model", "given 'at' a voltage");
+                return null;
+            }
+            // The demand at the stated voltage, then the new behaviour from there.
+            var exponent = new LoadModel("", default, default, default!, default!, l.Behaviour, l.S0, l.V0).Exponent;
+            var sAtV = exponent == 0 ? l.S0 : l.S0 * Math.Pow(v / l.V0, exponent);
+            result[k] = (behaviour, sAtV, v);
+        }
+        return result;
+    }
 
-        if (s.Clause("model") is { } modelClause)
+    /// <summary>One demand value as S0 drawn at V0 with its behaviour.</summary>
+    private (LoadBehaviour Behaviour, System.Numerics.Complex S0, double V0)? Demand(string keyword, ValueSyntax value, double angle, bool hasPf, string what)
+    {
+        switch (keyword)
         {
-            var behaviour = modelClause.Word(w => w.StartsWith("constant-"))?.Text switch
-            {
-                "constant-impedance" => LoadBehaviour.ConstantImpedance,
-                "constant-current" => LoadBehaviour.ConstantCurrent,
-                _ => LoadBehaviour.ConstantPower,
-            };
-            var at = Real(modelClause.Value(), Dimension.Voltage, "the voltage of the load model", positive: true);
-            if (behaviour != l.Behaviour)
-            {
-                if (at is not { } v)
+            case "power" when Real(value, Dimension.ActivePower, what) is { } watts:
+                return (LoadBehaviour.ConstantPower, new System.Numerics.Complex(watts, watts * Math.Tan(angle)), double.NaN);
+            case "apparent" when Real(value, Dimension.ApparentPower, what) is { } va:
+                return (LoadBehaviour.ConstantPower, System.Numerics.Complex.FromPolarCoordinates(va, angle), double.NaN);
+            case "current" when Real(value, Dimension.CurrentDim, what) is { } amperes:
+                return (LoadBehaviour.ConstantCurrent, System.Numerics.Complex.FromPolarCoordinates(amperes, angle), 1);
+            case "impedance" when Complex(value, Dimension.Impedance, what) is { } z:
+                if (z == System.Numerics.Complex.Zero)
                 {
-                    if (modelClause.Value() is null) diagnostics.ReportOutOfBounds(modelClause.Span, "a change of load model", "given 'at' a voltage");
-                    return;
+                    diagnostics.ReportOutOfBounds(value.Span, "a load's impedance", "above zero; a short circuit is a 'join' or a 'fault'");
+                    return null;
                 }
-                // The demand at the stated voltage, then the new behaviour from there.
-                var exponent = new LoadModel("", default, default, a, b, l.Behaviour, l.S0, l.V0).Exponent;
-                var sAtV = exponent == 0 ? l.S0 : l.S0 * Math.Pow(v / l.V0, exponent);
-                l = (behaviour, sAtV, v);
-            }
+                if (z.Real < 0)
+                {
+                    diagnostics.ReportOutOfBounds(value.Span, "the resistance of a load", "zero or above: a negative one would deliver power; a source is a 'supply'");
+                    return null;
+                }
+                if (z.Magnitude < NearShort) diagnostics.ReportNearShort(value.Span, z.Magnitude);
+                if (hasPf && z.Imaginary == 0) z = System.Numerics.Complex.FromPolarCoordinates(z.Real, angle);
+                // S drawn at 1 V by a constant impedance: |V|² conj(Y).
+                return (LoadBehaviour.ConstantImpedance, System.Numerics.Complex.Conjugate(1 / z), 1);
+            default:
+                return null;
         }
-        loads.Add(new LoadModel(name.Text, name.Name.Span, s.Span, a, b, l.Behaviour, l.S0, l.V0));
     }
 
     /// <summary>'lagging' or 'leading' for a word that begins one of them or is one mistyped.</summary>
@@ -381,6 +429,11 @@ internal sealed partial class BindRun
         var to = Value(range?.Value(1), "the end of the sweep");
         var step = Value(s.Value("step"), "the step of the sweep");
         var points = Real(s.Value("points"), Dimension.None, "the number of points", positive: true);
+        if (points is { } count && count != Math.Floor(count))
+        {
+            diagnostics.ReportOutOfBounds(s.Value("points")!.Span, "the number of points", "a whole number");
+            return;
+        }
         if (target is null || from is null || to is null || (step is null && points is null)) return;
         if (!SweepUnits(target, (range!.Value(0)!, from.Value, "the lower bound"), (range.Value(1)!, to.Value, "the upper bound"), (s.Value("step"), step, "the step"))) return;
         sweeps.Add(new SweepModel(target, s.Span, from.Value, to.Value, step, points is { } n ? (int)Math.Round(n) : null));
@@ -412,6 +465,11 @@ internal sealed partial class BindRun
         var measureClause = s.Clauses.FirstOrDefault(c => c.Form?.Group == "measure");
         var conditionClause = s.Clauses.FirstOrDefault(c => c.Form?.Group == "condition");
         if (measureClause is null || conditionClause is null) return;
+        if (measureClause.Keyword!.Text == "vector-group" || conditionClause.Keyword!.Text == "is")
+        {
+            BindVectorGroupExpect(s, measureClause, conditionClause);
+            return;
+        }
         var measure = Enum.Parse<MeasureKind>(measureClause.Keyword!.Text, ignoreCase: true);
         var targets = ImmutableArray.CreateBuilder<NodeRef>();
         var names = measureClause.Names.ToList();
@@ -420,6 +478,11 @@ internal sealed partial class BindRun
             var isPoint = measure == MeasureKind.Voltage || i > 0;
             var symbol = isPoint ? Observed(names[i]) : Resolve(names[i], names[i].Role.Label, names[i].Role.Kinds);
             if (symbol is null) return;
+            if (!isPoint && declaredThreePhase.Contains(symbol.Name))
+            {
+                diagnostics.ReportNamePhase(names[i].Name, symbol.Name);
+                return;
+            }
             targets.Add(new NodeRef(symbol.Name, names[i].Name.Span));
         }
         var (dimension, unit) = measure switch

@@ -68,10 +68,12 @@ internal sealed partial class BindRun
         if (!statements.Any(s => s.Kind == StatementKind.Frequency) && statements.Count > 0)
             diagnostics.ReportNoFrequency(tree.Lines[0].Span);
         CheckLonelyNodes();
+        // Points the three-phase statements made (star points) come after the author's, so a node keeps the author's name.
         var points = symbols.References
             .Where(r => r.Symbol.IsConnectionPoint)
             .OrderBy(r => r.Span.Start)
             .Select(r => r.Symbol)
+            .Concat(derivedPoints)
             .Distinct()
             .ToImmutableArray();
         return model with
@@ -93,6 +95,7 @@ internal sealed partial class BindRun
             Lets = lets.ToImmutableDictionary(),
             FailOn = failOn.ToImmutableDictionary(),
             Acknowledged = acknowledged.ToImmutableDictionary(),
+            ThreePhase = ThreePhaseResult(),
             Diagnostics = [.. tree.Diagnostics, .. diagnostics],
         };
     }
@@ -112,6 +115,7 @@ internal sealed partial class BindRun
             diagnostics.ReportDuplicateName(name.Name, existing.Span, existing.Describe());
             rejected.Add(statement);
         }
+        DeclarePhases(statement);
     }
 
     /// <summary>Statements that define a name already taken; they are reported once and not bound.</summary>

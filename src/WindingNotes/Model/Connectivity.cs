@@ -69,6 +69,8 @@ public static class Islands
             Link(s.NodeB, nodeCount + s.Core);
         }
         foreach (var s in network.Supplies) Link(s.NodeP, s.NodeQ);
+        foreach (var m in network.Couplings)
+            foreach (var limb in m.Limbs) sets.Union(nodeCount + m.Limbs[0], nodeCount + limb);
         if (withLoads)
             foreach (var l in network.Loads) Link(l.NodeA, l.NodeB);
         foreach (var (a, b) in extra) Link(a, b);

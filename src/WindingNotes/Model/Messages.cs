@@ -49,6 +49,9 @@ public sealed partial class DiagnosticBag
     public Diagnostic ReportOutOfBounds(TextSpan span, string what, string bounds) =>
         Error("out-of-bounds", span, $"{what} must be {bounds}");
 
+    public Diagnostic ReportNearShort(TextSpan span, double ohms) =>
+        Warning("load-near-short", span, $"a load of {Numbers.Format(ohms, "ohm")} is nearly a short circuit and may draw a fault's current; a short circuit is studied with a 'fault'");
+
     public Diagnostic ReportUnknownName(Token name, string kind, string? suggestion) =>
         WithSuggestion(Error("unknown-name", name.Span, $"unknown {kind} '{name.Text}'"), suggestion, name.Span);
 

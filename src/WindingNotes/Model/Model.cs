@@ -106,7 +106,7 @@ public sealed record FaultModel(string Name, TextSpan NameSpan, TextSpan Line, N
 
 public sealed record SweepModel(Symbol Target, TextSpan Line, Quantity From, Quantity To, Quantity? Step, int? Points);
 
-public enum MeasureKind { Voltage, Current, Loading, Flux, Power, Efficiency, Regulation }
+public enum MeasureKind { Voltage, Current, Loading, Flux, Power, Efficiency, Regulation, VectorGroup }
 
 public enum ConditionKind { Between, Below, Above, Near }
 
@@ -120,6 +120,9 @@ public sealed record ExpectModel(TextSpan Line, string Text, MeasureKind Measure
 
     /// <summary>For 'near': the target, and the tolerance as a fraction when it was given in %.</summary>
     public double Target { get; init; }
+
+    /// <summary>For 'vector-group … is': the connection symbol expected, as written.</summary>
+    public string? Symbol { get; init; }
 }
 
 /// <summary>
@@ -168,6 +171,8 @@ public sealed record Model(SyntaxTree Syntax, SymbolTable Symbols, ImmutableArra
 
     /// <summary>Cautions this file acknowledges ('acknowledge'), each with the line that says so.</summary>
     public ImmutableDictionary<string, TextSpan> Acknowledged { get; init; } = ImmutableDictionary<string, TextSpan>.Empty;
+    /// <summary>The three-phase statements; their phase elements are in the lists above.</summary>
+    public ThreePhaseModel ThreePhase { get; init; } = ThreePhaseModel.Empty;
 
     /// <summary>The value of every let that evaluated.</summary>
     public ImmutableDictionary<string, Quantity> Lets { get; init; } = ImmutableDictionary<string, Quantity>.Empty;

@@ -86,4 +86,10 @@ public sealed record Network(
     public int Node(string point) => NodeOfPoint.TryGetValue(point, out var n) ? n : -1;
 
     public int EarthNode => Nodes.FirstOrDefault(n => n.IsEarth)?.Index ?? -1;
+
+    /// <summary>The limbs of three-phase cores linked through their yokes.</summary>
+    public ImmutableArray<MagneticCoupling> Couplings { get; init; } = [];
+
+    /// <summary>The vector group of each three-phase core with two or more three-phase windings, from the wiring.</summary>
+    public ImmutableArray<VectorGroup> VectorGroups { get; init; } = [];
 }

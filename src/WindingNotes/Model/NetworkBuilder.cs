@@ -44,8 +44,12 @@ public static class NetworkBuilder
             var cores = model.Cores.Select((c, i) => BuildCore(c, i, windings, [.. sectionsOf[i]], linesOf[i])).ToImmutableArray();
             var supplies = BuildSupplies();
             var loads = model.Loads.Select((l, i) => new LoadNet(i, l, nodeOf[l.A.Name], nodeOf[l.B.Name])).ToImmutableArray();
-            var network = new Network(model, nodes, nodeOf.ToImmutableDictionary(), windings, sections, cores, supplies, loads, []);
+            var network = new Network(model, nodes, nodeOf.ToImmutableDictionary(), windings, sections, cores, supplies, loads, [])
+            {
+                Couplings = MagneticCircuit.Couplings(model, windings, cores, diagnostics),
+            };
             WarnIslands(network);
+            network = network with { VectorGroups = VectorGroups.Find(network, diagnostics) };
             return network with { Diagnostics = diagnostics.ToImmutable() };
         }
 

@@ -7,6 +7,9 @@ namespace WindingNotes.Model;
 /// <summary>A defined name. Terminals know the winding they end; free nodes are defined where first used.</summary>
 public sealed record Symbol(string Name, SymbolKind Kind, TextSpan Span, TextSpan StatementSpan, string? Owner = null)
 {
+    /// <summary>A phase element a three-phase statement names (HV_a from HV): it does not occur in the text, so it cannot be renamed.</summary>
+    public bool Derived { get; init; }
+
     public string Describe() => Kind switch
     {
         SymbolKind.Let => "a let value",
@@ -47,6 +50,15 @@ public sealed class SymbolTable
         byName[symbol.Name] = symbol;
         references.Add(new SymbolReference(symbol.Span, symbol, true));
         existing = symbol;
+        return true;
+    }
+
+    /// <summary>A name a statement gives without writing it (a phase element): defined, not an occurrence in the text.</summary>
+    internal bool TryDefineDerived(Symbol symbol, out Symbol existing)
+    {
+        if (byName.TryGetValue(symbol.Name, out existing!)) return false;
+        byName[symbol.Name] = symbol with { Derived = true };
+        existing = byName[symbol.Name];
         return true;
     }
 

@@ -116,6 +116,12 @@ internal sealed class ValueEvaluator(
 
     private Quantity? Literal(Token number, Token? unitToken, bool imaginary)
     {
+        // 1e-400 reads as zero: a number written with a digit other than 0 before its exponent is not zero.
+        if (number.Number == 0 && number.Text.TakeWhile(c => c is not ('e' or 'E')).Any(c => c is >= '1' and <= '9'))
+        {
+            diagnostics.ReportOutOfRange(number.Span);
+            return null;
+        }
         var value = imaginary ? new Complex(0, number.Number) : new Complex(number.Number, 0);
         if (unitToken is null) return new Quantity(value, Dimension.None);
         var unit = Unit(unitToken);
@@ -175,15 +181,23 @@ internal sealed class ValueEvaluator(
                 var value = b.Operator.Text == "+" ? l.Value + r.Value : l.Value - r.Value;
                 return new Quantity(value, dimension, l.Flags & r.Flags);
             case "*":
-                return new Quantity(l.Value * r.Value, l.Dimension * r.Dimension, ScalarFlags(l, r));
+                return Underflowed(b, l, r, new Quantity(l.Value * r.Value, l.Dimension * r.Dimension, ScalarFlags(l, r)));
             default:
                 if (r.Value == System.Numerics.Complex.Zero)
                 {
                     diagnostics.ReportDivisionByZero(b.Operator);
                     return null;
                 }
-                return new Quantity(l.Value / r.Value, l.Dimension / r.Dimension, r.Flags == QuantityFlags.None ? l.Flags : QuantityFlags.None);
+                return Underflowed(b, l, r, new Quantity(l.Value / r.Value, l.Dimension / r.Dimension, r.Flags == QuantityFlags.None ? l.Flags : QuantityFlags.None));
         }
+    }
+
+    /// <summary>A product or quotient of two values that are not zero is not zero: where it rounds to zero it is out of range.</summary>
+    private Quantity? Underflowed(BinarySyntax b, Quantity l, Quantity r, Quantity result)
+    {
+        if (result.Value != System.Numerics.Complex.Zero || l.Value == System.Numerics.Complex.Zero || r.Value == System.Numerics.Complex.Zero) return result;
+        diagnostics.ReportOutOfRange(b.Span);
+        return null;
     }
 
     // 2 * 5 % is still a percentage; 5 % * 5 % is a plain fraction.

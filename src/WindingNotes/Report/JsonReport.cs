@@ -1,3 +1,4 @@
+using WindingNotes.Model;
 using System.Numerics;
 using System.Text;
 using System.Text.Json;
@@ -208,6 +209,7 @@ public static class JsonReport
         if (c.Totals.MaxEfficiencyFraction is { } fraction) Number(w, "maxEfficiencyFraction", fraction);
         if (c.Totals.MaxEfficiency is { } highest) Number(w, "maxEfficiency", highest);
         w.WriteEndObject();
+        ThreePhaseReport.Json(w, c);
 
         if (c.Case == CaseSpec.Normal)
         {
@@ -217,7 +219,11 @@ public static class JsonReport
                 w.WriteStartObject();
                 w.WriteNumber("line", evaluation.Text.GetPosition(check.Expect.Line.Start).Line);
                 w.WriteBoolean("passed", check.Passed);
-                if (check.Value is { } v) Number(w, "value", v);
+                if (check.Expect.Measure == MeasureKind.VectorGroup)
+                {
+                    if (check.Shown is { } shown) w.WriteString("found", shown);
+                }
+                else if (check.Value is { } v) Number(w, "value", v);
                 if (check.Points > 1 || check.Min != check.Max)
                 {
                     if (check.Min is { } min) Number(w, "min", min);
@@ -255,13 +261,13 @@ public static class JsonReport
         w.WriteEndObject();
     }
 
-    private static void Number(Utf8JsonWriter w, string name, double value)
+    internal static void Number(Utf8JsonWriter w, string name, double value)
     {
         w.WritePropertyName(name);
         w.WriteRawValue(Numbers.Json(value));
     }
 
-    private static void Phasor(Utf8JsonWriter w, string name, Complex v)
+    internal static void Phasor(Utf8JsonWriter w, string name, Complex v)
     {
         w.WriteStartObject(name);
         Number(w, "rms", v.Magnitude);

@@ -18,8 +18,16 @@ public static class MarkdownReport
     {
         var o = new StringBuilder();
         o.Append("## Results: ").Append(Code(evaluation.Path.Length == 0 ? "(standard input)" : evaluation.Path)).Append("\n\n");
+        // What a reviewer reads first: the checks, the ratings crossed and the cautions; the tables follow.
         o.Append(Summary(evaluation)).Append('\n');
-        var diagnostics = evaluation.Diagnostics.Where(d => !IsCaution(d)).ToList();
+        WriteChecks(o, evaluation);
+        WriteRatings(o, evaluation);
+        o.Append("\n### Cautions\n\n");
+        var cautions = evaluation.Diagnostics.Where(IsCaution).ToList();
+        foreach (var d in cautions)
+            o.Append("- line ").Append(TextReport.Location(evaluation, d)).Append(": ").Append(Cell(d.Message)).Append(d.Acknowledged ? " (acknowledged)" : "").Append('\n');
+        if (cautions.Count == 0) o.Append(evaluation.Cases.IsEmpty ? "None found, but the network was not solved.\n" : "None apply.\n");
+        var diagnostics = evaluation.Diagnostics.Where(d => !IsCaution(d) && !IsRating(d)).ToList();
         if (diagnostics.Count > 0)
         {
             o.Append("\n### Diagnostics\n\n");
@@ -29,15 +37,22 @@ public static class MarkdownReport
         if (evaluation.Cases.IsEmpty) o.Append("\nNo results: the network was not solved.\n");
         foreach (var c in evaluation.Cases.Where(c => !c.Case.IsSweepPoint)) WriteCase(o, c);
         WriteSweep(o, [.. evaluation.Cases.Where(c => c.Case.IsSweepPoint)]);
-        WriteChecks(o, evaluation);
-        o.Append("\n### Cautions\n\n");
-        var cautions = evaluation.Diagnostics.Where(IsCaution).ToList();
-        foreach (var d in cautions)
-            o.Append("- line ").Append(TextReport.Location(evaluation, d)).Append(": ").Append(Cell(d.Message)).Append(d.Acknowledged ? " (acknowledged)" : "").Append('\n');
-        if (cautions.Count > 0) o.Append('\n');
-        o.Append("> ").Append(Cautions.Judgement).Append('\n');
+        o.Append("\n> ").Append(Cautions.Judgement).Append('\n');
         return o.ToString();
     }
+
+    /// <summary>Every winding, core, brush or connection over its rating, at its line; none only where the network was solved.</summary>
+    private static void WriteRatings(StringBuilder o, Evaluation evaluation)
+    {
+        o.Append("\n### Ratings crossed\n\n");
+        var ratings = evaluation.Diagnostics.Where(IsRating).ToList();
+        foreach (var d in ratings)
+            o.Append("- line ").Append(TextReport.Location(evaluation, d)).Append(": ").Append(Cell(d.Message)).Append('\n');
+        if (ratings.Count == 0)
+            o.Append(evaluation.Cases.IsEmpty ? "Not evaluated: the network was not solved.\n" : "None: no rating the file gives is exceeded.\n");
+    }
+
+    private static bool IsRating(Diagnostic d) => RatingTally.Codes.Contains(d.Code);
 
     /// <summary>One line a reviewer reads first: the checks and the count of errors and warnings.</summary>
     public static string Summary(Evaluation evaluation)
@@ -137,6 +152,7 @@ public static class MarkdownReport
             : [];
         Table(o, 0, ["copper loss", "core loss", "efficiency", "throughput", "transformed", .. If(best.Length > 0, "best load", "efficiency there")],
         [[V(t.CopperLoss, "W"), TextReport.CoreLoss(t), t.Efficiency is { } eff ? TextReport.Percent(eff) : t.CoreLossKnown ? "" : "unknown without the core loss", V(t.Throughput, "VA"), V(t.Transformed, "VA"), .. best]]);
+        ThreePhaseReport.Markdown(o, c);
         WriteBands(o, c);
     }
 

@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using System.Text.RegularExpressions;
 using WindingNotes.Solve;
 using WindingNotes.Syntax;
 using WindingNotes.Text;
@@ -20,9 +21,43 @@ public sealed record CheckChange(string Text, string? OldText, int? Line, CheckS
 }
 
 /// <summary>A result that moved, appeared or went away. Old or New is null when the result is in one revision only.</summary>
-public sealed record ValueChange(string Case, string Label, string Unit, double? Old, double? New);
+public sealed record ValueChange(string Case, string Element, string Label, string Unit, double? Old, double? New)
+{
+    /// <summary>How far it moved, for ranking: the relative change, an angle's shift in radians; infinite from or to zero, null when new or gone.</summary>
+    public double? Size => (Old, New) switch
+    {
+        ({ } a, { } b) when Unit == "deg" => Math.Abs(ResultDiff.AngleChange(a, b)) * Math.PI / 180,
+        ({ } a, { } b) => ResultDiff.Relative(a, b) is { } r ? Math.Abs(r) : double.PositiveInfinity,
+        _ => null,
+    };
+}
 
-public sealed record DiagnosticChange(bool Added, Severity Severity, string Code, string Message);
+/// <summary>
+/// One result over a sweep, compared point by point (points matched by their swept values): how
+/// many of the points both revisions solved it moved at, and the largest move with its point.
+/// </summary>
+public sealed record SweepChange(string Element, string Label, string Unit, int Moved, int Points, ValueChange Largest)
+{
+    /// <summary>"BR=100 %": where the largest move is.</summary>
+    public string Where => Largest.Case.StartsWith("sweep ") ? Largest.Case["sweep ".Length..] : Largest.Case;
+}
+
+/// <summary>A tolerance band compared by its ends; an end is null where the band is in one revision only.</summary>
+public sealed record BandChange(string Case, string Label, string Unit, double? OldMin, double? OldMax, double? NewMin, double? NewMax);
+
+/// <summary>
+/// A diagnostic that appeared, went away (New or Old null) or changed only in the numbers it quotes
+/// (both set): a caution that quotes a voltage is one change when the voltage moves.
+/// </summary>
+public sealed record DiagnosticChange(Severity Severity, string Code, string? Old, string? New)
+{
+    public bool Added => Old is null;
+
+    public bool Gone => New is null;
+
+    /// <summary>A rating warning that appeared or went away: a winding, core or brush that went over its rating, or came back under it.</summary>
+    public bool RatingCrossed => (Added || Gone) && RatingTally.Codes.Contains(Code);
+}
 
 /// <summary>What a change to a file did to its results: expectations first, then every result that moved.</summary>
 public sealed record ResultDiff(
@@ -31,13 +66,15 @@ public sealed record ResultDiff(
     double Threshold,
     ImmutableArray<CheckChange> Checks,
     ImmutableArray<ValueChange> Values,
+    ImmutableArray<SweepChange> Sweeps,
+    ImmutableArray<BandChange> Bands,
     ImmutableArray<string> CasesAdded,
     ImmutableArray<string> CasesRemoved,
     ImmutableArray<DiagnosticChange> Diagnostics)
 {
     public bool Regressed => Checks.Any(c => c.Regressed);
 
-    public bool IsEmpty => Checks.IsEmpty && Values.IsEmpty && CasesAdded.IsEmpty && CasesRemoved.IsEmpty && Diagnostics.IsEmpty;
+    public bool IsEmpty => Checks.IsEmpty && Values.IsEmpty && Sweeps.IsEmpty && Bands.IsEmpty && CasesAdded.IsEmpty && CasesRemoved.IsEmpty && Diagnostics.IsEmpty;
 
     public const double DefaultThreshold = 0.001;
 
@@ -45,7 +82,8 @@ public sealed record ResultDiff(
     /// Compares two evaluations. A value moved when its relative change exceeds the threshold (a
     /// fraction); an angle when its shift in radians does, which is the relative change it makes to
     /// its phasor. Values within 1e-9 of the largest of their unit in the case count as zero, so
-    /// rounding noise never shows.
+    /// rounding noise never shows. Sweep points are compared point by point and each result over
+    /// the sweep is told once, by its largest move; a tolerance band by its two ends.
     /// </summary>
     public static ResultDiff Compare(Evaluation old, Evaluation @new, double threshold = DefaultThreshold, string? oldName = null, string? newName = null)
     {
@@ -53,33 +91,54 @@ public sealed record ResultDiff(
         var after = ResultValues.Of(@new);
         var oldCases = old.Cases.Select(c => c.Case.Name).ToHashSet();
         var newCases = @new.Cases.Select(c => c.Case.Name).ToHashSet();
+        var sweepPoints = @new.Cases.Where(c => c.Case.IsSweepPoint).Select(c => c.Case.Name).ToHashSet();
         var scale = Scales(before.Concat(after));
 
-        var values = ImmutableArray.CreateBuilder<ValueChange>();
+        var values = new List<ValueChange>();
         var oldByKey = Index(before);
         var newByKey = Index(after);
+        // Over a sweep: how many points compared each result, by its label.
+        var compared = new Dictionary<string, int>();
         foreach (var a in after)
         {
             var key = (a.Case, a.Element, a.Field);
             if (!oldCases.Contains(a.Case) || newByKey[key] != a) continue;
             if (!oldByKey.TryGetValue(key, out var b))
             {
-                if (!IsZero(a, scale)) values.Add(new ValueChange(a.Case, a.Label, a.Unit, null, a.Value));
+                if (!IsZero(a, scale)) values.Add(Change(a, null, a.Value));
                 continue;
             }
-            if (Moved(b, a, threshold, scale)) values.Add(new ValueChange(a.Case, a.Label, a.Unit, b.Value, a.Value));
+            if (sweepPoints.Contains(a.Case)) compared[a.Label] = compared.GetValueOrDefault(a.Label) + 1;
+            if (Moved(b, a, threshold, scale)) values.Add(Change(a, b.Value, a.Value));
         }
         foreach (var b in before)
             if (newCases.Contains(b.Case) && !newByKey.ContainsKey((b.Case, b.Element, b.Field)) && !IsZero(b, scale))
-                values.Add(new ValueChange(b.Case, b.Label, b.Unit, b.Value, null));
+                values.Add(Change(b, b.Value, null));
+
+        var sweeps = values.Where(v => sweepPoints.Contains(v.Case)).GroupBy(v => v.Label).Select(g => new SweepChange(
+            g.First().Element, g.Key, g.First().Unit, g.Count(), Math.Max(g.Count(), compared.GetValueOrDefault(g.Key)), g.MaxBy(v => v.Size ?? -1)!));
+        var rest = values.Where(v => !sweepPoints.Contains(v.Case)).ToList();
+        var bands = rest.Where(v => v.Element.StartsWith(ResultValues.BandOf)).GroupBy(v => (v.Case, v.Element)).Select(g => Band(g.Key.Case, g.Key.Element, g.First().Unit, oldByKey, newByKey));
 
         return new ResultDiff(
             oldName ?? old.Path, newName ?? @new.Path, threshold,
             CompareChecks(old, @new, threshold),
-            values.ToImmutable(),
+            [.. rest.Where(v => !v.Element.StartsWith(ResultValues.BandOf))],
+            [.. sweeps],
+            [.. bands],
             [.. @new.Cases.Select(c => c.Case.Name).Where(n => !oldCases.Contains(n))],
             [.. old.Cases.Select(c => c.Case.Name).Where(n => !newCases.Contains(n))],
             CompareDiagnostics(old, @new));
+    }
+
+    private static ValueChange Change(ResultValue v, double? old, double? @new) => new(v.Case, v.Element, v.Label, v.Unit, old, @new);
+
+    /// <summary>A band's two ends in each revision; the element is "band of node X1 voltage:".</summary>
+    private static BandChange Band(string @case, string element, string unit,
+        Dictionary<(string, string, string), ResultValue> before, Dictionary<(string, string, string), ResultValue> after)
+    {
+        double? End(Dictionary<(string, string, string), ResultValue> values, string field) => values.TryGetValue((@case, element, field), out var v) ? v.Value : null;
+        return new BandChange(@case, element[ResultValues.BandOf.Length..].TrimEnd(':'), unit, End(before, "min"), End(before, "max"), End(after, "min"), End(after, "max"));
     }
 
     private static Dictionary<(string, string, string), ResultValue> Index(IEnumerable<ResultValue> values)
@@ -178,17 +237,55 @@ public sealed record ResultDiff(
         return result;
     }
 
-    /// <summary>Diagnostics that appeared or went away, by what they say (positions move with every edit). Failed checks are told above.</summary>
+    /// <summary>
+    /// Diagnostics that appeared or went away, by what they say (positions move with every edit); one
+    /// that says the same with other numbers is a change of those numbers. Failed checks are told above.
+    /// </summary>
     private static ImmutableArray<DiagnosticChange> CompareDiagnostics(Evaluation old, Evaluation @new)
     {
-        static List<(Severity, string, string)> Of(Evaluation e) =>
+        static List<(Severity Severity, string Code, string Message)> Of(Evaluation e) =>
             [.. e.Diagnostics.Where(d => d.Code != "expect-failed").Select(d => (d.Severity, d.Code, d.Message))];
         var before = Of(old);
         var after = Of(@new);
-        var added = after.ToList();
-        foreach (var d in before) added.Remove(d);
-        var gone = before.ToList();
-        foreach (var d in after) gone.Remove(d);
-        return [.. added.Select(d => new DiagnosticChange(true, d.Item1, d.Item2, d.Item3)), .. gone.Select(d => new DiagnosticChange(false, d.Item1, d.Item2, d.Item3))];
+        // Each side less what the other has, as multisets: linear in the diagnostics, for files of thousands.
+        static Dictionary<(Severity, string, string), int> Counts(List<(Severity, string, string)> list)
+        {
+            var counts = new Dictionary<(Severity, string, string), int>();
+            foreach (var d in list) counts[d] = counts.GetValueOrDefault(d) + 1;
+            return counts;
+        }
+        static bool Take(Dictionary<(Severity, string, string), int> counts, (Severity, string, string) d)
+        {
+            if (counts.GetValueOrDefault(d) == 0) return false;
+            counts[d]--;
+            return true;
+        }
+        var inBefore = Counts(before);
+        var added = after.Where(d => !Take(inBefore, d)).ToList();
+        var inAfter = Counts(after);
+        var gone = before.Where(d => !Take(inAfter, d)).ToList();
+        // A gone diagnostic that says what an added one says, with other numbers, is its old wording.
+        var byWording = gone.Select((d, i) => (Key: (d.Severity, d.Code, Wording(d.Message)), Index: i)).GroupBy(x => x.Key)
+            .ToDictionary(g => g.Key, g => new Queue<int>(g.Select(x => x.Index)));
+        var paired = new HashSet<int>();
+        var changes = new List<DiagnosticChange>();
+        foreach (var d in added)
+        {
+            string? was = null;
+            if (byWording.TryGetValue((d.Severity, d.Code, Wording(d.Message)), out var queue) && queue.TryDequeue(out var i))
+            {
+                paired.Add(i);
+                was = gone[i].Message;
+            }
+            changes.Add(new DiagnosticChange(d.Severity, d.Code, was, d.Message));
+        }
+        changes.AddRange(gone.Where((_, i) => !paired.Contains(i)).Select(d => new DiagnosticChange(d.Severity, d.Code, d.Message, null)));
+        return [.. changes];
     }
+
+    /// <summary>A number as messages write it: "227.9", "-0.04", "1.2E-05".</summary>
+    public static readonly Regex Number = new(@"-?\d+(?:\.\d+)?(?:E[+-]?\d+)?", RegexOptions.CultureInvariant);
+
+    /// <summary>A message with its numbers taken out: what it says, whatever the values.</summary>
+    private static string Wording(string message) => Number.Replace(message, "#");
 }

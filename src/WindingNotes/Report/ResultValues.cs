@@ -49,10 +49,13 @@ public sealed record ResultValue(string Case, string Element, string Field, stri
 /// </summary>
 public static class ResultValues
 {
+    /// <summary>How the element of a band's end begins: "band of node X1 voltage:".</summary>
+    public const string BandOf = "band of ";
+
     private static readonly ImmutableDictionary<string, string> Groups = new Dictionary<string, string>
     {
         ["nodes"] = "node", ["sections"] = "section", ["windings"] = "winding", ["cores"] = "core", ["supplies"] = "supply",
-        ["loads"] = "load", ["faults"] = "fault", ["totals"] = "", ["bands"] = "band of",
+        ["loads"] = "load", ["faults"] = "fault", ["totals"] = "", ["bands"] = BandOf.Trim(),
     }.ToImmutableDictionary();
 
     private static readonly HashSet<string> Fractions = ["loading", "efficiency", "regulation", "maxEfficiency", "maxEfficiencyFraction"];

@@ -1,3 +1,4 @@
+using WindingNotes.Model;
 using System.Numerics;
 using System.Text;
 using WindingNotes.Solve;
@@ -111,6 +112,7 @@ public static class TextReport
         Line(o, "transformed", Numbers.Format(c.Totals.Transformed, "VA"));
         if (c.Totals is { MaxEfficiencyLoad: { } best, MaxEfficiencyFraction: { } fraction, MaxEfficiency: { } max })
             Line(o, "best load", $"{Numbers.Format(best, "VA")} ({Percent(fraction)} of this load), efficiency {Percent(max)} there");
+        ThreePhaseReport.Text(o, c);
         WriteBands(o, c);
     }
 
@@ -157,6 +159,7 @@ public static class TextReport
     /// </summary>
     public static string CheckValue(CheckResult check)
     {
+        if (check.Expect.Measure == MeasureKind.VectorGroup) return check.Shown ?? "";
         if (check.Value is not { } v) return "";
         var value = DiagnosticBag.Show(v, check.Expect.Unit);
         if ((check.Points > 1 || check.Min != check.Max) && check.Min is { } min && check.Max is { } max)

@@ -30,6 +30,9 @@ public sealed record CheckResult(ExpectModel Expect, bool Passed, double? Value)
     public int Failing { get; init; }
 
     public int Points { get; init; } = 1;
+
+    /// <summary>What a check that is not a number found as written: the connection symbol of a 'vector-group' check.</summary>
+    public string? Shown { get; init; }
 }
 
 /// <summary>
@@ -103,6 +106,11 @@ public static class Checks
                 if (result.Loads.FirstOrDefault(l => l.Load.Name == t[0].Name) is { } pl) return pl.Power.Real;
                 problem = $"'{t[0].Name}' was left out of the network";
                 return null;
+            case MeasureKind.VectorGroup:
+                var group = result.ThreePhase.GroupOf(t[0].Name);
+                if (group?.Symbol is { } symbol) return symbol == expect.Symbol ? 1 : 0;
+                problem = group?.Problem ?? $"'{t[0].Name}' has no two three-phase windings to compare";
+                return null;
             case MeasureKind.Efficiency:
                 if (result.Totals.Efficiency is { } efficiency) return efficiency;
                 problem = result.Totals.CoreLossKnown
@@ -139,6 +147,9 @@ public sealed class CheckTally(ImmutableArray<ExpectModel> expects)
         public double? WorstValue;
         public string WorstWhere = "";
         public bool FailedHere;
+
+        /// <summary>What a check that is not a number found as written: the connection symbol.</summary>
+        public string? Shown;
     }
 
     /// <summary>Starts a point: the normal case ("as written") or a sweep point ("BR=25 %").</summary>
@@ -160,6 +171,8 @@ public sealed class CheckTally(ImmutableArray<ExpectModel> expects)
             {
                 e.Nominal = value;
                 e.Problem = problem;
+                if (e.Expect.Measure == MeasureKind.VectorGroup)
+                    e.Shown = result.ThreePhase.GroupOf(e.Expect.Targets[0].Name)?.Symbol;
             }
             if (value is not { } v)
             {
@@ -204,8 +217,10 @@ public sealed class CheckTally(ImmutableArray<ExpectModel> expects)
                 Failures = [.. e.Failures],
                 Failing = e.Failing,
                 Points = points,
+                Shown = e.Shown,
             };
             if (e.Problem is { } problem) diagnostics.ReportCannotCheck(e.Expect, problem);
+            else if (e.Failing > 0 && e.Expect.Measure == MeasureKind.VectorGroup) diagnostics.ReportVectorGroupFailed(e.Expect, e.Shown);
             else if (e.Failing > 0 && e.WorstValue is { } worst) diagnostics.ReportCheckFailed(e.Expect, worst, e.WorstWhere, e.Failures, e.Failing, points);
             else if (e.Failing > 0) diagnostics.ReportCannotCheck(e.Expect, $"not solved at {DiagnosticBag.ListPoints(e.Failures)}");
             results.Add(result);

@@ -139,6 +139,11 @@ internal sealed class MnaSystem
         }
         foreach (var c in group.Cores)
             A.Add(CoreColumn[c], CoreColumn[c], -network.Cores[c].Admittance);
+        // Limbs of one three-phase core share the return path (MagneticCircuit): −Yr·(e_a + e_b + e_c) in each limb's row.
+        foreach (var m in network.Couplings)
+            if (CoreColumn.ContainsKey(m.Limbs[0]))
+                foreach (var j in m.Limbs)
+                    foreach (var k in m.Limbs) A.Add(CoreColumn[j], CoreColumn[k], -m.ReturnAdmittance);
         foreach (var i in group.Supplies)
         {
             var s = network.Supplies[i];

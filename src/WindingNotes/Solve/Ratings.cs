@@ -16,6 +16,9 @@ public sealed class RatingTally
     /// <summary>Volts per turn may reach 105 % of rated on load and 110 % at no load (IEEE C57.12.00, from memory).</summary>
     public const double OnLoadExcitation = 1.05, NoLoadExcitation = 1.10;
 
+    /// <summary>The codes of the rating warnings: a diff and a report summary count them as ratings crossed.</summary>
+    public static readonly ImmutableHashSet<string> Codes = ["loading-high", "flux-high", "overexcited", "brush-current-high", "current-density-high", "connection-rating"];
+
     private readonly Dictionary<(string Code, string Key), Finding> findings = [];
     private readonly List<(string Code, string Key)> order = [];
     private int points;

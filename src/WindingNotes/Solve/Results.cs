@@ -114,6 +114,9 @@ public sealed record CaseResult(
 
     /// <summary>Results that vary over the tolerances, with their range; empty without tolerances.</summary>
     public ImmutableArray<Band> Bands { get; init; } = [];
+
+    /// <summary>Three-phase terminal sets and vector groups; empty without three-phase statements.</summary>
+    public ThreePhaseResult ThreePhase { get; init; } = ThreePhaseResult.Empty;
 }
 
 /// <summary>Derives what engineers read from a solution: powers, loading, losses, flux density, totals.</summary>
@@ -191,12 +194,13 @@ public static class Results
             coreLossKnown && supplied > 0 && loads.Length > 0 ? delivered / supplied : null,
             loads.Sum(l => l.Power.Magnitude),
             sections.Sum(s => s.Apparent) / 2) { CoreLossKnown = coreLossKnown }, delivered);
-        return new CaseResult(solution.Case, solution, points, sections, cores, supplies, loads, totals)
+        var result = new CaseResult(solution.Case, solution, points, sections, cores, supplies, loads, totals)
         {
             Taps = TapsOf(network, solution, inScope),
             Connections = ConnectionsOf(network, solution, loads),
             Fault = solution.Case.Fault is not null && normal is not null ? Faults.Compute(solution, normal) : null,
         };
+        return model.ThreePhase.IsEmpty ? result : result with { ThreePhase = ThreePhaseResults.Of(network, result) };
     }
 
     /// <summary>
@@ -228,7 +232,7 @@ public static class Results
     private static ImmutableArray<ConnectionResult> ConnectionsOf(Network network, Solution solution, ImmutableArray<LoadResult> loads)
     {
         if (solution.Case.WithoutLoads || solution.Case.Fault is not null) return [];
-        var connections = Solve.Connections.Find(network);
+        var connections = Solve.Connections.Find(network).Where(c => !c.IsPhaseElement(network.Model)).ToList();
         var carried = connections.GroupBy(c => c.Island).ToDictionary(g => g.Key,
             g => g.SelectMany(c => c.Series).Distinct().Sum(s => solution.SectionVoltage(network.Sections[s]).Magnitude * solution.SectionCurrents[s].Magnitude));
         var throughput = connections.DistinctBy(c => (c.Island, c.Load.Index)).GroupBy(c => c.Island)

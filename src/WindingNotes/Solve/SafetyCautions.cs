@@ -23,7 +23,7 @@ public static class SafetyCautions
         {
             var load = c.Load.Source;
             if (warned.Add(load.Name)) diagnostics.ReportNoIsolation(load.NameSpan, load.Name, c.Supply.Name);
-            foreach (var node in c.Common)
+            foreach (var node in c.IsPhaseElement(model) ? [] : c.Common)
             {
                 var end = network.Node(load.A.Name) == node ? load.A : load.B;
                 if (warned.Add($"{load.Name}/{end.Name}")) diagnostics.ReportCommonTerminal(end.Span, end.Name, node == network.EarthNode);
@@ -37,13 +37,14 @@ public static class SafetyCautions
         foreach (var (c, highest) in connections.Zip(outputs.Highest))
         {
             var load = c.Load.Source;
-            if (highest.Ratio <= 1 + 1e-6) continue;
+            if (highest.Ratio <= 1 + 1e-6 || c.IsPhaseElement(model)) continue;
             // Where the output hangs on a brush, the brush's line is where the setting is made.
             var brush = new[] { load.A.Name, load.B.Name }.Select(brushes.GetValueOrDefault).OfType<TapModel>().MinBy(t => t.NameSpan.Start);
             if (warned.Add($"above/{load.Name}"))
                 diagnostics.ReportAboveSupply(brush?.NameSpan ?? load.NameSpan, load.Name, highest.Load, outputs.Source(c), highest.Supply, highest.Where);
         }
 
+        OpenDelta.Report(network, cases.FirstOrDefault(x => x.Case == CaseSpec.Normal), diagnostics);
         foreach (var f in cases.Select(x => x.Fault).OfType<FaultResult>())
             diagnostics.ReportFaultDuty(f.Fault.NameSpan, f.Fault.Name, f.Current.Magnitude, f.Peak, f.WorstMultiple, f.WorstWinding);
     }

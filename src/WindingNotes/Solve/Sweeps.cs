@@ -138,12 +138,12 @@ public static class Sweeps
             return new SweepAxis(sweep, from, n == 1 ? 0 : span / (n - 1), n);
         }
         var step = sweep.Step!.Value;
-        if (!step.IsReal || !step.Dimension.Fits(from.Dimension) || step.IsPercent != from.IsPercent || step.Real == 0)
+        if (!step.IsReal || !step.Dimension.Fits(from.Dimension) || step.IsPercent != from.IsPercent || !(step.Real > 0))
         {
-            diagnostics.ReportSweepRange(sweep.Line, "the step must be a real value other than zero, of the same kind as the range");
+            diagnostics.ReportSweepRange(sweep.Line, "the step must be a real value above zero, of the same kind as the range");
             return null;
         }
-        // The step goes from the start towards the end whatever its sign; a point within rounding of the end counts.
+        // The step goes from the start towards the end; a point within rounding of the end counts.
         var size = Math.Abs(step.Real);
         var steps = Math.Floor(Math.Abs(span) / size * (1 + 1e-12) + 1e-9);
         var count = (long)Math.Min(steps + 1, 1e15);

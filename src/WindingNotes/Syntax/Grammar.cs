@@ -2,7 +2,7 @@ using System.Collections.Frozen;
 
 namespace WindingNotes.Syntax;
 
-public enum StatementKind { Frequency, Temperature, Let, Core, Winding, Tap, Brush, Impedance, NoLoad, Join, Ground, Supply, Load, Fault, Sweep, Expect, FailOn, Acknowledge }
+public enum StatementKind { Frequency, Temperature, Let, Core, Winding, Tap, Brush, Impedance, NoLoad, Join, Ground, Supply, Load, Fault, Sweep, Expect, FailOn, Acknowledge, ThreePhaseSupply, ThreePhaseLoad }
 
 /// <summary>What a name stands for. One namespace holds them all.</summary>
 public enum SymbolKind { Let, Core, Winding, Terminal, Tap, Brush, Node, Supply, Load, Fault }
@@ -59,6 +59,16 @@ public static class Grammar
     private static readonly NameRole WindingOrSection = new(false, [SymbolKind.Winding], "a winding or section", AllowsSection: true);
     private static readonly ValuePart Value = new("a value");
 
+    private static readonly NameRole Terminal = Def(SymbolKind.Terminal, "a terminal name");
+
+    /// <summary>The three line terminals of a three-phase winding.</summary>
+    private static readonly Part[] Lines = [new NamePart(Terminal), new NamePart(Terminal), new NamePart(Terminal)];
+
+    private static readonly ChoicePart Construction = new("a core construction", "bank", "three-limb", "five-limb", "shell");
+
+    /// <summary>One value for all three phases, or one a phase.</summary>
+    private static readonly Part[] PerPhase = [new ValuePart("a value"), new OptionalPart(new ValuePart("a value"), new ValuePart("a value"))];
+
     private static ClauseForm Clause(string keyword, string summary, params Part[] parts) => new(keyword, parts, Summary: summary);
 
     /// <summary>The rating warnings a file may make errors of with 'fail-on' (their wording is in Solve/Messages.cs).</summary>
@@ -77,9 +87,11 @@ public static class Grammar
             "let vin = 208 V", "a named value; sweeps and tolerances act on these"),
         new(StatementKind.Core, "core", [new NamePart(Def(SymbolKind.Core, "a new core name"))],
             [
+                Clause("construction", "a three-phase core: three single-phase cores (bank), or limbs on one core", Construction),
                 Clause("rating", "the core's kVA rating", Value),
                 Clause("area", "the net cross-section of the core", Value),
                 Clause("flux-limit", "the highest peak flux density allowed", Value),
+                Clause("zero-sequence", "the zero-sequence magnetising impedance of a three-phase core, in % on its rating", Value),
                 Clause("frequency", "the core's rated frequency, where it is not the file's", Value),
             ],
             "core K1 rating 0.5 kVA area 26 cm2 flux-limit 1.6 T", "a magnetic core: all windings on it link the same flux"),
@@ -91,14 +103,23 @@ public static class Grammar
                 Clause("rating", "the winding's own kVA rating", Value),
                 Clause("rated-current", "the winding's own rated current", Value),
                 new("from", [new NamePart(Def(SymbolKind.Terminal, "a terminal name")), new WordPart("to"), new NamePart(Def(SymbolKind.Terminal, "a terminal name"))],
-                    Required: true, Summary: "the polarity-marked end, then the other end"),
+                    Group: "ends", Summary: "the polarity-marked end, then the other end"),
                 Clause("resistance", "the winding's resistance, optionally as measured at a temperature", Value, new OptionalPart(new WordPart("at"), new ValuePart("a temperature"))),
                 Clause("conductor", "resistance from the conductor: material, size, length or mean turn",
                     new ChoicePart("a conductor material", "copper", "aluminium"),
                     new OptionalPart(new WordPart("AWG")), new ValuePart("a conductor size"),
                     new ChoicePart("'length' or 'mean-turn'", "length", "mean-turn"), new ValuePart("a length")),
+                new("wye", [.. Lines, new OptionalPart(new WordPart("neutral"), new NamePart(Terminal))], Group: "ends",
+                    Summary: "three phase windings, one a limb, from each line terminal to the star point (a neutral terminal when named)"),
+                new("delta", Lines, Group: "ends", Summary: "three phase windings in a ring: phase a from the first line terminal to the second, b from the second to the third, c from the third to the first"),
+                new("zigzag", [.. Lines, new OptionalPart(new WordPart("neutral"), new NamePart(Terminal))], Group: "ends",
+                    Summary: "each phase from its line terminal through a half on its limb, then reversed through a half on the next limb, to the star point"),
+                new("series", [.. Lines, new WordPart("to"), new NamePart(NodeRef), new NamePart(NodeRef), new NamePart(NodeRef)], Group: "ends",
+                    Summary: "the series winding of an autotransformer: each phase from its line terminal to the common winding's line terminal"),
+                new("ends", [.. Enumerable.Repeat<Part>(new NamePart(NodeRef), 6)], Group: "ends",
+                    Summary: "three phase windings by their ends: phase a from, to, phase b from, to, phase c from, to"),
             ],
-            "winding HV on K1 turns 240 rated 240 V from H1 to H2 resistance 1.4 ohm", "a winding between two terminals"),
+            "winding HV on K1 turns 240 rated 240 V from H1 to H2 resistance 1.4 ohm", "a winding between two terminals, or three phase windings on a three-phase core", ["ends"]),
         new(StatementKind.Tap, "tap", [new NamePart(Def(SymbolKind.Tap, "a new tap name"))],
             [
                 new("on", [new NamePart(WindingRef)], Required: true, Summary: "the winding the tap is on"),
@@ -169,16 +190,44 @@ public static class Grammar
                 new("power", [new NamePart(Use("a supply or load", SymbolKind.Supply, SymbolKind.Load))], Group: "measure", Summary: "the active power of a supply or load"),
                 new("efficiency", [], Group: "measure", Summary: "load power over supply power"),
                 new("regulation", [new NamePart(Use("a load name", SymbolKind.Load))], Group: "measure", Summary: "the rise of a load's voltage when all loads are removed"),
+                new("vector-group", [new NamePart(CoreRef)], Group: "measure", Summary: "the connection symbol and clock numbers of a three-phase unit, from its wiring"),
                 new("between", [Value, new WordPart("and"), Value], Group: "condition", Summary: "both bounds included"),
                 new("below", [Value], Group: "condition", Summary: "an upper bound"),
                 new("above", [Value], Group: "condition", Summary: "a lower bound"),
                 new("near", [Value, new WordPart("within"), Value], Group: "condition", Summary: "a target with a tolerance"),
+                new("is", [new NamePart(new NameRole(false, [], "a connection symbol such as Dyn11"))], Group: "condition", Summary: "a connection symbol (IEC 60076-1), for 'vector-group'"),
             ],
             "expect voltage X1 N between 225 V and 235 V", "a check that must hold", ["measure", "condition"]),
         new(StatementKind.FailOn, "fail-on", [new ChoicePart("a rating warning", RatingWarnings)], [],
             "fail-on loading-high", "a rating warning that is an error in this file, so check fails on it"),
         new(StatementKind.Acknowledge, "acknowledge", [new ChoicePart("a caution", Cautions)], [],
             "acknowledge caution-no-isolation", "a caution read and accepted: check stops printing it, reports keep it"),
+        new(StatementKind.ThreePhaseSupply, "three-phase-supply",
+            [new NamePart(Def(SymbolKind.Supply, "a new supply name")), new NamePart(NodeRef), new NamePart(NodeRef), new NamePart(NodeRef), new ValuePart("a line-to-line voltage")],
+            [
+                Clause("sequence", "the phase sequence (abc unless said)", new ChoicePart("a phase sequence", "abc", "acb")),
+                Clause("fault-level", "the three-phase fault current or fault power at the supply", Value),
+                Clause("xr", "the X/R ratio of the supply's internal impedance", Value),
+                Clause("impedance", "the supply's positive-sequence impedance per phase", Value),
+                Clause("zero-sequence", "the line-to-ground fault current, or the zero-sequence impedance per phase", Value),
+            ],
+            "three-phase-supply grid H1 H2 H3 13.8 kV fault-level 250 MVA xr 12 zero-sequence 9 kA",
+            "a three-phase source, wye with its neutral earthed, by its line-to-line voltage"),
+        new(StatementKind.ThreePhaseLoad, "three-phase-load",
+            [new NamePart(Def(SymbolKind.Load, "a new load name")), new NamePart(NodeRef), new NamePart(NodeRef), new NamePart(NodeRef)],
+            [
+                new("wye", [new OptionalPart(new NamePart(NodeRef))], Group: "connection", Summary: "one load a phase from each line to the star point (a neutral when named)"),
+                new("delta", [], Group: "connection", Summary: "one load a phase between each pair of lines"),
+                new("power", PerPhase, Group: "demand", Summary: "active power: the three-phase total, or one value a phase"),
+                new("apparent", PerPhase, Group: "demand", Summary: "apparent power: the three-phase total, or one value a phase"),
+                new("impedance", PerPhase, Group: "demand", Summary: "the impedance of each phase, or one value a phase"),
+                new("current", PerPhase, Group: "demand", Summary: "the current of each phase, or one value a phase"),
+                Clause("pf", "the power factor, lagging unless said", Value, new OptionalPart(new ChoicePart("'lagging' or 'leading'", "lagging", "leading"))),
+                Clause("model", "how the load responds to its voltage",
+                    new ChoicePart("a load model", "constant-impedance", "constant-current", "constant-power"),
+                    new OptionalPart(new WordPart("at"), new ValuePart("a voltage"))),
+            ],
+            "three-phase-load mill X1 X2 X3 wye X0 power 300 kW pf 0.85", "a three-phase load, wye or delta", ["connection", "demand"]),
     ];
 
     public static readonly FrozenDictionary<string, StatementForm> ByKeyword = Statements.ToFrozenDictionary(s => s.Keyword);

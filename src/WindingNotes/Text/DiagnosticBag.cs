@@ -33,10 +33,26 @@ public sealed partial class DiagnosticBag : IEnumerable<Diagnostic>
 
     private Diagnostic Put(Severity severity, string code, TextSpan span, string message)
     {
-        var diagnostic = new Diagnostic(severity, code, message, span);
+        var diagnostic = new Diagnostic(severity, code, Printable(message), span);
         items.Add(diagnostic);
         return diagnostic;
     }
+
+    /// <summary>
+    /// A message as it may be shown: control and format characters the text quotes (an escape, a
+    /// carriage return, a right-to-left override; not a tab or a line break) are written as
+    /// <c>\uXXXX</c>, so a message never acts on the terminal or the editor that shows it.
+    /// </summary>
+    public static string Printable(string message)
+    {
+        if (!message.Any(IsHidden)) return message;
+        var o = new System.Text.StringBuilder(message.Length + 16);
+        foreach (var c in message) o.Append(IsHidden(c) ? $"\\u{(int)c:X4}" : c.ToString());
+        return o.ToString();
+    }
+
+    private static bool IsHidden(char c) =>
+        (char.IsControl(c) && c is not ('\t' or '\n')) || char.GetUnicodeCategory(c) == System.Globalization.UnicodeCategory.Format;
 
     /// <summary>Replaces the last diagnostic with a copy (to attach hints or related spans).</summary>
     private Diagnostic Amend(Diagnostic diagnostic, Func<Diagnostic, Diagnostic> change)

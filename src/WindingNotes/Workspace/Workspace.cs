@@ -17,10 +17,15 @@ public sealed class DocumentWorkspace
     /// diagnostics and a request for hints evaluate once between them). Its token is cancelled
     /// when the version is overtaken or closed, so the evaluation of a stale version stops early.
     /// </summary>
-    /// <param name="lastSolved">The last earlier version that was solved, shown while this one is not.</param>
-    private sealed class Entry(Document document, SolvedVersion? lastSolved)
+    private sealed class Entry(Document document, Entry? previous)
     {
         private readonly CancellationTokenSource stale = new();
+
+        /// <summary>The last finished evaluation of an earlier version, kept until this one finishes.</summary>
+        private (Evaluation, int)? earlier = previous?.LastComplete;
+
+        /// <summary>The last earlier version that was solved, shown while this one is not.</summary>
+        private readonly SolvedVersion? lastSolved = previous?.LatestSolved;
         private readonly TaskCompletionSource<Evaluation> done = new(TaskCreationOptions.RunContinuationsAsynchronously);
         private int started;
 
@@ -38,6 +43,7 @@ public sealed class DocumentWorkspace
                 {
                     var evaluation = Evaluator.Evaluate(Document.Text, Document.Path, stale.Token);
                     done.SetResult(evaluation.Solved ? evaluation : evaluation with { LastSolved = lastSolved });
+                    earlier = null;
                 }
                 catch (Exception e)
                 {
@@ -49,12 +55,16 @@ public sealed class DocumentWorkspace
             return task.GetAwaiter().GetResult();
         }
 
-        // Never disposed: a token source without timers holds nothing, and disposing it would race with Cancel.
-        public void Overtake() => stale.Cancel();
+        /// <summary>This version's evaluation when it has finished, else the last finished one of an earlier version.</summary>
+        public (Evaluation Evaluation, int Version)? LastComplete =>
+            done.Task.IsCompletedSuccessfully ? (done.Task.Result, Document.Version) : earlier;
 
         /// <summary>This version where it was solved, else the one before it that was: one evaluation is kept, never a chain.</summary>
         public SolvedVersion? LatestSolved =>
             done.Task.IsCompletedSuccessfully && done.Task.Result.Solved ? new SolvedVersion(Document.Version, done.Task.Result) : lastSolved;
+
+        // Never disposed: a token source without timers holds nothing, and disposing it would race with Cancel.
+        public void Overtake() => stale.Cancel();
     }
 
     private readonly ConcurrentDictionary<string, Entry> entries = new();
@@ -73,7 +83,7 @@ public sealed class DocumentWorkspace
             (_, old) =>
             {
                 previous = old;
-                return new Entry(new Document(uri, path ?? old.Document.Path, version, text), old.LatestSolved);
+                return new Entry(new Document(uri, path ?? old.Document.Path, version, text), old);
             });
         previous?.Overtake();
     }
@@ -93,6 +103,18 @@ public sealed class DocumentWorkspace
         cancel.ThrowIfCancellationRequested();
         return entries.TryGetValue(uri, out var entry) ? entry.Evaluate(cancel) : null;
     }
+
+    /// <summary>
+    /// The last evaluation of the document that finished, with its version: the current version's
+    /// when it is done, else an earlier one's (what an editor shows while a long study runs); null
+    /// when the document is not open or none has finished.
+    /// </summary>
+    public (Evaluation Evaluation, int Version)? LastComplete(string uri) => entries.GetValueOrDefault(uri)?.LastComplete;
+
+    /// <summary>Said beside results shown from an earlier version while the current one is still evaluated.</summary>
+    public static Text.Diagnostic StillRunning(int shown, int running) =>
+        new(Text.Severity.Information, "evaluation-running",
+            $"results are from version {shown}: the evaluation of version {running} is still running", default);
 
     /// <summary>The evaluation of one version, or null when that version is no longer the current one.</summary>
     public Evaluation? Evaluate(string uri, int version, CancellationToken cancel = default)

@@ -100,7 +100,8 @@ public class SweepTests
     }
 
     [Theory]
-    [InlineData("sweep BR from 0 % to 100 % step 0 %", "the step must be a real value other than zero, of the same kind as the range")]
+    [InlineData("sweep BR from 0 % to 100 % step 0 %", "the step must be a real value above zero, of the same kind as the range")]
+    [InlineData("sweep BR from 0 % to 100 % step -1 %", "the step must be a real value above zero, of the same kind as the range")]
     [InlineData("sweep BR from 0 % to 100 V step 1 %", "a sweep runs between two real values of one kind")]
     [InlineData("sweep vin from 0 A to 10 A step 1 A", "'vin' is a voltage, but the sweep runs over a current")]
     [InlineData("sweep BR from 0 A to 10 A step 1 A", "a brush moves in turns, % or volts, not in A")]

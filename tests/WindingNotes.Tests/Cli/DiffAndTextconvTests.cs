@@ -36,7 +36,7 @@ public class DiffAndTextconvTests
         var (code, output, _) = Command.Run("", "diff", dir.File("old.wn"), dir.File("new.wn"));
         Assert.Equal(1, code);
         Assert.Contains("now FAIL (was pass)  line 14: expect voltage X1 H2 between 225 V and 235 V: 228.1 V -> ", output);
-        Assert.Contains("normal: node H1 voltage: 208.0 V -> 200.0 V (-3.846 %)", output);
+        Assert.Contains("  node H1\n    voltage: 208.0 V -> 200.0 V (-3.846 %)\n", output);
 
         Assert.Equal(0, Command.Run("", "diff", dir.File("new.wn"), dir.File("old.wn")).Code);
         Assert.Equal(0, Command.Run("", "diff", dir.File("old.wn"), dir.File("old.wn")).Code);
@@ -55,8 +55,22 @@ public class DiffAndTextconvTests
         var (code, output, error) = Command.Run("", args);
         Assert.True(code == 1, error);
         Assert.Contains("(changes above 5 %)", output);
-        Assert.DoesNotContain("node H1 voltage", output);
-        Assert.Contains("section LV current:", output);
+        Assert.DoesNotContain("node H1", output);
+        Assert.Contains("  section LV\n    current: ", output);
+    }
+
+    [Fact]
+    public void Help_and_the_readme_give_the_same_threshold_default_in_percent()
+    {
+        var readme = string.Join(' ', File.ReadAllText(Path.Combine(Snapshot.RepositoryRoot, "README.md")).Split((char[])[' ', '\n'], StringSplitOptions.RemoveEmptyEntries));
+        var stated = System.Text.RegularExpressions.Regex.Match(readme, @"`--threshold` \(default `([0-9.]+) %`");
+        Assert.True(stated.Success, "the README states the threshold's default as `N %`");
+        Assert.Equal(WindingNotes.Report.ResultDiff.DefaultThreshold * 100, double.Parse(stated.Groups[1].Value, System.Globalization.CultureInfo.InvariantCulture), 12);
+        var (code, help, _) = Command.Run("", "diff", "--help");
+        Assert.Equal(0, code);
+        var line = help.Split('\n').Single(l => l.Contains("--threshold"));
+        Assert.Contains("--threshold <percent>", line);
+        Assert.EndsWith($"[default: {stated.Groups[1].Value}]", line.TrimEnd());
     }
 
     [Fact]
@@ -105,7 +119,7 @@ public class DiffAndTextconvTests
         var (code, output, error) = Command.Run("", "diff", "--rev", "HEAD", file, "--format", "md");
         Assert.True(code == 1, error);
         Assert.Contains($"### Results of `{file}` against `{file} at HEAD`", output);
-        Assert.Contains("| normal | node H1 voltage | 208.0 V | 200.0 V | -3.846 % |", output);
+        Assert.Contains("<details><summary>node H1: 1 result, the most: voltage -3.846 %</summary>\n\n| result | old | new | change |\n|---|--:|--:|--:|\n| voltage | 208.0 V | 200.0 V | -3.846 % |\n", output);
 
         Git(dir.Path, "commit", "-q", "-am", "second");
         (code, output, _) = Command.Run("", "diff", "--rev", "HEAD~1", file);
@@ -122,5 +136,41 @@ public class DiffAndTextconvTests
         (code, _, error) = Command.Run("", "diff", "--rev", "no-such-revision", file);
         Assert.Equal(2, code);
         Assert.Contains("cannot read", error);
+    }
+
+    [Fact]
+    public void A_revision_or_a_path_never_reaches_git_as_an_option_or_outside_the_repository()
+    {
+        using var dir = new TemporaryDirectory();
+        var file = dir.File("feed.wn");
+        Git(dir.Path, "init", "-q");
+        File.WriteAllText(file, Alder);
+        Git(dir.Path, "add", ".");
+        Git(dir.Path, "commit", "-q", "-m", "first");
+        var written = dir.File("written-by-git");
+        // Reproductions: git once took these for its own options, writing or reading a file.
+        foreach (var revision in new[] { $"--output={written}", "-O/etc/passwd", "-", "HEAD:feed.wn", "HEAD --output=x" })
+        {
+            var (code, output, error) = Command.Run("", "diff", $"--rev={revision}", file);
+            Assert.True(code == 2 && error.Contains("cannot read"), $"{revision}: {code} {output} {error}");
+        }
+        Assert.False(File.Exists(written));
+        // A file outside the working tree, or inside the repository's own folder, is refused by its place.
+        using var outside = new TemporaryDirectory();
+        File.WriteAllText(outside.File("feed.wn"), Alder);
+        var (outsideCode, _, outsideError) = Command.Run("", "diff", "--rev", "HEAD", outside.File("feed.wn"));
+        Assert.Equal(2, outsideCode);
+        Assert.Contains("cannot read", outsideError);
+        var (gitCode, _, gitError) = Command.Run("", "diff", "--rev", "HEAD", Path.Combine(dir.Path, ".git", "HEAD"));
+        Assert.Equal(2, gitCode);
+        Assert.Contains("not inside a git working tree", gitError);
+        // A file in a folder of the repository is named by its path there; the revision is any commit-ish.
+        Directory.CreateDirectory(dir.File("sub"));
+        File.Move(file, dir.File("sub/feed.wn"));
+        Git(dir.Path, "add", "-A");
+        Git(dir.Path, "commit", "-q", "-m", "moved");
+        var (subCode, subOutput, subError) = Command.Run("", "diff", "--rev", "main", dir.File("sub/feed.wn"));
+        Assert.True(subCode == 0, subError);
+        Assert.Contains("no result moved", subOutput);
     }
 }

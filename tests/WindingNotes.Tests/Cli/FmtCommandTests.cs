@@ -83,4 +83,70 @@ public class FmtCommandTests
         const string broken = "core K1 rating (  broken  \nground   N\n";
         Assert.Equal((0, "core K1 rating (  broken  \nground N\n", ""), Command.Run(broken, "fmt", "-"));
     }
+
+    [Fact]
+    public void Owner_group_and_mode_are_kept_and_a_killed_run_leaves_nothing_behind()
+    {
+        if (!OperatingSystem.IsLinux()) return;
+        using var dir = new TemporaryDirectory();
+        var file = dir.File("a.wn");
+        File.WriteAllText(file, Messy);
+        File.SetUnixFileMode(file, UnixFileMode.UserRead | UnixFileMode.UserWrite);
+        // Only root may give a file away; elsewhere the owner is the user's own and kept as well.
+        var root = Environment.UserName == "root";
+        if (root)
+        {
+            using var chown = System.Diagnostics.Process.Start("chown", ["1234:5678", file])!;
+            chown.WaitForExit();
+        }
+        var before = Owner(file);
+        var leftover = dir.File(".a.wn.windingnotes-fmt.2147483646.tmp");
+        File.WriteAllText(leftover, "left by a run that was killed");
+
+        Assert.Equal(0, Command.Run("", "fmt", file).Code);
+
+        Assert.Equal(Tidy, File.ReadAllText(file));
+        Assert.Equal(UnixFileMode.UserRead | UnixFileMode.UserWrite, File.GetUnixFileMode(file));
+        Assert.Equal(before, Owner(file));
+        if (root) Assert.Equal("1234:5678", before);
+        Assert.False(File.Exists(leftover));
+        Assert.Equal(["a.wn"], Directory.GetFiles(dir.Path).Select(Path.GetFileName));
+    }
+
+    private static string Owner(string path)
+    {
+        var stat = System.Diagnostics.Process.Start(new System.Diagnostics.ProcessStartInfo("stat", ["-c", "%u:%g", path]) { RedirectStandardOutput = true })!;
+        var text = stat.StandardOutput.ReadToEnd().Trim();
+        stat.WaitForExit();
+        return text;
+    }
+
+    [Fact]
+    public void Hard_links_read_only_files_and_links_out_of_their_folder_are_refused_and_left_as_they_were()
+    {
+        if (!OperatingSystem.IsLinux()) return;
+        using var dir = new TemporaryDirectory();
+        using var elsewhere = new TemporaryDirectory();
+        var linked = dir.File("linked.wn");
+        File.WriteAllText(linked, Messy);
+        System.Diagnostics.Process.Start("ln", [linked, dir.File("other-name.wn")])!.WaitForExit();
+        var readOnly = dir.File("read-only.wn");
+        File.WriteAllText(readOnly, Messy);
+        File.SetUnixFileMode(readOnly, UnixFileMode.UserRead | UnixFileMode.GroupRead);
+        var outside = elsewhere.File("outside.wn");
+        File.WriteAllText(outside, Messy);
+        File.CreateSymbolicLink(dir.File("to-outside.wn"), outside);
+        Directory.CreateDirectory(dir.File("sub"));
+        File.WriteAllText(dir.File("sub/inside.wn"), Messy);
+        File.CreateSymbolicLink(dir.File("to-inside.wn"), dir.File("sub/inside.wn"));
+
+        var (code, _, error) = Command.Run("", "fmt", linked, readOnly, dir.File("to-outside.wn"), dir.File("to-inside.wn"));
+
+        Assert.Equal(2, code);
+        Assert.Contains("has 2 names (hard links)", error);
+        Assert.Contains("it is read-only", error);
+        Assert.Contains("outside the folder it was named from", error);
+        foreach (var f in new[] { linked, dir.File("other-name.wn"), readOnly, outside }) Assert.Equal(Messy, File.ReadAllText(f));
+        Assert.Equal(Tidy, File.ReadAllText(dir.File("sub/inside.wn")));
+    }
 }

@@ -11,7 +11,7 @@ public class ProgressTests
         var output = new StringWriter();
         var error = new StringWriter();
         var input = SweepTests.Variable("sweep BR from 0 % to 100 % step 0.1 %");
-        var code = WindingNotes.Cli.Cli.Run(["check", "-"], output, error, new StringReader(input));
+        var code = WindingNotes.Cli.Cli.Run(["check", "-"], output, error, new MemoryStream(System.Text.Encoding.UTF8.GetBytes(input)));
         Assert.Equal(0, code);
         Assert.Equal("", error.ToString());
         Assert.EndsWith("1 file: 0 errors, 0 warnings, 0 of 0 checks passed\n", output.ToString().Replace("\r\n", "\n"));

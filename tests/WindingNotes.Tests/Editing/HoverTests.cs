@@ -21,6 +21,18 @@ public class HoverTests
         return text.Insert(index, Cursor.Marker);
     }
 
+    [Theory]
+    [InlineData("three-phase-load", "three-phase-load pumps", "pumps")]
+    [InlineData("three-phase-core", "core T1", "T1")]
+    public void Hover_on_a_three_phase_element_gives_its_sequence_components(string name, string line, string word)
+    {
+        var text = Cursor.Example("maple-ford-station-unit.wn");
+        var index = text.IndexOf(word, text.IndexOf(line, StringComparison.Ordinal), StringComparison.Ordinal) + 1;
+        var result = Check(text.Insert(index, Cursor.Marker));
+        Assert.Contains(name == "three-phase-core" ? "vector group Dyn11" : "voltage unbalance |V2|/|V1| 0.2027 %", result);
+        Snapshot.Match(result, $"Data/editing/hover/{name}.txt");
+    }
+
     [Fact]
     public void Hover_on_LV_shows_its_17_1_amperes()
     {

@@ -29,8 +29,17 @@ public class InlayHintTests
     [InlineData("cedar-hollow-bench-sweep.wn")]
     [InlineData("pine-ridge-fault-study.wn")]
     [InlineData("willow-bend-tolerance-band.wn")]
+    [InlineData("maple-ford-station-unit.wn")]
     public void The_examples_show_their_results_at_line_ends(string example) =>
         Snapshot.Match(Render(Cursor.Example(example)), $"Data/editing/hints/{Path.GetFileNameWithoutExtension(example)}.txt");
+
+    [Fact]
+    public void Three_phase_lines_show_line_to_line_voltages_and_the_vector_group()
+    {
+        var lines = Render(Cursor.Example("maple-ford-station-unit.wn")).Split('\n');
+        Assert.EndsWith("⟨Dyn11⟩", lines.Single(l => l.StartsWith("core T1")));
+        Assert.Contains("⟨ab 461.2 V, bc 462.3 V, ca 462.8 V; unbalance 0.2027 %⟩", lines.Single(l => l.StartsWith("three-phase-load pumps")));
+    }
 
     [Fact]
     public void Every_kind_of_line_has_its_hint() => Snapshot.Match(Render(Fixtures.Tapped), "Data/editing/hints/tapped.txt");

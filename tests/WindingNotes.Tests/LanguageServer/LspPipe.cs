@@ -58,6 +58,21 @@ public sealed class LspPipe : IAsyncDisposable
         }
     }
 
+    /// <summary>Bytes as given, framing and all: for faults of the framing.</summary>
+    public async Task SendFramed(string raw)
+    {
+        await sending.WaitAsync();
+        try
+        {
+            await stream.WriteAsync(Encoding.UTF8.GetBytes(raw));
+            await stream.FlushAsync();
+        }
+        finally
+        {
+            sending.Release();
+        }
+    }
+
     /// <summary>The whole response: its "result" or its "error".</summary>
     public async Task<JsonObject> Call(string method, string parameters)
     {

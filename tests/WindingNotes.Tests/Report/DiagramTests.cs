@@ -164,7 +164,87 @@ public class DiagramTests
     public void The_network_drawing_is_wired_as_the_network(string name, string kind)
     {
         if (kind != "network") return;
-        AssertWiredAsTheNetwork(Evaluator.Evaluate(File.ReadAllText(PathOf(name)), name), name);
+        var evaluation = Evaluator.Evaluate(File.ReadAllText(PathOf(name)), name);
+        AssertWiredAsTheNetwork(evaluation, name);
+        AssertEarthsClear(NetworkDiagram.Draw(evaluation), name);
+    }
+
+    /// <summary>The wire segments of a drawing: its lines and the legs of its polylines.</summary>
+    private static List<(double X1, double Y1, double X2, double Y2)> Wires(string svg)
+    {
+        var segments = new List<(double, double, double, double)>();
+        double D(string v) => double.Parse(v, System.Globalization.CultureInfo.InvariantCulture);
+        foreach (var e in Parse(svg).Descendants().Where(e => e.Attribute("class")?.Value == "wire"))
+        {
+            if (e.Name == SvgNs + "line") segments.Add((D(e.Attribute("x1")!.Value), D(e.Attribute("y1")!.Value), D(e.Attribute("x2")!.Value), D(e.Attribute("y2")!.Value)));
+            else if (e.Name == SvgNs + "polyline")
+            {
+                var p = e.Attribute("points")!.Value.Split(' ').Select(xy => xy.Split(',').Select(D).ToArray()).ToList();
+                for (var i = 0; i + 1 < p.Count; i++) segments.Add((p[i][0], p[i][1], p[i + 1][0], p[i + 1][1]));
+            }
+        }
+        return segments;
+    }
+
+    /// <summary>Whether a segment passes through a box (Liang and Barsky's clipping: the part of the segment inside each slab).</summary>
+    private static bool Crosses((double X1, double Y1, double X2, double Y2) s, double left, double top, double right, double bottom)
+    {
+        double t0 = 0, t1 = 1;
+        foreach (var (p, q) in new[] { (s.X1 - s.X2, s.X1 - left), (s.X2 - s.X1, right - s.X1), (s.Y1 - s.Y2, s.Y1 - top), (s.Y2 - s.Y1, bottom - s.Y1) })
+        {
+            if (p == 0)
+            {
+                if (q < 0) return false;
+                continue;
+            }
+            var t = q / p;
+            if (p < 0) t0 = Math.Max(t0, t);
+            else t1 = Math.Min(t1, t);
+        }
+        return t0 <= t1;
+    }
+
+    /// <summary>
+    /// No wire but an earth's own comes within 2 px of its bars (7 px either side of its lead, 7 to
+    /// 13 px below its top): an earth drawn over another lead makes that lead look earthed.
+    /// </summary>
+    private static void AssertEarthsClear(Drawing drawing, string what)
+    {
+        var wires = Wires(drawing.Svg);
+        foreach (var (x, y) in drawing.Earths)
+        {
+            bool Own(double px, double py) => Math.Abs(px - x) <= 7.01 && py >= y - 0.01 && py <= y + 13.01;
+            foreach (var w in wires)
+                if (!(Own(w.X1, w.Y1) && Own(w.X2, w.Y2)) && Crosses(w, x - 9, y + 5, x + 9, y + 15))
+                    Assert.Fail($"{what}: the wire from ({w.X1}, {w.Y1}) to ({w.X2}, {w.Y2}) runs through the earth at ({x}, {y})");
+        }
+    }
+
+    [Fact]
+    public void Values_within_rounding_of_the_largest_of_their_kind_are_drawn_as_zero()
+    {
+        // A 1 TΩ leak beside the planer draws about 0.2 nA (240 V / 1e12 Ω), some 1e-11 of the planer's
+        // 17 A: below what the solve resolves, so it is drawn as zero (the rule the result diff counts by),
+        // never as "228.1 pA" or a loading of "1.3E-09 %".
+        var text = File.ReadAllText(Command.Example("alder-creek-boost.wn")) + "load leak X1 H2 impedance 1e12 ohm\n";
+        var evaluation = Wn.Solved(text);
+        Assert.InRange(evaluation.Normal!.Load("leak").Current.Magnitude, 1e-10, 1e-9);
+        var texts = Parse(NetworkDiagram.Draw(evaluation).Svg).Descendants(SvgNs + "text").Select(t => t.Value).ToList();
+        var leak = texts.IndexOf("load leak");
+        Assert.Equal(["228.1 V", "0.000 A", "0.000 W, pf 1.00"], texts.Skip(leak + 1).Take(3));
+        Assert.DoesNotContain(texts, t => t.Contains("pA") || t.Contains("nA") || t.Contains("E-"));
+    }
+
+    [Fact]
+    public void An_earth_at_the_end_of_a_variable_autotransformer_winding_keeps_clear_of_the_brush_output()
+    {
+        // Cedar Hollow: A, the winding's top end, is earthed; the brush's lead rises past it to the heater.
+        // The earth used to hang over that lead, 8 px from it with bars 7 px wide, so the output looked earthed.
+        var evaluation = Evaluator.Evaluate(File.ReadAllText(Command.Example("cedar-hollow-bench-sweep.wn")), "c.wn");
+        var drawing = NetworkDiagram.Draw(evaluation);
+        // The earths of the supply, the winding's end A and the heater.
+        Assert.Equal(3, drawing.Earths.Count);
+        AssertEarthsClear(drawing, "cedar-hollow-bench-sweep.wn");
     }
 
     [Fact]
@@ -175,6 +255,7 @@ public class DiagramTests
             var evaluation = Wn.Eval(RandomNetworks.Write(seed));
             AssertLegible(NetworkDiagram.Draw(evaluation), $"network of random network {seed}");
             AssertWiredAsTheNetwork(evaluation, $"random network {seed}");
+            AssertEarthsClear(NetworkDiagram.Draw(evaluation), $"random network {seed}");
             AssertLegible(PhasorDiagram.Draw(evaluation, evaluation.Normal!), $"phasors of random network {seed}");
         }
     }
@@ -200,6 +281,47 @@ public class DiagramTests
         Assert.Contains("nodes X1, X3", texts);
         Assert.Contains("V LV:X2-X3", texts);
         Assert.Contains("I bench_a", texts);
+    }
+
+    /// <summary>The grids of a phasor drawing, by their captions, with the arrow labels and the largest current ring drawn on each.</summary>
+    private static List<(string Caption, List<string> Labels, double OuterCurrent)> Grids(string svg)
+    {
+        var texts = Parse(svg).Descendants(SvgNs + "text")
+            .Select(t => (Class: t.Attribute("class")!.Value, X: double.Parse(t.Attribute("x")!.Value, System.Globalization.CultureInfo.InvariantCulture), Text: t.Value)).ToList();
+        var captions = texts.Where(t => t.Class == "note" && t.Text.StartsWith("nodes ")).ToList();
+        int GridOf(double x) => captions.FindLastIndex(c => c.X <= x);
+        static double Amperes(string ring) => double.Parse(ring.Split(' ')[0], System.Globalization.CultureInfo.InvariantCulture) * (ring.EndsWith(" kA") ? 1e3 : ring.EndsWith(" mA") ? 1e-3 : 1);
+        return [.. captions.Select((c, i) => (c.Text,
+            texts.Where(t => t.Class is "vlabel" or "ilabel" && GridOf(t.X) == i).Select(t => t.Text).ToList(),
+            texts.Where(t => t.Class == "igrid" && GridOf(t.X) == i).Select(t => Amperes(t.Text)).DefaultIfEmpty(0).Max()))];
+    }
+
+    [Fact]
+    public void A_current_from_the_grounded_neutral_goes_on_the_grid_of_its_own_voltage_level()
+    {
+        // Pine Ridge, fault F_half from X1 to the grounded neutral X2: some 29 kA on the 120 V side. It
+        // used to be drawn on the 7.2 kV grid (X1, shorted to the neutral, had no voltage to give it a level).
+        var pine = Evaluator.Evaluate(File.ReadAllText(Command.Example("pine-ridge-fault-study.wn")), "p.wn");
+        var half = pine.Cases.Single(c => c.Case.Name == "fault F_half");
+        var amperes = half.Solution.FaultCurrent.Magnitude;
+        Assert.InRange(amperes, 20e3, 40e3);
+        var grids = Grids(PhasorDiagram.Draw(pine, half).Svg);
+        Assert.Equal(["nodes H1", "nodes X1, X3"], grids.Select(g => g.Caption));
+        Assert.Contains("utility", grids[0].Labels);
+        Assert.Contains("F_half", grids[1].Labels);
+        // Each grid's current rings reach its own largest current: kiloamperes on the secondary, hundreds of amperes on the primary.
+        Assert.True(grids[1].OuterCurrent >= amperes, $"{grids[1].OuterCurrent} A");
+        Assert.True(grids[0].OuterCurrent < amperes / 10, $"{grids[0].OuterCurrent} A");
+        // The bolted fault across the two outer ends too: both are near zero under the fault, yet the current is on the secondary's grid.
+        var bolted = Grids(PhasorDiagram.Draw(pine, pine.Cases.Single(c => c.Case.Name == "fault F_bolted")).Svg);
+        Assert.Contains(bolted, g => g.Caption == "nodes X1, X3" && g.Labels.Contains("F_bolted"));
+
+        // Birchwood: load bench_b runs from the grounded centre tap X2 to X3, a 120 V load.
+        var birchwood = Evaluator.Evaluate(File.ReadAllText(Command.Example("birchwood-service.wn")), "b.wn");
+        var normal = Grids(PhasorDiagram.Draw(birchwood, birchwood.Normal!).Svg);
+        Assert.Equal(["nodes H1", "nodes X1, X3"], normal.Select(g => g.Caption));
+        Assert.Contains("bench_b", normal[1].Labels);
+        Assert.DoesNotContain("bench_b", normal[0].Labels);
     }
 
     [Fact]
@@ -231,6 +353,30 @@ public class DiagramTests
         Assert.StartsWith("no result of the sweep matches 'loads.*.nothing'", problem);
         Assert.Null(SweepPlot.Draw(Wn.Eval(File.ReadAllText(Command.Example("alder-creek-boost.wn"))), null, out problem));
         Assert.Equal("the file has no sweep", problem);
+    }
+
+    /// <summary>The built command in a process of its own, started in the repository's folder, so a relative path is relative to it.</summary>
+    private static (int Code, string Out, string Err) InRepository(params string[] args)
+    {
+        var start = new System.Diagnostics.ProcessStartInfo("dotnet") { WorkingDirectory = Snapshot.RepositoryRoot, RedirectStandardOutput = true, RedirectStandardError = true };
+        foreach (var a in args.Prepend(typeof(WindingNotes.Cli.Cli).Assembly.Location)) start.ArgumentList.Add(a);
+        using var process = System.Diagnostics.Process.Start(start)!;
+        var error = process.StandardError.ReadToEndAsync();
+        var output = process.StandardOutput.ReadToEnd();
+        process.WaitForExit();
+        return (process.ExitCode, output, error.Result);
+    }
+
+    [Theory]
+    [InlineData("network", "Network of examples/cedar-hollow-bench-sweep.wn, with the results of the normal case")]
+    [InlineData("phasors", "Phasors of examples/cedar-hollow-bench-sweep.wn, case normal")]
+    [InlineData("sweep", "Sweep of BR in examples/cedar-hollow-bench-sweep.wn")]
+    public void The_title_carries_the_path_as_given_on_the_command_line(string kind, string title)
+    {
+        var (code, svg, error) = InRepository("diagram", "examples/cedar-hollow-bench-sweep.wn", "--kind", kind);
+        Assert.True(code == 0, error);
+        Assert.Equal(title, Parse(svg).Descendants(SvgNs + "text").Single(t => t.Attribute("class")?.Value == "title").Value);
+        Assert.DoesNotContain(Snapshot.RepositoryRoot, svg);
     }
 
     [Fact]

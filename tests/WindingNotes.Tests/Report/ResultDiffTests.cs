@@ -93,12 +93,124 @@ public class ResultDiffTests
         Assert.Contains("gone (was pass)  expect loading LV below 100 %: was 82.12 %", text);
     }
 
+    private static string Bigger => Alder.Replace("power 3.2 kW pf 0.82 lagging", "power 4.4 kW pf 0.85 lagging");
+
+    [Fact]
+    public void A_diagnostic_that_quotes_a_number_is_one_change_with_the_old_and_new_value()
+    {
+        var diff = Diff(Alder, Bigger);
+        var caution = Assert.Single(diff.Diagnostics, d => d.Code == "caution-above-supply");
+        Assert.False(caution.Added || caution.Gone);
+        Assert.Contains("reaches 228.1 V", caution.Old);
+        Assert.Contains("reaches 227.9 V", caution.New);
+        var text = DiffReport.Text(diff);
+        Assert.Contains("  changed  info caution-above-supply: the output at load 'planer' reaches 228.1 -> 227.9 V, above the 208.0 V of supply 'mains'", text);
+        Assert.DoesNotContain("gone  info caution-above-supply", text);
+        Assert.Contains("reaches 228.1 → 227.9 V, above the 208.0 V", DiffReport.Markdown(diff));
+    }
+
+    [Fact]
+    public void Percent_quantities_change_in_percentage_points()
+    {
+        // Loading 82.12 % to 109.0 % is +26.9 points (a relative +32.77 % would be a percent of a percent).
+        var diff = Diff(Alder, Bigger);
+        var text = DiffReport.Text(diff);
+        Assert.Contains("expect loading LV below 100 %: 82.12 % -> 109.0 % (+26.9 points)", text);
+        Assert.Contains("    loading: 82.12 % -> 109.0 % (+26.9 points)", text);
+        Assert.Contains("    regulation: 0.3040 % -> 0.3984 % (+0.0945 points)", text);
+        Assert.DoesNotContain("82.12 % -> 109.0 % (+32.77 %)", text);
+    }
+
+    [Fact]
+    public void The_diff_leads_with_what_a_reviewer_decides_on_and_ratings_crossed_are_told_apart()
+    {
+        var diff = Diff(Alder, Bigger);
+        Assert.Equal(["winding 'HV' carries 109.0 % of its rated current", "winding 'LV' carries 109.0 % of its rated current"],
+            diff.Diagnostics.Where(d => d.RatingCrossed).Select(d => d.New));
+        Assert.Equal("1 expectation now fails; 2 ratings crossed; 31 results moved by more than 0.1 %; 1 diagnostic changed", DiffReport.Summary(diff));
+        // Going back crosses them the other way.
+        Assert.All(Diff(Bigger, Alder).Diagnostics.Where(d => d.RatingCrossed), d => Assert.True(d.Gone));
+        Assert.Contains("  no longer over  winding 'HV' carries 109.0 % of its rated current", DiffReport.Text(Diff(Bigger, Alder)));
+
+        var text = DiffReport.Text(diff);
+        var order = new[] { "Expectations", "Ratings crossed", "Largest moves", "Diagnostics", "Results by element" }.Select(h => text.IndexOf("\n" + h + "\n")).ToList();
+        Assert.All(order, i => Assert.True(i > 0));
+        Assert.Equal(order.Order(), order);
+        // The largest moves: copper losses go with the square of the current, +76.28 %.
+        Assert.Contains("Largest moves\n  totals copper loss: 8.195 W -> 14.45 W (+76.28 %)\n", text);
+    }
+
+    /// <summary>What a pull request shows of a Markdown diff before anything is unfolded: each &lt;details&gt; block as its summary line.</summary>
+    private static List<string> Visible(string markdown)
+    {
+        var lines = new List<string>();
+        var folded = false;
+        foreach (var line in markdown.Split('\n'))
+        {
+            if (line.StartsWith("<details><summary>")) { lines.Add(line); folded = true; }
+            else if (line == "</details>") folded = false;
+            else if (!folded) lines.Add(line);
+        }
+        return lines;
+    }
+
+    [Fact]
+    public void The_markdown_diff_of_a_one_load_change_fits_on_one_screen_with_its_summary_first()
+    {
+        var markdown = DiffReport.Markdown(Diff(Alder, Bigger));
+        var lines = markdown.Split('\n');
+        Assert.StartsWith("### Results of `new.wn` against `old.wn`", lines[0]);
+        Assert.Equal("**1 expectation now fails; 2 ratings crossed; 31 results moved by more than 0.1 %; 1 diagnostic changed**", lines[2]);
+        // Every result is there, folded by element, each fold with a one-line summary.
+        Assert.Equal(8, lines.Count(l => l.StartsWith("<details><summary>")));
+        Assert.Contains("<details><summary>section HV: 5 results, the most: loss +76.28 %</summary>", lines);
+        var visible = Visible(markdown).Where(l => l.Length > 0).ToList();
+        // A screen of 40 lines, blank lines left out as a rendered comment leaves them.
+        Assert.True(visible.Count <= 40, $"{visible.Count} lines before unfolding:\n{string.Join('\n', visible)}");
+    }
+
+    [Fact]
+    public void A_sweep_is_compared_point_by_point_and_told_by_its_largest_move_and_where()
+    {
+        var cedar = File.ReadAllText(Command.Example("cedar-hollow-bench-sweep.wn"));
+        // The line tap 10 turns lower: the output rises most where the brush is furthest above the tap.
+        var lower = cedar.Replace("tap LINE on W at 200 turns", "tap LINE on W at 190 turns");
+        var (old, @new) = (Wn.Eval(cedar), Wn.Eval(lower));
+        var diff = ResultDiff.Compare(old, @new);
+        Assert.DoesNotContain(diff.Values, v => v.Case.StartsWith("sweep "));
+        var heater = Assert.Single(diff.Sweeps, s => s.Label == "load heater voltage");
+        // By hand from the two evaluations: the relative change of the heater's voltage at each point.
+        var moves = old.Cases.Where(c => c.Case.IsSweepPoint).Select(c =>
+        {
+            var before = c.Load("heater").Voltage.Magnitude;
+            var after = @new.Cases.Single(n => n.Case.Name == c.Case.Name).Load("heater").Voltage.Magnitude;
+            return (c.Case.Name, Move: Math.Abs(after - before) / before);
+        }).ToList();
+        Assert.Equal(11, heater.Points);
+        Assert.Equal(moves.Count(m => m.Move > ResultDiff.DefaultThreshold), heater.Moved);
+        Assert.Equal(moves.MaxBy(m => m.Move).Name, heater.Largest.Case);
+        var text = DiffReport.Text(diff);
+        Assert.Contains($"  sweep: load heater\n    voltage over the sweep: ", text);
+        Assert.Contains($" at {heater.Where}; {heater.Moved} of 11 points)", text);
+    }
+
+    [Fact]
+    public void A_band_is_compared_by_its_ends()
+    {
+        var willow = File.ReadAllText(Command.Example("willow-bend-tolerance-band.wn"));
+        var diff = Diff(willow, willow.Replace("400 V +- 5 %", "400 V +- 10 %"));
+        Assert.DoesNotContain(diff.Values, v => v.Label.StartsWith("band of"));
+        var h1 = Assert.Single(diff.Bands, b => b.Case == "normal" && b.Label == "node H1 voltage");
+        // The supply's own band: 400 V +- 5 % is 380 V to 420 V, +- 10 % is 360 V to 440 V.
+        Assert.Equal((380.0, 420.0, 360.0, 440.0), (h1.OldMin!.Value, h1.OldMax!.Value, h1.NewMin!.Value, h1.NewMax!.Value));
+        Assert.Contains("    node H1 voltage: 380.0 V to 420.0 V -> 360.0 V to 440.0 V (low -5.263 %, high +4.762 %)", DiffReport.Text(diff));
+    }
+
     [Fact]
     public void The_diff_of_a_design_change_reads_as_expected()
     {
         // A bigger planer on the same unit: the boost winding now runs above its rating.
-        var bigger = Alder.Replace("power 3.2 kW pf 0.82 lagging", "power 4.4 kW pf 0.85 lagging");
-        var diff = Diff(Alder, bigger);
+        var diff = Diff(Alder, Bigger);
         Assert.True(diff.Regressed);
         Snapshot.Match(DiffReport.Text(diff), "Data/diffs/alder-bigger-planer.txt");
         Snapshot.Match(DiffReport.Markdown(diff), "Data/diffs/alder-bigger-planer.md");

@@ -123,7 +123,7 @@ public static class FuzzInputs
 
     // ---- mutations ----
 
-    private static (string, string) Mutate(string text, Random random) => random.Next(18) switch
+    private static (string, string) Mutate(string text, Random random) => random.Next(21) switch
     {
         0 => TokenEdit(text, random, "delete token", (_, _) => ""),
         1 => TokenEdit(text, random, "duplicate token", (t, _) => t + " " + t),
@@ -143,6 +143,11 @@ public static class FuzzInputs
             var depth = Pick([1, 2, 10, 63, 64, 65, 200, 3000], r);
             return r.Next(3) == 0 ? new string('(', depth) + t : new string('(', depth) + t + new string(')', depth);
         }),
+        // Classes of input that once made the formatter change meaning: a sign before a signed value,
+        // a break inside a clause (with any line break, a lone CR too), a clause written twice.
+        17 => TokenEdit(text, random, "sign", (t, r) => Pick(["+ ", "- ", "+ -", "- +", "+", "-"], r) + t),
+        18 => TokenEdit(text, random, "break before", (t, r) => Pick([" \\\n", " \\\r", " \\\r\n", "\\\n  ", " \\\n# why\n", " \\\n\n"], r) + t),
+        19 => TokenEdit(text, random, "repeat clause", (t, r) => $"{t} {Pick(Keywords, r)} {Pick(Numbers, r)}"),
         _ => TokenEdit(text, random, "repeat token", (t, r) => string.Join(" ", Enumerable.Repeat(t, Math.Min(Pick([2, 10, 100, 1999, 2001, 5000], r), 1 + MaxLength / (t.Length + 1))))),
     };
 
@@ -209,7 +214,7 @@ public static class FuzzInputs
         "0", "0.0", "-0", "000", "1", "2", "1e308", "1.7976931348623157e308", "1e309", "-1e308", "1e-308", "4.9e-324", "1e-400",
         "99999999999999999999999999999", "123456789012345678901234567890e-10", "1_000", "1__0", "_1", "1_", "1e", "1e+", "1e-",
         ".5", "5.", "0.1e-5", "1E5", "NaN", "nan", "Infinity", "inf", "-inf", "0x10", "1,5", "1.2.3", "1e1e1", "2²", "٣", "1/0",
-        "0/0", "(1e308 * 10)", "-(1e-308 / 1e308)", "sqrt(-1)", "3 + j4", "j0", "1e-20", "1e20", "1e15",
+        "0/0", "(1e308 * 10)", "-(1e-308 / 1e308)", "sqrt(-1)", "3 + j4", "j0", "1e-20", "1e20", "1e15", "-10", "2.5", "1e-12", "1e-200 * 1e-200",
     ];
 
     private static readonly string[] Characters =

@@ -113,12 +113,7 @@ public sealed class FuzzTarget(FuzzInput input, TimeSpan timeLimit, Cancellation
         if (formatted is null) return;
         Do("format again", () =>
         {
-            var again = Parser.Parse(formatted);
-            if (Formatter.Format(again) != formatted) Fail($"formatting is not idempotent:\n{Quote(formatted)}\n--- formatted again ---\n{Quote(Formatter.Format(again))}");
-            var (before, after) = (Statements(e.Syntax), Statements(again));
-            if (before != after) Fail($"formatting changed the statements:\n{First(before, after)}");
-            var (codesBefore, codesAfter) = (Codes(e.Syntax.Diagnostics), Codes(again.Diagnostics));
-            if (codesBefore != codesAfter) Fail($"formatting changed the syntax diagnostics: {codesBefore} -> {codesAfter}");
+            if (FormatProperty.Problem(e.Syntax, formatted, bind: !input.IsLarge) is { } problem) Fail(problem);
         });
         Do("formatting edits", () =>
         {
@@ -127,54 +122,6 @@ public sealed class FuzzTarget(FuzzInput input, TimeSpan timeLimit, Cancellation
                 Fail("the formatting edits do not give the formatted text");
         });
     }
-
-    /// <summary>The statements and error lines in order, as structure: clauses in the grammar's order, values as trees.</summary>
-    private static string Statements(SyntaxTree tree)
-    {
-        var o = new StringBuilder();
-        foreach (var line in tree.Lines)
-        {
-            if (line.Error is not null) o.Append("error ").AppendJoin(' ', line.Tokens.Where(t => !t.IsTrivia).Select(t => t.Text)).Append('\n');
-            else if (line.Statement is { } s)
-            {
-                o.Append(s.Keyword.Text);
-                Elements(o, s.Head.Elements);
-                foreach (var c in s.Clauses.Select((c, i) => (c, i)).OrderBy(x => Array.IndexOf(s.Form.Clauses, x.c.Form)).ThenBy(x => x.i).Select(x => x.c))
-                {
-                    o.Append(" [").Append(c.Keyword?.Text);
-                    Elements(o, c.Elements);
-                    o.Append(']');
-                }
-                o.Append('\n');
-            }
-        }
-        return o.ToString();
-    }
-
-    private static void Elements(StringBuilder o, IEnumerable<ElementSyntax> elements)
-    {
-        foreach (var element in elements)
-            o.Append(' ').Append(element switch
-            {
-                NameSyntax n => $"name:{n.Name.Text}{(n.SectionFrom is null ? "" : $":{n.SectionFrom.Text}-{n.SectionTo?.Text}")}",
-                WordSyntax w => $"word:{w.Text}",
-                ValueSyntax v => $"value:{Tree(v.Expression)}{(v.Angle is null ? "" : $"∠{Tree(v.Angle)}")}{(v.Tolerance is null ? "" : $"±{v.PlusMinus?.Text}{Tree(v.Tolerance)}")}",
-                _ => element.GetType().Name,
-            });
-    }
-
-    private static string Tree(ExpressionSyntax e) => e switch
-    {
-        NumberSyntax n => $"{n.Number.Text}{(n.Unit is null ? "" : "_" + n.Unit.Text)}",
-        ImaginarySyntax i => $"j{i.Number.Text}{(i.Unit is null ? "" : "_" + i.Unit.Text)}",
-        ComplexSyntax c => $"(cx {Tree(c.Real)} {c.Operator.Text} {Tree(c.Imaginary)})",
-        NameSyntaxExpression n => n.Name.Text,
-        CallSyntax c => $"({c.Function.Text} {Tree(c.Argument)})",
-        ParenthesisedSyntax p => $"(paren {Tree(p.Inner)})",
-        UnarySyntax u => $"({u.Operator.Text}u {Tree(u.Operand)})",
-        BinarySyntax b => $"({b.Operator.Text} {Tree(b.Left)} {Tree(b.Right)})",
-        _ => e.GetType().Name,
-    };
 
     private static string Codes(IEnumerable<Diagnostic> diagnostics) => string.Join(",", diagnostics.Select(d => d.Code).Order(StringComparer.Ordinal));
 
@@ -321,15 +268,7 @@ public sealed class FuzzTarget(FuzzInput input, TimeSpan timeLimit, Cancellation
         return o.Append(text.Text, at, text.Length - at).ToString();
     }
 
-    private static string Quote(string text) => text.Length <= 2000 ? text : text[..2000] + "…";
-
-    private static string First(string a, string b)
-    {
-        var (x, y) = (a.Split('\n'), b.Split('\n'));
-        for (var i = 0; i < Math.Max(x.Length, y.Length); i++)
-            if (x.ElementAtOrDefault(i) != y.ElementAtOrDefault(i)) return $"  before: {x.ElementAtOrDefault(i)}\n  after:  {y.ElementAtOrDefault(i)}";
-        return "";
-    }
+    private static string Quote(string text) => FormatProperty.Quote(text);
 }
 
 /// <summary>

@@ -3,11 +3,14 @@ namespace WindingNotes.Tests.Support;
 /// <summary>Runs the <c>windingnotes</c> command in-process with its own standard streams.</summary>
 public static class Command
 {
-    public static (int Code, string Out, string Err) Run(string input, params string[] args)
+    public static (int Code, string Out, string Err) Run(string input, params string[] args) => Run(System.Text.Encoding.UTF8.GetBytes(input), args);
+
+    /// <summary>The command with these bytes on its standard input.</summary>
+    public static (int Code, string Out, string Err) Run(byte[] input, params string[] args)
     {
         var output = new StringWriter();
         var error = new StringWriter();
-        var code = WindingNotes.Cli.Cli.Run(args, output, error, new StringReader(input));
+        var code = WindingNotes.Cli.Cli.Run(args, output, error, new MemoryStream(input));
         return (code, output.ToString(), error.ToString());
     }
 

@@ -10,6 +10,9 @@ public sealed record Drawing(string Svg, IReadOnlyList<Box> Labels, double Width
 {
     /// <summary>In a network drawing: where each terminal meets its element, so a test can follow the wires from it.</summary>
     public IReadOnlyList<(string Point, double X, double Y)> Terminals { get; init; } = [];
+
+    /// <summary>In a network drawing: the top of each earth symbol, so a test can check that no other lead runs through one.</summary>
+    public IReadOnlyList<(double X, double Y)> Earths { get; init; } = [];
 }
 
 /// <summary>
@@ -47,6 +50,7 @@ public static class NetworkDiagram
         private readonly Svg svg = new();
         private readonly List<Pin> pins = [];
         private readonly List<(string, double, double)> terminals = [];
+        private readonly List<(double, double)> earths = [];
         private readonly CaseResult? results = evaluation.Normal;
         private readonly HashSet<int> railNodes = RailNodes(network);
         private double elementsTop;
@@ -60,6 +64,11 @@ public static class NetworkDiagram
         private readonly Dictionary<int, CoreResult> coreResults = evaluation.Normal?.Cores.DistinctBy(x => x.Core.Index).ToDictionary(x => x.Core.Index) ?? [];
         private readonly Dictionary<int, SupplyResult> supplyResults = evaluation.Normal?.Supplies.DistinctBy(x => x.Supply.Index).ToDictionary(x => x.Supply.Index) ?? [];
         private readonly Dictionary<int, LoadResult> loadResults = evaluation.Normal?.Loads.DistinctBy(x => x.Load.Index).ToDictionary(x => x.Load.Index) ?? [];
+        // The largest current, voltage and power of the normal case: what is within 1e-9 of them is the
+        // solve's rounding (as the result diff counts it) and is drawn as zero, never as "0.07358 pA".
+        private readonly double currentScale = evaluation.Normal is { } n ? n.Sections.Select(x => x.Current.Magnitude).Concat(n.Supplies.Select(x => x.Current.Magnitude)).Concat(n.Loads.Select(x => x.Current.Magnitude)).DefaultIfEmpty(0).Max() : 0;
+        private readonly double voltageScale = evaluation.Normal?.Points.Select(p => p.Voltage.Magnitude).DefaultIfEmpty(0).Max() ?? 0;
+        private readonly double powerScale = evaluation.Normal is { } n ? n.Supplies.Select(x => x.Power.Magnitude).Concat(n.Loads.Select(x => x.Power.Magnitude)).DefaultIfEmpty(0).Max() : 0;
         private readonly Dictionary<string, CaseResult> faultCases = evaluation.Cases.Where(x => x.Case.Fault is not null).DistinctBy(x => x.Case.Fault!.Name).ToDictionary(x => x.Case.Fault!.Name);
 
         public Drawing Draw()
@@ -96,7 +105,7 @@ public static class NetworkDiagram
                 ? $"{Legend()} The network has {elements} supplies, cores, loads and faults, too many to draw legibly: the first {MaxElements} are drawn."
                 : Legend();
             var height = svg.Notes(Margin, bottom + 26, width - 2 * Margin, [legend, .. cautions]) + Margin - 8;
-            return new Drawing(svg.Document(width, height, Symbols.Css), svg.TextBoxes, width, height) { Terminals = terminals };
+            return new Drawing(svg.Document(width, height, Symbols.Css), svg.TextBoxes, width, height) { Terminals = terminals, Earths = earths };
         }
 
         private static (double, double) Next(double x, double bottom, (double Right, double Bottom) element) =>
@@ -185,6 +194,7 @@ public static class NetworkDiagram
                 var at = direct ? x : column ?? x;
                 if (at != x) svg.Line(x, y, at, y);
                 Symbols.Earth(svg, at, y);
+                earths.Add((at, y));
                 return;
             }
             if (node >= 0 && railNodes.Contains(node))
@@ -225,7 +235,7 @@ public static class NetworkDiagram
             // x positions: left columns, left lane, left coil, core, right coil, right lane, right columns.
             var leftLabels = leftCoils.SelectMany(c => Labels(c)).DefaultIfEmpty(0).Max() + 10;
             var rightLabels = rightCoils.SelectMany(c => Labels(c)).DefaultIfEmpty(0).Max() + 10;
-            var leftPins = leftCoils.Sum(c => Points(c).Count(p => railNodes.Contains(NodeOf(p))));
+            var leftPins = leftCoils.Sum(c => Points(c).Count(p => railNodes.Contains(NodeOf(p)) || IsEarth(p)));
             var leftAxis = left + leftPins * ColumnPitch + leftLabels;
             var coreX = leftAxis + 14;
             var rightAxis = coreX + 19;
@@ -304,7 +314,8 @@ public static class NetworkDiagram
         {
             var r = sectionResults.GetValueOrDefault(s.Index);
             if (r is null) return "";
-            return r.Loading is { } loading ? $"{Numbers.Format(r.Current.Magnitude, "A")}, {Numbers.Plain(loading * 100, 3)} %" : Numbers.Format(r.Current.Magnitude, "A");
+            var current = Clean(r.Current.Magnitude, currentScale);
+            return r.Loading is { } loading ? $"{Numbers.Format(current, "A")}, {Numbers.Plain(current == 0 ? 0 : loading * 100, 3)} %" : Numbers.Format(current, "A");
         }
 
         private void DrawCoil(Coil coil, double axis, double top, int outward, double lane, ref int columns)
@@ -336,7 +347,9 @@ public static class NetworkDiagram
                     pins.Add(new Pin(point, NodeOf(point), axis, py, outward) { Column = column });
                     terminals.Add((point, axis, py));
                 }
-                // Earthed and unconnected terminals end at the lane's edge: no lead rises past them there.
+                // An earth takes a column of its own, as wide as the symbol, so the leads of the points
+                // below it rise a column further out, clear of it; an open terminal ends at the lane's edge.
+                else if (IsEarth(point)) Terminal(point, axis, py, outward, column: axis + outward * (lane + ColumnPitch * (1 + columns++)));
                 else Terminal(point, axis, py, outward, column: axis + outward * (lane + 6), named: false);
             }
         }
@@ -389,21 +402,25 @@ public static class NetworkDiagram
         {
             var name = network.Nodes[node].Name;
             var v = results?.PointVoltage(name);
-            return v is { } phasor ? $"{name}: {TextReport.Phasor(phasor, "V").Replace(" angle ", " ∠").Replace(" deg", "°")}" : name;
+            return v is { } phasor ? $"{name}: {TextReport.Phasor(Clean(phasor, voltageScale), "V").Replace(" angle ", " ∠").Replace(" deg", "°")}" : name;
         }
 
         // ---- values ----
 
+        private static double Clean(double value, double scale) => Math.Abs(value) <= 1e-9 * scale ? 0 : value;
+
+        private static System.Numerics.Complex Clean(System.Numerics.Complex value, double scale) => value.Magnitude <= 1e-9 * scale ? 0 : value;
+
         private IReadOnlyList<string> SupplyValues(SupplyNet s)
         {
             var r = supplyResults.GetValueOrDefault(s.Index);
-            return r is null ? [Numbers.Format(s.Voltage.Magnitude, "V")] : [Numbers.Format(r.Voltage.Magnitude, "V"), Numbers.Format(r.Current.Magnitude, "A"), $"{Numbers.Format(r.Power.Magnitude, "VA")}, pf {Numbers.Fixed(r.PowerFactor, 3)}"];
+            return r is null ? [Numbers.Format(s.Voltage.Magnitude, "V")] : [Numbers.Format(Clean(r.Voltage.Magnitude, voltageScale), "V"), Numbers.Format(Clean(r.Current.Magnitude, currentScale), "A"), $"{Numbers.Format(Clean(r.Power.Magnitude, powerScale), "VA")}, pf {Numbers.Fixed(r.PowerFactor, 3)}"];
         }
 
         private IReadOnlyList<string> LoadValues(LoadNet l)
         {
             var r = loadResults.GetValueOrDefault(l.Index);
-            return r is null ? [] : [Numbers.Format(r.Voltage.Magnitude, "V"), Numbers.Format(r.Current.Magnitude, "A"), $"{Numbers.Format(r.Power.Real, "W")}, pf {Numbers.Fixed(r.PowerFactor, 3)}"];
+            return r is null ? [] : [Numbers.Format(Clean(r.Voltage.Magnitude, voltageScale), "V"), Numbers.Format(Clean(r.Current.Magnitude, currentScale), "A"), $"{Numbers.Format(Clean(r.Power.Real, powerScale), "W")}, pf {Numbers.Fixed(r.PowerFactor, 3)}"];
         }
 
         private IReadOnlyList<string> FaultValues(FaultModel f)

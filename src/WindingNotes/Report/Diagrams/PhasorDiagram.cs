@@ -10,9 +10,11 @@ namespace WindingNotes.Report.Diagrams;
 /// section's voltage laid from the node at its far end to the node at its polarity end (so a boost
 /// winding is seen adding to the supply), and the currents of supplies, loads and faults on a scale
 /// of their own. Nodes at very different voltages (the two sides of a step-down unit) get a grid
-/// each, so the low-voltage side is not a speck beside the high-voltage one; a section and a current
-/// go on the grid of the node they start from. A table lists every phasor, so none is lost where
-/// arrows crowd.
+/// each, so the low-voltage side is not a speck beside the high-voltage one. The levels are those of
+/// the normal case, so under a fault a node shorted to the neutral keeps its level's grid; a section
+/// and a current go on the grid of the node they start from, or of their other end where that one is
+/// the reference (a load from the grounded neutral is on the secondary's grid, not the first). A
+/// table lists every phasor, so none is lost where arrows crowd.
 /// </summary>
 public static class PhasorDiagram
 {
@@ -24,22 +26,26 @@ public static class PhasorDiagram
     /// <summary>Node voltages within this ratio of the highest on a grid share it.</summary>
     private const double LevelRatio = 3;
 
-    private sealed record Arrow(string Name, Complex Tail, Complex Value, string Unit, string Style, string Key, int Node);
+    /// <summary>A phasor; <see cref="Node"/> is the node it starts from, <see cref="Other"/> its other end (the same for a node voltage).</summary>
+    private sealed record Arrow(string Name, Complex Tail, Complex Value, string Unit, string Style, string Key, int Node, int Other);
 
     public static Drawing Draw(Evaluation evaluation, CaseResult c)
     {
         var svg = new Svg();
         var arrows = Arrows(c);
-        var levels = Levels(arrows);
-        var radius = levels.Count == 1 ? 190.0 : 125.0;
+        var reference = evaluation.Normal is { } normal && normal.Solution.Network == c.Solution.Network ? normal : c;
+        var levels = Levels(reference);
+        var members = levels.Select(_ => new List<Arrow>()).ToList();
+        foreach (var a in arrows) members[LevelOf(levels, a)].Add(a);
+        var panels = members.Select((m, i) => (Arrows: m, Nodes: levels[i].Names)).Where(p => p.Arrows.Count > 0).DefaultIfEmpty(([], [])).ToList();
+        var radius = panels.Count == 1 ? 190.0 : 125.0;
         var taken = new List<Box>();
         var x = 24.0;
         var top = 82.0;
-        var panels = levels.Select((nodes, i) => arrows.Where(a => nodes.Contains(a.Node)).ToList()).ToList();
-        for (var i = 0; i < panels.Count; i++)
+        foreach (var panel in panels)
         {
-            var caption = levels.Count == 1 ? "" : "nodes " + Shorten(string.Join(", ", panels[i].Where(a => a.Style == "voltage").Select(a => a.Name)), 2 * radius + 40);
-            Panel(svg, taken, panels[i], x + 16 + radius, top + 14 + radius, radius, caption);
+            var caption = panels.Count == 1 ? "" : "nodes " + Shorten(string.Join(", ", panel.Nodes), 2 * radius + 40);
+            Panel(svg, taken, panel.Arrows, x + 16 + radius, top + 14 + radius, radius, caption);
             x += 2 * radius + 80;
         }
 
@@ -51,7 +57,7 @@ public static class PhasorDiagram
         svg.Text("phasor", tx + 22, ty, "strong", NameSize);
         svg.Text("magnitude", magnitudeX, ty, "strong", NameSize, Anchor.End);
         svg.Text("angle", angleX, ty, "strong", NameSize, Anchor.End);
-        foreach (var a in panels.SelectMany(p => p))
+        foreach (var a in panels.SelectMany(p => p.Arrows))
         {
             ty += 14;
             svg.Line(tx, ty - 3.5, tx + 16, ty - 3.5, a.Style);
@@ -77,25 +83,41 @@ public static class PhasorDiagram
         return text.Length <= max ? text : text[..Math.Max(1, max - 1)] + "…";
     }
 
-    /// <summary>Groups of nodes by voltage level: from the highest down, each group holds the nodes within <see cref="LevelRatio"/> of its first.</summary>
-    private static List<HashSet<int>> Levels(List<Arrow> arrows)
+    private sealed record Level(HashSet<int> Nodes, List<string> Names);
+
+    /// <summary>
+    /// Groups of nodes by voltage level in a case: from the highest down, each group holds the nodes
+    /// within <see cref="LevelRatio"/> of its first; nodes at zero (the reference) are in none.
+    /// </summary>
+    private static List<Level> Levels(CaseResult c)
     {
-        var nodes = arrows.Where(a => a.Style == "voltage").OrderByDescending(a => a.Value.Magnitude).ToList();
-        var levels = new List<HashSet<int>>();
+        var network = c.Solution.Network;
+        var scale = c.Points.Select(p => p.Voltage.Magnitude).DefaultIfEmpty(0).Max();
+        var nodes = c.Points.Select(p => (Node: network.Node(p.Point), p.Voltage.Magnitude)).DistinctBy(p => p.Node)
+            .Where(p => p.Magnitude > 1e-9 * scale).ToList();
+        var levels = new List<Level>();
         double top = 0;
-        foreach (var a in nodes)
+        foreach (var (node, magnitude) in nodes.OrderByDescending(p => p.Magnitude))
         {
-            if (levels.Count == 0 || a.Value.Magnitude * LevelRatio < top)
+            if (levels.Count == 0 || magnitude * LevelRatio < top)
             {
-                levels.Add([]);
-                top = a.Value.Magnitude;
+                levels.Add(new Level([], []));
+                top = magnitude;
             }
-            levels[^1].Add(a.Node);
+            levels[^1].Nodes.Add(node);
         }
-        // Arrows from the reference node (a section or a load with one end earthed) join the first group.
-        if (levels.Count == 0) levels.Add([]);
-        foreach (var a in arrows.Where(a => !levels.Any(l => l.Contains(a.Node)))) levels[0].Add(a.Node);
+        if (levels.Count == 0) levels.Add(new Level([], []));
+        // Captions name the nodes in the order of the file.
+        foreach (var (node, _) in nodes) levels.First(l => l.Nodes.Contains(node)).Names.Add(network.Nodes[node].Name);
         return levels;
+    }
+
+    /// <summary>The level of the node an arrow starts from, else of its other end, else the first (both ends at the reference).</summary>
+    private static int LevelOf(List<Level> levels, Arrow a)
+    {
+        var i = levels.FindIndex(l => l.Nodes.Contains(a.Node));
+        if (i < 0) i = levels.FindIndex(l => l.Nodes.Contains(a.Other));
+        return Math.Max(0, i);
     }
 
     private static void Panel(Svg svg, List<Box> taken, List<Arrow> arrows, double cx, double cy, double radius, string caption)
@@ -149,18 +171,18 @@ public static class PhasorDiagram
         {
             var node = network.Node(point);
             if (!seen.Add(node) || v.Magnitude <= 1e-9 * scaleV) continue;
-            arrows.Add(new Arrow(network.Nodes[node].Name, Complex.Zero, v, "V", "voltage", $"V {network.Nodes[node].Name}", node));
+            arrows.Add(new Arrow(network.Nodes[node].Name, Complex.Zero, v, "V", "voltage", $"V {network.Nodes[node].Name}", node, node));
         }
         foreach (var s in c.Sections)
             if (s.Voltage.Magnitude > 1e-9 * scaleV)
-                arrows.Add(new Arrow(s.Section.Name, c.PointVoltage(s.Section.ToPoint), s.Voltage, "V", "section", $"V {s.Section.Name}", s.Section.NodeA));
-        var currents = c.Supplies.Select(s => (s.Supply.Name, s.Current, s.Supply.NodeP)).ToList();
-        if (c.Case.Fault is { } fault) currents.Add((fault.Name, c.Solution.FaultCurrent, network.Node(fault.A.Name)));
-        else currents.AddRange(c.Loads.Select(l => (l.Load.Name, l.Current, l.Load.NodeA)));
+                arrows.Add(new Arrow(s.Section.Name, c.PointVoltage(s.Section.ToPoint), s.Voltage, "V", "section", $"V {s.Section.Name}", s.Section.NodeA, s.Section.NodeB));
+        var currents = c.Supplies.Select(s => (s.Supply.Name, s.Current, s.Supply.NodeP, s.Supply.NodeQ)).ToList();
+        if (c.Case.Fault is { } fault) currents.Add((fault.Name, c.Solution.FaultCurrent, network.Node(fault.A.Name), network.Node(fault.B.Name)));
+        else currents.AddRange(c.Loads.Select(l => (l.Load.Name, l.Current, l.Load.NodeA, l.Load.NodeB)));
         var scaleI = currents.Select(x => x.Item2.Magnitude).DefaultIfEmpty(0).Max();
-        foreach (var (name, i, node) in currents)
+        foreach (var (name, i, node, other) in currents)
             if (i.Magnitude > 1e-9 * scaleI)
-                arrows.Add(new Arrow(name, Complex.Zero, i, "A", "current", $"I {name}", node));
+                arrows.Add(new Arrow(name, Complex.Zero, i, "A", "current", $"I {name}", node, other));
         return arrows;
     }
 

@@ -1,0 +1,129 @@
+using System.Numerics;
+using System.Text;
+using System.Text.Json;
+using WindingNotes.Model;
+using WindingNotes.Solve;
+using WindingNotes.Text;
+
+namespace WindingNotes.Report;
+
+/// <summary>
+/// The three-phase part of a case in each format: every three-phase terminal set (line and
+/// line-to-line voltages, phase, line and neutral currents, three-phase totals, sequence components
+/// and the voltage unbalance factor |V2|/|V1|) and each unit's vector group.
+/// </summary>
+internal static class ThreePhaseReport
+{
+    private static readonly string[] LinePairs = ["ab", "bc", "ca"];
+
+    public static void Text(StringBuilder o, CaseResult c)
+    {
+        var three = c.ThreePhase;
+        if (three.Sets.IsEmpty && three.VectorGroups.IsEmpty) return;
+        o.Append("  Three-phase\n");
+        foreach (var g in three.VectorGroups)
+            o.Append("    ").Append(g.Core).Append(" vector group ").Append(g.Symbol ?? $"none: {g.Problem}").Append('\n');
+        foreach (var s in three.Sets)
+        {
+            o.Append("    ").Append(s.Kind).Append(' ').Append(s.Name).Append('\n');
+            o.Append("      line-to-line ").Append(string.Join(", ", s.LineToLine.Select((v, k) => $"{LinePairs[k]} {TextReport.Phasor(v, "V")}"))).Append('\n');
+            o.Append("      line currents ").Append(string.Join(", ", s.LineCurrents.Select(i => TextReport.Phasor(i, "A"))));
+            if (s.NeutralCurrent is { } n) o.Append("; neutral ").Append(TextReport.Phasor(n, "A"));
+            o.Append('\n');
+            o.Append("      total ").Append(TextReport.Powers(s.Power)).Append('\n');
+            var v = s.VoltageSequence;
+            o.Append("      sequence V0 ").Append(Numbers.Format(v.Zero.Magnitude, "V")).Append(", V1 ").Append(Numbers.Format(v.Positive.Magnitude, "V"))
+                .Append(", V2 ").Append(Numbers.Format(v.Negative.Magnitude, "V"));
+            if (v.Unbalance is { } vuf) o.Append(", unbalance ").Append(TextReport.Percent(vuf));
+            var i = s.CurrentSequence;
+            o.Append("; I0 ").Append(Numbers.Format(i.Zero.Magnitude, "A")).Append(", I1 ").Append(Numbers.Format(i.Positive.Magnitude, "A"))
+                .Append(", I2 ").Append(Numbers.Format(i.Negative.Magnitude, "A")).Append('\n');
+        }
+    }
+
+    public static void Markdown(StringBuilder o, CaseResult c)
+    {
+        var three = c.ThreePhase;
+        if (!three.VectorGroups.IsEmpty)
+        {
+            o.Append('\n');
+            MarkdownReport.Table(o, 1, ["unit", "vector group"], three.VectorGroups.Select(g => new[] { MarkdownReport.Code(g.Core), g.Symbol ?? $"none: {g.Problem}" }));
+        }
+        if (three.Sets.IsEmpty) return;
+        o.Append('\n');
+        MarkdownReport.Table(o, 2, ["three-phase set", "kind", "V ab", "V bc", "V ca", "I a", "I b", "I c", "I neutral", "P", "Q", "V1", "V2", "V0", "unbalance V2/V1"],
+            three.Sets.Select(s => (string[])
+            [
+                MarkdownReport.Code(s.Name), s.Kind,
+                .. s.LineToLine.Select(v => Numbers.Format(v.Magnitude, "V")),
+                .. s.LineCurrents.Select(i => Numbers.Format(i.Magnitude, "A")),
+                s.NeutralCurrent is { } n ? Numbers.Format(n.Magnitude, "A") : "",
+                Numbers.Format(s.Power.Real, "W"), Numbers.Format(s.Power.Imaginary, "var"),
+                Numbers.Format(s.VoltageSequence.Positive.Magnitude, "V"), Numbers.Format(s.VoltageSequence.Negative.Magnitude, "V"),
+                Numbers.Format(s.VoltageSequence.Zero.Magnitude, "V"),
+                s.VoltageSequence.Unbalance is { } u ? TextReport.Percent(u) : "",
+            ]));
+    }
+
+    public static void Json(Utf8JsonWriter w, CaseResult c)
+    {
+        var three = c.ThreePhase;
+        if (three.Sets.IsEmpty && three.VectorGroups.IsEmpty) return;
+        w.WriteStartObject("threePhase");
+        w.WriteStartObject("vectorGroups");
+        foreach (var g in three.VectorGroups)
+        {
+            w.WriteStartObject(g.Core);
+            if (g.Symbol is { } symbol) w.WriteString("symbol", symbol);
+            if (g.Problem is { } problem) w.WriteString("problem", problem);
+            w.WriteStartObject("windings");
+            foreach (var x in g.Windings)
+            {
+                w.WriteStartObject(x.Winding);
+                w.WriteString("letters", x.Letters);
+                if (x.Clock is { } clock) w.WriteNumber("clock", clock);
+                w.WriteEndObject();
+            }
+            w.WriteEndObject();
+            w.WriteEndObject();
+        }
+        w.WriteEndObject();
+        w.WriteStartObject("sets");
+        foreach (var s in three.Sets)
+        {
+            w.WriteStartObject(s.Name);
+            w.WriteString("kind", s.Kind);
+            Phasors(w, "v", s.Voltages);
+            Phasors(w, "vLineToLine", s.LineToLine);
+            Phasors(w, "iPhase", s.PhaseCurrents);
+            Phasors(w, "iLine", s.LineCurrents);
+            if (s.NeutralCurrent is { } n) JsonReport.Phasor(w, "iNeutral", n);
+            JsonReport.Number(w, "p", s.Power.Real);
+            JsonReport.Number(w, "q", s.Power.Imaginary);
+            JsonReport.Number(w, "s", s.Power.Magnitude);
+            JsonReport.Number(w, "pf", s.PowerFactor);
+            Sequence(w, "vSequence", s.VoltageSequence);
+            Sequence(w, "iSequence", s.CurrentSequence);
+            if (s.VoltageSequence.Unbalance is { } vuf) JsonReport.Number(w, "unbalance", vuf);
+            w.WriteEndObject();
+        }
+        w.WriteEndObject();
+        w.WriteEndObject();
+    }
+
+    private static void Phasors(Utf8JsonWriter w, string name, IEnumerable<Complex> values)
+    {
+        w.WriteStartObject(name);
+        foreach (var (v, k) in values.Select((v, k) => (v, k))) JsonReport.Phasor(w, name.StartsWith("vLine") ? LinePairs[k] : Phases.Letters[k], v);
+        w.WriteEndObject();
+    }
+
+    private static void Sequence(Utf8JsonWriter w, string name, Sequence s)
+    {
+        w.WriteStartObject(name);
+        JsonReport.Phasor(w, "zero", s.Zero);
+        JsonReport.Phasor(w, "positive", s.Positive);
+        JsonReport.Phasor(w, "negative", s.Negative);
+        w.WriteEndObject();
+    }
+}

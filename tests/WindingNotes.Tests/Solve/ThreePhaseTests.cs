@@ -1,0 +1,315 @@
+using System.Numerics;
+using WindingNotes.Model;
+using WindingNotes.Solve;
+using WindingNotes.Tests.Support;
+using Xunit;
+
+namespace WindingNotes.Tests.Solve;
+
+/// <summary>
+/// Three-phase statements against published relations: symmetrical components, clock numbers of
+/// IEC 60076-1 connection symbols, sequence impedances of a source and of a three-limb core, and the
+/// open-delta rule. Every value comes from the phase-domain solution.
+/// </summary>
+public class ThreePhaseTests
+{
+    private static readonly Complex A = Complex.FromPolarCoordinates(1, 2 * Math.PI / 3);
+
+    private static void Close(Complex expected, Complex actual, double tolerance = 1e-9) =>
+        Assert.True((expected - actual).Magnitude <= tolerance * Math.Max(1, expected.Magnitude), $"expected {expected}, got {actual}");
+
+    [Fact]
+    public void Symmetrical_components_follow_Fortescue()
+    {
+        // R29, Fortescue (1918); any power-systems textbook. A single phasor on phase a splits into
+        // three equal components of a third each.
+        var single = Sequence.Of(1, 0, 0);
+        Close(1.0 / 3, single.Zero);
+        Close(1.0 / 3, single.Positive);
+        Close(1.0 / 3, single.Negative);
+        // A balanced abc set is all positive sequence, an acb set all negative.
+        var v = Complex.FromPolarCoordinates(277, 0.3);
+        var positive = Sequence.Of(v, A * A * v, A * v);
+        Close(v, positive.Positive);
+        Close(0, positive.Negative);
+        Close(0, positive.Zero);
+        Assert.Equal(0, positive.Unbalance!.Value, 12);
+        var negative = Sequence.Of(v, A * v, A * A * v);
+        Close(v, negative.Negative);
+        // R35: the voltage unbalance factor |V2|/|V1| of Va = 1, Vb = a², Vc = 0.9a: by hand V1 = (1 + 1 + 0.9)/3,
+        // V2 = (1 + a + 0.9a²)/3 = (0.1·a² ... ) with |1 + a + 0.9a²| = |−a² + 0.9a²| = 0.1.
+        var unbalanced = Sequence.Of(1, A * A, 0.9 * A);
+        Assert.Equal(0.1 / 2.9, unbalanced.Unbalance!.Value, 12);
+    }
+
+    private static string Unit(string hv, string lv) => $"""
+        frequency 50 Hz
+        core T1 construction bank rating 300 kVA
+        winding HV on T1 rated 11 kV resistance 2 ohm {hv}
+        winding LV on T1 rated 415 V resistance 0.003 ohm {lv}
+        no-load T1 current 1.5 % loss 900 W at HV 11 kV
+        three-phase-supply grid H1 H2 H3 11 kV fault-level 250 MVA
+        ground E
+
+        """;
+
+    private static VectorGroup Group(string text)
+    {
+        var e = Wn.Eval(text);
+        Assert.DoesNotContain(e.Diagnostics, d => d.IsError);
+        return Assert.Single(e.Normal!.ThreePhase.VectorGroups);
+    }
+
+    // R31: IEC 60076-1, clause on connection symbols (from memory): clock number = displacement of the
+    // lower-voltage set behind the highest in steps of 30°. Where the symbol is not in R31 the derivation
+    // is by hand beside it.
+    [Theory]
+    [InlineData("wye H1 H2 H3", "wye X1 X2 X3", "Yy0")]
+    [InlineData("delta H1 H2 H3", "delta X1 X2 X3", "Dd0")]
+    [InlineData("delta H1 H2 H3", "wye X1 X2 X3 neutral X0", "Dyn11")]
+    [InlineData("ends H1 H3 H2 H1 H3 H2", "wye X1 X2 X3 neutral X0", "Dyn1")]
+    [InlineData("wye H1 H2 H3 neutral H0", "delta X1 X2 X3", "YNd1")]
+    [InlineData("wye H1 H2 H3 neutral H0", "ends X1 X3 X2 X1 X3 X2", "YNd11")]
+    [InlineData("wye H1 H2 H3", "zigzag X1 X2 X3 neutral X0", "Yzn11")]
+    // By hand: each LV phase from the star point to its line reads −N·e: 180°, clock 6.
+    [InlineData("wye H1 H2 H3 neutral H0", "ends X0 X1 X0 X2 X0 X3", "YNyn6")]
+    // By hand: a delta's phase a (H1 to H2) leads the HV positive sequence by 30°, the zigzag's
+    // e_a − e_b leads e_a by 30° more: 60° ahead, clock 10.
+    [InlineData("delta H1 H2 H3", "zigzag X1 X2 X3", "Dz10")]
+    public void Clock_numbers_come_from_the_wiring(string hv, string lv, string symbol) =>
+        Assert.Equal(symbol, Group(Unit(hv, lv)).Symbol);
+
+    [Theory]
+    [InlineData("delta Y1 Y2 Y3", "YNa0d1")]
+    [InlineData("ends Y1 Y3 Y2 Y1 Y3 Y2", "YNa0d11")]
+    public void An_autotransformer_with_a_tertiary_is_named_as_IEC_60076_1_names_it(string tertiary, string symbol)
+    {
+        // R31: YNa0d1 and YNa0d11 (IEC 60076-1, from memory).
+        var text = """
+            frequency 50 Hz
+            core T1 construction bank rating 30 MVA
+            winding S on T1 rated 115 kV series H1 H2 H3 to X1 X2 X3
+            winding C on T1 rated 115 kV wye X1 X2 X3 neutral N
+            winding TV on T1 rated 13.8 kV
+            three-phase-supply grid H1 H2 H3 230 kV fault-level 20 kA
+            ground N
+
+            """.Replace("winding TV on T1 rated 13.8 kV", $"winding TV on T1 rated 13.8 kV {tertiary}");
+        var group = Group(text);
+        Assert.Equal(symbol, group.Symbol);
+        Assert.Equal(["S", "C", "TV"], group.Windings.Select(w => w.Winding));
+    }
+
+    [Fact]
+    public void A_reversed_phase_winding_gives_no_clock_number_and_is_named()
+    {
+        var e = Wn.Eval(Unit("delta H1 H2 H3", "ends X1 X0 X0 X2 X3 X0"));
+        var group = Assert.Single(e.Normal!.ThreePhase.VectorGroups);
+        Assert.Null(group.Symbol);
+        var d = e.Single("no-clock-number");
+        Assert.Contains("'LV_b' is reversed", d.Message);
+        Assert.Equal(3, e.Text.GetPosition(d.Span.Start).Line);
+    }
+
+    [Fact]
+    public void A_vector_group_check_fails_on_other_wiring_and_says_what_it_found()
+    {
+        var e = Wn.Eval(Unit("delta H1 H2 H3", "wye X1 X2 X3 neutral X0") + "expect vector-group T1 is Dyn1\n");
+        Assert.False(Assert.Single(e.Checks).Passed);
+        Assert.Equal("vector-group T1 is Dyn11: expected is Dyn1", e.Single("expect-failed").Message);
+        var passed = Wn.Eval(Unit("delta H1 H2 H3", "wye X1 X2 X3 neutral X0") + "expect vector-group T1 is Dyn11\n");
+        Assert.True(Assert.Single(passed.Checks).Passed);
+    }
+
+    private const string Grid = """
+        frequency 60 Hz
+        three-phase-supply grid H1 H2 H3 13.8 kV fault-level 250 MVA xr 12 zero-sequence 9 kA
+        ground G
+        fault LG H1 G
+        fault LL H1 H2
+        load idle H1 H2 impedance 1e9 ohm
+
+        """;
+
+    [Fact]
+    public void A_source_gives_its_stated_fault_currents_by_sequence()
+    {
+        // R30 (any power-systems textbook): line-to-ground I = 3E/(Z1 + Z2 + Z0), which the
+        // zero-sequence clause states as 9 kA; line-to-line I = √3·E/(Z1 + Z2) = (√3/2)·I3ph with
+        // I3ph = S/(√3·V) from the three-phase fault level.
+        var e = Wn.Solved(Grid);
+        var lg = e.Cases.Single(c => c.Fault?.Fault.Name == "LG").Fault!;
+        var ll = e.Cases.Single(c => c.Fault?.Fault.Name == "LL").Fault!;
+        // The idle load (1e9 ohm) is in parallel with the faults: it changes them by less than 1e-9.
+        Assert.Equal(9000, lg.Current.Magnitude, 1e-5);
+        var i3 = 250e6 / (Math.Sqrt(3) * 13.8e3);
+        Assert.Equal(Math.Sqrt(3) / 2 * i3, ll.Current.Magnitude, 1e-5);
+        Assert.Equal(12, ll.XR, 1e-6);
+    }
+
+    [Fact]
+    public void A_line_to_ground_fault_behind_a_delta_wye_unit_sees_the_unit_alone_in_zero_sequence()
+    {
+        // R30 and R34: I = 3E/(Z1 + Z2 + Z0) (any power-systems textbook); the delta blocks the source's
+        // zero sequence, so from the wye side Z0 is the unit's own impedance Zt while Z1 = Z2 = Zs + Zt.
+        // By hand, in ohms on the 480 V side: Zs = 480²/250 MVA at X/R 12, Zt = 5.75 %·480²/1.5 MVA at
+        // X/R 6, E = 480/√3 V (no load, ideal core).
+        var e = Wn.Solved("""
+            frequency 60 Hz
+            core T1 construction bank rating 1500 kVA
+            winding HV on T1 rated 13.8 kV delta H1 H2 H3
+            winding LV on T1 rated 480 V wye X1 X2 X3 neutral X0
+            impedance HV LV 5.75 % xr 6
+            three-phase-supply utility H1 H2 H3 13.8 kV fault-level 250 MVA xr 12
+            ground X0
+            fault LG X2 X0
+
+            """);
+        var zs = 480.0 * 480 / 250e6 * new Complex(1, 12) / Math.Sqrt(145);
+        var zt = 0.0575 * 480 * 480 / 1.5e6 * new Complex(1, 6) / Math.Sqrt(37);
+        var expected = 3 * (480 / Math.Sqrt(3)) / (2 * (zs + zt) + zt);
+        var fault = e.Cases.Single(c => c.Fault is not null);
+        Assert.Equal(expected.Magnitude, fault.Fault!.Current.Magnitude, 1e-6);
+        // The fault current is all on phase b: the lines a and c of the wye side carry none.
+        var lv = fault.ThreePhase.SetOf("LV")!;
+        Assert.True(lv.LineCurrents[0].Magnitude < 1e-6 * expected.Magnitude && lv.LineCurrents[2].Magnitude < 1e-6 * expected.Magnitude);
+        Wn.Near(expected.Magnitude / 3, lv.CurrentSequence.Zero.Magnitude, 1e-9, "I0 = I/3");
+    }
+
+    private static string ZeroSequenceUnit(string construction, string angleB, string angleC) => $"""
+        frequency 50 Hz
+        core T1 construction {construction} rating 300 kVA
+        winding HV on T1 turns 1000 rated 4160 V wye H1 H2 H3 neutral H0
+        winding LV on T1 turns 115.4 rated 480 V wye X1 X2 X3 neutral X0
+        no-load T1 current 1.2 % loss 900 W at HV 4160 V
+        supply ua H1 H0 1000 V
+        supply ub H2 H0 1000 V angle {angleB} deg
+        supply uc H3 H0 1000 V angle {angleC} deg
+        ground H0
+        ground X0
+
+        """;
+
+    [Fact]
+    public void A_three_limb_core_has_its_stated_zero_sequence_magnetising_impedance()
+    {
+        // R34 (IEC 60076-8 application guide, from memory: a three-limb wye-wye unit's zero-sequence
+        // magnetising impedance is low, roughly 30–100 % on rating). By hand: z0 = 50 % on 100 kVA a phase
+        // at 4160/√3 V a phase is 0.5·(4160²/3)/100e3 = 28.84 Ω, so 1000 V in phase on all three lines
+        // (zero sequence, secondary open) draws 1000/28.84 = 34.67 A a phase.
+        var text = ZeroSequenceUnit("three-limb", "0", "0").Replace("rating 300 kVA", "rating 300 kVA zero-sequence 50 %");
+        var zero = Wn.Solved(text).Normal!;
+        var z0 = 0.5 * (4160.0 * 4160 / 3) / 100e3;
+        Assert.Equal(1000 / z0, zero.Supply("ua").Current.Magnitude, 9);
+        // Positive sequence flux sums to zero and sees the limb alone: the open-circuit test's current,
+        // 1.2 % of rated at rated voltage, in proportion to the voltage.
+        var positive = Wn.Solved(ZeroSequenceUnit("three-limb", "-120", "120").Replace("rating 300 kVA", "rating 300 kVA zero-sequence 50 %")).Normal!;
+        var rated = 100e3 / (4160 / Math.Sqrt(3));
+        Assert.Equal(0.012 * rated * 1000 / (4160 / Math.Sqrt(3)), positive.Supply("ua").Current.Magnitude, 9);
+        // A bank's three cores share no flux: zero sequence sees each core's own magnetising branch.
+        var bank = Wn.Solved(ZeroSequenceUnit("bank", "0", "0")).Normal!;
+        Assert.Equal(positive.Supply("ua").Current.Magnitude, bank.Supply("ua").Current.Magnitude, 9);
+        // A wye-delta unit blocks zero sequence from the delta side: the delta's lines carry none.
+        var sequence = zero.ThreePhase.Sets.Single(s => s.Name == "HV").CurrentSequence;
+        Assert.Equal(1000 / z0, sequence.Zero.Magnitude, 9);
+    }
+
+    private const string OpenDelta = """
+        frequency 60 Hz
+        core KA rating 50 kVA
+        winding PA on KA rated 480 V resistance 1e-4 ohm from H1 to H2
+        winding SA on KA rated 480 V resistance 1e-4 ohm from X1 to X2
+        core KB rating 50 kVA
+        winding PB on KB rated 480 V resistance 1e-4 ohm from HB to H3
+        winding SB on KB rated 480 V resistance 1e-4 ohm from XB to X3
+        join HB H2
+        join XB X2
+        three-phase-supply grid H1 H2 H3 480 V
+        ground G
+        three-phase-load plant X1 X2 X3 delta apparent LOAD pf 0.9
+
+        """;
+
+    [Fact]
+    public void An_open_delta_pair_carries_57_7_percent_of_a_closed_bank()
+    {
+        // R32 (any machines textbook): two units in open delta carry √3·S_unit at their rated
+        // current, 57.7 % of the 3·S_unit of a closed bank of three, 86.6 % of the pair's 2·S_unit.
+        var evaluation = Wn.Solved(OpenDelta.Replace("LOAD", $"{Math.Sqrt(3) * 50} kVA"));
+        var open = evaluation.Normal!;
+        // At the limit the 0.1 mΩ windings put the units just past it, and the pair is named.
+        Assert.Contains("form an open delta on 'grid'", evaluation.Single("open-delta-overload").Message);
+        Assert.Contains("57.7 %", Wn.Eval(OpenDelta.Replace("LOAD", "80 kVA")).Single("caution-open-delta").Message);
+        // Windings of 0.1 mΩ (a closed delta of ideal windings has no unique circulating current) move it by under 1e-4.
+        Wn.Near(1, open.Section("SA").Loading!.Value, 1e-4, "open delta, unit A");
+        Wn.Near(1, open.Section("SB").Loading!.Value, 1e-4, "open delta, unit B");
+        var closed = Wn.Solved(OpenDelta.Replace("LOAD", "150 kVA").Replace("three-phase-supply", """
+            core KC rating 50 kVA
+            winding PC on KC rated 480 V resistance 1e-4 ohm from HC to HC1
+            winding SC on KC rated 480 V resistance 1e-4 ohm from XC to XC1
+            join HC H3
+            join HC1 H1
+            join XC X3
+            join XC1 X1
+            three-phase-supply
+            """)).Normal!;
+        Wn.Near(1, closed.Section("SA").Loading!.Value, 1e-4, "closed bank");
+        Assert.Equal(Math.Sqrt(3) / 3, Math.Sqrt(3) * 50 / 150, 12);
+    }
+
+    [Fact]
+    public void A_Scott_T_pair_gives_two_outputs_in_quadrature()
+    {
+        // R33 (any machines textbook): the main winding centre-tapped across two lines, the teaser
+        // from the third line to the centre tap with √3/2 = 86.6 % of the main's turns; with ideal
+        // windings the two secondaries are equal and exactly 90° apart.
+        var e = Wn.Solved("""
+            frequency 60 Hz
+            core KM rating 10 kVA
+            winding M on KM turns 400 rated 480 V from H1 to H2
+            tap MC on M at 50 %
+            winding SM on KM turns 100 rated 120 V from X1 to X2
+            core KT rating 10 kVA
+            winding T on KT turns 400 * sqrt(3) / 2 from H3 to TT
+            winding ST on KT turns 100 from Y1 to Y2
+            join TT MC
+            three-phase-supply grid H1 H2 H3 480 V
+            load lamps X1 X2 impedance 4 ohm
+            load heater Y1 Y2 impedance 4 ohm
+            ground X2
+            ground Y2
+
+            """).Normal!;
+        var main = e.V("X1", "X2");
+        var teaser = e.V("Y1", "Y2");
+        Assert.Equal(main.Magnitude, teaser.Magnitude, 9);
+        Assert.Equal(90, Math.Abs(Math.IEEERemainder((teaser / main).Phase * 180 / Math.PI, 360)), 9);
+        Assert.Equal(120, main.Magnitude, 9);
+    }
+
+    // The examples, each held to the same network written phase by phase in the single-phase notation.
+    [Theory]
+    [InlineData("maple-ford-station-unit")]
+    [InlineData("oak-hill-autotransformer-bank")]
+    [InlineData("rowan-mill-open-delta-boost")]
+    public void Examples_equal_their_phase_by_phase_form(string name)
+    {
+        var threePhase = Wn.Solved(File.ReadAllText(Path.Combine(Snapshot.RepositoryRoot, "examples", name + ".wn")));
+        var byPhase = Wn.Solved(File.ReadAllText(Path.Combine(Snapshot.TestsRoot(), "Data", "threephase", name + ".wn")));
+        Assert.Equal(threePhase.Cases.Length, byPhase.Cases.Length);
+        foreach (var (a, b) in threePhase.Cases.Zip(byPhase.Cases))
+        {
+            var scale = a.Points.Max(p => p.Voltage.Magnitude);
+            var named = a.Points.Select(p => p.Point).ToHashSet();
+            foreach (var (point, v) in b.Points.Where(p => named.Contains(p.Point))) Close(v / scale, a.PointVoltage(point) / scale);
+            Assert.True(b.Points.Count(p => named.Contains(p.Point)) >= 6);
+            var current = Math.Max(a.Sections.Max(s => s.Current.Magnitude), 1);
+            foreach (var s in b.Sections) Close(s.Current / current, a.Section(s.Section.Name).Current / current);
+            foreach (var l in b.Loads) Close(l.Current / current, a.Load(l.Load.Name).Current / current);
+            foreach (var s in b.Supplies) Close(s.Current / current, a.Supply(s.Supply.Name).Current / current);
+            if (a.Fault is { } fault) Close(b.Fault!.Current / current, fault.Current / current);
+        }
+        // The three-phase form is the shorter.
+        Assert.True(threePhase.Syntax.Statements.Count() < byPhase.Syntax.Statements.Count());
+    }
+}
