@@ -49,7 +49,6 @@ public class ThreePhaseTests
         winding LV on T1 rated 415 V resistance 0.003 ohm {lv}
         no-load T1 current 1.5 % loss 900 W at HV 11 kV
         three-phase-supply grid H1 H2 H3 11 kV fault-level 250 MVA
-        ground E
 
         """;
 
@@ -128,6 +127,7 @@ public class ThreePhaseTests
         fault LG H1 G
         fault LL H1 H2
         load idle H1 H2 impedance 1e9 ohm
+        load idle3 H2 H3 impedance 1e9 ohm
 
         """;
 
@@ -225,7 +225,6 @@ public class ThreePhaseTests
         join HB H2
         join XB X2
         three-phase-supply grid H1 H2 H3 480 V
-        ground G
         three-phase-load plant X1 X2 X3 delta apparent LOAD pf 0.9
 
         """;
