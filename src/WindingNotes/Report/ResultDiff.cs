@@ -160,7 +160,7 @@ public sealed record ResultDiff(
     }
 
     private static bool IsZero(double value, string @case, string unit, Dictionary<(string, string), double> scale) =>
-        Math.Abs(value) <= 1e-9 * scale.GetValueOrDefault((@case, unit));
+        Numbers.Clean(value, scale.GetValueOrDefault((@case, unit))) == 0;
 
     private static bool IsZero(ResultValue v, Dictionary<(string, string), double> scale) =>
         v.Unit == "deg" ? v.Magnitude is { } m && IsZero(m, v.Case, PhasorUnit(v.Field), scale) : IsZero(v.Value, v.Case, v.Unit, scale);

@@ -1,6 +1,7 @@
 using System.Collections.Immutable;
 using System.Numerics;
 using WindingNotes.Model;
+using WindingNotes.Text;
 
 namespace WindingNotes.Solve;
 
@@ -110,13 +111,11 @@ public static class ThreePhaseResults
         var v = terminals.Select(result.PointVoltage).ToArray();
         var lineCurrents = lines.Select(n => outward ? -Into(n) : Into(n)).ToArray();
         var iScale = lineCurrents.Max(i => i.Magnitude);
-        Complex? neutral = star >= 0 && !lines.Contains(star) ? Clean(outward ? Into(star) : -Into(star), iScale) : null;
+        Complex? neutral = star >= 0 && !lines.Contains(star) ? Numbers.Clean(outward ? Into(star) : -Into(star), iScale) : null;
         return new PhaseSetResult(name, kind, [.. v], [v[0] - v[1], v[1] - v[2], v[2] - v[0]], [.. phaseCurrents], [.. lineCurrents], neutral, power,
             Clean(Sequence.Of(v[0], v[1], v[2]), v.Max(x => x.Magnitude)), Clean(Sequence.Of(lineCurrents[0], lineCurrents[1], lineCurrents[2]), iScale));
     }
 
     /// <summary>Rounding left in a sum of phasors that cancel (a balanced set's zero sequence) is zero, so the same network gives the same bytes.</summary>
-    private static Complex Clean(Complex x, double scale) => x.Magnitude <= 1e-9 * scale ? Complex.Zero : x;
-
-    private static Sequence Clean(Sequence s, double scale) => new(Clean(s.Zero, scale), Clean(s.Positive, scale), Clean(s.Negative, scale));
+    private static Sequence Clean(Sequence s, double scale) => new(Numbers.Clean(s.Zero, scale), Numbers.Clean(s.Positive, scale), Numbers.Clean(s.Negative, scale));
 }

@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Numerics;
 
 namespace WindingNotes.Text;
 
@@ -9,6 +10,17 @@ namespace WindingNotes.Text;
 public static class Numbers
 {
     public const int Figures = 4;
+
+    /// <summary>
+    /// The share of the largest value of its kind below which a value is rounding the solver left
+    /// (a balanced set's zero sequence, a current through a 1 TΩ leak): shown and compared as zero,
+    /// so the same network gives the same bytes and noise never reads as a result.
+    /// </summary>
+    public const double Rounding = 1e-9;
+
+    public static double Clean(double value, double scale) => Math.Abs(value) <= Rounding * scale ? 0 : value;
+
+    public static Complex Clean(Complex value, double scale) => value.Magnitude <= Rounding * scale ? Complex.Zero : value;
 
     private static readonly string[] Prefixes = ["p", "n", "µ", "m", "", "k", "M", "G", "T"];
 

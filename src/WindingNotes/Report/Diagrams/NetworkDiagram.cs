@@ -314,7 +314,7 @@ public static class NetworkDiagram
         {
             var r = sectionResults.GetValueOrDefault(s.Index);
             if (r is null) return "";
-            var current = Clean(r.Current.Magnitude, currentScale);
+            var current = Numbers.Clean(r.Current.Magnitude, currentScale);
             return r.Loading is { } loading ? $"{Numbers.Format(current, "A")}, {Numbers.Plain(current == 0 ? 0 : loading * 100, 3)} %" : Numbers.Format(current, "A");
         }
 
@@ -402,25 +402,21 @@ public static class NetworkDiagram
         {
             var name = network.Nodes[node].Name;
             var v = results?.PointVoltage(name);
-            return v is { } phasor ? $"{name}: {TextReport.Phasor(Clean(phasor, voltageScale), "V").Replace(" angle ", " ∠").Replace(" deg", "°")}" : name;
+            return v is { } phasor ? $"{name}: {TextReport.Phasor(Numbers.Clean(phasor, voltageScale), "V").Replace(" angle ", " ∠").Replace(" deg", "°")}" : name;
         }
 
         // ---- values ----
 
-        private static double Clean(double value, double scale) => Math.Abs(value) <= 1e-9 * scale ? 0 : value;
-
-        private static System.Numerics.Complex Clean(System.Numerics.Complex value, double scale) => value.Magnitude <= 1e-9 * scale ? 0 : value;
-
         private IReadOnlyList<string> SupplyValues(SupplyNet s)
         {
             var r = supplyResults.GetValueOrDefault(s.Index);
-            return r is null ? [Numbers.Format(s.Voltage.Magnitude, "V")] : [Numbers.Format(Clean(r.Voltage.Magnitude, voltageScale), "V"), Numbers.Format(Clean(r.Current.Magnitude, currentScale), "A"), $"{Numbers.Format(Clean(r.Power.Magnitude, powerScale), "VA")}, pf {Numbers.Fixed(r.PowerFactor, 3)}"];
+            return r is null ? [Numbers.Format(s.Voltage.Magnitude, "V")] : [Numbers.Format(Numbers.Clean(r.Voltage.Magnitude, voltageScale), "V"), Numbers.Format(Numbers.Clean(r.Current.Magnitude, currentScale), "A"), $"{Numbers.Format(Numbers.Clean(r.Power.Magnitude, powerScale), "VA")}, pf {Numbers.Fixed(r.PowerFactor, 3)}"];
         }
 
         private IReadOnlyList<string> LoadValues(LoadNet l)
         {
             var r = loadResults.GetValueOrDefault(l.Index);
-            return r is null ? [] : [Numbers.Format(Clean(r.Voltage.Magnitude, voltageScale), "V"), Numbers.Format(Clean(r.Current.Magnitude, currentScale), "A"), $"{Numbers.Format(Clean(r.Power.Real, powerScale), "W")}, pf {Numbers.Fixed(r.PowerFactor, 3)}"];
+            return r is null ? [] : [Numbers.Format(Numbers.Clean(r.Voltage.Magnitude, voltageScale), "V"), Numbers.Format(Numbers.Clean(r.Current.Magnitude, currentScale), "A"), $"{Numbers.Format(Numbers.Clean(r.Power.Real, powerScale), "W")}, pf {Numbers.Fixed(r.PowerFactor, 3)}"];
         }
 
         private IReadOnlyList<string> FaultValues(FaultModel f)
