@@ -61,8 +61,9 @@ public static class Units
     private static FrozenDictionary<string, UnitInfo> Build()
     {
         var table = new Dictionary<string, UnitInfo>(StringComparer.Ordinal);
-        // An empty cache reads each unit's abbreviations from UnitsNet's resources when asked.
-        var abbreviations = UnitAbbreviationsCache.CreateEmpty();
+        // UnitsNet's abbreviations as UnitSymbols holds them; only a unit it lacks is read from UnitsNet's
+        // resources (an empty cache loads a unit's when asked), which costs the command ~10 ms.
+        UnitAbbreviationsCache? abbreviations = null;
         foreach (var (info, dimension, toSi) in Kinds)
         {
             // In the order of the unit enumeration, so the first unit to claim a shared abbreviation keeps it.
@@ -70,7 +71,9 @@ public static class Units
             {
                 var offset = toSi(0, unit.Value);
                 var factor = toSi(1, unit.Value) - offset;
-                foreach (var symbol in abbreviations.GetAbbreviations(unit, CultureInfo.InvariantCulture))
+                var symbols = UnitSymbols.Of(info.Name, unit.Name)
+                    ?? (abbreviations ??= UnitAbbreviationsCache.CreateEmpty()).GetAbbreviations(unit, CultureInfo.InvariantCulture);
+                foreach (var symbol in symbols)
                     table.TryAdd(symbol, new UnitInfo(symbol, factor, dimension, offset));
             }
         }
