@@ -11,6 +11,9 @@ namespace WindingNotes.Tests.Robustness;
 /// </summary>
 public class FormatPropertyTests(ITestOutputHelper output)
 {
+    // A property run over 5,000 mutated inputs: in the category CI always runs and the quick loop leaves
+    // out (a minute of it on two cores).
+    [Trait("Category", "Long")]
     [Fact]
     public void Formatting_mutated_inputs_keeps_their_statements_and_diagnostic_lines()
     {

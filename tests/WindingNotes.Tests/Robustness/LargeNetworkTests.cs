@@ -19,6 +19,8 @@ public class LargeNetworkTests
     public static string Unit(int seed) =>
         RandomNetworks.Write(seed) + "load LP S00a S00b current 50 mA pf 0.9 lagging\nfault F S00a S00b impedance 20 ohm\n";
 
+    // Half a minute on two cores: in the category CI always runs and the quick loop leaves out.
+    [Trait("Category", "Long")]
     [Fact]
     public void A_thousand_line_file_of_many_units_gives_each_unit_what_it_gives_alone()
     {

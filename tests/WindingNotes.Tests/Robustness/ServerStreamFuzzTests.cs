@@ -52,6 +52,8 @@ public class ServerStreamFuzzTests(ITestOutputHelper output)
 
     private static string Pick(Random r, string[] items) => items[r.Next(items.Length)];
 
+    // A fuzzer: in the category CI always runs and the quick loop leaves out (30 s of it on two cores).
+    [Trait("Category", "Long")]
     [Fact]
     public async Task Fuzzed_message_streams_never_close_the_connection_or_lose_the_next_answer()
     {
