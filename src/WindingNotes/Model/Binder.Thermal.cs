@@ -65,11 +65,11 @@ internal sealed partial class BindRun
         var times = s.Clause("time-constants");
         var oil = times is null ? null : Real(times.Value(0), Dimension.TimeDim, "the oil time constant", positive: true);
         var winding = times is null ? null : Real(times.Value(1), Dimension.TimeDim, "the winding time constant", positive: true);
-        var constants = s.Clause("model-constants");
-        var k = constants is null ? [] : new[] { "k11", "k21", "k22" }.Select((n, i) => Real(constants.Value(i), Dimension.None, $"the constant {n}", positive: true)).ToArray();
+        var k = new[] { "k11", "k21", "k22" }.Select(n => s.Clause(n) is { } c ? Real(c.Value(), Dimension.None, $"the constant {n}", positive: true) : null).ToArray();
+        var kGiven = new[] { "k11", "k21", "k22" }.Select(n => s.Clause(n) is not null).ToArray();
         var paper = s.Clause("paper")?.Word(_ => true)?.Text;
         if (core is null || cooling is not { } mode || topOil is not { } rise || gradient is not { } hr) return;
-        if ((exponents is not null && (x is null || y is null)) || (times is not null && (oil is null || winding is null)) || k.Any(v => v is null)) return;
+        if ((exponents is not null && (x is null || y is null)) || (times is not null && (oil is null || winding is null)) || k.Where((v, i) => kGiven[i] && v is null).Any()) return;
         if (thermalCores.TryGetValue(core.Name, out var first))
         {
             diagnostics.ReportDuplicateThermal(nameSyntax!.Name, first);
@@ -82,7 +82,9 @@ internal sealed partial class BindRun
         var defaulted = new List<string>();
         if (exponents is null) defaulted.Add($"exponents x {Numbers.Plain(typical.X)}, y {Numbers.Plain(typical.Y)}");
         if (times is null) defaulted.Add($"time constants {Numbers.Plain(typical.OilMinutes)} min oil, {Numbers.Plain(typical.WindingMinutes)} min winding");
-        if (constants is null) defaulted.Add($"model constants k11 {Numbers.Plain(typical.K11)}, k21 {Numbers.Plain(typical.K21)}, k22 {Numbers.Plain(typical.K22)}");
+        var typicalK = new[] { typical.K11, typical.K21, typical.K22 };
+        var missingK = new[] { "k11", "k21", "k22" }.Select((n, i) => kGiven[i] ? null : $"{n} {Numbers.Plain(typicalK[i])}").OfType<string>().ToList();
+        if (missingK.Count > 0) defaulted.Add($"model constants {string.Join(", ", missingK)}");
         if (paper is null) defaulted.Add("paper non-upgraded");
         var unit = new ThermalUnitModel(core.Name, nameSyntax.Name.Span, s.Span, mode, rise, hr)
         {
@@ -91,9 +93,9 @@ internal sealed partial class BindRun
             Y = y ?? typical.Y,
             OilTimeConstant = oil ?? typical.OilMinutes * 60,
             WindingTimeConstant = winding ?? typical.WindingMinutes * 60,
-            K11 = k.Length == 3 ? k[0]!.Value : typical.K11,
-            K21 = k.Length == 3 ? k[1]!.Value : typical.K21,
-            K22 = k.Length == 3 ? k[2]!.Value : typical.K22,
+            K11 = k[0] ?? typical.K11,
+            K21 = k[1] ?? typical.K21,
+            K22 = k[2] ?? typical.K22,
             Upgraded = paper == "upgraded",
             Class = unitClass,
             Defaulted = [.. defaulted],
