@@ -27,7 +27,7 @@ public sealed record ThermalUnitResult(ThermalUnitModel Unit, double LossRatio, 
     public double PeakAgeing { get; init; }
 }
 
-/// <summary>The load cycle as solved: its samples (time, load as written, ambient) and each unit over them.</summary>
+/// <summary>The load cycle as solved: its samples (time; the load and ambient over the step ending there) and each unit over them.</summary>
 public sealed record ThermalResult(LoadCycleModel Cycle, ImmutableArray<double> Times, ImmutableArray<double> Load, ImmutableArray<double> Ambient, ImmutableArray<ThermalUnitResult> Units)
 {
     /// <summary>Days run from the steady state of midnight's load until the day repeated itself; the last is the one given.</summary>

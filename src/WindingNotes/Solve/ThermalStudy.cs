@@ -116,7 +116,8 @@ public static class ThermalStudy
         for (var k = 0; k <= n; k++)
         {
             times[k] = k * dt;
-            var i = pointAt[k % n];
+            // What held over the step that ends at the sample, as its temperatures are.
+            var i = pointAt[(k + n - 1) % n];
             loads[k] = points[i].Load.Real;
             ambients[k] = ambient[i] - 273.15;
         }
