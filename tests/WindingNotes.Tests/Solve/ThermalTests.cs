@@ -243,4 +243,13 @@ public class ThermalTests
         Wn.Near(1.2, e.Thermal!.Units[0].Windings[0].PeakLoad, 1e-9, "K from the let's value");
         Assert.Equal("A", e.Thermal.LoadUnit);
     }
+
+    [Fact]
+    public void The_thermal_line_shows_the_peak_hot_spot_and_the_loss_of_life()
+    {
+        var e = Wn.Solved(Unit("current 1000 A pf 1", Data, "load-cycle ambient 20 degC\ncycle-point 0 h load 1 pu"));
+        var hints = WindingNotes.Editing.InlayHints.For(e);
+        // Rated load all day at 20 degC: 98 degC, ageing 1, 24 h.
+        Assert.Contains(hints, h => h.Label == "hot-spot up to 98.00 degC at 00:00 in 'HV', loss of life 24.00 h a day");
+    }
 }
