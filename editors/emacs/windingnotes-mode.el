@@ -30,7 +30,7 @@ A bare program name is looked up on `exec-path' and then in
 (defconst windingnotes-statement-keywords
   '("frequency" "temperature" "let" "core" "winding" "tap" "brush" "impedance" "no-load"
     "join" "ground" "supply" "load" "fault" "sweep" "expect" "fail-on" "acknowledge"
-    "three-phase-supply" "three-phase-load")
+    "three-phase-supply" "three-phase-load" "thermal" "load-cycle" "cycle-point")
   "Words that start a statement.")
 
 (defconst windingnotes-clause-keywords
@@ -39,7 +39,9 @@ A bare program name is looked up on `exec-path' and then in
     "fault-level" "power" "apparent" "pf" "model" "step" "points" "voltage" "loading" "flux"
     "efficiency" "regulation" "between" "and" "below" "above" "near" "within"
     "construction" "zero-sequence" "wye" "delta" "zigzag" "series" "ends" "neutral"
-    "vector-group" "is" "sequence")
+    "vector-group" "is" "sequence" "hot-spot" "top-oil" "loss-of-life" "cooling" "top-oil-rise"
+    "hot-spot-gradient" "hot-spot-factor" "winding-gradient" "loss-ratio" "exponents"
+    "time-constants" "k11" "k21" "k22" "paper" "of" "ambient" "method" "duty")
   "Words that start a clause or join its parts.")
 
 (defconst windingnotes-option-keywords
@@ -48,7 +50,10 @@ A bare program name is looked up on `exec-path' and then in
     "loading-high" "flux-high" "overexcited" "brush-current-high" "connection-rating"
     "current-density-high" "caution-no-isolation" "caution-common-terminal"
     "caution-fuse-output" "caution-above-supply" "caution-fault-duty"
-    "bank" "three-limb" "five-limb" "shell" "abc" "acb")
+    "bank" "three-limb" "five-limb" "shell" "abc" "acb"
+    "hot-spot-high" "top-oil-high" "cycle-current-high" "caution-hot-spot"
+    "upgraded" "non-upgraded" "difference-equation" "exponential"
+    "normal-cyclic" "long-time-emergency" "short-time-emergency")
   "Words chosen from a fixed set inside a clause.")
 
 (defconst windingnotes-value-keywords '("angle" "sqrt")

@@ -67,6 +67,7 @@ public static class InlayHints
             StatementKind.Core => index.Cores.GetValueOrDefault(name) is { } k ? ResultText.Core(k) : null,
             StatementKind.Winding => Sections(index.OfWinding[name].ToList()),
             StatementKind.Tap or StatementKind.Brush => Tap(evaluation.Normal, index.AtPoint[name].ToList(), name),
+            StatementKind.Thermal => ThermalHint(evaluation.Thermal, name),
             _ => null,
         };
         // A three-phase core, winding, supply or load: its vector group or line-to-line voltages.
@@ -86,6 +87,12 @@ public static class InlayHints
         public ILookup<string, SectionResult> OfWinding => field ??= (normal?.Sections ?? []).ToLookup(x => x.Winding.Name);
         public ILookup<string, SectionResult> AtPoint => field ??= (normal?.Sections ?? []).SelectMany(x => new[] { (x.Section.FromPoint, x), (x.Section.ToPoint, x) }).ToLookup(p => p.Item1, p => p.x);
     }
+
+    /// <summary>A unit's day of load: its peak hot-spot, when and where, and the life the day costs.</summary>
+    private static string? ThermalHint(ThermalResult? thermal, string core) =>
+        thermal?.Units.FirstOrDefault(u => u.Unit.Core == core) is { } u
+            ? $"hot-spot up to {Numbers.Format(u.PeakHotSpot, "degC")} at {thermal.Clock(u.PeakHotSpotTime)} in '{u.HottestWinding}', loss of life {ThermalResult.Hours(u.LossOfLife)} a day"
+            : null;
 
     private static string? Sections(IReadOnlyList<SectionResult> sections) => sections.Count switch
     {

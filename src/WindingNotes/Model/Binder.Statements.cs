@@ -42,6 +42,9 @@ internal sealed partial class BindRun
             case StatementKind.Acknowledge: Policy(s, acknowledged); break;
             case StatementKind.ThreePhaseSupply: BindThreePhaseSupply(s); break;
             case StatementKind.ThreePhaseLoad: BindThreePhaseLoad(s); break;
+            case StatementKind.Thermal: BindThermal(s); break;
+            case StatementKind.LoadCycle: BindLoadCycle(s); break;
+            case StatementKind.CyclePoint: BindCyclePoint(s); break;
         }
     }
 
@@ -465,6 +468,11 @@ internal sealed partial class BindRun
         var measureClause = s.Clauses.FirstOrDefault(c => c.Form?.Group == "measure");
         var conditionClause = s.Clauses.FirstOrDefault(c => c.Form?.Group == "condition");
         if (measureClause is null || conditionClause is null) return;
+        if (measureClause.Keyword!.Text is "hot-spot" or "top-oil" or "loss-of-life")
+        {
+            BindThermalExpect(s, measureClause, conditionClause);
+            return;
+        }
         if (measureClause.Keyword!.Text == "vector-group" || conditionClause.Keyword!.Text == "is")
         {
             BindVectorGroupExpect(s, measureClause, conditionClause);

@@ -96,6 +96,7 @@ internal sealed partial class BindRun
             FailOn = failOn.ToImmutableDictionary(),
             Acknowledged = acknowledged.ToImmutableDictionary(),
             ThreePhase = ThreePhaseResult(),
+            Thermal = ThermalResult(),
             Diagnostics = [.. tree.Diagnostics, .. diagnostics],
         };
     }

@@ -106,7 +106,7 @@ public sealed record FaultModel(string Name, TextSpan NameSpan, TextSpan Line, N
 
 public sealed record SweepModel(Symbol Target, TextSpan Line, Quantity From, Quantity To, Quantity? Step, int? Points);
 
-public enum MeasureKind { Voltage, Current, Loading, Flux, Power, Efficiency, Regulation, VectorGroup }
+public enum MeasureKind { Voltage, Current, Loading, Flux, Power, Efficiency, Regulation, VectorGroup, HotSpot, TopOil, LossOfLife }
 
 public enum ConditionKind { Between, Below, Above, Near }
 
@@ -173,6 +173,9 @@ public sealed record Model(SyntaxTree Syntax, SymbolTable Symbols, ImmutableArra
     public ImmutableDictionary<string, TextSpan> Acknowledged { get; init; } = ImmutableDictionary<string, TextSpan>.Empty;
     /// <summary>The three-phase statements; their phase elements are in the lists above.</summary>
     public ThreePhaseModel ThreePhase { get; init; } = ThreePhaseModel.Empty;
+
+    /// <summary>The thermal statements: each unit's thermal data and the load cycle.</summary>
+    public ThermalModel Thermal { get; init; } = ThermalModel.Empty;
 
     /// <summary>The value of every let that evaluated.</summary>
     public ImmutableDictionary<string, Quantity> Lets { get; init; } = ImmutableDictionary<string, Quantity>.Empty;

@@ -48,7 +48,7 @@ public static class Units
     public static readonly string[] Common =
     [
         "V", "kV", "mV", "A", "kA", "mA", "W", "kW", "MW", "VA", "kVA", "MVA", "var", "kvar", "Mvar", "ohm", "mohm", "kohm",
-        "Hz", "T", "mT", "m", "cm", "mm", "mm2", "cm2", "m2", "kcmil", "degC", "K", "H", "mH", "s", "ms", "%", "pu", "deg", "rad", "turns",
+        "Hz", "T", "mT", "m", "cm", "mm", "mm2", "cm2", "m2", "kcmil", "degC", "K", "H", "mH", "s", "ms", "min", "h", "%", "pu", "deg", "rad", "turns",
     ];
 
     public static UnitInfo? Find(string symbol) => BySymbol.GetValueOrDefault(symbol);
@@ -83,6 +83,8 @@ public static class Units
         Alias("degC", "°C");
         // 1 kcmil = 1000 circular mils; a circular mil is the area of a circle 1 mil (25.4 µm) across.
         table["kcmil"] = new UnitInfo("kcmil", 1000 * Math.PI / 4 * 25.4e-6 * 25.4e-6, Dimension.Area);
+        // An hour, not a hand (a length UnitsNet also writes h): times of day and time constants are in h and min.
+        table["h"] = new UnitInfo("h", 3600, Dimension.TimeDim);
         table["%"] = new UnitInfo("%", 0.01, Dimension.None, Flags: QuantityFlags.Percent);
         table["pu"] = new UnitInfo("pu", 1, Dimension.None, Flags: QuantityFlags.Percent);
         table["turns"] = new UnitInfo("turns", 1, Dimension.None, Flags: QuantityFlags.Turns);

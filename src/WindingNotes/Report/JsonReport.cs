@@ -31,6 +31,7 @@ public static class JsonReport
             w.WriteStartArray("cases");
             foreach (var c in evaluation.Cases) WriteCase(w, evaluation, c);
             w.WriteEndArray();
+            ThermalReport.Json(w, evaluation.Thermal);
             if (evaluation.Checks.Any(c => !c.Evaluated))
             {
                 w.WriteStartArray("notEvaluated");

@@ -37,6 +37,7 @@ public static class MarkdownReport
         if (evaluation.Cases.IsEmpty) o.Append("\nNo results: the network was not solved.\n");
         foreach (var c in evaluation.Cases.Where(c => !c.Case.IsSweepPoint)) WriteCase(o, c);
         WriteSweep(o, [.. evaluation.Cases.Where(c => c.Case.IsSweepPoint)]);
+        ThermalReport.Markdown(o, evaluation.Thermal);
         o.Append("\n> ").Append(Cautions.Judgement).Append('\n');
         return o.ToString();
     }

@@ -32,6 +32,7 @@ public static class TextReport
             o.Append(evaluation.Model.HasErrors ? "\nNo results: the file has errors, so it was not solved.\n" : "\nNo results: the network was not solved.\n");
         foreach (var c in evaluation.Cases.Where(c => !c.Case.IsSweepPoint)) WriteCase(o, c);
         SweepTables.Write(o, [.. evaluation.Cases.Where(c => c.Case.IsSweepPoint)]);
+        ThermalReport.Text(o, evaluation.Thermal);
         WriteChecks(o, evaluation);
         o.Append("\nCautions\n");
         foreach (var d in evaluation.Diagnostics.Where(d => d.Code.StartsWith("caution")))

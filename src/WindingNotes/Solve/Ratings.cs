@@ -17,7 +17,7 @@ public sealed class RatingTally
     public const double OnLoadExcitation = 1.05, NoLoadExcitation = 1.10;
 
     /// <summary>The codes of the rating warnings: a diff and a report summary count them as ratings crossed.</summary>
-    public static readonly ImmutableHashSet<string> Codes = ["loading-high", "flux-high", "overexcited", "brush-current-high", "current-density-high", "connection-rating"];
+    public static readonly ImmutableHashSet<string> Codes = ["loading-high", "flux-high", "overexcited", "brush-current-high", "current-density-high", "connection-rating", "hot-spot-high", "top-oil-high", "cycle-current-high"];
 
     private readonly Dictionary<(string Code, string Key), Finding> findings = [];
     private readonly List<(string Code, string Key)> order = [];

@@ -9,7 +9,11 @@ namespace WindingNotes.Solve;
 public readonly record struct StudyProgress(long Done, long Total);
 
 /// <summary>Every case of a document (normal, faults, sweep points, in that order) and the checks over them.</summary>
-public sealed record StudyResult(ImmutableArray<CaseResult> Cases, ImmutableArray<CheckResult> Checks);
+public sealed record StudyResult(ImmutableArray<CaseResult> Cases, ImmutableArray<CheckResult> Checks)
+{
+    /// <summary>The load cycle through the units' thermal data, where the file gives both.</summary>
+    public ThermalResult? Thermal { get; init; }
+}
 
 /// <summary>
 /// Everything solved for one document: the normal case and its faults, each sweep point, and for
@@ -40,7 +44,7 @@ public static class Study
             diagnostics.ReportBandsNotSwept(model.Sweeps[0].Line, points, samples.Length, Sweeps.Budget);
 
         var run = new PointRun(syntax, model.Frequency, new BrushSweep(syntax, model), diagnostics, cancel, progress, samples.Length + points * (1 + (bandsAtPoints ? samples.Length : 0)));
-        var checks = new CheckTally(model.Expects);
+        var checks = new CheckTally([.. model.Expects.Where(e => !ThermalStudy.IsThermal(e))]);
         var ratings = new RatingTally();
         var outputs = new OutputTally(network);
         var cases = ImmutableArray.CreateBuilder<CaseResult>();
@@ -72,12 +76,23 @@ public static class Study
         var all = cases.ToImmutable();
         if (kept.Stride > 1) diagnostics.ReportSweepThinned(model.Sweeps[0].Line, kept.Solved, kept.Count, kept.Stride);
         var checkResults = checks.Finish(diagnostics);
+        ThermalResult? thermal = null;
+        if (!stopped && (!model.Thermal.IsEmpty || model.Expects.Any(ThermalStudy.IsThermal)))
+            try
+            {
+                (thermal, var thermalChecks) = ThermalStudy.Run(syntax, model, network, normal, diagnostics, cancel);
+                checkResults = [.. checkResults.Concat(thermalChecks).OrderBy(c => c.Expect.Line.Start)];
+            }
+            catch (OperationCanceledException) when (budget.Exceeded)
+            {
+                stopped = true;
+            }
         ratings.Report(diagnostics);
         SafetyCautions.Report(network, all, outputs, diagnostics);
         run.ReportNew();
         if (stopped)
             diagnostics.ReportTimeLimit(model.Sweeps.FirstOrDefault()?.Line ?? model.Tolerances.FirstOrDefault()?.Span ?? default, budget.Limit, run.Done, run.Total);
-        return new StudyResult(all, checkResults);
+        return new StudyResult(all, checkResults) { Thermal = thermal };
 
         // The bands of the normal case and of each fault over the tolerance samples.
         (ImmutableArray<Band> Normal, ImmutableArray<ImmutableArray<Band>> Faults) SampleNominal()

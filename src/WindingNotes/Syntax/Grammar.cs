@@ -2,7 +2,7 @@ using System.Collections.Frozen;
 
 namespace WindingNotes.Syntax;
 
-public enum StatementKind { Frequency, Temperature, Let, Core, Winding, Tap, Brush, Impedance, NoLoad, Join, Ground, Supply, Load, Fault, Sweep, Expect, FailOn, Acknowledge, ThreePhaseSupply, ThreePhaseLoad }
+public enum StatementKind { Frequency, Temperature, Let, Core, Winding, Tap, Brush, Impedance, NoLoad, Join, Ground, Supply, Load, Fault, Sweep, Expect, FailOn, Acknowledge, ThreePhaseSupply, ThreePhaseLoad, Thermal, LoadCycle, CyclePoint }
 
 /// <summary>What a name stands for. One namespace holds them all.</summary>
 public enum SymbolKind { Let, Core, Winding, Terminal, Tap, Brush, Node, Supply, Load, Fault }
@@ -72,10 +72,10 @@ public static class Grammar
     private static ClauseForm Clause(string keyword, string summary, params Part[] parts) => new(keyword, parts, Summary: summary);
 
     /// <summary>The rating warnings a file may make errors of with 'fail-on' (their wording is in Solve/Messages.cs).</summary>
-    public static readonly string[] RatingWarnings = ["loading-high", "flux-high", "overexcited", "brush-current-high", "connection-rating", "current-density-high"];
+    public static readonly string[] RatingWarnings = ["loading-high", "flux-high", "overexcited", "brush-current-high", "connection-rating", "current-density-high", "hot-spot-high", "top-oil-high", "cycle-current-high"];
 
     /// <summary>The cautions a file may acknowledge (their wording is in Solve/Messages.cs).</summary>
-    public static readonly string[] Cautions = ["caution-no-isolation", "caution-common-terminal", "caution-fuse-output", "caution-above-supply", "caution-fault-duty"];
+    public static readonly string[] Cautions = ["caution-no-isolation", "caution-common-terminal", "caution-fuse-output", "caution-above-supply", "caution-fault-duty", "caution-hot-spot"];
 
     public static readonly StatementForm[] Statements =
     [
@@ -191,6 +191,9 @@ public static class Grammar
                 new("efficiency", [], Group: "measure", Summary: "load power over supply power"),
                 new("regulation", [new NamePart(Use("a load name", SymbolKind.Load))], Group: "measure", Summary: "the rise of a load's voltage when all loads are removed"),
                 new("vector-group", [new NamePart(CoreRef)], Group: "measure", Summary: "the connection symbol and clock numbers of a three-phase unit, from its wiring"),
+                new("hot-spot", [new OptionalPart(new NamePart(CoreRef))], Group: "measure", Summary: "the highest hot-spot temperature over the load cycle, of one unit or of every unit with thermal data"),
+                new("top-oil", [new OptionalPart(new NamePart(CoreRef))], Group: "measure", Summary: "the highest top-oil temperature over the load cycle"),
+                new("loss-of-life", [new OptionalPart(new NamePart(CoreRef))], Group: "measure", Summary: "the insulation life used over the day of the load cycle, in hours at the reference ageing rate"),
                 new("between", [Value, new WordPart("and"), Value], Group: "condition", Summary: "both bounds included"),
                 new("below", [Value], Group: "condition", Summary: "an upper bound"),
                 new("above", [Value], Group: "condition", Summary: "a lower bound"),
@@ -228,6 +231,37 @@ public static class Grammar
                     new OptionalPart(new WordPart("at"), new ValuePart("a voltage"))),
             ],
             "three-phase-load mill X1 X2 X3 wye X0 power 300 kW pf 0.85", "a three-phase load, wye or delta", ["connection", "demand"]),
+        new(StatementKind.Thermal, "thermal", [new NamePart(CoreRef)],
+            [
+                new("cooling", [new NamePart(new NameRole(false, [], "a cooling mode: ONAN, ONAF, OF or OD"))], Required: true, Summary: "the cooling mode"),
+                new("top-oil-rise", [Value], Required: true, Summary: "the top-oil rise over ambient at rated load"),
+                new("hot-spot-gradient", [Value], Group: "gradient", Summary: "the hot-spot to top-oil gradient at rated current"),
+                new("hot-spot-factor", [Value, new WordPart("winding-gradient"), Value], Group: "gradient", Summary: "the hot-spot factor and the average winding to average oil gradient at rated current"),
+                Clause("loss-ratio", "load loss at rated current over no-load loss (from the windings' resistances and the no-load test when left out)", Value),
+                Clause("exponents", "the oil exponent x and the winding exponent y", Value, new WordPart("and"), Value),
+                Clause("time-constants", "the oil and winding time constants", Value, new WordPart("and"), Value),
+                Clause("k11", "the thermal model's oil constant", Value),
+                Clause("k21", "the thermal model's first winding constant (the hot-spot overshoot)", Value),
+                Clause("k22", "the thermal model's second winding constant", Value),
+                Clause("paper", "whether the winding paper is thermally upgraded", new ChoicePart("'upgraded' or 'non-upgraded'", "upgraded", "non-upgraded")),
+            ],
+            "thermal T1 cooling ONAN top-oil-rise 52 K hot-spot-gradient 26 K loss-ratio 6 paper upgraded",
+            "a unit's thermal data: its hot-spot and ageing are followed over the load cycle", ["gradient"]),
+        new(StatementKind.LoadCycle, "load-cycle", [],
+            [
+                Clause("of", "the let whose values the cycle points give (every load scaled by a per-unit value when left out)", new NamePart(Use("a let name", SymbolKind.Let))),
+                Clause("ambient", "the ambient temperature, where the cycle points give none", Value),
+                Clause("step", "the time step of the thermal model (1 min when left out)", Value),
+                Clause("method", "how temperatures follow the load (difference-equation unless said)", new ChoicePart("a thermal method", "difference-equation", "exponential")),
+                Clause("duty", "the loading the limits are those of (normal-cyclic unless said)", new ChoicePart("a loading duty", "normal-cyclic", "long-time-emergency", "short-time-emergency")),
+            ],
+            "load-cycle ambient 30 degC step 1 min", "a day of load: the network is solved at each cycle point and the thermal data followed through the day"),
+        new(StatementKind.CyclePoint, "cycle-point", [new ValuePart("a time of day")],
+            [
+                new("load", [Value], Required: true, Summary: "the load from this time until the next cycle point: per-unit of the loads as written, or a value of the load-cycle's let"),
+                Clause("ambient", "the ambient temperature from this time on", Value),
+            ],
+            "cycle-point 18 h load 1.2 pu ambient 35 degC", "the load of the cycle from a time of day until the next cycle point"),
     ];
 
     public static readonly FrozenDictionary<string, StatementForm> ByKeyword = Statements.ToFrozenDictionary(s => s.Keyword);

@@ -25,7 +25,7 @@ public static class Numbers
     private static readonly string[] Prefixes = ["p", "n", "µ", "m", "", "k", "M", "G", "T"];
 
     // Units written without a prefix.
-    private static readonly HashSet<string> Unprefixed = ["%", "deg", "pu", "turns", "degC", "", "x", "A/mm2"];
+    private static readonly HashSet<string> Unprefixed = ["%", "deg", "pu", "turns", "degC", "h", "", "x", "A/mm2"];
 
     /// <summary>"228.1 V", "3.207 kW", "17.11 mA", "82.10 %".</summary>
     public static string Format(double value, string unit, int figures = Figures)

@@ -36,6 +36,9 @@ public sealed record Evaluation(
     /// workspace so an editor can show its results, marked as that version's. Null for the CLI.
     /// </summary>
     public SolvedVersion? LastSolved { get; init; }
+
+    /// <summary>The load cycle through the units' thermal data, where the file gives both and it was solved.</summary>
+    public ThermalResult? Thermal { get; init; }
 }
 
 /// <summary>An earlier version of a document that was solved, and its evaluation.</summary>
@@ -140,7 +143,7 @@ public static class Evaluator
     {
         var ordered = stages.Diagnostics.Select(d => AsTheFileSays(d, stages.Model)).OrderBy(d => d.Span.Start).ThenBy(d => d.Severity).ToImmutableArray();
         var checks = stages.Study.Cases.IsEmpty ? NotEvaluated(stages.Syntax, stages.Model) : stages.Study.Checks;
-        return new Evaluation(path, stages.Syntax, stages.Model, stages.Network, stages.Study.Cases, checks, ordered);
+        return new Evaluation(path, stages.Syntax, stages.Model, stages.Network, stages.Study.Cases, checks, ordered) { Thermal = stages.Study.Thermal };
     }
 
     /// <summary>A rating warning the file fails on becomes an error; a caution it acknowledges is marked so.</summary>

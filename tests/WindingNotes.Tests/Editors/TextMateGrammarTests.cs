@@ -26,7 +26,7 @@ public class TextMateGrammarTests
     public void The_keyword_rule_lists_exactly_the_grammar_keywords()
     {
         var listed = Rules("keywords")
-            .SelectMany(r => Regex.Matches((string)r["match"]!, @"\(\?:([A-Za-z|-]+)\)").Select(m => m.Groups[1].Value))
+            .SelectMany(r => Regex.Matches((string)r["match"]!, @"\(\?:([A-Za-z0-9|-]+)\)").Select(m => m.Groups[1].Value))
             .SelectMany(alternation => alternation.Split('|'))
             .ToList();
         Assert.Equal(listed.Count, listed.Distinct().Count());

@@ -1,0 +1,31 @@
+using WindingNotes.Model;
+using WindingNotes.Syntax;
+
+namespace WindingNotes.Text;
+
+// Messages of binding the thermal statements.
+public sealed partial class DiagnosticBag
+{
+    public Diagnostic ReportUnknownCooling(Token name, string? suggestion) =>
+        WithSuggestion(Error("unknown-cooling", name.Span, $"unknown cooling mode '{name.Text}': ONAN, ONAF, OF or OD"), suggestion, name.Span);
+
+    public Diagnostic ReportDuplicateThermal(Token core, TextSpan first) =>
+        Amend(Error("duplicate-statement", core.Span, $"core '{core.Text}' has thermal data already"),
+            d => d with { Related = [new RelatedSpan("first given here", first)] });
+
+    public Diagnostic ReportThermalDefaults(TextSpan span, CoolingMode cooling, string unitClass, IReadOnlyList<string> defaulted) =>
+        Info("thermal-defaults", span, $"typical values of {cooling} cooling for a {unitClass} transformer are used: {string.Join("; ", defaulted)}");
+
+    public Diagnostic ReportDuplicateCyclePoint(TextSpan span, TextSpan first) =>
+        Amend(Error("duplicate-statement", span, "a cycle point at this time is given already"),
+            d => d with { Related = [new RelatedSpan("first given here", first)] });
+
+    public Diagnostic ReportCyclePointWithoutCycle(TextSpan span) =>
+        Error("no-load-cycle", span, "a 'cycle-point' needs a 'load-cycle' line, which says what its load is a value of");
+
+    public Diagnostic ReportCycleWithoutPoints(TextSpan span) =>
+        Error("no-cycle-points", span, "the load cycle has no 'cycle-point' lines: give the load at one time of day at least");
+
+    public Diagnostic ReportCycleWithoutAmbient(TextSpan span) =>
+        Error("no-ambient", span, "the load cycle has no ambient temperature: give 'ambient' here or on a cycle point");
+}
