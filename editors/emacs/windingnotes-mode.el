@@ -30,7 +30,7 @@ A bare program name is looked up on `exec-path' and then in
 (defconst windingnotes-statement-keywords
   '("frequency" "temperature" "let" "core" "winding" "tap" "brush" "impedance" "no-load"
     "join" "ground" "supply" "load" "fault" "sweep" "expect" "fail-on" "acknowledge"
-    "three-phase-supply" "three-phase-load")
+    "three-phase-supply" "three-phase-load" "tap-changer" "find")
   "Words that start a statement.")
 
 (defconst windingnotes-clause-keywords
@@ -39,7 +39,9 @@ A bare program name is looked up on `exec-path' and then in
     "fault-level" "power" "apparent" "pf" "model" "step" "points" "voltage" "loading" "flux"
     "efficiency" "regulation" "between" "and" "below" "above" "near" "within"
     "construction" "zero-sequence" "wye" "delta" "zigzag" "series" "ends" "neutral"
-    "vector-group" "is" "sequence")
+    "vector-group" "is" "sequence" "sets" "positions" "on-load" "off-circuit" "reversing"
+    "follows" "regulate" "target" "bandwidth" "pt-ratio" "compensation" "line-current" "ct"
+    "position" "clear-of-limits" "equals")
   "Words that start a clause or join its parts.")
 
 (defconst windingnotes-option-keywords
@@ -101,7 +103,7 @@ it.  Group 1 is the number, group 2 the unit when there is one."
 (defconst windingnotes-font-lock-keywords
   `((,(concat "^[ \t]*\\(" (regexp-opt '("let")) "\\)\\_>[ \t]+\\([A-Za-z_][A-Za-z0-9_]*\\)")
      (2 font-lock-variable-name-face))
-    (,(concat "^[ \t]*" (regexp-opt '("core" "winding" "tap" "brush" "supply" "load" "fault" "three-phase-supply" "three-phase-load"))
+    (,(concat "^[ \t]*" (regexp-opt '("core" "winding" "tap" "brush" "supply" "load" "fault" "three-phase-supply" "three-phase-load" "tap-changer"))
               "\\_>[ \t]+\\([A-Za-z_][A-Za-z0-9_]*\\)")
      (1 font-lock-function-name-face))
     (windingnotes--match-unit (1 'windingnotes-number-face) (2 'windingnotes-unit-face nil t))

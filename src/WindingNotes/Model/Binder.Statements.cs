@@ -42,6 +42,8 @@ internal sealed partial class BindRun
             case StatementKind.Acknowledge: Policy(s, acknowledged); break;
             case StatementKind.ThreePhaseSupply: BindThreePhaseSupply(s); break;
             case StatementKind.ThreePhaseLoad: BindThreePhaseLoad(s); break;
+            case StatementKind.TapChanger: BindTapChanger(s); break;
+            case StatementKind.Find: BindFind(s); break;
         }
     }
 
@@ -465,6 +467,16 @@ internal sealed partial class BindRun
         var measureClause = s.Clauses.FirstOrDefault(c => c.Form?.Group == "measure");
         var conditionClause = s.Clauses.FirstOrDefault(c => c.Form?.Group == "condition");
         if (measureClause is null || conditionClause is null) return;
+        if (measureClause.Keyword!.Text == "position")
+        {
+            BindPositionExpect(s, measureClause, conditionClause);
+            return;
+        }
+        if (conditionClause.Keyword!.Text == "clear-of-limits")
+        {
+            diagnostics.ReportPositionCondition(conditionClause.Span);
+            return;
+        }
         if (measureClause.Keyword!.Text == "vector-group" || conditionClause.Keyword!.Text == "is")
         {
             BindVectorGroupExpect(s, measureClause, conditionClause);
