@@ -25,7 +25,8 @@ internal sealed partial class BindRun
         }
         if (start < low || start > high)
         {
-            diagnostics.ReportOutOfBounds(s.Value("at")!.Span, $"the position of {name.Text}", $"from {low} to {high}");
+            // Without 'at' the start is position 0, which the range must then hold.
+            diagnostics.ReportOutOfBounds(s.Value("at")?.Span ?? range!.Span, s.Value("at") is null ? $"the positions of {name.Text} (it starts at 0 unless 'at' says)" : $"the position of {name.Text}", $"from {low} to {high}");
             return;
         }
         if (lets.GetValueOrDefault(let.Name) is { } written && !written.Dimension.Fits(step.Value.Dimension))
@@ -36,7 +37,7 @@ internal sealed partial class BindRun
         var reversing = s.Clause("reversing") is not null;
         if (reversing && low > 0)
         {
-            diagnostics.ReportOutOfBounds(range!.Span, "the positions of a reversing tap changer", "running through 0");
+            diagnostics.ReportOutOfBounds(range!.Span, "the positions of a reversing tap changer", "from a negative position to a positive one");
             return;
         }
         var onLoad = s.Clause("off-circuit") is null;
@@ -46,7 +47,7 @@ internal sealed partial class BindRun
         if (s.Clause("follows") is not null && follows is null) return;
         if (follows is not null && (control is TapControlModel || follows.Name == name.Text))
         {
-            diagnostics.ReportTapFollower(s.Clause("follows")!.Span, name.Text);
+            diagnostics.ReportTapFollower(s.Clause("follows")!.Span, name.Text, follows.Name);
             return;
         }
         model = model with

@@ -9,8 +9,10 @@ public sealed partial class DiagnosticBag
     public Diagnostic ReportTapControlOffCircuit(TextSpan span, string name) =>
         Error("tap-control", span, $"{name} is off-circuit: its position is stated with 'at', never chosen by a control");
 
-    public Diagnostic ReportTapFollower(TextSpan span, string name) =>
-        Error("tap-control", span, $"{name} follows another tap changer, so it has no control of its own and follows no one but another unit");
+    public Diagnostic ReportTapFollower(TextSpan span, string name, string master) =>
+        Error("tap-control", span, name == master
+            ? $"{name} cannot follow itself: name the tap changer of the paralleled unit it follows"
+            : $"{name} follows {master}, so it takes {master}'s position and has no control of its own: leave out 'regulate' or 'follows'");
 
     public Diagnostic ReportFindMeasure(TextSpan span) =>
         Error("find-measure", span, "'find' solves for a number: measure a voltage, current, loading, flux, power, efficiency or regulation");

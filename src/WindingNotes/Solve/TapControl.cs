@@ -164,13 +164,7 @@ public sealed class TapPlan
                 states[i] = step == 0 ? TapState.InBand : TapState.AtLimit;
                 if (step != 0 && positions[i] + step >= changers[i].Low && positions[i] + step <= changers[i].High) mover = i * 2 + (step > 0 ? 1 : 0);
             }
-            if (mover < 0)
-            {
-                for (var i = 0; i < changers.Length; i++)
-                    if (states[i] == TapState.AtLimit && changers[i].Control is { } k)
-                        extra.Add(Bag(b => b.ReportTapLimit(changers[i], positions[i], relays[i]!.Value, k)));
-                return Finish(p, c, relays);
-            }
+            if (mover < 0) return Finish(p, c, relays);
             var who = mover / 2;
             var from = positions[who];
             positions[who] += mover % 2 == 1 ? 1 : -1;
@@ -193,6 +187,10 @@ public sealed class TapPlan
                     var withF = SolveAt(point, positions, spec, true, cancel);
                     if (withF.Case is not null) p = withF;
                 }
+                if (relays is not null)
+                    for (var i = 0; i < changers.Length; i++)
+                        if (states[i] == TapState.AtLimit && changers[i].Control is { } k && relays[i] is { } v)
+                            extra.Add(Bag(b => b.ReportTapLimit(changers[i], positions[i], v, k)));
                 var taps = changers.Select((t, i) => new TapPosition(t, positions[i],
                     t.Follows is not null ? TapState.Follows : t.Control is null ? TapState.Stated : states[i], relays?[i])).ToImmutableArray();
                 return (p with { Diagnostics = [.. p.Diagnostics, .. extra] }, taps, (int[])positions.Clone());
