@@ -68,6 +68,9 @@ public static class InlayHints
             StatementKind.Winding => Sections(index.OfWinding[name].ToList()),
             StatementKind.Tap or StatementKind.Brush => Tap(evaluation.Normal, index.AtPoint[name].ToList(), name),
             StatementKind.Thermal => ThermalHint(evaluation.Thermal, name),
+            StatementKind.TapChanger => evaluation.Normal?.TapPositions.FirstOrDefault(t => t.Changer.Name == name) is { } tap ? Report.TextReport.TapText(tap) : null,
+            StatementKind.Find => evaluation.Normal is not null && evaluation.Model.Find is { } find && evaluation.Model.Lets.TryGetValue(find.Let, out var found)
+                ? $"{find.Let} = {SolveFor.Text(found)}" : null,
             _ => null,
         };
         // A three-phase core, winding, supply or load: its vector group or line-to-line voltages.

@@ -45,6 +45,8 @@ internal sealed partial class BindRun
             case StatementKind.Thermal: BindThermal(s); break;
             case StatementKind.LoadCycle: BindLoadCycle(s); break;
             case StatementKind.CyclePoint: BindCyclePoint(s); break;
+            case StatementKind.TapChanger: BindTapChanger(s); break;
+            case StatementKind.Find: BindFind(s); break;
         }
     }
 
@@ -468,6 +470,16 @@ internal sealed partial class BindRun
         var measureClause = s.Clauses.FirstOrDefault(c => c.Form?.Group == "measure");
         var conditionClause = s.Clauses.FirstOrDefault(c => c.Form?.Group == "condition");
         if (measureClause is null || conditionClause is null) return;
+        if (measureClause.Keyword!.Text == "position")
+        {
+            BindPositionExpect(s, measureClause, conditionClause);
+            return;
+        }
+        if (conditionClause.Keyword!.Text == "clear-of-limits")
+        {
+            diagnostics.ReportPositionCondition(conditionClause.Span);
+            return;
+        }
         if (measureClause.Keyword!.Text is "hot-spot" or "top-oil" or "loss-of-life")
         {
             BindThermalExpect(s, measureClause, conditionClause);

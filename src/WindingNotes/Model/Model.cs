@@ -106,7 +106,7 @@ public sealed record FaultModel(string Name, TextSpan NameSpan, TextSpan Line, N
 
 public sealed record SweepModel(Symbol Target, TextSpan Line, Quantity From, Quantity To, Quantity? Step, int? Points);
 
-public enum MeasureKind { Voltage, Current, Loading, Flux, Power, Efficiency, Regulation, VectorGroup, HotSpot, TopOil, LossOfLife }
+public enum MeasureKind { Voltage, Current, Loading, Flux, Power, Efficiency, Regulation, VectorGroup, HotSpot, TopOil, LossOfLife, Position }
 
 public enum ConditionKind { Between, Below, Above, Near }
 
@@ -165,6 +165,12 @@ public sealed record Model(SyntaxTree Syntax, SymbolTable Symbols, ImmutableArra
     public ImmutableArray<SweepModel> Sweeps { get; init; } = [];
     public ImmutableArray<ExpectModel> Expects { get; init; } = [];
     public ImmutableArray<ToleranceSite> Tolerances { get; init; } = [];
+
+    /// <summary>Tap changers in source order (TapChangers.cs).</summary>
+    public ImmutableArray<TapChangerModel> TapChangers { get; init; } = [];
+
+    /// <summary>The 'find' line, where the file has one.</summary>
+    public FindModel? Find { get; init; }
 
     /// <summary>Rating warnings this file makes errors ('fail-on'), each with the line that says so.</summary>
     public ImmutableDictionary<string, TextSpan> FailOn { get; init; } = ImmutableDictionary<string, TextSpan>.Empty;

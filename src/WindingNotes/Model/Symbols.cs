@@ -22,6 +22,7 @@ public sealed record Symbol(string Name, SymbolKind Kind, TextSpan Span, TextSpa
         SymbolKind.Supply => "a supply",
         SymbolKind.Load => "a load",
         SymbolKind.Fault => "a fault",
+        SymbolKind.TapChanger => "a tap changer",
         _ => "a name",
     };
 

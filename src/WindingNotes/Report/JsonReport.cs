@@ -140,6 +140,20 @@ public static class JsonReport
             w.WriteEndObject();
         }
 
+        if (!c.TapPositions.IsEmpty)
+        {
+            w.WriteStartObject("tapChangers");
+            foreach (var t in c.TapPositions)
+            {
+                w.WriteStartObject(t.Changer.Name);
+                w.WriteNumber("position", t.Position);
+                w.WriteString("state", t.State switch { TapState.InBand => "in-band", TapState.AtLimit => "at-limit", TapState.Hunting => "hunting", TapState.Follows => "follows", _ => "stated" });
+                if (t.Relay is { } relay) Number(w, "relay", relay);
+                w.WriteEndObject();
+            }
+            w.WriteEndObject();
+        }
+
         w.WriteStartObject("cores");
         foreach (var k in c.Cores)
         {

@@ -100,6 +100,11 @@ public static class MarkdownReport
             o.Append('\n');
             Table(o, 2, ["tap", "winding", "current out", "angle"], c.Taps.Select(t => new[] { t.Point, t.Winding.Name, V(t.Current.Magnitude, "A"), Angle(t.Current) }));
         }
+        if (!c.TapPositions.IsEmpty)
+        {
+            o.Append('\n');
+            Table(o, 1, ["tap changer", "setting"], c.TapPositions.Select(t => new[] { t.Changer.Name, TextReport.TapText(t) }));
+        }
         if (!c.Cores.IsEmpty)
         {
             var noLoad = c.Cores.Any(k => k.NoLoadCurrent is not null);

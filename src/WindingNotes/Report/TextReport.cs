@@ -67,6 +67,11 @@ public static class TextReport
             Heading(o, "Taps, current out of the winding");
             foreach (var t in c.Taps) Line(o, t.Point, $"on {t.Winding.Name}: {Phasor(t.Current, "A")}");
         }
+        if (!c.TapPositions.IsEmpty)
+        {
+            Heading(o, "Tap changers");
+            foreach (var t in c.TapPositions) Line(o, t.Changer.Name, TapText(t));
+        }
         if (!c.Cores.IsEmpty)
         {
             Heading(o, "Cores");
@@ -190,6 +195,12 @@ public static class TextReport
     };
 
     /// <summary>"228.1 V angle -0.04 deg": the notation's own polar form, so a reader can paste it back.</summary>
+    /// <summary>"position +8 of -16 to +16, in band, relay 119.1 V".</summary>
+    public static string TapText(TapPosition t) =>
+        $"position {Signed(t.Position)} of {Signed(t.Changer.Low)} to {Signed(t.Changer.High)}, {t.StateText}" + (t.Relay is { } r ? $", relay {Numbers.Format(r, "V")}" : "");
+
+    private static string Signed(int k) => k > 0 ? $"+{k}" : $"{k}";
+
     public static string Phasor(Complex v, string unit) =>
         $"{Numbers.Format(v.Magnitude, unit)} angle {Degrees(v):F2} deg".Replace("angle -0.00", "angle 0.00");
 

@@ -22,6 +22,11 @@ public static class CaseValues
             yield return new($"{key}.loss", s.Loss, "W");
         }
         foreach (var tap in c.Taps) yield return new($"taps.{tap.Point}.i.rms", tap.Current.Magnitude, "A");
+        foreach (var changer in c.TapPositions)
+        {
+            yield return new($"tapChangers.{changer.Changer.Name}.position", changer.Position, "");
+            if (changer.Relay is { } relay) yield return new($"tapChangers.{changer.Changer.Name}.relay", relay, "V");
+        }
         foreach (var k in c.Cores)
         {
             var key = $"cores.{k.Core.Name}";

@@ -111,6 +111,10 @@ public static class Checks
                 if (group?.Symbol is { } symbol) return symbol == expect.Symbol ? 1 : 0;
                 problem = group?.Problem ?? $"'{t[0].Name}' has no two three-phase windings to compare";
                 return null;
+            case MeasureKind.Position:
+                if (result.TapPositions.FirstOrDefault(p => p.Changer.Name == t[0].Name) is { } tap) return tap.Position;
+                problem = $"the position of '{t[0].Name}' is not known in this case";
+                return null;
             case MeasureKind.Efficiency:
                 if (result.Totals.Efficiency is { } efficiency) return efficiency;
                 problem = result.Totals.CoreLossKnown

@@ -109,6 +109,9 @@ public sealed record CaseResult(
     /// <summary>Taps and brushes in source order, with the current each gives out.</summary>
     public ImmutableArray<TapResult> Taps { get; init; } = [];
 
+    /// <summary>Tap changers in source order, at the positions stated or settled on (TapControl.cs).</summary>
+    public ImmutableArray<TapPosition> TapPositions { get; init; } = [];
+
     /// <summary>Autotransformer connections: each supply and load linked through windings.</summary>
     public ImmutableArray<ConnectionResult> Connections { get; init; } = [];
 

@@ -26,12 +26,13 @@ public sealed record StudyResult(ImmutableArray<CaseResult> Cases, ImmutableArra
 public static class Study
 {
     public static StudyResult Run(SyntaxTree syntax, Model.Model model, Network network, DiagnosticBag diagnostics,
-        TimeBudget budget, Action<StudyProgress>? progress = null)
+        TimeBudget budget, Action<StudyProgress>? progress = null, TapPlan? taps = null)
     {
         var cancel = budget.Token;
         var nominal = Points.Solve(network, CaseSpec.Normal, withFaults: true, cancel);
         diagnostics.AddRange(nominal.Diagnostics);
         if (nominal.Case is not { } normal) return new StudyResult([], []);
+        if (taps is not null) normal = normal with { TapPositions = taps.Nominal };
 
         if (!normal.Totals.CoreLossKnown && !normal.Loads.IsEmpty)
             diagnostics.ReportCoreLossUnknown([.. normal.Cores.Where(k => !k.LossKnown).Select(k => k.Core.Source)]);
@@ -43,7 +44,7 @@ public static class Study
         if (samples.Length > 0 && points > 0 && !bandsAtPoints)
             diagnostics.ReportBandsNotSwept(model.Sweeps[0].Line, points, samples.Length, Sweeps.Budget);
 
-        var run = new PointRun(syntax, model.Frequency, new BrushSweep(syntax, model), diagnostics, cancel, progress, samples.Length + points * (1 + (bandsAtPoints ? samples.Length : 0)));
+        var run = new PointRun(syntax, model.Frequency, new BrushSweep(syntax, model), taps, diagnostics, cancel, progress, samples.Length + points * (1 + (bandsAtPoints ? samples.Length : 0)));
         var checks = new CheckTally([.. model.Expects.Where(e => !ThermalStudy.IsThermal(e))]);
         var ratings = new RatingTally();
         var outputs = new OutputTally(network);
@@ -157,7 +158,7 @@ public static class Study
     /// Solves points after the nominal one and keeps what they report that the nominal evaluation did
     /// not: each such message once, with the first point it came from and how many more.
     /// </summary>
-    private sealed class PointRun(SyntaxTree syntax, double ratedFrequency, BrushSweep brushes, DiagnosticBag diagnostics, CancellationToken cancel, Action<StudyProgress>? progress, long total)
+    private sealed class PointRun(SyntaxTree syntax, double ratedFrequency, BrushSweep brushes, TapPlan? taps, DiagnosticBag diagnostics, CancellationToken cancel, Action<StudyProgress>? progress, long total)
     {
         private readonly HashSet<(string, TextSpan, string)> known = [.. diagnostics.Select(d => (d.Code, d.Span, d.Message))];
         private readonly Dictionary<(string, TextSpan), (Diagnostic First, string Where, int More)> fresh = [];
@@ -173,7 +174,8 @@ public static class Study
             cancel.ThrowIfCancellationRequested();
             // Every point keeps the frequency as written as the one its impedances are given at.
             overrides = overrides with { RatedFrequency = ratedFrequency };
-            var p = !withFaults && spec.IsSweepPoint && brushes.Covers(overrides)
+            var p = taps is not null ? taps.Solve(overrides, spec, withFaults, cancel)
+                : !withFaults && spec.IsSweepPoint && brushes.Covers(overrides)
                 ? brushes.Solve(overrides, spec, cancel)
                 : Points.Solve(syntax, overrides, spec, withFaults, cancel);
             var where = $"{(spec.IsSweepPoint ? $"at {spec.Where}" : "")} {sample}".Trim();

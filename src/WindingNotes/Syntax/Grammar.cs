@@ -2,10 +2,10 @@ using System.Collections.Frozen;
 
 namespace WindingNotes.Syntax;
 
-public enum StatementKind { Frequency, Temperature, Let, Core, Winding, Tap, Brush, Impedance, NoLoad, Join, Ground, Supply, Load, Fault, Sweep, Expect, FailOn, Acknowledge, ThreePhaseSupply, ThreePhaseLoad, Thermal, LoadCycle, CyclePoint }
+public enum StatementKind { Frequency, Temperature, Let, Core, Winding, Tap, Brush, Impedance, NoLoad, Join, Ground, Supply, Load, Fault, Sweep, Expect, FailOn, Acknowledge, ThreePhaseSupply, ThreePhaseLoad, Thermal, LoadCycle, CyclePoint, TapChanger, Find }
 
 /// <summary>What a name stands for. One namespace holds them all.</summary>
-public enum SymbolKind { Let, Core, Winding, Terminal, Tap, Brush, Node, Supply, Load, Fault }
+public enum SymbolKind { Let, Core, Winding, Terminal, Tap, Brush, Node, Supply, Load, Fault, TapChanger }
 
 /// <summary>How a name in a statement is used: it defines a symbol or refers to one of some kinds.</summary>
 public sealed record NameRole(bool Defines, SymbolKind[] Kinds, string Label, bool AllowsSection = false);
@@ -76,6 +76,20 @@ public static class Grammar
 
     /// <summary>The cautions a file may acknowledge (their wording is in Solve/Messages.cs).</summary>
     public static readonly string[] Cautions = ["caution-no-isolation", "caution-common-terminal", "caution-fuse-output", "caution-above-supply", "caution-fault-duty", "caution-hot-spot"];
+
+    /// <summary>What an 'expect' or a 'find' measures (one of them).</summary>
+    private static readonly ClauseForm[] Measures =
+    [
+        new("voltage", [new NamePart(NodeRef), new NamePart(NodeRef)], Group: "measure", Summary: "the voltage between two nodes"),
+        new("current", [new NamePart(Use("a winding, supply or load", SymbolKind.Winding, SymbolKind.Supply, SymbolKind.Load)), new OptionalPart(new NamePart(NodeRef), new NamePart(NodeRef))],
+            Group: "measure", Summary: "the current of a winding, a section, a supply or a load"),
+        new("loading", [new NamePart(WindingRef), new OptionalPart(new NamePart(NodeRef), new NamePart(NodeRef))], Group: "measure", Summary: "a winding's or section's current over its rated current"),
+        new("flux", [new NamePart(CoreRef)], Group: "measure", Summary: "the peak flux density of a core"),
+        new("power", [new NamePart(Use("a supply or load", SymbolKind.Supply, SymbolKind.Load))], Group: "measure", Summary: "the active power of a supply or load"),
+        new("efficiency", [], Group: "measure", Summary: "load power over supply power"),
+        new("regulation", [new NamePart(Use("a load name", SymbolKind.Load))], Group: "measure", Summary: "the rise of a load's voltage when all loads are removed"),
+        new("vector-group", [new NamePart(CoreRef)], Group: "measure", Summary: "the connection symbol and clock numbers of a three-phase unit, from its wiring"),
+    ];
 
     public static readonly StatementForm[] Statements =
     [
@@ -182,23 +196,17 @@ public static class Grammar
             "sweep B from 0 % to 100 % step 5 %", "vary a brush position or a let value", ["spacing"]),
         new(StatementKind.Expect, "expect", [],
             [
-                new("voltage", [new NamePart(NodeRef), new NamePart(NodeRef)], Group: "measure", Summary: "the voltage between two nodes"),
-                new("current", [new NamePart(Use("a winding, supply or load", SymbolKind.Winding, SymbolKind.Supply, SymbolKind.Load)), new OptionalPart(new NamePart(NodeRef), new NamePart(NodeRef))],
-                    Group: "measure", Summary: "the current of a winding, a section, a supply or a load"),
-                new("loading", [new NamePart(WindingRef), new OptionalPart(new NamePart(NodeRef), new NamePart(NodeRef))], Group: "measure", Summary: "a winding's or section's current over its rated current"),
-                new("flux", [new NamePart(CoreRef)], Group: "measure", Summary: "the peak flux density of a core"),
-                new("power", [new NamePart(Use("a supply or load", SymbolKind.Supply, SymbolKind.Load))], Group: "measure", Summary: "the active power of a supply or load"),
-                new("efficiency", [], Group: "measure", Summary: "load power over supply power"),
-                new("regulation", [new NamePart(Use("a load name", SymbolKind.Load))], Group: "measure", Summary: "the rise of a load's voltage when all loads are removed"),
-                new("vector-group", [new NamePart(CoreRef)], Group: "measure", Summary: "the connection symbol and clock numbers of a three-phase unit, from its wiring"),
+                .. Measures,
                 new("hot-spot", [new OptionalPart(new NamePart(CoreRef))], Group: "measure", Summary: "the highest hot-spot temperature over the load cycle, of one unit or of every unit with thermal data"),
                 new("top-oil", [new OptionalPart(new NamePart(CoreRef))], Group: "measure", Summary: "the highest top-oil temperature over the load cycle"),
                 new("loss-of-life", [new OptionalPart(new NamePart(CoreRef))], Group: "measure", Summary: "the insulation life used over the day of the load cycle, in hours at the reference ageing rate"),
+                new("position", [new NamePart(Use("a tap changer name", SymbolKind.TapChanger))], Group: "measure", Summary: "the position a tap changer is set to or settles on"),
                 new("between", [Value, new WordPart("and"), Value], Group: "condition", Summary: "both bounds included"),
                 new("below", [Value], Group: "condition", Summary: "an upper bound"),
                 new("above", [Value], Group: "condition", Summary: "a lower bound"),
                 new("near", [Value, new WordPart("within"), Value], Group: "condition", Summary: "a target with a tolerance"),
                 new("is", [new NamePart(new NameRole(false, [], "a connection symbol such as Dyn11"))], Group: "condition", Summary: "a connection symbol (IEC 60076-1), for 'vector-group'"),
+                new("clear-of-limits", [], Group: "condition", Summary: "for 'position': at neither end of the tap changer's range"),
             ],
             "expect voltage X1 N between 225 V and 235 V", "a check that must hold", ["measure", "condition"]),
         new(StatementKind.FailOn, "fail-on", [new ChoicePart("a rating warning", RatingWarnings)], [],
@@ -262,6 +270,35 @@ public static class Grammar
                 Clause("ambient", "the ambient temperature from this time on", Value),
             ],
             "cycle-point 18 h load 1.2 pu ambient 35 degC", "the load of the cycle from a time of day until the next cycle point"),
+        new(StatementKind.TapChanger, "tap-changer", [new NamePart(Def(SymbolKind.TapChanger, "a new tap changer name"))],
+            [
+                new("on", [new NamePart(WindingRef)], Required: true, Summary: "the tapped winding (the one a reversing switch reverses)"),
+                new("sets", [new NamePart(Use("a let name", SymbolKind.Let))], Required: true, Summary: "the let that carries the position: its value as written at position 0, one step more a position"),
+                new("positions", [Value, new WordPart("to"), Value], Required: true, Summary: "the lowest and the highest position, whole numbers"),
+                new("step", [Value], Required: true, Summary: "what one position adds to the let"),
+                new("on-load", [], Group: "duty", Summary: "changes position under load, so a control may set it (the default)"),
+                new("off-circuit", [], Group: "duty", Summary: "changed only de-energised: its position is stated, never chosen"),
+                Clause("reversing", "a reversing switch: at negative positions the winding is connected reversed and the let takes the step count without its sign"),
+                Clause("at", "the position stated, or where the control starts (0 when left out)", Value),
+                Clause("follows", "paralleled units: takes the position of another tap changer (master and follower)", new NamePart(Use("a tap changer name", SymbolKind.TapChanger))),
+                Clause("regulate", "the voltage the control holds, between two nodes", new NamePart(NodeRef), new NamePart(NodeRef)),
+                Clause("target", "the voltage the control holds, at the relay (node voltage over the pt-ratio)", Value),
+                Clause("bandwidth", "the width of the band around the target, at the relay", Value),
+                Clause("pt-ratio", "node voltage over relay voltage (1 when left out)", Value),
+                Clause("compensation", "line-drop compensation: R and X settings in volts at the relay, at rated ct current", Value, Value),
+                Clause("line-current", "the current the compensation sees: a load, supply or winding", new NamePart(Use("a load, supply or winding", SymbolKind.Load, SymbolKind.Supply, SymbolKind.Winding))),
+                Clause("ct", "the rated primary current of the current transformer", Value),
+            ],
+            "tap-changer REG on SER sets sel positions -16 to 16 step 6.25 % on-load reversing regulate X1 N target 120 V bandwidth 2 V pt-ratio 60",
+            "a tap changer on a tapped winding: a range of positions, stated or chosen by an automatic voltage control"),
+        new(StatementKind.Find, "find", [new NamePart(Use("a let name", SymbolKind.Let))],
+            [
+                .. Measures,
+                new("equals", [Value], Required: true, Summary: "the target the measure must equal"),
+                new("from", [Value, new WordPart("to"), Value], Required: true, Summary: "the range searched for the let's value"),
+            ],
+            "find nser voltage X1 N equals 120 V from 10 turns to 40 turns",
+            "the value of a let that makes a measure equal a target: every result is then at that value", ["measure"]),
     ];
 
     public static readonly FrozenDictionary<string, StatementForm> ByKeyword = Statements.ToFrozenDictionary(s => s.Keyword);

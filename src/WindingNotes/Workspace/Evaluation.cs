@@ -134,8 +134,18 @@ public static class Evaluator
         // A network the builder could not make whole is not solved: its numbers would mislead.
         if (network.Diagnostics.Any(d => d.IsError)) return Finish(path, stages);
 
+        // Tap changers and 'find' set lets before anything is solved: the document is then solved at those values.
+        var plan = TapPlan.For(stages.Syntax, model);
+        if (plan is not null)
+        {
+            stages.Doing = "finding values and settling tap changers";
+            if (TapStudy.Prepare(plan, model, diagnostics, cancel) is not { } settled) return Finish(path, stages);
+            (model, network) = settled;
+            (stages.Model, stages.Network) = settled;
+        }
+
         stages.Doing = "solving the normal case";
-        stages.Study = Study.Run(stages.Syntax, model, network, diagnostics, budget, progress);
+        stages.Study = Study.Run(stages.Syntax, model, network, diagnostics, budget, progress, plan);
         return Finish(path, stages);
     }
 
