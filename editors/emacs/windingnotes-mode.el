@@ -30,7 +30,7 @@ A bare program name is looked up on `exec-path' and then in
 (defconst windingnotes-statement-keywords
   '("frequency" "temperature" "let" "core" "winding" "tap" "brush" "impedance" "no-load"
     "join" "ground" "supply" "load" "fault" "sweep" "expect" "fail-on" "acknowledge"
-    "three-phase-supply" "three-phase-load")
+    "three-phase-supply" "three-phase-load" "fault-study" "bus-fault")
   "Words that start a statement.")
 
 (defconst windingnotes-clause-keywords
@@ -39,7 +39,9 @@ A bare program name is looked up on `exec-path' and then in
     "fault-level" "power" "apparent" "pf" "model" "step" "points" "voltage" "loading" "flux"
     "efficiency" "regulation" "between" "and" "below" "above" "near" "within"
     "construction" "zero-sequence" "wye" "delta" "zigzag" "series" "ends" "neutral"
-    "vector-group" "is" "sequence")
+    "vector-group" "is" "sequence" "currents" "voltage-tolerance" "duration"
+    "initial-temperature" "earth-impedance" "nominal" "fault-current" "peak-current"
+    "thermal-current" "earth-fault-factor" "in")
   "Words that start a clause or join its parts.")
 
 (defconst windingnotes-option-keywords
@@ -48,7 +50,9 @@ A bare program name is looked up on `exec-path' and then in
     "loading-high" "flux-high" "overexcited" "brush-current-high" "connection-rating"
     "current-density-high" "caution-no-isolation" "caution-common-terminal"
     "caution-fuse-output" "caution-above-supply" "caution-fault-duty"
-    "bank" "three-limb" "five-limb" "shell" "abc" "acb")
+    "bank" "three-limb" "five-limb" "shell" "abc" "acb"
+    "equivalent-source" "as-loaded" "maximum" "minimum" "maximum-and-minimum"
+    "three-phase" "line-to-ground" "line-to-line" "double-line-to-ground")
   "Words chosen from a fixed set inside a clause.")
 
 (defconst windingnotes-value-keywords '("angle" "sqrt")
@@ -101,7 +105,7 @@ it.  Group 1 is the number, group 2 the unit when there is one."
 (defconst windingnotes-font-lock-keywords
   `((,(concat "^[ \t]*\\(" (regexp-opt '("let")) "\\)\\_>[ \t]+\\([A-Za-z_][A-Za-z0-9_]*\\)")
      (2 font-lock-variable-name-face))
-    (,(concat "^[ \t]*" (regexp-opt '("core" "winding" "tap" "brush" "supply" "load" "fault" "three-phase-supply" "three-phase-load"))
+    (,(concat "^[ \t]*" (regexp-opt '("core" "winding" "tap" "brush" "supply" "load" "fault" "three-phase-supply" "three-phase-load" "bus-fault"))
               "\\_>[ \t]+\\([A-Za-z_][A-Za-z0-9_]*\\)")
      (1 font-lock-function-name-face))
     (windingnotes--match-unit (1 'windingnotes-number-face) (2 'windingnotes-unit-face nil t))

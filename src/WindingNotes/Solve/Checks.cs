@@ -111,6 +111,8 @@ public static class Checks
                 if (group?.Symbol is { } symbol) return symbol == expect.Symbol ? 1 : 0;
                 problem = group?.Problem ?? $"'{t[0].Name}' has no two three-phase windings to compare";
                 return null;
+            case MeasureKind.FaultCurrent or MeasureKind.PeakCurrent or MeasureKind.ThermalCurrent or MeasureKind.EarthFaultFactor:
+                return FaultChecks.Measure(expect, result, out problem);
             case MeasureKind.Efficiency:
                 if (result.Totals.Efficiency is { } efficiency) return efficiency;
                 problem = result.Totals.CoreLossKnown

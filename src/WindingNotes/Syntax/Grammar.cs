@@ -2,7 +2,7 @@ using System.Collections.Frozen;
 
 namespace WindingNotes.Syntax;
 
-public enum StatementKind { Frequency, Temperature, Let, Core, Winding, Tap, Brush, Impedance, NoLoad, Join, Ground, Supply, Load, Fault, Sweep, Expect, FailOn, Acknowledge, ThreePhaseSupply, ThreePhaseLoad }
+public enum StatementKind { Frequency, Temperature, Let, Core, Winding, Tap, Brush, Impedance, NoLoad, Join, Ground, Supply, Load, Fault, Sweep, Expect, FailOn, Acknowledge, ThreePhaseSupply, ThreePhaseLoad, FaultStudy, BusFault }
 
 /// <summary>What a name stands for. One namespace holds them all.</summary>
 public enum SymbolKind { Let, Core, Winding, Terminal, Tap, Brush, Node, Supply, Load, Fault }
@@ -58,6 +58,10 @@ public static class Grammar
     private static readonly NameRole WindingRef = Use("a winding name", SymbolKind.Winding);
     private static readonly NameRole WindingOrSection = new(false, [SymbolKind.Winding], "a winding or section", AllowsSection: true);
     private static readonly ValuePart Value = new("a value");
+    private static readonly NameRole FaultRef = Use("a fault name", SymbolKind.Fault);
+
+    /// <summary>Which study of a bus fault: its maximum currents (cmax) unless said.</summary>
+    private static readonly OptionalPart Extreme = new(new ChoicePart("'maximum' or 'minimum'", "maximum", "minimum"));
 
     private static readonly NameRole Terminal = Def(SymbolKind.Terminal, "a terminal name");
 
@@ -191,6 +195,11 @@ public static class Grammar
                 new("efficiency", [], Group: "measure", Summary: "load power over supply power"),
                 new("regulation", [new NamePart(Use("a load name", SymbolKind.Load))], Group: "measure", Summary: "the rise of a load's voltage when all loads are removed"),
                 new("vector-group", [new NamePart(CoreRef)], Group: "measure", Summary: "the connection symbol and clock numbers of a three-phase unit, from its wiring"),
+                new("fault-current", [new NamePart(FaultRef), Extreme], Group: "measure", Summary: "the initial symmetrical short-circuit current of a bus fault (the largest faulted line's)"),
+                new("peak-current", [new NamePart(FaultRef), Extreme], Group: "measure", Summary: "the peak short-circuit current of a bus fault"),
+                new("thermal-current", [new NamePart(FaultRef), Extreme], Group: "measure", Summary: "the thermal equivalent short-circuit current of a bus fault over the study's duration"),
+                new("earth-fault-factor", [new NamePart(FaultRef), Extreme], Group: "measure", Summary: "the highest line-to-earth voltage of a sound line during a bus fault over the line-to-earth voltage before it"),
+                new("in", [new NamePart(FaultRef), Extreme], Summary: "evaluate the measure in a fault case (a bus fault's maximum study unless said)"),
                 new("between", [Value, new WordPart("and"), Value], Group: "condition", Summary: "both bounds included"),
                 new("below", [Value], Group: "condition", Summary: "an upper bound"),
                 new("above", [Value], Group: "condition", Summary: "a lower bound"),
@@ -228,6 +237,26 @@ public static class Grammar
                     new OptionalPart(new WordPart("at"), new ValuePart("a voltage"))),
             ],
             "three-phase-load mill X1 X2 X3 wye X0 power 300 kW pf 0.85", "a three-phase load, wye or delta", ["connection", "demand"]),
+        new(StatementKind.FaultStudy, "fault-study", [new ChoicePart("a fault method", "equivalent-source", "as-loaded")],
+            [
+                Clause("currents", "the currents studied: maximum (cmax), minimum (cmin) or both",
+                    new ChoicePart("'maximum', 'minimum' or 'maximum-and-minimum'", "maximum", "minimum", "maximum-and-minimum")),
+                Clause("voltage-tolerance", "the tolerance of a low-voltage system, 6 % or 10 % (10 % unless said); it sets the voltage factor c", Value),
+                Clause("duration", "how long the fault lasts for the thermal duty (2 s unless said)", Value),
+                Clause("initial-temperature", "the windings' average temperature before the fault (105 degC unless said)", Value),
+            ],
+            "fault-study equivalent-source currents maximum-and-minimum duration 2 s",
+            "how bus faults are studied: the equivalent voltage source at the fault (IEC 60909-0) or the network as loaded"),
+        new(StatementKind.BusFault, "bus-fault",
+            [new NamePart(Def(SymbolKind.Fault, "a new fault name")), new NamePart(NodeRef), new NamePart(NodeRef), new NamePart(NodeRef),
+             new ChoicePart("a fault kind", "three-phase", "line-to-ground", "line-to-line", "double-line-to-ground")],
+            [
+                Clause("impedance", "the fault impedance in each faulted line, or between the two lines of a line-to-line fault (0 ohm when left out)", Value),
+                Clause("earth-impedance", "the impedance from the fault to earth (0 ohm when left out)", Value),
+                Clause("nominal", "the system's nominal line-to-line voltage at the bus, where it is not the rated voltage there", Value),
+            ],
+            "bus-fault F2 X1 X2 X3 line-to-ground impedance 0 ohm",
+            "a short circuit on a three-phase bus: line-to-ground on the first line, line-to-line and double-line-to-ground on the second and third"),
     ];
 
     public static readonly FrozenDictionary<string, StatementForm> ByKeyword = Statements.ToFrozenDictionary(s => s.Keyword);
