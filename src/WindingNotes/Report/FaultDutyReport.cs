@@ -133,12 +133,12 @@ public static class FaultDutyReport
 
     private static string TimeConstant(ShortCircuitResult sc) => double.IsFinite(sc.DcTimeConstant) ? Numbers.Format(sc.DcTimeConstant * 1000, "ms") : "infinite";
 
-    private static string Sequence(SequenceSet s, string unit) =>
+    private static string Sequence(Sequence s, string unit) =>
         $"zero {TextReport.Phasor(s.Zero, unit)}, positive {TextReport.Phasor(s.Positive, unit)}, negative {TextReport.Phasor(s.Negative, unit)}";
 
     private static string Deg(Complex v) => $"{TextReport.Degrees(v):F2}°".Replace("-0.00°", "0.00°");
 
-    private static void SequenceJson(Utf8JsonWriter w, string name, SequenceSet s)
+    private static void SequenceJson(Utf8JsonWriter w, string name, Sequence s)
     {
         w.WriteStartObject(name);
         JsonReport.Phasor(w, "zero", s.Zero);

@@ -5,16 +5,6 @@ using WindingNotes.Text;
 
 namespace WindingNotes.Solve;
 
-/// <summary>Zero, positive and negative sequence components of three phase values (R29, Fortescue).</summary>
-public sealed record SequenceSet(Complex Zero, Complex Positive, Complex Negative)
-{
-    public static SequenceSet Of(Complex a, Complex b, Complex c)
-    {
-        var h = Phases.A;
-        return new((a + b + c) / 3, (a + h * b + h * h * c) / 3, (a + h * h * b + h * c) / 3);
-    }
-}
-
 /// <summary>
 /// One winding's duty in a bus fault: its largest section current, the multiple of its rated
 /// current, the peak it must withstand (the IEC 60076-5 asymmetry factor k·√2 of the loop), its
@@ -70,9 +60,9 @@ public sealed record ShortCircuitResult(BusFaultModel Fault, FaultStudyModel Stu
 
     public ImmutableArray<Complex> PreFault { get; init; } = [];
 
-    public SequenceSet Currents { get; init; } = new(0, 0, 0);
+    public Sequence Currents { get; init; } = new(0, 0, 0);
 
-    public SequenceSet Voltages { get; init; } = new(0, 0, 0);
+    public Sequence Voltages { get; init; } = new(0, 0, 0);
 
     /// <summary>I″k: the largest current in a faulted line, rms.</summary>
     public double Initial { get; init; }
@@ -139,7 +129,7 @@ public static class FaultStudy
             else pre = noLoad ??= NetworkSolver.Solve(network, CaseSpec.NoLoad, cancel);
             if (!pre.Solved || !pre.HasVectors) continue;
             var vpre = bus.Select(n => pre.Voltage(n) - pre.Voltage(earth)).ToArray();
-            var seq = SequenceSet.Of(vpre[0], vpre[1], vpre[2]);
+            var seq = Sequence.Of(vpre[0], vpre[1], vpre[2]);
             var phaseVolts = Math.Max(seq.Positive.Magnitude, seq.Negative.Magnitude);
             if (phaseVolts <= 0)
             {
@@ -282,9 +272,9 @@ public static class FaultStudy
             faulted with { Supplies = [.. supplies.Take(count), .. Branches(fault with { Kind = BusFaultKind.ThreePhase, Impedance = 0 }, bus, earth)
                 .Select((b, i) => new SupplyNet(count + i, Branch(fault, i), b.P, b.Q, 0, b.Z))] }, spec, cancel);
         if (!bolted.Solved) return null;
-        var vpre = SequenceSet.Of(pre.Voltage(bus[0]) - pre.Voltage(earth), pre.Voltage(bus[1]) - pre.Voltage(earth), pre.Voltage(bus[2]) - pre.Voltage(earth));
+        var vpre = Sequence.Of(pre.Voltage(bus[0]) - pre.Voltage(earth), pre.Voltage(bus[1]) - pre.Voltage(earth), pre.Voltage(bus[2]) - pre.Voltage(earth));
         var boltedLines = LineCurrents(bolted, count, bus, earth).Lines;
-        var i1 = SequenceSet.Of(boltedLines[0], boltedLines[1], boltedLines[2]);
+        var i1 = Sequence.Of(boltedLines[0], boltedLines[1], boltedLines[2]);
         var (v1, i1p) = vpre.Positive.Magnitude >= vpre.Negative.Magnitude ? (vpre.Positive, i1.Positive) : (vpre.Negative, i1.Negative);
         var z1 = i1p == Complex.Zero ? Complex.Zero : v1 * scale / i1p;
 
@@ -297,8 +287,8 @@ public static class FaultStudy
             LineCurrents = [.. lines],
             EarthCurrent = earthCurrent,
             LineVoltages = [.. during],
-            Currents = SequenceSet.Of(lines[0], lines[1], lines[2]),
-            Voltages = SequenceSet.Of(during[0], during[1], during[2]),
+            Currents = Sequence.Of(lines[0], lines[1], lines[2]),
+            Voltages = Sequence.Of(during[0], during[1], during[2]),
             Z1 = z1,
         };
         return result with { Supplies = [.. result.Supplies.Where(s => s.Supply.Index < count)], ShortCircuit = sc };
