@@ -287,11 +287,18 @@ public static class FaultStudy
             LineCurrents = [.. lines],
             EarthCurrent = earthCurrent,
             LineVoltages = [.. during],
-            Currents = Sequence.Of(lines[0], lines[1], lines[2]),
-            Voltages = Sequence.Of(during[0], during[1], during[2]),
+            Currents = Cleaned(Sequence.Of(lines[0], lines[1], lines[2]), lines),
+            Voltages = Cleaned(Sequence.Of(during[0], during[1], during[2]), [.. bus.Select(n => pre.Voltage(n) * scale)]),
             Z1 = z1,
         };
         return result with { Supplies = [.. result.Supplies.Where(s => s.Supply.Index < count)], ShortCircuit = sc };
+    }
+
+    /// <summary>Components left by rounding (a picoampere of negative sequence in a balanced fault) are zero.</summary>
+    private static Sequence Cleaned(Sequence s, Complex[] phases)
+    {
+        var scale = phases.Max(p => p.Magnitude);
+        return new(Numbers.Clean(s.Zero, scale), Numbers.Clean(s.Positive, scale), Numbers.Clean(s.Negative, scale));
     }
 
     /// <summary>A fault branch as a source of no EMF, named for the solver's messages.</summary>
@@ -431,8 +438,12 @@ public static class FaultStudy
     /// <summary>A warning at the winding's line where its duty passes a limit; and the caution on the fault's line.</summary>
     private static void ReportDuty(ShortCircuitResult sc, DiagnosticBag diagnostics)
     {
-        var worst = sc.Duties.Where(d => d.Multiple is not null).MaxBy(d => d.Multiple!.Value);
-        diagnostics.ReportBusFaultDuty(sc, worst);
+        // Windings of one unit carry the same multiple: of equals (to rounding), the first in the file.
+        var rated = sc.Duties.Where(d => d.Multiple is not null).ToList();
+        var top = rated.Count == 0 ? 0 : rated.Max(d => d.Multiple!.Value);
+        var worst = rated.FirstOrDefault(d => d.Multiple!.Value >= top * (1 - 1e-9));
+        // The caution once a fault: on its maximum study (or as loaded), the larger duty.
+        if (!sc.Minimum || !sc.Study.Maximum) diagnostics.ReportBusFaultDuty(sc, worst);
         foreach (var d in sc.Duties)
         {
             if (d.ThermalExceeded) diagnostics.ReportWindingHotAfterFault(sc, d);
