@@ -119,6 +119,12 @@ public static class FaultStudy
             cancel.ThrowIfCancellationRequested();
             var bus = fault.Lines.Select(l => network.Node(l.Name)).ToArray();
             var earth = network.EarthNode;
+            // Lines joined together or to earth are no bus to fault: say so rather than short a node to itself.
+            if (bus.Any(n => n < 0 || n == earth) || bus.Distinct().Count() < 3)
+            {
+                diagnostics.ReportBusFaultLines(fault);
+                continue;
+            }
             if (fault.ToEarth && earth < 0)
             {
                 diagnostics.ReportBusFaultNoEarth(fault);

@@ -11,6 +11,9 @@ public sealed partial class DiagnosticBag
     public Diagnostic ReportBusFaultNoEarth(BusFaultModel fault) =>
         Error("bus-fault-no-earth", fault.NameSpan, $"bus fault '{fault.Name}' goes to earth, but nothing in the network is grounded: add a 'ground' line");
 
+    public Diagnostic ReportBusFaultLines(BusFaultModel fault) =>
+        Error("bus-fault-lines", fault.NameSpan, $"bus fault '{fault.Name}' needs three line terminals that are three nodes, none of them earth: '{fault.Lines[0].Name}', '{fault.Lines[1].Name}' and '{fault.Lines[2].Name}' are not");
+
     public Diagnostic ReportBusFaultDead(BusFaultModel fault) =>
         Warning("bus-fault-dead", fault.NameSpan, $"bus fault '{fault.Name}': the bus has no voltage before the fault, so it is not studied");
 
