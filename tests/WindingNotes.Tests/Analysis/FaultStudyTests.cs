@@ -288,6 +288,22 @@ public class FaultStudyTests
     }
 
     [Fact]
+    public void Hints_and_hovers_carry_the_bus_fault_results()
+    {
+        var e = Wn.Solved(DeltaWye + "fault-study equivalent-source currents maximum-and-minimum\n");
+        var hints = WindingNotes.Editing.InlayHints.For(e);
+        var line = DeltaWye.Split('\n').ToList().FindIndex(l => l.StartsWith("bus-fault F3"));
+        var hint = hints.Single(h => h.Position.Line == line).Label;
+        // I = 1.10·415/√3 / |Zs + Zt| at cmax, 0.90/1.10 of it at cmin (by hand above).
+        Assert.Contains($"I\"k {WindingNotes.Text.Numbers.Format(E / (Zs + Zt).Magnitude, "A")}", hint);
+        Assert.Contains("(maximum)", hint);
+        Assert.Contains("(minimum)", hint);
+        var lv = DeltaWye.Split('\n').ToList().FindIndex(l => l.StartsWith("winding LV"));
+        var hover = WindingNotes.Editing.Hovers.At(e, new WindingNotes.Text.Position(lv, 9))!.Markdown;
+        Assert.Contains("in bus fault F3 (maximum): LV_a", hover);
+    }
+
+    [Fact]
     public void A_winding_past_its_limits_is_warned_at_its_line()
     {
         // 95 mm² of copper for 2087 A rated is 22 A/mm²; at 16.6 times that (a bolted three-phase fault)
