@@ -263,20 +263,29 @@ public static class FaultStudy
         var asLoaded = study.Method == FaultMethod.AsLoaded;
         var supplies = network.Supplies.Select(s => s with { Voltage = s.Voltage * scale }).ToList();
         var count = supplies.Count;
-        foreach (var (p, q, z) in Branches(fault, bus, earth))
-            supplies.Add(new SupplyNet(supplies.Count, Branch(fault, supplies.Count - count), p, q, 0, z));
         var loads = asLoaded ? network.Loads.Select(l => AsImpedance(l, pre)).ToImmutableArray() : network.Loads;
-        var faulted = network with { Supplies = [.. supplies], Loads = loads };
         var name = $"bus-fault {fault.Name} {(asLoaded ? "as-loaded" : minimum ? "minimum" : "maximum")}";
-        var spec = new CaseSpec(name, WithoutLoads: !asLoaded);
-        var solution = NetworkSolver.Solve(faulted, spec, cancel);
+        // The first branch is the case's fault, so the solver solves only the independent part the
+        // bus is in (a file of many units stays linear); the others are sources of no EMF beside it.
+        Solution SolveWith(IReadOnlyList<(int P, int Q, Complex Z)> branches)
+        {
+            var first = branches[0];
+            var f = new FaultModel(fault.Name, fault.NameSpan, fault.Line, new NodeRef(network.Nodes[first.P].Points[0], fault.NameSpan),
+                new NodeRef(network.Nodes[first.Q].Points[0], fault.NameSpan), first.Z);
+            var faulted = network with
+            {
+                Supplies = [.. supplies, .. branches.Skip(1).Select((b, i) => new SupplyNet(count + i, Branch(fault, i + 1), b.P, b.Q, 0, b.Z))],
+                Loads = loads,
+            };
+            return NetworkSolver.Solve(faulted, new CaseSpec(name, WithoutLoads: !asLoaded, Fault: f), cancel);
+        }
+        var solution = SolveWith([.. Branches(fault, bus, earth)]);
         diagnostics.AddRange(solution.Diagnostics.Where(d => d.Code != "load-without-voltage"));
         if (!solution.Solved) return null;
 
         // The positive-sequence impedance at the bus, from a bolted three-phase fault on the same network (Thévenin).
-        var bolted = fault.Kind == BusFaultKind.ThreePhase && fault.Impedance == Complex.Zero ? solution : NetworkSolver.Solve(
-            faulted with { Supplies = [.. supplies.Take(count), .. Branches(fault with { Kind = BusFaultKind.ThreePhase, Impedance = 0 }, bus, earth)
-                .Select((b, i) => new SupplyNet(count + i, Branch(fault, i), b.P, b.Q, 0, b.Z))] }, spec, cancel);
+        var bolted = fault.Kind == BusFaultKind.ThreePhase && fault.Impedance == Complex.Zero ? solution
+            : SolveWith([.. Branches(fault with { Kind = BusFaultKind.ThreePhase, Impedance = 0 }, bus, earth)]);
         if (!bolted.Solved) return null;
         var vpre = Sequence.Of(pre.Voltage(bus[0]) - pre.Voltage(earth), pre.Voltage(bus[1]) - pre.Voltage(earth), pre.Voltage(bus[2]) - pre.Voltage(earth));
         var boltedLines = LineCurrents(bolted, count, bus, earth).Lines;
@@ -284,7 +293,9 @@ public static class FaultStudy
         var (v1, i1p) = vpre.Positive.Magnitude >= vpre.Negative.Magnitude ? (vpre.Positive, i1.Positive) : (vpre.Negative, i1.Negative);
         var z1 = i1p == Complex.Zero ? Complex.Zero : v1 * scale / i1p;
 
-        var result = Results.Compute(solution, null);
+        // The case is a bus fault's, not a two-node fault's: the study's own results say what it is.
+        var spec = solution.Case with { Fault = null };
+        var result = Results.Compute(solution, null) with { Case = spec };
         var (lines, earthCurrent) = LineCurrents(solution, count, bus, earth);
         var during = bus.Select(n => solution.Voltage(n) - solution.Voltage(earth)).ToArray();
         var sc = new ShortCircuitResult(fault, study, minimum && !asLoaded)
@@ -297,7 +308,7 @@ public static class FaultStudy
             Voltages = Cleaned(Sequence.Of(during[0], during[1], during[2]), [.. bus.Select(n => pre.Voltage(n) * scale)]),
             Z1 = z1,
         };
-        return result with { Supplies = [.. result.Supplies.Where(s => s.Supply.Index < count)], ShortCircuit = sc };
+        return result with { Supplies = [.. result.Supplies.Where(s => s.Supply.Index < count)], ShortCircuit = sc, Solution = solution with { Case = spec } };
     }
 
     /// <summary>Components left by rounding (a picoampere of negative sequence in a balanced fault) are zero.</summary>
@@ -344,9 +355,13 @@ public static class FaultStudy
     {
         var lines = new Complex[3];
         var toEarth = Complex.Zero;
-        foreach (var b in s.Network.Supplies.Skip(first))
+        var f = s.Case.Fault!;
+        // The case's fault carries its current from its first node to its second.
+        var branches = s.Network.Supplies.Skip(first).Select(b => (P: b.NodeP, Q: b.NodeQ, I: -s.SupplyCurrents[b.Index]))
+            .Prepend((P: s.Network.Node(f.A.Name), Q: s.Network.Node(f.B.Name), I: s.FaultCurrent));
+        foreach (var (p0, q0, i) in branches)
         {
-            var i = -s.SupplyCurrents[b.Index];
+            var b = (NodeP: p0, NodeQ: q0);
             for (var p = 0; p < 3; p++)
             {
                 if (b.NodeP == bus[p]) lines[p] += i;
