@@ -89,6 +89,7 @@ public static class Hovers
                 foreach (var fault in evaluation.Cases.Where(c => c.Case.Fault is not null))
                     foreach (var s in fault.Sections.Where(s => s.Winding.Name == symbol.Name))
                         lines.Add($"in {fault.Case.Name}: {s.Section.FromPoint} to {s.Section.ToPoint} {TextReport.Phasor(s.Current, "A")}");
+                lines.AddRange(FaultStudyText.DutyLines(evaluation, symbol.Name));
                 break;
             case SymbolKind.Terminal or SymbolKind.Tap or SymbolKind.Brush or SymbolKind.Node:
                 if (model.Taps.FirstOrDefault(t => t.Name == symbol.Name) is { } tap)
@@ -120,6 +121,7 @@ public static class Hovers
             case SymbolKind.Fault:
                 if (evaluation.Cases.FirstOrDefault(c => c.Case.Fault?.Name == symbol.Name) is { } faultCase)
                     lines.Add($"fault current {TextReport.Phasor(faultCase.Solution.FaultCurrent, "A")}");
+                lines.AddRange(FaultStudyText.FaultLines(evaluation, symbol.Name));
                 break;
         }
         lines.AddRange(ThreePhaseText.HoverLines(normal, symbol.Name));

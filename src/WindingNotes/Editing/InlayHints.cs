@@ -60,6 +60,7 @@ public static class InlayHints
         {
             StatementKind.Expect => index.Checks.GetValueOrDefault(s.Span.Start) is { } check ? ResultText.Check(check) : null,
             StatementKind.Fault => index.Faults.GetValueOrDefault(name) is { } fault ? $"{ResultText.Magnitude(fault.Solution.FaultCurrent, "A")} fault current" : null,
+            StatementKind.BusFault => FaultStudyText.Hint(evaluation, name),
             StatementKind.Sweep => SweepRange(evaluation, name),
             StatementKind.Let => LetValue(evaluation, s, name),
             StatementKind.Supply => index.Supplies.GetValueOrDefault(name) is { } x ? ResultText.Terminal(x.Voltage, x.Current, x.Power) : null,

@@ -47,6 +47,8 @@ internal sealed partial class BindRun
             case StatementKind.CyclePoint: BindCyclePoint(s); break;
             case StatementKind.TapChanger: BindTapChanger(s); break;
             case StatementKind.Find: BindFind(s); break;
+            case StatementKind.FaultStudy: if (Once(s)) BindFaultStudy(s); break;
+            case StatementKind.BusFault: BindBusFault(s); break;
         }
     }
 
@@ -490,11 +492,18 @@ internal sealed partial class BindRun
             BindVectorGroupExpect(s, measureClause, conditionClause);
             return;
         }
-        var measure = Enum.Parse<MeasureKind>(measureClause.Keyword!.Text, ignoreCase: true);
+        var measure = Enum.Parse<MeasureKind>(measureClause.Keyword!.Text.Replace("-", ""), ignoreCase: true);
+        if (FaultCase(s, measureClause, measure) is not { } inCase) return;
+        var (inFault, minimum) = inCase;
         var targets = ImmutableArray.CreateBuilder<NodeRef>();
         var names = measureClause.Names.ToList();
         for (var i = 0; i < names.Count; i++)
         {
+            if (IsFaultMeasure(measure))
+            {
+                targets.Add(new NodeRef(inFault!, names[i].Name.Span));
+                continue;
+            }
             var isPoint = measure == MeasureKind.Voltage || i > 0;
             var symbol = isPoint ? Observed(names[i]) : Resolve(names[i], names[i].Role.Label, names[i].Role.Kinds);
             if (symbol is null) return;
@@ -511,6 +520,7 @@ internal sealed partial class BindRun
             MeasureKind.Current => (Dimension.CurrentDim, "A"),
             MeasureKind.Flux => (Dimension.FluxDensity, "T"),
             MeasureKind.Power => (Dimension.ActivePower, "W"),
+            MeasureKind.FaultCurrent or MeasureKind.PeakCurrent or MeasureKind.ThermalCurrent => (Dimension.CurrentDim, "A"),
             _ => (Dimension.None, "%"),
         };
         var what = $"a bound on {measureClause.Keyword.Text}";
@@ -556,6 +566,8 @@ internal sealed partial class BindRun
         Target = target,
         MeasureText = tree.Text[measureClause.Span],
         ConditionText = tree.Text[conditionClause.Span],
+        InFault = inFault,
+        Minimum = minimum,
         });
     }
 }

@@ -88,6 +88,8 @@ internal sealed partial class BindRun
             Supplies = supplies.ToImmutable(),
             Loads = loads.ToImmutable(),
             Faults = faults.ToImmutable(),
+            BusFaults = busFaults.ToImmutable(),
+            FaultStudy = faultStudy,
             Sweeps = sweeps.ToImmutable(),
             Expects = expects.ToImmutable(),
             Points = points,

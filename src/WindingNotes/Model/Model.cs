@@ -106,7 +106,7 @@ public sealed record FaultModel(string Name, TextSpan NameSpan, TextSpan Line, N
 
 public sealed record SweepModel(Symbol Target, TextSpan Line, Quantity From, Quantity To, Quantity? Step, int? Points);
 
-public enum MeasureKind { Voltage, Current, Loading, Flux, Power, Efficiency, Regulation, VectorGroup, HotSpot, TopOil, LossOfLife, Position }
+public enum MeasureKind { Voltage, Current, Loading, Flux, Power, Efficiency, Regulation, VectorGroup, HotSpot, TopOil, LossOfLife, Position, FaultCurrent, PeakCurrent, ThermalCurrent, EarthFaultFactor }
 
 public enum ConditionKind { Between, Below, Above, Near }
 
@@ -123,6 +123,12 @@ public sealed record ExpectModel(TextSpan Line, string Text, MeasureKind Measure
 
     /// <summary>For 'vector-group … is': the connection symbol expected, as written.</summary>
     public string? Symbol { get; init; }
+
+    /// <summary>The fault case the check is evaluated in ('in F2', or the fault a fault measure names); null for the normal case and sweep points.</summary>
+    public string? InFault { get; init; }
+
+    /// <summary>For a bus fault: its minimum study rather than its maximum.</summary>
+    public bool Minimum { get; init; }
 }
 
 /// <summary>
@@ -162,6 +168,10 @@ public sealed record Model(SyntaxTree Syntax, SymbolTable Symbols, ImmutableArra
     public ImmutableArray<SupplyModel> Supplies { get; init; } = [];
     public ImmutableArray<LoadModel> Loads { get; init; } = [];
     public ImmutableArray<FaultModel> Faults { get; init; } = [];
+    public ImmutableArray<BusFaultModel> BusFaults { get; init; } = [];
+
+    /// <summary>How bus faults are studied; the defaults where the file has no 'fault-study' line.</summary>
+    public FaultStudyModel FaultStudy { get; init; } = FaultStudyModel.Default;
     public ImmutableArray<SweepModel> Sweeps { get; init; } = [];
     public ImmutableArray<ExpectModel> Expects { get; init; } = [];
     public ImmutableArray<ToleranceSite> Tolerances { get; init; } = [];

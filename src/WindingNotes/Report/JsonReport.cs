@@ -193,6 +193,13 @@ public static class JsonReport
             w.WriteEndObject();
             return;
         }
+        if (c.ShortCircuit is { } sc)
+        {
+            FaultDutyReport.Json(w, sc);
+            WriteBands(w, c);
+            w.WriteEndObject();
+            return;
+        }
 
         w.WriteStartObject("loads");
         foreach (var l in c.Loads)

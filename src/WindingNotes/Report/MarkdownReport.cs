@@ -133,6 +133,12 @@ public static class MarkdownReport
             WriteBands(o, c);
             return;
         }
+        if (c.ShortCircuit is { } sc)
+        {
+            FaultDutyReport.Markdown(o, sc);
+            WriteBands(o, c);
+            return;
+        }
         if (!c.Loads.IsEmpty)
         {
             var auto = !c.Connections.IsEmpty;

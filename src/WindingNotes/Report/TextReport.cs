@@ -109,6 +109,12 @@ public static class TextReport
             WriteBands(o, c);
             return;
         }
+        if (c.ShortCircuit is { } sc)
+        {
+            FaultDutyReport.Text(o, sc, t => Heading(o, t), (n, t) => Line(o, n, t));
+            WriteBands(o, c);
+            return;
+        }
         Heading(o, "Totals");
         Line(o, "copper loss", Numbers.Format(c.Totals.CopperLoss, "W"));
         Line(o, "core loss", CoreLoss(c.Totals));

@@ -106,6 +106,9 @@ public sealed record CaseResult(
     /// <summary>For a fault case: the fault current, the loop's X/R and the asymmetrical peak.</summary>
     public FaultResult? Fault { get; init; }
 
+    /// <summary>For a bus fault's case: the fault study's results (currents, sequence components, peak, Ith, winding duties).</summary>
+    public ShortCircuitResult? ShortCircuit { get; init; }
+
     /// <summary>Taps and brushes in source order, with the current each gives out.</summary>
     public ImmutableArray<TapResult> Taps { get; init; } = [];
 

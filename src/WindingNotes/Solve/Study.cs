@@ -45,7 +45,9 @@ public static class Study
             diagnostics.ReportBandsNotSwept(model.Sweeps[0].Line, points, samples.Length, Sweeps.Budget);
 
         var run = new PointRun(syntax, model.Frequency, new BrushSweep(syntax, model), taps, diagnostics, cancel, progress, samples.Length + points * (1 + (bandsAtPoints ? samples.Length : 0)));
-        var checks = new CheckTally([.. model.Expects.Where(e => !ThermalStudy.IsThermal(e))]);
+        var studied = model.Expects.Where(e => !ThermalStudy.IsThermal(e)).ToImmutableArray();
+        var checks = new CheckTally([.. studied.Where(e => !FaultChecks.InFault(e))]);
+        var shortCircuits = FaultStudy.Run(network, normal.Solution, diagnostics, cancel);
         var ratings = new RatingTally();
         var outputs = new OutputTally(network);
         var cases = ImmutableArray.CreateBuilder<CaseResult>();
@@ -61,6 +63,7 @@ public static class Study
             var (normalBands, faultBands) = SampleNominal();
             cases.Add(normal with { Bands = normalBands });
             cases.AddRange(nominal.Faults.Select((f, i) => Kept(f) with { Bands = faultBands.IsEmpty ? [] : faultBands[i] }));
+            cases.AddRange(shortCircuits);
             for (long k = 0; k < points; k++) SweepPoint(k);
         }
         catch (OperationCanceledException) when (budget.Exceeded)
@@ -70,13 +73,14 @@ public static class Study
             {
                 cases.Add(normal);
                 cases.AddRange(nominal.Faults.Select(Kept));
+                cases.AddRange(shortCircuits);
             }
         }
 
         cases.AddRange(kept.Cases);
         var all = cases.ToImmutable();
         if (kept.Stride > 1) diagnostics.ReportSweepThinned(model.Sweeps[0].Line, kept.Solved, kept.Count, kept.Stride);
-        var checkResults = checks.Finish(diagnostics);
+        var checkResults = FaultChecks.Merge(studied, checks.Finish(diagnostics), all, diagnostics);
         ThermalResult? thermal = null;
         if (!stopped && (!model.Thermal.IsEmpty || model.Expects.Any(ThermalStudy.IsThermal)))
             try

@@ -2,7 +2,7 @@ using System.Collections.Frozen;
 
 namespace WindingNotes.Syntax;
 
-public enum StatementKind { Frequency, Temperature, Let, Core, Winding, Tap, Brush, Impedance, NoLoad, Join, Ground, Supply, Load, Fault, Sweep, Expect, FailOn, Acknowledge, ThreePhaseSupply, ThreePhaseLoad, Thermal, LoadCycle, CyclePoint, TapChanger, Find }
+public enum StatementKind { Frequency, Temperature, Let, Core, Winding, Tap, Brush, Impedance, NoLoad, Join, Ground, Supply, Load, Fault, Sweep, Expect, FailOn, Acknowledge, ThreePhaseSupply, ThreePhaseLoad, Thermal, LoadCycle, CyclePoint, TapChanger, Find, FaultStudy, BusFault }
 
 /// <summary>What a name stands for. One namespace holds them all.</summary>
 public enum SymbolKind { Let, Core, Winding, Terminal, Tap, Brush, Node, Supply, Load, Fault, TapChanger }
@@ -58,6 +58,10 @@ public static class Grammar
     private static readonly NameRole WindingRef = Use("a winding name", SymbolKind.Winding);
     private static readonly NameRole WindingOrSection = new(false, [SymbolKind.Winding], "a winding or section", AllowsSection: true);
     private static readonly ValuePart Value = new("a value");
+    private static readonly NameRole FaultRef = Use("a fault name", SymbolKind.Fault);
+
+    /// <summary>Which study of a bus fault: its maximum currents (cmax) unless said.</summary>
+    private static readonly OptionalPart Extreme = new(new ChoicePart("'maximum' or 'minimum'", "maximum", "minimum"));
 
     private static readonly NameRole Terminal = Def(SymbolKind.Terminal, "a terminal name");
 
@@ -201,6 +205,11 @@ public static class Grammar
                 new("top-oil", [new OptionalPart(new NamePart(CoreRef))], Group: "measure", Summary: "the highest top-oil temperature over the load cycle"),
                 new("loss-of-life", [new OptionalPart(new NamePart(CoreRef))], Group: "measure", Summary: "the insulation life used over the day of the load cycle, in hours at the reference ageing rate"),
                 new("position", [new NamePart(Use("a tap changer name", SymbolKind.TapChanger))], Group: "measure", Summary: "the position a tap changer is set to or settles on"),
+                new("fault-current", [new NamePart(FaultRef), Extreme], Group: "measure", Summary: "the initial symmetrical short-circuit current of a bus fault (the largest faulted line's)"),
+                new("peak-current", [new NamePart(FaultRef), Extreme], Group: "measure", Summary: "the peak short-circuit current of a bus fault"),
+                new("thermal-current", [new NamePart(FaultRef), Extreme], Group: "measure", Summary: "the thermal equivalent short-circuit current of a bus fault over the study's duration"),
+                new("earth-fault-factor", [new NamePart(FaultRef), Extreme], Group: "measure", Summary: "the highest line-to-earth voltage of a sound line during a bus fault over the line-to-earth voltage before it"),
+                new("in", [new NamePart(FaultRef), Extreme], Summary: "evaluate the measure in a fault case (a bus fault's maximum study unless said)"),
                 new("between", [Value, new WordPart("and"), Value], Group: "condition", Summary: "both bounds included"),
                 new("below", [Value], Group: "condition", Summary: "an upper bound"),
                 new("above", [Value], Group: "condition", Summary: "a lower bound"),

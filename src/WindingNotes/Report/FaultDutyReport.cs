@@ -1,0 +1,149 @@
+using System.Numerics;
+using System.Text;
+using System.Text.Json;
+using WindingNotes.Model;
+using WindingNotes.Solve;
+using WindingNotes.Text;
+
+namespace WindingNotes.Report;
+
+/// <summary>
+/// The part of a report a bus fault's case adds: the method and voltage factor, the currents with
+/// their sequence components, the peak and the thermal equivalent current, the earth-fault factor,
+/// and every winding's duty against its withstand (the fault-duty table a reviewer signs off).
+/// </summary>
+public static class FaultDutyReport
+{
+    public static string Method(ShortCircuitResult sc) => sc.Study.Method == FaultMethod.AsLoaded
+        ? "network as loaded: supplies as written, constant-power and constant-current loads as their pre-fault impedance"
+        : $"equivalent voltage source at the fault (IEC 60909-0), c = {Numbers.Fixed(sc.VoltageFactor, 3)} ({(sc.Minimum ? "cmin" : "cmax")}) on Un = {Numbers.Format(sc.Nominal, "V")} from {sc.NominalFrom}, loads left out";
+
+    public static string Kappa(ShortCircuitResult sc) =>
+        $"κ {Numbers.Fixed(sc.Kappa)} from R/X {Numbers.Fixed(sc.RX)} of the short-circuit impedance at the fault (positive sequence, {Numbers.Format(sc.Z1.Magnitude, "ohm")})";
+
+    public static void Text(StringBuilder o, ShortCircuitResult sc, Action<string> heading, Action<string, string> line)
+    {
+        heading($"Bus fault {sc.Fault.Name}, {BusFaultModel.Word(sc.Fault.Kind)} ({sc.Extreme})");
+        line("method", Method(sc));
+        for (var p = 0; p < 3; p++)
+            line($"{sc.Fault.Lines[p].Name}", $"{TextReport.Phasor(sc.LineCurrents[p], "A")} into the fault, {TextReport.Phasor(sc.LineVoltages[p], "V")} to earth");
+        if (sc.Fault.ToEarth) line("earth", TextReport.Phasor(sc.EarthCurrent, "A"));
+        line("sequence currents", Sequence(sc.Currents, "A"));
+        line("sequence voltages", Sequence(sc.Voltages, "V"));
+        line("I\"k", Numbers.Format(sc.Initial, "A"));
+        line("peak ip", $"{Numbers.Format(sc.Peak, "A")} ({Kappa(sc)}; by k·√2 {Numbers.Fixed(sc.Peak60076 / sc.Initial)}: {Numbers.Format(sc.Peak60076, "A")})");
+        line("Ith", $"{Numbers.Format(sc.Thermal, "A")} over {Numbers.Plain(sc.Study.Duration)} s (m {Numbers.Fixed(sc.ThermalFactorM)}, n 1), DC time constant {TimeConstant(sc)}");
+        if (sc.EarthFaultFactor is { } k) line("earth-fault factor", Numbers.Fixed(k));
+        foreach (var d in sc.Duties) line(d.Winding.Name, Duty(sc, d));
+    }
+
+    public static void Markdown(StringBuilder o, ShortCircuitResult sc)
+    {
+        o.Append('\n').Append($"Bus fault {sc.Fault.Name}, {BusFaultModel.Word(sc.Fault.Kind)} ({sc.Extreme}): {Method(sc)}.\n\n");
+        MarkdownReport.Table(o, 1, ["line", "current", "angle", "voltage to earth", "angle"], Enumerable.Range(0, 3).Select(p => new[]
+        {
+            sc.Fault.Lines[p].Name, Numbers.Format(sc.LineCurrents[p].Magnitude, "A"), Deg(sc.LineCurrents[p]),
+            Numbers.Format(sc.LineVoltages[p].Magnitude, "V"), Deg(sc.LineVoltages[p]),
+        }));
+        o.Append('\n');
+        MarkdownReport.Table(o, 1, ["sequence", "current", "voltage"],
+        [
+            ["zero", Numbers.Format(sc.Currents.Zero.Magnitude, "A"), Numbers.Format(sc.Voltages.Zero.Magnitude, "V")],
+            ["positive", Numbers.Format(sc.Currents.Positive.Magnitude, "A"), Numbers.Format(sc.Voltages.Positive.Magnitude, "V")],
+            ["negative", Numbers.Format(sc.Currents.Negative.Magnitude, "A"), Numbers.Format(sc.Voltages.Negative.Magnitude, "V")],
+        ]);
+        o.Append('\n');
+        MarkdownReport.Table(o, 0, ["I\"k", "κ", "R/X", "ip", "Ith", "duration", "earth-fault factor"],
+        [[
+            Numbers.Format(sc.Initial, "A"), Numbers.Fixed(sc.Kappa), Numbers.Fixed(sc.RX), Numbers.Format(sc.Peak, "A"),
+            Numbers.Format(sc.Thermal, "A"), $"{Numbers.Plain(sc.Study.Duration)} s", sc.EarthFaultFactor is { } k ? Numbers.Fixed(k) : "—",
+        ]]);
+        o.Append('\n');
+        MarkdownReport.Table(o, 1, ["winding", "current", "× rated", "peak (k·√2)", "temperature after", "limit", "category", "allowed", "duty"], sc.Duties.Select(d => new[]
+        {
+            d.Winding.Name, Numbers.Format(d.Current, "A"), d.Multiple is { } m ? Numbers.Plain(m) : "unrated",
+            $"{Numbers.Format(d.Peak, "A")} ({Numbers.Fixed(d.AsymmetryFactor)})",
+            d.Temperature is { } t ? double.IsFinite(t) ? Numbers.Format(t - 273.15, "degC") : "no finite end" : "no conductor given",
+            d.TemperatureLimit is { } l ? Numbers.Format(l - 273.15, "degC") : "—",
+            d.Category ?? "—", d.AllowedSeconds is { } s ? $"{Numbers.Plain(s)} s" : "—",
+            Verdict(sc, d),
+        }));
+    }
+
+    public static void Json(Utf8JsonWriter w, ShortCircuitResult sc)
+    {
+        w.WriteStartObject("busFault");
+        w.WriteString("fault", sc.Fault.Name);
+        w.WriteString("kind", BusFaultModel.Word(sc.Fault.Kind));
+        w.WriteString("study", sc.Extreme);
+        w.WriteString("method", sc.Study.Method == FaultMethod.AsLoaded ? "as-loaded" : "equivalent-source");
+        JsonReport.Number(w, "c", sc.VoltageFactor);
+        JsonReport.Number(w, "nominal", sc.Nominal);
+        w.WriteStartObject("lines");
+        for (var p = 0; p < 3; p++)
+        {
+            w.WriteStartObject(sc.Fault.Lines[p].Name);
+            JsonReport.Phasor(w, "i", sc.LineCurrents[p]);
+            JsonReport.Phasor(w, "v", sc.LineVoltages[p]);
+            w.WriteEndObject();
+        }
+        w.WriteEndObject();
+        JsonReport.Phasor(w, "earth", sc.EarthCurrent);
+        SequenceJson(w, "iSequence", sc.Currents);
+        SequenceJson(w, "vSequence", sc.Voltages);
+        JsonReport.Number(w, "ik", sc.Initial);
+        JsonReport.Number(w, "kappa", sc.Kappa);
+        if (double.IsFinite(sc.RX)) JsonReport.Number(w, "rx", sc.RX);
+        JsonReport.Number(w, "ip", sc.Peak);
+        JsonReport.Number(w, "ith", sc.Thermal);
+        JsonReport.Number(w, "duration", sc.Study.Duration);
+        if (double.IsFinite(sc.DcTimeConstant)) JsonReport.Number(w, "dcTimeConstant", sc.DcTimeConstant);
+        if (sc.EarthFaultFactor is { } k) JsonReport.Number(w, "earthFaultFactor", k);
+        w.WriteStartObject("duties");
+        foreach (var d in sc.Duties)
+        {
+            w.WriteStartObject(d.Winding.Name);
+            JsonReport.Number(w, "i", d.Current);
+            if (d.Multiple is { } m) JsonReport.Number(w, "multiple", m);
+            JsonReport.Number(w, "peak", d.Peak);
+            if (d.Temperature is { } t && double.IsFinite(t)) JsonReport.Number(w, "temperature", t - 273.15);
+            if (d.TemperatureLimit is { } l) JsonReport.Number(w, "temperatureLimit", l - 273.15);
+            if (d.Category is { } c) w.WriteString("category", c);
+            if (d.AllowedSeconds is { } s) JsonReport.Number(w, "allowed", s);
+            w.WriteBoolean("withstands", !d.ThermalExceeded && !d.CategoryExceeded(sc.Study.Duration));
+            w.WriteEndObject();
+        }
+        w.WriteEndObject();
+        w.WriteEndObject();
+    }
+
+    /// <summary>One winding's duty as a sentence.</summary>
+    public static string Duty(ShortCircuitResult sc, WindingDuty d)
+    {
+        var parts = new List<string> { $"{Numbers.Format(d.Current, "A")}{(d.Multiple is { } m ? $" ({Numbers.Plain(m)} × rated)" : "")}, peak {Numbers.Format(d.Peak, "A")} (k·√2 {Numbers.Fixed(d.AsymmetryFactor)})" };
+        if (d.Temperature is { } t)
+            parts.Add($"{(double.IsFinite(t) ? Numbers.Format(t - 273.15, "degC") : "no finite temperature")} after {Numbers.Plain(sc.Study.Duration)} s (limit {Numbers.Format(d.TemperatureLimit!.Value - 273.15, "degC")})");
+        if (d.Category is { } c) parts.Add($"category {c}: {Numbers.Plain(d.AllowedSeconds!.Value)} s allowed");
+        parts.Add(Verdict(sc, d));
+        return string.Join(", ", parts);
+    }
+
+    private static string Verdict(ShortCircuitResult sc, WindingDuty d) =>
+        d.ThermalExceeded || d.CategoryExceeded(sc.Study.Duration) ? "exceeds" : d.Temperature is null && d.Category is null ? "not judged" : "withstands";
+
+    private static string TimeConstant(ShortCircuitResult sc) => double.IsFinite(sc.DcTimeConstant) ? Numbers.Format(sc.DcTimeConstant * 1000, "ms") : "infinite";
+
+    private static string Sequence(Sequence s, string unit) =>
+        $"zero {TextReport.Phasor(s.Zero, unit)}, positive {TextReport.Phasor(s.Positive, unit)}, negative {TextReport.Phasor(s.Negative, unit)}";
+
+    private static string Deg(Complex v) => $"{TextReport.Degrees(v):F2}°".Replace("-0.00°", "0.00°");
+
+    private static void SequenceJson(Utf8JsonWriter w, string name, Sequence s)
+    {
+        w.WriteStartObject(name);
+        JsonReport.Phasor(w, "zero", s.Zero);
+        JsonReport.Phasor(w, "positive", s.Positive);
+        JsonReport.Phasor(w, "negative", s.Negative);
+        w.WriteEndObject();
+    }
+}

@@ -1,0 +1,62 @@
+using System.Collections.Immutable;
+using WindingNotes.Model;
+using WindingNotes.Text;
+
+namespace WindingNotes.Solve;
+
+/// <summary>
+/// The checks evaluated in a fault case ('in F1', or a fault measure such as 'fault-current F2'):
+/// each against the one case it names, merged with the others in the order of the file.
+/// </summary>
+public static class FaultChecks
+{
+    public static bool InFault(ExpectModel e) => e.InFault is not null;
+
+    public static ImmutableArray<CheckResult> Merge(ImmutableArray<ExpectModel> expects, ImmutableArray<CheckResult> others, ImmutableArray<CaseResult> cases, DiagnosticBag diagnostics)
+    {
+        if (!expects.Any(InFault)) return others;
+        var results = ImmutableArray.CreateBuilder<CheckResult>();
+        var next = 0;
+        foreach (var e in expects)
+        {
+            if (!InFault(e))
+            {
+                results.Add(others[next++]);
+                continue;
+            }
+            var tally = new CheckTally([e]);
+            var found = Case(e, cases);
+            tally.BeginPoint(found?.Case.Name ?? $"fault {e.InFault}");
+            if (found is null) tally.Unsolved(null);
+            else tally.Observe(found, null);
+            results.Add(tally.Finish(diagnostics)[0]);
+        }
+        return results.ToImmutable();
+    }
+
+    /// <summary>The case an expect names: a two-node fault's case, or a bus fault's maximum, minimum or as-loaded study.</summary>
+    public static CaseResult? Case(ExpectModel e, ImmutableArray<CaseResult> cases) =>
+        cases.FirstOrDefault(c => c.Case.Fault?.Name == e.InFault)
+        ?? cases.FirstOrDefault(c => c.ShortCircuit is { } sc && sc.Fault.Name == e.InFault && sc.Minimum == e.Minimum);
+
+    /// <summary>A fault measure in its case; null with the reason where it has none.</summary>
+    public static double? Measure(ExpectModel e, CaseResult result, out string? problem)
+    {
+        problem = null;
+        if (result.ShortCircuit is not { } sc)
+        {
+            problem = $"'{e.InFault}' is not a bus fault";
+            return null;
+        }
+        switch (e.Measure)
+        {
+            case MeasureKind.FaultCurrent: return sc.Initial;
+            case MeasureKind.PeakCurrent: return sc.Peak;
+            case MeasureKind.ThermalCurrent: return sc.Thermal;
+            default:
+                if (sc.EarthFaultFactor is { } k) return k;
+                problem = $"a {BusFaultModel.Word(sc.Fault.Kind)} fault does not go to earth: the earth-fault factor is of line-to-ground and double-line-to-ground faults";
+                return null;
+        }
+    }
+}

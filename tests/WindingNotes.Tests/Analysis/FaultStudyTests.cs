@@ -1,0 +1,323 @@
+using System.Globalization;
+using System.Numerics;
+using WindingNotes.Model;
+using WindingNotes.Solve;
+using WindingNotes.Tests.Support;
+using WindingNotes.Workspace;
+using Xunit;
+
+namespace WindingNotes.Tests.Analysis;
+
+/// <summary>
+/// Bus faults against hand calculations by symmetrical components (R29, R30: any power-systems
+/// textbook, Grainger and Stevenson from memory) and the conventions of IEC 60909-0 (R36–R38) and
+/// IEC 60076-5 (R39, R40). The solver works in the phase domain; the expected values below are
+/// derived in sequence quantities, so the two meet only if both are right.
+/// </summary>
+public class FaultStudyTests
+{
+    private static readonly Complex A = Complex.FromPolarCoordinates(1, 2 * Math.PI / 3);
+
+    private static ShortCircuitResult Bus(Evaluation e, string fault, bool minimum = false) =>
+        e.Cases.Select(c => c.ShortCircuit).OfType<ShortCircuitResult>().Single(s => s.Fault.Name == fault && s.Minimum == minimum);
+
+    private static void Close(Complex expected, Complex actual, double relative = 1e-7, string what = "") =>
+        ShortCircuit.Near(expected, actual, relative, what);
+
+    private static Complex Polar(double magnitude, double xr) => magnitude * new Complex(1, xr) / Math.Sqrt(1 + xr * xr);
+
+    // A delta-wye bank (Dyn11): 1500 kVA, 11 kV / 415 V, 6 % at X/R 8, on a 250 MVA source at X/R 10.
+    private const string DeltaWye = """
+        frequency 50 Hz
+        core T1 construction bank rating 1500 kVA
+        winding HV on T1 rated 11 kV delta H1 H2 H3
+        winding LV on T1 rated 415 V wye X1 X2 X3 neutral X0
+        impedance HV LV 6 % xr 8
+        three-phase-supply grid H1 H2 H3 11 kV fault-level 250 MVA xr 10
+        ground X0
+        bus-fault F3 X1 X2 X3 three-phase
+        bus-fault LG X1 X2 X3 line-to-ground
+        bus-fault LL X1 X2 X3 line-to-line
+        bus-fault LLG X1 X2 X3 double-line-to-ground
+        bus-fault LGZ X1 X2 X3 line-to-ground impedance 0.004 ohm earth-impedance 0.006 ohm
+
+        """;
+
+    // By hand, on the 415 V side (ohms per phase): the bank's 6 % on 1500 kVA is 0.06·0.415²/1.5 =
+    // 0.0068890 Ω at X/R 8; the source's 250 MVA at 11 kV is 11²/250 = 0.484 Ω, referred by the
+    // line-to-line ratio (415/11000)² to 0.00068890 Ω at X/R 10. Z1 = Z2 = Zs + Zt; the delta holds
+    // the zero sequence in the bank, so from the wye side Z0 = Zt. E = c·Un/√3 with c = 1.10 (Un
+    // 415 V, a +10 % low-voltage system, IEC 60909-0 Table 1 from memory).
+    private static readonly Complex Zt = Polar(0.06 * 0.415 * 0.415 / 1.5, 8);
+    private static readonly Complex Zs = Polar(11.0 * 11 / 250 * Math.Pow(415.0 / 11000, 2), 10);
+    private static readonly double E = 1.10 * 415 / Math.Sqrt(3);
+
+    [Fact]
+    public void Delta_wye_faults_match_symmetrical_components()
+    {
+        var e = Wn.Solved(DeltaWye);
+        var (z1, z2, z0) = (Zs + Zt, Zs + Zt, Zt);
+
+        // Three-phase: I = E/Z1 (R30).
+        var f3 = Bus(e, "F3");
+        Assert.Equal(E / z1.Magnitude, f3.Initial, 6);
+        Close(z1, f3.Z1, 1e-7, "Z1 at the bus");
+
+        // Line-to-ground on the first line: I0 = I1 = I2 = E/(Z1 + Z2 + Z0), Ia = 3·I0 (R30).
+        var lg = Bus(e, "LG");
+        var i0 = E / (z1 + z2 + z0);
+        Assert.Equal((3 * i0).Magnitude, lg.Initial, 6);
+        Assert.Equal(i0.Magnitude, lg.Currents.Zero.Magnitude, 6);
+        Assert.Equal(i0.Magnitude, lg.Currents.Positive.Magnitude, 6);
+        Assert.Equal(i0.Magnitude, lg.Currents.Negative.Magnitude, 6);
+        Assert.Equal((3 * i0).Magnitude, lg.EarthCurrent.Magnitude, 6);
+        // Sound lines: V1 = E − Z1·I1, V2 = −Z2·I2, V0 = −Z0·I0; Vb = V0 + a²V1 + a·V2, Vc = V0 + a·V1 + a²V2.
+        // The earth-fault factor (IEC 60071-1) is the larger of |Vb|, |Vc| over E.
+        var (v1, v2, v0) = (E - z1 * i0, -z2 * i0, -z0 * i0);
+        var vb = v0 + A * A * v1 + A * v2;
+        var vc = v0 + A * v1 + A * A * v2;
+        Assert.Equal(Math.Max(vb.Magnitude, vc.Magnitude) / E, lg.EarthFaultFactor!.Value, 6);
+        Assert.Equal(0, lg.LineVoltages[0].Magnitude, 6);
+
+        // Line-to-line between the second and third lines: I1 = −I2 = E/(Z1 + Z2), |Ib| = √3·|I1| (R30).
+        var ll = Bus(e, "LL");
+        Assert.Equal(Math.Sqrt(3) * E / (z1 + z2).Magnitude, ll.Initial, 6);
+        Assert.Equal(0, ll.Currents.Zero.Magnitude, 6);
+        Assert.Null(ll.EarthFaultFactor);
+
+        // Double-line-to-ground: I1 = E/(Z1 + Z2‖Z0), I2 = −I1·Z0/(Z2 + Z0), I0 = −I1·Z2/(Z2 + Z0);
+        // Ib = I0 + a²I1 + a·I2, Ic = I0 + a·I1 + a²I2, earth current 3·I0; the sound line a stands at V = 3·V1 with V1 = V2 = V0 = E − Z1·I1.
+        var llg = Bus(e, "LLG");
+        var j1 = E / (z1 + z2 * z0 / (z2 + z0));
+        var j2 = -j1 * z0 / (z2 + z0);
+        var j0 = -j1 * z2 / (z2 + z0);
+        var ib = j0 + A * A * j1 + A * j2;
+        var ic = j0 + A * j1 + A * A * j2;
+        Assert.Equal(Math.Max(ib.Magnitude, ic.Magnitude), llg.Initial, 6);
+        Assert.Equal((3 * j0).Magnitude, llg.EarthCurrent.Magnitude, 6);
+        Assert.Equal((3 * (E - z1 * j1)).Magnitude / E, llg.EarthFaultFactor!.Value, 6);
+
+        // Through a fault impedance of 0.004 Ω and an earth impedance of 0.006 Ω: I = 3E/(Z1 + Z2 + Z0 + 3(Zf + Ze)).
+        var lgz = Bus(e, "LGZ");
+        Assert.Equal((3 * E / (z1 + z2 + z0 + 3 * 0.010)).Magnitude, lgz.Initial, 6);
+    }
+
+    // A wye-grounded bank (YNyn0): the zero sequence passes through to the source's own Z0.
+    private const string WyeWye = """
+        frequency 50 Hz
+        core T1 construction bank rating 1500 kVA
+        winding HV on T1 rated 11 kV wye H1 H2 H3 neutral H0
+        winding LV on T1 rated 415 V wye X1 X2 X3 neutral X0
+        impedance HV LV 6 % xr 8
+        three-phase-supply grid H1 H2 H3 11 kV impedance 0.05 + j0.48 ohm zero-sequence 0.1 + j1.2 ohm
+        ground H0
+        ground X0
+        bus-fault LG X1 X2 X3 line-to-ground
+        bus-fault LL X1 X2 X3 line-to-line
+        bus-fault LLG X1 X2 X3 double-line-to-ground
+
+        """;
+
+    [Fact]
+    public void Wye_grounded_faults_match_symmetrical_components()
+    {
+        var e = Wn.Solved(WyeWye);
+        // By hand: the source's sequence impedances referred by (415/11000)²; Z1 = Z2 = Zs1' + Zt and
+        // Z0 = Zs0' + Zt, as both neutrals are earthed and a bank's zero sequence is its leakage.
+        var k = Math.Pow(415.0 / 11000, 2);
+        var z1 = new Complex(0.05, 0.48) * k + Zt;
+        var z0 = new Complex(0.1, 1.2) * k + Zt;
+        var lg = Bus(e, "LG");
+        Assert.Equal((3 * E / (2 * z1 + z0)).Magnitude, lg.Initial, 6);
+        var ll = Bus(e, "LL");
+        Assert.Equal(Math.Sqrt(3) * E / (2 * z1).Magnitude, ll.Initial, 6);
+        var llg = Bus(e, "LLG");
+        var j1 = E / (z1 + z1 * z0 / (z1 + z0));
+        var j0 = -j1 * z1 / (z1 + z0);
+        Assert.Equal((3 * j0).Magnitude, llg.EarthCurrent.Magnitude, 6);
+    }
+
+    [Fact]
+    public void Loads_are_left_out_of_the_loop_in_the_standard_method()
+    {
+        // IEC 60909-0: non-motor loads are no part of the fault loop, so a load on the bus changes
+        // neither I″k nor the R/X that sets κ. By hand, R/X of Z1 = Zs + Zt sets κ = 1.02 + 0.98·e^(−3R/X) (R37).
+        var without = Bus(Wn.Solved(DeltaWye), "F3");
+        var with = Bus(Wn.Solved(DeltaWye + "three-phase-load mill X1 X2 X3 wye X0 impedance 0.2 ohm pf 0.8\n"), "F3");
+        Assert.Equal(without.Initial, with.Initial, 9);
+        var z1 = Zs + Zt;
+        Assert.Equal(z1.Real / z1.Imaginary, with.RX, 9);
+        Assert.Equal(1.02 + 0.98 * Math.Exp(-3 * z1.Real / z1.Imaginary), with.Kappa, 9);
+        Assert.Equal(with.Kappa * Math.Sqrt(2) * with.Initial, with.Peak, 6);
+        // The method is said in the report.
+        var report = WindingNotes.Report.TextReport.Write(Wn.Eval(DeltaWye));
+        Assert.Contains("equivalent voltage source at the fault (IEC 60909-0), c = 1.10 (cmax) on Un = 415.0 V", report);
+    }
+
+    [Fact]
+    public void Constant_power_loads_become_their_pre_fault_impedance_as_loaded()
+    {
+        // Common practice: for the fault case a constant-power load is the impedance that draws its
+        // pre-fault power at its pre-fault voltage, Z = |V|²/conj(S) per phase. The same file with
+        // that impedance written as a constant-impedance load must give the same fault current.
+        const string study = "fault-study as-loaded\n";
+        var power = Wn.Solved(DeltaWye + study + "three-phase-load mill X1 X2 X3 wye X0 power 900 kW pf 0.85\n");
+        var load = power.Normal!.Load("mill_a");
+        var z = load.Voltage.Magnitude * load.Voltage.Magnitude / Complex.Conjugate(load.Power);
+        string Ohm(double x) => x.ToString("R", CultureInfo.InvariantCulture);
+        var impedance = Wn.Solved(DeltaWye + study + $"three-phase-load mill X1 X2 X3 wye X0 impedance {Ohm(z.Real)} + j{Ohm(z.Imaginary)} ohm\n");
+        Assert.Equal(Bus(impedance, "F3").Initial, Bus(power, "F3").Initial, 6);
+        Assert.Equal(Bus(impedance, "LG").Initial, Bus(power, "LG").Initial, 6);
+        // The loaded bus sags before the fault, so the loaded network's current is below the standard method's (c = 1.10).
+        Assert.True(Bus(power, "F3").Initial < Bus(Wn.Solved(DeltaWye), "F3").Initial);
+        Assert.Contains("network as loaded", WindingNotes.Report.TextReport.Write(power));
+    }
+
+    [Fact]
+    public void Minimum_study_uses_cmin()
+    {
+        // IEC 60909-0 Table 1 (from memory): a +10 % low-voltage system has cmax 1.10 and cmin 0.90, so
+        // the two currents stand in that ratio; with 6 %, 1.05 and 0.95.
+        var e = Wn.Solved(DeltaWye + "fault-study equivalent-source currents maximum-and-minimum\n");
+        Assert.Equal(0.90 / 1.10, Bus(e, "F3", minimum: true).Initial / Bus(e, "F3").Initial, 9);
+        var six = Wn.Solved(DeltaWye + "fault-study equivalent-source currents maximum-and-minimum voltage-tolerance 6 %\n");
+        Assert.Equal(0.95 / 1.05, Bus(six, "LG", minimum: true).Initial / Bus(six, "LG").Initial, 9);
+    }
+
+    [Fact]
+    public void Autotransformer_fault_current_against_the_same_unit_as_two_winding()
+    {
+        // The same bank of series and common windings (equal turns, 8 % on 75 MVA at X/R 40), fed from
+        // a source of no impedance. By hand, with Zsc the short-circuit impedance referred to the
+        // common side and E the common terminals' voltage before the fault:
+        // two-winding, fault on the common winding: I = E/Zsc.
+        // autotransformer, fault on the common terminals: the series winding sees the full line
+        // voltage (1 + Ns/Nc)·E across Zsc·(Ns/Nc)², and the fault takes series plus common current,
+        // (1 + Ns/Nc) times the series current: I = (1 + Ns/Nc)²·E/Zsc = 4·E/Zsc.
+        const string common = """
+            frequency 60 Hz
+            core T1 construction bank rating 75 MVA
+            winding C on T1 rated 115 kV wye X1 X2 X3 neutral N
+            ground N
+
+            """;
+        const string impedance = "impedance S C 8 % xr 40\n";
+        var auto = Wn.Solved(common + "winding S on T1 rated 115 kV series H1 H2 H3 to X1 X2 X3\n" + impedance + "three-phase-supply grid H1 H2 H3 230 kV impedance 0 ohm\nbus-fault F X1 X2 X3 three-phase\n");
+        var twoWinding = Wn.Solved(common + "winding S on T1 rated 115 kV wye H1 H2 H3 neutral H0\nground H0\n" + impedance + "three-phase-supply grid H1 H2 H3 115 kV impedance 0 ohm\nbus-fault F X1 X2 X3 three-phase\n");
+        var zsc = Polar(0.08 * 115e3 * 115e3 / 75e6, 40);
+        var e = 1.10 * 115e3 / Math.Sqrt(3);
+        Assert.Equal(e / zsc.Magnitude, Bus(twoWinding, "F").Initial, 3);
+        Assert.Equal(4 * e / zsc.Magnitude, Bus(auto, "F").Initial, 3);
+        // Each winding against its own rating (75 MVA, 376.5 A a phase): both carry 2·E/Zsc in the
+        // autotransformer, twice what the two-winding connection puts through them.
+        var rated = 75e6 / (Math.Sqrt(3) * 115e3);
+        var duties = Bus(auto, "F").Duties;
+        Assert.Equal(2 * e / zsc.Magnitude / rated, duties.Single(d => d.Winding.Name == "C_a").Multiple!.Value, 6);
+        Assert.Equal(2 * e / zsc.Magnitude / rated, duties.Single(d => d.Winding.Name == "S_a").Multiple!.Value, 6);
+    }
+
+    [Fact]
+    public void Published_method_values()
+    {
+        // IEC 60909-0:2016 Table 1 (from memory), R36.
+        Assert.Equal(1.10, FaultStudy.VoltageFactor(400, minimum: false, 0.10));
+        Assert.Equal(0.90, FaultStudy.VoltageFactor(400, minimum: true, 0.10));
+        Assert.Equal(1.05, FaultStudy.VoltageFactor(400, minimum: false, 0.06));
+        Assert.Equal(0.95, FaultStudy.VoltageFactor(400, minimum: true, 0.06));
+        Assert.Equal(1.10, FaultStudy.VoltageFactor(11000, minimum: false, 0.10));
+        Assert.Equal(1.00, FaultStudy.VoltageFactor(11000, minimum: true, 0.10));
+        // IEC 60909-0 (formula from memory, values computed), R37: κ at R/X 0.1 and 0.3.
+        Assert.Equal(1.746, FaultStudy.Kappa(0.1), 3);
+        Assert.Equal(1.418, FaultStudy.Kappa(0.3), 3);
+        // IEC 60909-0 thermal effects (from memory), R38: m ≈ 0.05 at Tk 1 s, κ 1.8, 50 Hz (the
+        // standard's figure); the formula gives 1/(100·ln(1/0.8)) = 0.0448.
+        Assert.Equal(0.0448, FaultStudy.ThermalM(1.8, 50, 1), 4);
+        // IEC 60076-5 table of peak factors (from memory), R39: the formula below X/R 14, 2.55 above.
+        Assert.Equal(1.51, FaultStudy.AsymmetryFactor(1), 2);
+        Assert.Equal(2.09, FaultStudy.AsymmetryFactor(4), 1);
+        Wn.Near(2.46, FaultStudy.AsymmetryFactor(10), 0.01, "k·√2 at X/R 10 (the table is rounded)");
+        Assert.Equal(2.55, FaultStudy.AsymmetryFactor(20));
+        Assert.Equal(2.55, FaultStudy.AsymmetryFactor(double.PositiveInfinity));
+        // IEC 60076-5 thermal ability (from memory), R40: copper from 105 °C at 25 A/mm² for 2 s:
+        // 106000/(625·2) = 84.8, θ1 = 105 + 2·(105 + 235)/83.8 = 113.11 °C; limits 250 °C Cu, 200 °C Al.
+        Assert.Equal(113.11, FaultStudy.WindingTemperature(ConductorMaterial.Copper, 25e6, 2, 378.15) - 273.15, 2);
+        // Aluminium at 25 A/mm²: 45700/1250 = 36.56, θ1 = 105 + 2·330/35.56 = 123.56 °C.
+        Assert.Equal(123.56, FaultStudy.WindingTemperature(ConductorMaterial.Aluminium, 25e6, 2, 378.15) - 273.15, 2);
+        Assert.Equal(250, FaultStudy.TemperatureLimit(ConductorMaterial.Copper) - 273.15, 9);
+        Assert.Equal(200, FaultStudy.TemperatureLimit(ConductorMaterial.Aluminium) - 273.15, 9);
+        Assert.True(double.IsPositiveInfinity(FaultStudy.WindingTemperature(ConductorMaterial.Copper, 300e6, 2, 378.15)));
+        // IEEE C57.12.00 / C57.109 categories and limits (from memory: verify any figure used), R41.
+        Assert.Equal("I", FaultStudy.Category(500, threePhase: false));
+        Assert.Equal("II", FaultStudy.Category(501, threePhase: false));
+        Assert.Equal("III", FaultStudy.Category(1668, threePhase: false));
+        Assert.Equal("IV", FaultStudy.Category(10001, threePhase: false));
+        Assert.Equal("II", FaultStudy.Category(5000, threePhase: true));
+        Assert.Equal("III", FaultStudy.Category(5001, threePhase: true));
+        Assert.Equal("IV", FaultStudy.Category(30001, threePhase: true));
+        Assert.Equal(2, FaultStudy.AllowedSeconds("I", 25), 9);
+        Assert.Equal(25, FaultStudy.CategoryOneMultiple(500, threePhase: true));
+        Assert.Equal(40, FaultStudy.CategoryOneMultiple(25, threePhase: false));
+    }
+
+    [Fact]
+    public void Fault_results_are_gated_by_expect()
+    {
+        var text = DeltaWye + """
+            expect fault-current F3 between 30 kA and 40 kA
+            expect fault-current F3 below 20 kA
+            expect earth-fault-factor LG below 1.4 pu
+            expect loading LV_a in F3 below 2000 %
+            expect peak-current F3 above 1 kA
+            expect earth-fault-factor F3 below 2 pu
+
+            """;
+        var e = Wn.Eval(text);
+        var checks = e.Checks;
+        Assert.Equal(6, checks.Length);
+        Assert.True(checks[0].Passed);
+        Assert.Equal(E / (Zs + Zt).Magnitude, checks[0].Value!.Value, 6);
+        Assert.False(checks[1].Passed);
+        Assert.True(checks[2].Passed);
+        // 'in F3': the winding's current over its rated current, 1500 kVA/(√3·415 V) = 2086.8 A.
+        Assert.Equal(E / (Zs + Zt).Magnitude / (1.5e6 / (Math.Sqrt(3) * 415)), checks[3].Value!.Value, 6);
+        Assert.True(checks[4].Passed);
+        // A three-phase fault does not go to earth: no earth-fault factor, and the check cannot pass.
+        Assert.False(checks[5].Passed);
+        Assert.Contains(e.Diagnostics, d => d.Code == "expect-failed" && d.Message.Contains("below 20 kA"));
+        Assert.Contains(e.Diagnostics, d => d.Message.Contains("does not go to earth"));
+    }
+
+    [Fact]
+    public void Hints_and_hovers_carry_the_bus_fault_results()
+    {
+        var e = Wn.Solved(DeltaWye + "fault-study equivalent-source currents maximum-and-minimum\n");
+        var hints = WindingNotes.Editing.InlayHints.For(e);
+        var line = DeltaWye.Split('\n').ToList().FindIndex(l => l.StartsWith("bus-fault F3"));
+        var hint = hints.Single(h => h.Position.Line == line).Label;
+        // I = 1.10·415/√3 / |Zs + Zt| at cmax, 0.90/1.10 of it at cmin (by hand above).
+        Assert.Contains($"I\"k {WindingNotes.Text.Numbers.Format(E / (Zs + Zt).Magnitude, "A")}", hint);
+        Assert.Contains("(maximum)", hint);
+        Assert.Contains("(minimum)", hint);
+        var lv = DeltaWye.Split('\n').ToList().FindIndex(l => l.StartsWith("winding LV"));
+        var hover = WindingNotes.Editing.Hovers.At(e, new WindingNotes.Text.Position(lv, 9))!.Markdown;
+        Assert.Contains("in bus fault F3 (maximum): LV_a", hover);
+    }
+
+    [Fact]
+    public void A_winding_past_its_limits_is_warned_at_its_line()
+    {
+        // 95 mm² of copper for 2087 A rated is 22 A/mm²; at 16.6 times that (a bolted three-phase fault)
+        // the average temperature runs away: above 250 °C. A 1500 kVA three-phase unit is category II: 2 s.
+        var text = DeltaWye.Replace("neutral X0\n", "neutral X0 conductor copper 95 mm2 mean-turn 1.2 m\n") + "fault-study equivalent-source duration 3 s\n";
+        var e = Wn.Eval(text);
+        var duty = Bus(e, "F3").Duties.Single(d => d.Winding.Name == "LV_a");
+        Assert.True(duty.ThermalExceeded);
+        Assert.Equal("II", duty.Category);
+        Assert.True(duty.CategoryExceeded(3));
+        var warnings = e.Diagnostics.Where(d => d.Code == "fault-duty-high" && d.Message.Contains("'LV_a'")).ToList();
+        Assert.NotEmpty(warnings);
+        var line = e.Text.GetPosition(warnings[0].Span.Start).Line;
+        Assert.StartsWith("winding LV", DeltaWye.Split('\n')[line]);
+        Assert.Contains(e.Diagnostics, d => d.Code == "caution-fault-duty" && d.Message.Contains("bus fault 'F3'"));
+    }
+}
