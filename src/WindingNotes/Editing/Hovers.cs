@@ -118,6 +118,9 @@ public static class Hovers
                     if (load.Regulation is { } r) lines.Add($"regulation {TextReport.Percent(r)}");
                 }
                 break;
+            case SymbolKind.TapChanger:
+                if (normal?.TapPositions.FirstOrDefault(t => t.Changer.Name == symbol.Name) is { } changer) lines.Add(TextReport.TapText(changer));
+                break;
             case SymbolKind.Fault:
                 if (evaluation.Cases.FirstOrDefault(c => c.Case.Fault?.Name == symbol.Name) is { } faultCase)
                     lines.Add($"fault current {TextReport.Phasor(faultCase.Solution.FaultCurrent, "A")}");

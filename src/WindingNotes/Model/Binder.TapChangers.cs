@@ -35,6 +35,12 @@ internal sealed partial class BindRun
             return;
         }
         var reversing = s.Clause("reversing") is not null;
+        if (reversing && declaredThreePhase.Contains(winding.Name))
+        {
+            // A reversing switch reverses one winding; a three-phase regulator is three of them, one a phase.
+            diagnostics.ReportNamePhase(s.Clause("on")!.Name(0)!.Name, winding.Name);
+            return;
+        }
         if (reversing && low > 0)
         {
             diagnostics.ReportOutOfBounds(range!.Span, "the positions of a reversing tap changer", "from a negative position to a positive one");

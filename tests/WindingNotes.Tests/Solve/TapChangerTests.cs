@@ -216,4 +216,25 @@ public class TapChangerTests
         var d = several.Single("find-several");
         Assert.Contains("25.00 %, 75.00 %", d.Message);
     }
+
+    [Fact]
+    public void Cascaded_regulators_settle_from_the_first_written()
+    {
+        // 7000 V in; the first regulator holds its output R in 119..121 V at pt 63.5:
+        // 1 + 0.00625·k ≥ 119·63.5/7000 = 1.07950 → +13, R = 7000·1.08125 = 7568.75 V (119.19 V at the relay).
+        // The second, fed from R, then finds its own output in the band at 0 and stays there.
+        var e = Wn.Solved(Regulator("7000 V", "regulate R N target 120 V bandwidth 2 V pt-ratio 63.5", load: """
+            let sel2 = 0 %
+            core K2 rating 333 kVA
+            winding SH2 on K2 turns 1000 rated 7620 V from N2 to U
+            winding SER2 on K2 turns 100 rated 762 V from U1 to U2
+            brush R2 on SER2 at sel2
+            join R U U1
+            join N N2
+            load town R2 N impedance 200 ohm pf 1
+            """, extra: "tap-changer REG2 on SER2 sets sel2 positions -16 to 16 step 6.25 % reversing regulate R2 N target 120 V bandwidth 2 V pt-ratio 63.5"));
+        Assert.Equal(13, Position(e.Normal!).Position);
+        Assert.Equal(0, Position(e.Normal!, "REG2").Position);
+        Wn.Near(7568.75, e.Normal!.V("R2", "N").Magnitude, 1e-9, "far end");
+    }
 }
