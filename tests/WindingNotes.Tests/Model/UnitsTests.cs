@@ -18,6 +18,7 @@ public class UnitsTests
     public void The_table_holds_what_UnitsNet_gives_for_its_quantities()
     {
         var cache = UnitsNet.UnitsNetSetup.Default.UnitAbbreviations;
+        // "h" is the hour here (times of day in load cycles), not UnitsNet's hand.
         var claimed = new HashSet<string>(StringComparer.Ordinal) { "ohm", "mohm", "kohm", "Mohm", "mm2", "cm2", "m2", "degC", "kcmil", "%", "pu", "turns", "turn", "h" };
         var compared = 0;
         foreach (var info in Units.Quantities)
