@@ -308,6 +308,26 @@ public static class Grammar
             ],
             "find nser voltage X1 N equals 120 V from 10 turns to 40 turns",
             "the value of a let that makes a measure equal a target: every result is then at that value", ["measure"]),
+        new(StatementKind.FaultStudy, "fault-study", [new ChoicePart("a fault method", "equivalent-source", "as-loaded")],
+            [
+                Clause("currents", "the currents studied: maximum (cmax), minimum (cmin) or both",
+                    new ChoicePart("'maximum', 'minimum' or 'maximum-and-minimum'", "maximum", "minimum", "maximum-and-minimum")),
+                Clause("voltage-tolerance", "the tolerance of a low-voltage system, 6 % or 10 % (10 % unless said); it sets the voltage factor c", Value),
+                Clause("duration", "how long the fault lasts for the thermal duty (2 s unless said)", Value),
+                Clause("initial-temperature", "the windings' average temperature before the fault (105 degC unless said)", Value),
+            ],
+            "fault-study equivalent-source currents maximum-and-minimum duration 2 s",
+            "how bus faults are studied: the equivalent voltage source at the fault (IEC 60909-0) or the network as loaded"),
+        new(StatementKind.BusFault, "bus-fault",
+            [new NamePart(Def(SymbolKind.Fault, "a new fault name")), new NamePart(NodeRef), new NamePart(NodeRef), new NamePart(NodeRef),
+             new ChoicePart("a fault kind", "three-phase", "line-to-ground", "line-to-line", "double-line-to-ground")],
+            [
+                Clause("impedance", "the fault impedance in each faulted line, or between the two lines of a line-to-line fault (0 ohm when left out)", Value),
+                Clause("earth-impedance", "the impedance from the fault to earth (0 ohm when left out)", Value),
+                Clause("nominal", "the system's nominal line-to-line voltage at the bus, where it is not the rated voltage there", Value),
+            ],
+            "bus-fault F2 X1 X2 X3 line-to-ground impedance 0 ohm",
+            "a short circuit on a three-phase bus: line-to-ground on the first line, line-to-line and double-line-to-ground on the second and third"),
     ];
 
     public static readonly FrozenDictionary<string, StatementForm> ByKeyword = Statements.ToFrozenDictionary(s => s.Keyword);
