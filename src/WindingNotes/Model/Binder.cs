@@ -61,10 +61,12 @@ internal sealed partial class BindRun
             || Array.BinarySearch(errorStarts, line.Span.Start) is var i && (i >= 0 || (~i < errorStarts.Length && errorStarts[~i] <= line.Span.End));
         var statements = new List<StatementSyntax>();
         var broken = new List<StatementSyntax>();
+        var brokenLines = new List<LineSyntax>();
         foreach (var line in tree.Lines)
         {
             if (HasError(line))
             {
+                brokenLines.Add(line);
                 if ((line.Statement ?? line.Partial) is { } said) broken.Add(said);
                 foreach (var t in line.Tokens.Where(t => t.Kind is TokenKind.Word or TokenKind.Imaginary)) brokenWords.Add(t.Text);
             }
@@ -72,6 +74,10 @@ internal sealed partial class BindRun
         }
         foreach (var statement in statements) Declare(statement);
         foreach (var partial in broken) DeclarePartial(partial);
+        // A supply, load or fault that redefines a name is bound for its values, which uses its names.
+        foreach (var said in broken.Concat(rejected.Where(r => r.Kind is not (StatementKind.Supply or StatementKind.Load or StatementKind.Fault))))
+            ReferenceUses(said);
+        foreach (var line in brokenLines) ReferenceStrayNames(line);
         foreach (var statement in statements.Where(s => s.Kind == StatementKind.Let))
         {
             cancel.ThrowIfCancellationRequested();
@@ -122,12 +128,24 @@ internal sealed partial class BindRun
     private void Declare(StatementSyntax statement)
     {
         var owner = Owner(statement);
+        var defined = new List<string>();
         foreach (var name in statement.AllNames.Where(n => n.Role.Defines))
         {
             var symbol = new Symbol(name.Text, name.Role.Kinds[0], name.Name.Span, statement.Span, owner);
-            if (symbols.TryDefine(symbol, out var existing)) continue;
+            if (symbols.TryDefine(symbol, out var existing))
+            {
+                defined.Add(name.Text);
+                continue;
+            }
             diagnostics.ReportDuplicateName(name.Name, existing.Span, existing.Describe());
             rejected.Add(statement);
+        }
+        // A statement rejected for a name it redefines adds no element: the names it did define
+        // are broken, and the words it writes are those of a line with an error.
+        if (rejected.Contains(statement))
+        {
+            brokenNames.UnionWith(defined);
+            foreach (var name in statement.AllNames) brokenWords.Add(name.Text);
         }
         DeclarePhases(statement);
     }
@@ -153,7 +171,9 @@ internal sealed partial class BindRun
         foreach (var name in statement.AllNames.Where(n => n.Role.Defines))
         {
             var symbol = new Symbol(name.Text, name.Role.Kinds[0], name.Name.Span, statement.Span, Owner(statement));
-            if (symbols.TryDefine(symbol, out _)) brokenNames.Add(symbol.Name);
+            // A name taken already is used here, not defined: a rename changes it with the others.
+            if (symbols.TryDefine(symbol, out var existing)) brokenNames.Add(symbol.Name);
+            else symbols.Reference(name.Name.Span, existing);
         }
         foreach (var missing in statement.Head.Elements.Concat(statement.Clauses.SelectMany(c => c.Elements)).OfType<MissingSyntax>())
             if (missing.Role is { Defines: true } role) missingKinds.UnionWith(role.Kinds);
@@ -161,6 +181,56 @@ internal sealed partial class BindRun
 
     /// <summary>Kinds of name a broken line was to define and does not: an unknown name of such a kind may be the one it lacks.</summary>
     private readonly HashSet<SymbolKind> missingKinds = [];
+
+    /// <summary>
+    /// The names a statement with an error uses are uses all the same (navigation finds them, a
+    /// rename changes them), and a free node it names is defined there; nothing is checked of them.
+    /// </summary>
+    private void ReferenceUses(StatementSyntax statement)
+    {
+        foreach (var name in statement.AllNames.Where(n => !n.Role.Defines))
+        {
+            var symbol = symbols.Find(name.Text);
+            if (symbol is null && name.Role.Kinds.Contains(SymbolKind.Node))
+            {
+                symbol = new Symbol(name.Text, SymbolKind.Node, name.Name.Span, default);
+                symbols.TryDefine(symbol, out _);
+            }
+            if (symbol is null) continue;
+            symbols.Reference(name.Name.Span, symbol);
+            brokenUses.Add(symbol);
+        }
+    }
+
+    /// <summary>
+    /// A name on a line with an error that no part of its statement holds (tokens passed over after
+    /// the error) is still a use: of the name that exists, or of a free node there.
+    /// </summary>
+    private void ReferenceStrayNames(LineSyntax line)
+    {
+        // A line of no known statement is left as it is: its words may be anything.
+        if ((line.Statement ?? line.Partial) is not { } said) return;
+        var held = said.AllNames.Select(n => n.Name.Span.Start).Append(said.Keyword.Span.Start).ToHashSet();
+        Token? before = null;
+        foreach (var t in line.Tokens.Where(t => !t.IsTrivia))
+        {
+            // A word after a number is its unit, not a name.
+            var unit = before is { Kind: TokenKind.Number or TokenKind.Imaginary };
+            before = t;
+            if (unit || !ValueParser.IsName(t) || held.Contains(t.Span.Start)) continue;
+            if (symbols.Find(t.Text) is not { } symbol)
+            {
+                // Most names a line writes are points; one named nowhere else is a free node there.
+                symbol = new Symbol(t.Text, SymbolKind.Node, t.Span, default);
+                symbols.TryDefine(symbol, out _);
+            }
+            symbols.Reference(t.Span, symbol);
+            brokenUses.Add(symbol);
+        }
+    }
+
+    /// <summary>Symbols a statement with an error uses: a lonely node or a wrong kind among them follows from that error.</summary>
+    private readonly HashSet<Symbol> brokenUses = [];
 
     /// <summary>A broken line lacks the name of a connection point: a node used once may be the one it lacks.</summary>
     private bool MissingPoints => missingKinds.Overlaps([SymbolKind.Terminal, SymbolKind.Tap, SymbolKind.Brush]);
@@ -241,7 +311,7 @@ internal sealed partial class BindRun
         }
         else if (!(kinds.Contains(symbol.Kind) || (acceptsPoint && symbol.IsConnectionPoint)))
         {
-            if (!FollowsFromBrokenLine(name.Text) && !kinds.Any(missingKinds.Contains)) diagnostics.ReportWrongKind(name.Name, symbol.Describe(), expected);
+            if (!brokenUses.Contains(symbol) && !kinds.Any(missingKinds.Contains)) diagnostics.ReportWrongKind(name.Name, symbol.Describe(), expected);
             // Still a use of the name: navigation finds it, and a rename changes it with the others.
             symbols.Reference(name.Name.Span, symbol);
             return null;
@@ -299,11 +369,11 @@ internal sealed partial class BindRun
         string? Nearest(string name) => suggestions-- > 0 ? Spelling.Nearest(name, real) : null;
         foreach (var (symbol, uses) in nodeUses)
         {
-            if (symbol.Kind != SymbolKind.Node || uses.Count > 1 || FollowsFromBrokenLine(symbol.Name) || MissingPoints) continue;
+            if (symbol.Kind != SymbolKind.Node || uses.Count > 1 || brokenUses.Contains(symbol) || MissingPoints) continue;
             diagnostics.ReportLonelyNode(symbol.Span, symbol.Name, Nearest(symbol.Name));
         }
         foreach (var (symbol, name) in observed)
-            if (symbol.Kind == SymbolKind.Node && !nodeUses.ContainsKey(symbol) && !FollowsFromBrokenLine(symbol.Name) && !MissingPoints)
+            if (symbol.Kind == SymbolKind.Node && !nodeUses.ContainsKey(symbol) && !brokenUses.Contains(symbol) && !MissingPoints)
                 diagnostics.ReportUnknownName(name.Name, "terminal or node", Nearest(symbol.Name));
     }
 
@@ -329,7 +399,7 @@ internal sealed partial class BindRun
         }
         if (symbol.Kind != SymbolKind.Let)
         {
-            if (!FollowsFromBrokenLine(token.Text)) diagnostics.ReportWrongKind(token, symbol.Describe(), "a let value");
+            if (!brokenUses.Contains(symbol)) diagnostics.ReportWrongKind(token, symbol.Describe(), "a let value");
             symbols.Reference(token.Span, symbol);
             return null;
         }
