@@ -67,8 +67,12 @@ internal sealed partial class BindRun
             if (HasError(line))
             {
                 brokenLines.Add(line);
-                if ((line.Statement ?? line.Partial) is { } said) broken.Add(said);
-                foreach (var t in line.Tokens.Where(t => t.Kind is TokenKind.Word or TokenKind.Imaginary)) brokenWords.Add(t.Text);
+                var said = line.Statement ?? line.Partial;
+                if (said is not null) broken.Add(said);
+                // A line of no known statement (or one refused as too long) gives no names: what
+                // its words are is unknown, and a rename could not keep them in step.
+                if (said is not null)
+                    foreach (var t in line.Tokens.Where(t => t.Kind is TokenKind.Word or TokenKind.Imaginary)) brokenWords.Add(t.Text);
             }
             else if (line.Statement is { } statement) statements.Add(statement);
         }
@@ -311,7 +315,7 @@ internal sealed partial class BindRun
         }
         else if (!(kinds.Contains(symbol.Kind) || (acceptsPoint && symbol.IsConnectionPoint)))
         {
-            if (!brokenUses.Contains(symbol) && !kinds.Any(missingKinds.Contains)) diagnostics.ReportWrongKind(name.Name, symbol.Describe(), expected);
+            if (!brokenUses.Contains(symbol) && !FollowsFromBrokenLine(name.Text) && !kinds.Any(missingKinds.Contains)) diagnostics.ReportWrongKind(name.Name, symbol.Describe(), expected);
             // Still a use of the name: navigation finds it, and a rename changes it with the others.
             symbols.Reference(name.Name.Span, symbol);
             return null;
@@ -399,7 +403,7 @@ internal sealed partial class BindRun
         }
         if (symbol.Kind != SymbolKind.Let)
         {
-            if (!brokenUses.Contains(symbol)) diagnostics.ReportWrongKind(token, symbol.Describe(), "a let value");
+            if (!brokenUses.Contains(symbol) && !FollowsFromBrokenLine(token.Text)) diagnostics.ReportWrongKind(token, symbol.Describe(), "a let value");
             symbols.Reference(token.Span, symbol);
             return null;
         }
