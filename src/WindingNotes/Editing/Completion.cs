@@ -39,10 +39,12 @@ public static class Completion
             entries.AddRange(Grammar.Statements.Select(s => new CompletionEntry(s.Keyword, CompletionKind.Statement, s.Summary, range, $"`{s.Example}`")));
         foreach (var word in expected.Words.Distinct())
             entries.Add(new CompletionEntry(word, CompletionKind.Word, "", range));
+        // A name the line being typed defines is not offered on it (its unfinished line declares it).
+        bool Elsewhere(Symbol s) => !line.Span.Touches(s.Span.Start);
         foreach (var role in expected.Names.Where(r => !r.Defines).DistinctBy(r => r.Label))
-            entries.AddRange(NamesFor(evaluation.Model.Symbols, role).Select(s => new CompletionEntry(s.Name, CompletionKind.Name, s.Describe(), range, Symbol: s.Kind)));
+            entries.AddRange(NamesFor(evaluation.Model.Symbols, role).Where(Elsewhere).Select(s => new CompletionEntry(s.Name, CompletionKind.Name, s.Describe(), range, Symbol: s.Kind)));
         if (expected.ValueNames)
-            entries.AddRange(evaluation.Model.Symbols.Symbols.Where(s => s.Kind == SymbolKind.Let).Select(s => new CompletionEntry(s.Name, CompletionKind.Name, s.Describe(), range, Symbol: s.Kind)));
+            entries.AddRange(evaluation.Model.Symbols.Symbols.Where(s => s.Kind == SymbolKind.Let && Elsewhere(s)).Select(s => new CompletionEntry(s.Name, CompletionKind.Name, s.Describe(), range, Symbol: s.Kind)));
         if (expected.Units)
             entries.AddRange(Units.Common.Select(u => new CompletionEntry(u, CompletionKind.Unit, Units.Find(u)?.Dimension.Describe() ?? "", range)));
         foreach (var clause in expected.Clauses)

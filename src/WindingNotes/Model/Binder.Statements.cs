@@ -248,7 +248,8 @@ internal sealed partial class BindRun
             if (point is null || !point.IsConnectionPoint || point.Owner != winding.Name)
             {
                 var candidates = symbols.Symbols.Where(p => p.IsConnectionPoint && p.Owner == winding.Name).Select(p => p.Name);
-                diagnostics.ReportUnknownName(end, $"point of winding {winding.Name}", Spelling.Nearest(end.Text, candidates));
+                if (!FollowsFromBrokenLine(end.Text))
+                    diagnostics.ReportUnknownName(end, $"point of winding {winding.Name}", Spelling.Nearest(end.Text, candidates));
                 return null;
             }
             symbols.Reference(end.Span, point);

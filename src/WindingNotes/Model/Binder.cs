@@ -53,19 +53,48 @@ internal sealed partial class BindRun
 
     public Model Run()
     {
-        var statements = tree.Statements.ToList();
+        // A line with a syntax error (one that did not parse, or a statement whose clauses are
+        // wrong: missing, given twice, exclusive) declares what it says, after the whole lines, so
+        // a whole line never reports its name as taken by a broken one; nothing of it is bound.
+        var errorStarts = tree.Diagnostics.Where(d => d.IsError).Select(d => d.Span.Start).Order().ToArray();
+        bool HasError(LineSyntax line) => line.Error is not null
+            || Array.BinarySearch(errorStarts, line.Span.Start) is var i && (i >= 0 || (~i < errorStarts.Length && errorStarts[~i] <= line.Span.End));
+        var statements = new List<StatementSyntax>();
+        var broken = new List<StatementSyntax>();
+        var brokenLines = new List<LineSyntax>();
+        foreach (var line in tree.Lines)
+        {
+            if (HasError(line))
+            {
+                brokenLines.Add(line);
+                var said = line.Statement ?? line.Partial;
+                if (said is not null) broken.Add(said);
+                // A line of no known statement (or one refused as too long) gives no names: what
+                // its words are is unknown, and a rename could not keep them in step.
+                if (said is not null)
+                    foreach (var t in line.Tokens.Where(t => t.Kind is TokenKind.Word or TokenKind.Imaginary)) brokenWords.Add(t.Text);
+            }
+            else if (line.Statement is { } statement) statements.Add(statement);
+        }
         foreach (var statement in statements) Declare(statement);
-        foreach (var statement in statements.Where(s => s.Kind == StatementKind.Let && !rejected.Contains(s)))
+        foreach (var partial in broken) DeclarePartial(partial);
+        // A supply, load or fault that redefines a name is bound for its values, which uses its names.
+        foreach (var said in broken.Concat(rejected.Where(r => r.Kind is not (StatementKind.Supply or StatementKind.Load or StatementKind.Fault))))
+            ReferenceUses(said);
+        foreach (var line in brokenLines) ReferenceStrayNames(line);
+        foreach (var statement in statements.Where(s => s.Kind == StatementKind.Let))
         {
             cancel.ThrowIfCancellationRequested();
-            BindLet(statement);
+            if (rejected.Contains(statement)) Value(statement.Head.Value(), $"let {statement.Head.Name(0)!.Text}");
+            else BindLet(statement);
         }
-        foreach (var statement in statements.Where(s => s.Kind != StatementKind.Let && !rejected.Contains(s)))
+        foreach (var statement in statements.Where(s => s.Kind != StatementKind.Let))
         {
             cancel.ThrowIfCancellationRequested();
-            Bind(statement);
+            if (!rejected.Contains(statement)) BindWhole(statement);
+            else if (statement.Kind is StatementKind.Supply or StatementKind.Load or StatementKind.Fault) BindDiscarded(statement);
         }
-        if (!statements.Any(s => s.Kind == StatementKind.Frequency) && statements.Count > 0)
+        if (!statements.Concat(broken).Any(s => s.Kind == StatementKind.Frequency) && statements.Count > 0)
             diagnostics.ReportNoFrequency(tree.Lines[0].Span);
         CheckLonelyNodes();
         // Points the three-phase statements made (star points) come after the author's, so a node keeps the author's name.
@@ -105,24 +134,158 @@ internal sealed partial class BindRun
 
     private void Declare(StatementSyntax statement)
     {
-        var owner = statement.Kind switch
-        {
-            StatementKind.Winding => statement.Head.Name(0)?.Text,
-            StatementKind.Tap or StatementKind.Brush => statement.Clause("on")?.Name(0)?.Text,
-            _ => null,
-        };
+        var owner = Owner(statement);
+        var defined = new List<string>();
         foreach (var name in statement.AllNames.Where(n => n.Role.Defines))
         {
             var symbol = new Symbol(name.Text, name.Role.Kinds[0], name.Name.Span, statement.Span, owner);
-            if (symbols.TryDefine(symbol, out var existing)) continue;
+            if (symbols.TryDefine(symbol, out var existing))
+            {
+                defined.Add(name.Text);
+                continue;
+            }
             diagnostics.ReportDuplicateName(name.Name, existing.Span, existing.Describe());
             rejected.Add(statement);
+        }
+        // A statement rejected for a name it redefines adds no element: the names it did define
+        // are broken, and the words it writes are those of a line with an error.
+        if (rejected.Contains(statement))
+        {
+            brokenNames.UnionWith(defined);
+            foreach (var name in statement.AllNames) brokenWords.Add(name.Text);
         }
         DeclarePhases(statement);
     }
 
-    /// <summary>Statements that define a name already taken; they are reported once and not bound.</summary>
+    /// <summary>The winding the points a statement defines are on.</summary>
+    private static string? Owner(StatementSyntax statement) => statement.Kind switch
+    {
+        StatementKind.Winding => statement.Head.Name(0)?.Text,
+        StatementKind.Tap or StatementKind.Brush => statement.Clause("on")?.Name(0)?.Text,
+        _ => null,
+    };
+
+    /// <summary>Statements that define a name already taken; they are reported once and add no element.</summary>
     private readonly HashSet<StatementSyntax> rejected = [];
+
+    /// <summary>
+    /// A statement with an error declares its names and adds no element. A name a broken line
+    /// defines is declared where it is free (a name it takes from a whole line is left to that
+    /// line), and what it is then used as is not held against it: its kind may be the mistake.
+    /// </summary>
+    private void DeclarePartial(StatementSyntax statement)
+    {
+        foreach (var name in statement.AllNames.Where(n => n.Role.Defines))
+        {
+            var symbol = new Symbol(name.Text, name.Role.Kinds[0], name.Name.Span, statement.Span, Owner(statement));
+            // A name taken already is used here, not defined: a rename changes it with the others.
+            if (symbols.TryDefine(symbol, out var existing)) brokenNames.Add(symbol.Name);
+            else symbols.Reference(name.Name.Span, existing);
+        }
+        foreach (var missing in statement.Head.Elements.Concat(statement.Clauses.SelectMany(c => c.Elements)).OfType<MissingSyntax>())
+            if (missing.Role is { Defines: true } role) missingKinds.UnionWith(role.Kinds);
+    }
+
+    /// <summary>Kinds of name a broken line was to define and does not: an unknown name of such a kind may be the one it lacks.</summary>
+    private readonly HashSet<SymbolKind> missingKinds = [];
+
+    /// <summary>
+    /// The names a statement with an error uses are uses all the same (navigation finds them, a
+    /// rename changes them), and a free node it names is defined there; nothing is checked of them.
+    /// </summary>
+    private void ReferenceUses(StatementSyntax statement)
+    {
+        foreach (var name in statement.AllNames.Where(n => !n.Role.Defines))
+        {
+            var symbol = symbols.Find(name.Text);
+            if (symbol is null && name.Role.Kinds.Contains(SymbolKind.Node))
+            {
+                symbol = new Symbol(name.Text, SymbolKind.Node, name.Name.Span, default);
+                symbols.TryDefine(symbol, out _);
+            }
+            if (symbol is null) continue;
+            symbols.Reference(name.Name.Span, symbol);
+            brokenUses.Add(symbol);
+        }
+    }
+
+    /// <summary>
+    /// A name on a line with an error that no part of its statement holds (tokens passed over after
+    /// the error) is still a use: of the name that exists, or of a free node there.
+    /// </summary>
+    private void ReferenceStrayNames(LineSyntax line)
+    {
+        // A line of no known statement is left as it is: its words may be anything.
+        if ((line.Statement ?? line.Partial) is not { } said) return;
+        var held = said.AllNames.Select(n => n.Name.Span.Start).Append(said.Keyword.Span.Start).ToHashSet();
+        Token? before = null;
+        foreach (var t in line.Tokens.Where(t => !t.IsTrivia))
+        {
+            // A word after a number is its unit, not a name.
+            var unit = before is { Kind: TokenKind.Number or TokenKind.Imaginary };
+            before = t;
+            if (unit || !ValueParser.IsName(t) || held.Contains(t.Span.Start)) continue;
+            if (symbols.Find(t.Text) is not { } symbol)
+            {
+                // Most names a line writes are points; one named nowhere else is a free node there.
+                symbol = new Symbol(t.Text, SymbolKind.Node, t.Span, default);
+                symbols.TryDefine(symbol, out _);
+            }
+            symbols.Reference(t.Span, symbol);
+            brokenUses.Add(symbol);
+        }
+    }
+
+    /// <summary>Symbols a statement with an error uses: a lonely node or a wrong kind among them follows from that error.</summary>
+    private readonly HashSet<Symbol> brokenUses = [];
+
+    /// <summary>A broken line lacks the name of a connection point: a node used once may be the one it lacks.</summary>
+    private bool MissingPoints => missingKinds.Overlaps([SymbolKind.Terminal, SymbolKind.Tap, SymbolKind.Brush]);
+
+    /// <summary>
+    /// Names whose element is absent because of an error: declared by a broken line, or defined by
+    /// a statement that used such a name (it could not be bound whole). What a use of them would
+    /// check (kind, core, phases) cannot be said, so a use resolves to nothing and reports nothing.
+    /// </summary>
+    private readonly HashSet<string> brokenNames = new(StringComparer.Ordinal);
+
+    private bool IsBroken(Symbol symbol) =>
+        brokenNames.Contains(symbol.Name) || (symbol.Derived && symbol.Owner is { } owner && brokenNames.Contains(owner));
+
+    /// <summary>Set when the statement being bound used a broken name: what it defines is broken too.</summary>
+    private bool tainted;
+
+    private void BindWhole(StatementSyntax statement)
+    {
+        tainted = false;
+        Bind(statement);
+        if (!tainted) return;
+        foreach (var name in statement.AllNames.Where(n => n.Role.Defines)) brokenNames.Add(name.Text);
+    }
+
+    /// <summary>Every word on a line with an error: a name among them may be one that line meant to define or use.</summary>
+    private readonly HashSet<string> brokenWords = new(StringComparer.Ordinal);
+
+    /// <summary>
+    /// An unknown name, a lonely node or a name of the wrong kind that a line with an error also
+    /// writes follows from that error: it is not reported (the file has its error, so it is not solved).
+    /// </summary>
+    private bool FollowsFromBrokenLine(string name) =>
+        brokenWords.Contains(name) || (name.LastIndexOf('_') is > 0 and var i && brokenWords.Contains(name[..i]));
+
+    /// <summary>
+    /// A statement that redefines a name (a supply, load or fault: nothing else hangs on its name)
+    /// is still bound for the errors of its values, and what it would add is dropped: one mistake
+    /// must not hide another on the same line.
+    /// </summary>
+    private void BindDiscarded(StatementSyntax statement)
+    {
+        var (s, l, f) = (supplies.Count, loads.Count, faults.Count);
+        Bind(statement);
+        while (supplies.Count > s) supplies.RemoveAt(supplies.Count - 1);
+        while (loads.Count > l) loads.RemoveAt(loads.Count - 1);
+        while (faults.Count > f) faults.RemoveAt(faults.Count - 1);
+    }
 
     // ---- names ----
 
@@ -139,15 +302,23 @@ internal sealed partial class BindRun
         {
             if (!acceptsPoint)
             {
+                if (FollowsFromBrokenLine(name.Text) || kinds.Any(missingKinds.Contains)) return null;
                 diagnostics.ReportUnknownName(name.Name, KindWord(kinds[0]), Spelling.Nearest(name.Text, symbols.NamesOf(kinds)));
                 return null;
             }
             symbol = new Symbol(name.Text, SymbolKind.Node, name.Name.Span, default);
             symbols.TryDefine(symbol, out _);
         }
+        else if (IsBroken(symbol))
+        {
+            // Its element is absent because of an error: nothing can be said of this use.
+            symbols.Reference(name.Name.Span, symbol);
+            tainted = true;
+            return null;
+        }
         else if (!(kinds.Contains(symbol.Kind) || (acceptsPoint && symbol.IsConnectionPoint)))
         {
-            diagnostics.ReportWrongKind(name.Name, symbol.Describe(), expected);
+            if (!brokenUses.Contains(symbol) && !FollowsFromBrokenLine(name.Text) && !kinds.Any(missingKinds.Contains)) diagnostics.ReportWrongKind(name.Name, symbol.Describe(), expected);
             // Still a use of the name: navigation finds it, and a rename changes it with the others.
             symbols.Reference(name.Name.Span, symbol);
             return null;
@@ -205,11 +376,11 @@ internal sealed partial class BindRun
         string? Nearest(string name) => suggestions-- > 0 ? Spelling.Nearest(name, real) : null;
         foreach (var (symbol, uses) in nodeUses)
         {
-            if (symbol.Kind != SymbolKind.Node || uses.Count > 1) continue;
+            if (symbol.Kind != SymbolKind.Node || uses.Count > 1 || brokenUses.Contains(symbol) || MissingPoints) continue;
             diagnostics.ReportLonelyNode(symbol.Span, symbol.Name, Nearest(symbol.Name));
         }
         foreach (var (symbol, name) in observed)
-            if (symbol.Kind == SymbolKind.Node && !nodeUses.ContainsKey(symbol))
+            if (symbol.Kind == SymbolKind.Node && !nodeUses.ContainsKey(symbol) && !brokenUses.Contains(symbol) && !MissingPoints)
                 diagnostics.ReportUnknownName(name.Name, "terminal or node", Nearest(symbol.Name));
     }
 
@@ -223,12 +394,19 @@ internal sealed partial class BindRun
         var symbol = symbols.Find(token.Text);
         if (symbol is null)
         {
+            if (FollowsFromBrokenLine(token.Text) || missingKinds.Contains(SymbolKind.Let)) return null;
             diagnostics.ReportUnknownName(token, "name", Spelling.Nearest(token.Text, symbols.NamesOf(SymbolKind.Let)));
+            return null;
+        }
+        if (IsBroken(symbol))
+        {
+            symbols.Reference(token.Span, symbol);
+            tainted = true;
             return null;
         }
         if (symbol.Kind != SymbolKind.Let)
         {
-            diagnostics.ReportWrongKind(token, symbol.Describe(), "a let value");
+            if (!brokenUses.Contains(symbol) && !FollowsFromBrokenLine(token.Text)) diagnostics.ReportWrongKind(token, symbol.Describe(), "a let value");
             symbols.Reference(token.Span, symbol);
             return null;
         }

@@ -72,8 +72,10 @@ public static class Parser
             var result = StatementParsers.ByKind[form.Kind].Parse(rest);
             if (!result.Success)
             {
-                var error = ReportParseError(diagnostics, result.Error!, rest, keyword);
-                return new LineSyntax(index, span, all, null, error);
+                var (partialHead, partialClauses) = StatementReader.ReadPartial(form, significant);
+                var partial = new StatementSyntax(form, keyword, partialHead, partialClauses);
+                var error = ReportParseError(diagnostics, result.Error!, rest, keyword, partial);
+                return new LineSyntax(index, span, all, null, error, partial);
             }
             parsed = result.Value;
         }
@@ -84,12 +86,14 @@ public static class Parser
         return new LineSyntax(index, span, all, statement, null);
     }
 
-    private static Diagnostic ReportParseError(DiagnosticBag diagnostics, ParseError<Token> error, ReadOnlySpan<Token> tokens, Token keyword)
+    private static Diagnostic ReportParseError(DiagnosticBag diagnostics, ParseError<Token> error, ReadOnlySpan<Token> tokens, Token keyword, StatementSyntax partial)
     {
+        var fitting = StillNeeded(partial);
         var expected = error.Expected
             .Select(e => e.IsEof ? "end of line" : e.Label ?? string.Join(" ", e.Tokens.Select(t => $"'{t.Text}'")))
             .Where(label => label.Length > 0)
             .Distinct()
+            .OrderBy(label => fitting.Contains(label) ? 0 : 1)
             .ToList();
         var offset = Math.Min(error.ErrorOffset, tokens.Length);
         if (offset < tokens.Length)
@@ -101,6 +105,21 @@ public static class Parser
         }
         var last = tokens.Length > 0 ? tokens[^1] : keyword;
         return diagnostics.ReportUnexpectedEnd(last, expected);
+    }
+
+    /// <summary>
+    /// The keywords, quoted as the expected lists quote them, of the clauses the statement still
+    /// needs (a required clause, or any of a required group, not yet given): where they are
+    /// expected they are the words that fit, so they come first ("after a measure, 'between' …").
+    /// </summary>
+    private static HashSet<string> StillNeeded(StatementSyntax partial)
+    {
+        var given = partial.Clauses.Select(c => c.Form!).ToList();
+        var groups = (partial.Form.RequiredGroups ?? []).Where(g => !given.Exists(c => c.Group == g)).ToHashSet();
+        return partial.Form.Clauses
+            .Where(c => (c.Required && !given.Contains(c)) || (c.Group is { } g && groups.Contains(g)))
+            .Select(c => $"'{c.Keyword}'")
+            .ToHashSet();
     }
 
     private static Diagnostic? TooComplex(Token[] tokens, DiagnosticBag diagnostics)

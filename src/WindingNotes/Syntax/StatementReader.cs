@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using WindingNotes.Text;
 
 namespace WindingNotes.Syntax;
 
@@ -35,6 +36,54 @@ internal sealed class StatementReader
         }
         return (new ClauseSyntax(null, null, head.DrainToImmutable()), clauses.DrainToImmutable());
     }
+
+    /// <summary>
+    /// What a line that does not parse still says: the parts read up to the first that does not
+    /// fit, a <see cref="MissingSyntax"/> there, and then, from the next keyword of one of the form's
+    /// clauses on, each clause read the same way; tokens that begin no clause are passed over. The
+    /// binder declares the names of the result and binds nothing of it.
+    /// </summary>
+    public static (ClauseSyntax Head, ImmutableArray<ClauseSyntax> Clauses) ReadPartial(StatementForm form, Token[] tokens)
+    {
+        var reader = new StatementReader(tokens, 1);
+        var head = ImmutableArray.CreateBuilder<ElementSyntax>();
+        reader.Recovering(form.Head, head);
+        var clauses = ImmutableArray.CreateBuilder<ClauseSyntax>();
+        while (reader.Current is { } keyword)
+        {
+            reader.at++;
+            if (keyword.Kind != TokenKind.Word || form.FindClause(keyword.Text) is not { } clause) continue;
+            var elements = ImmutableArray.CreateBuilder<ElementSyntax>(clause.Parts.Length);
+            reader.Recovering(clause.Parts, elements);
+            clauses.Add(new ClauseSyntax(clause, keyword, elements.DrainToImmutable()));
+        }
+        return (new ClauseSyntax(null, null, head.DrainToImmutable()), clauses.DrainToImmutable());
+    }
+
+    /// <summary>The parts in order up to the first that does not fit, which is marked missing; the reader then stands where it stopped.</summary>
+    private void Recovering(Part[] parts, ImmutableArray<ElementSyntax>.Builder into)
+    {
+        foreach (var part in parts)
+        {
+            if (Part(part, into)) continue;
+            var where = Current is { } t ? new TextSpan(t.Span.Start, 0) : new TextSpan(tokens[^1].Span.End, 0);
+            var role = part switch { NamePart n => n.Role, NameListPart n => n.Role, _ => null };
+            into.Add(new MissingSyntax(Label(part), where, role));
+            return;
+        }
+    }
+
+    /// <summary>How a part is named where it is missing, as the grammar table labels it.</summary>
+    internal static string Label(Part part) => part switch
+    {
+        NamePart n => n.Role.Label,
+        NameListPart n => n.Role.Label,
+        ValuePart v => v.Label,
+        WordPart w => $"'{w.Word}'",
+        ChoicePart c => c.Label,
+        OptionalPart o => Label(o.Parts[0]),
+        _ => "",
+    };
 
     private Token? Current => at < tokens.Length ? tokens[at] : null;
 

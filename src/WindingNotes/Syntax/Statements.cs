@@ -34,6 +34,15 @@ public sealed record ValueSyntax(ExpressionSyntax Expression, ExpressionSyntax? 
     public TextSpan NominalSpan => (Angle ?? Expression).Span.Cover(Expression.Span);
 }
 
+/// <summary>
+/// A placeholder for a part a broken line does not have: where the reader stopped, and what it
+/// expected there. Only partial statements (<see cref="LineSyntax.Partial"/>) hold one.
+/// </summary>
+public sealed record MissingSyntax(string Expected, TextSpan At, NameRole? Role = null) : ElementSyntax
+{
+    public override TextSpan Span => At;
+}
+
 /// <summary>A clause: its keyword (none for a statement's head) and its elements in order.</summary>
 public sealed record ClauseSyntax(ClauseForm? Form, Token? Keyword, ImmutableArray<ElementSyntax> Elements)
 {
@@ -76,9 +85,12 @@ public sealed record StatementSyntax(StatementForm Form, Token Keyword, ClauseSy
 /// <summary>
 /// A logical line: physical lines joined by continuations. It holds every token, trivia
 /// included, so the line prints back to its exact text, and either a statement, or an error,
-/// or nothing (a blank or comment-only line).
+/// or nothing (a blank or comment-only line). A line with an error may keep what it says as a
+/// <see cref="Partial"/> statement: the parts read up to the error and after it from the next
+/// clause keyword on, with a <see cref="MissingSyntax"/> where a part is missing. The binder
+/// declares its names and adds no element, so other lines that use them report nothing more.
 /// </summary>
-public sealed record LineSyntax(int Index, TextSpan Span, ImmutableArray<Token> Tokens, StatementSyntax? Statement, Diagnostic? Error)
+public sealed record LineSyntax(int Index, TextSpan Span, ImmutableArray<Token> Tokens, StatementSyntax? Statement, Diagnostic? Error, StatementSyntax? Partial = null)
 {
     public Token? Comment => Tokens.FirstOrDefault(t => t.Kind == TokenKind.Comment);
 
@@ -91,6 +103,9 @@ public sealed record LineSyntax(int Index, TextSpan Span, ImmutableArray<Token> 
 public sealed record SyntaxTree(SourceText Text, ImmutableArray<LineSyntax> Lines, ImmutableArray<Diagnostic> Diagnostics)
 {
     public IEnumerable<StatementSyntax> Statements => Lines.Select(l => l.Statement).OfType<StatementSyntax>();
+
+    /// <summary>What the lines that failed to parse still say.</summary>
+    public IEnumerable<StatementSyntax> PartialStatements => Lines.Select(l => l.Partial).OfType<StatementSyntax>();
 
     /// <summary>The tokens printed back; equal to the text it was parsed from.</summary>
     public string ToFullString() => string.Concat(Lines.SelectMany(l => l.Tokens).Select(t => t.Text));
