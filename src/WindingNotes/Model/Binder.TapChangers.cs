@@ -229,7 +229,7 @@ internal sealed partial class BindRun
             return;
         }
         expects.Add(new ExpectModel(s.Span, tree.Text[s.Span], MeasureKind.Position, [new NodeRef(changer.Name, nameSyntax!.Name.Span)],
-            conditionClause.Keyword.Text == "near" ? ConditionKind.Near : ConditionKind.Between, low, high, "")
+            conditionClause.Keyword.Text == "near" ? ConditionKind.Near : ConditionKind.Between, low, high, ExpectModel.PositionUnit)
         {
             Target = target,
             MeasureText = tree.Text[measureClause.Span],

@@ -124,6 +124,9 @@ public sealed record ExpectModel(TextSpan Line, string Text, MeasureKind Measure
     /// <summary>For 'vector-group … is': the connection symbol expected, as written.</summary>
     public string? Symbol { get; init; }
 
+    /// <summary>The unit of a tap changer's position: a whole step count, shown with its sign.</summary>
+    public const string PositionUnit = "position";
+
     /// <summary>The fault case the check is evaluated in ('in F2', or the fault a fault measure names); null for the normal case and sweep points.</summary>
     public string? InFault { get; init; }
 

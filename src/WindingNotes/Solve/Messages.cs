@@ -85,7 +85,12 @@ public sealed partial class DiagnosticBag
         Error("expect-unknown", expect.Line, $"cannot check {expect.MeasureText}: {problem}");
 
     /// <summary>A measured value in the unit of its check; fractions as percent.</summary>
-    public static string Show(double value, string unit) => unit == "%" ? Numbers.Format(value * 100, "%") : Numbers.Format(value, unit);
+    public static string Show(double value, string unit) => unit switch
+    {
+        "%" => Numbers.Format(value * 100, "%"),
+        ExpectModel.PositionUnit => value.ToString("+0;-0;0", System.Globalization.CultureInfo.InvariantCulture),
+        _ => Numbers.Format(value, unit),
+    };
 }
 
 // Messages of sweeps, tolerance bands and the points they solve.
