@@ -17,8 +17,8 @@ public sealed record FaultResult(FaultModel Fault, Complex Current, double XR, d
 
 public static class Faults
 {
-    /// <summary>IEC 60076-5 asks a transformer to carry its short-circuit current for 2 s (thermal ability, from memory).</summary>
-    public const double ThermalDuration = 2;
+    /// <summary>How long a winding must carry its short-circuit current: the fault study's default duration.</summary>
+    public static double ThermalDuration => FaultStudyModel.Default.Duration;
 
     /// <summary>
     /// The asymmetrical peak factor κ√2 with κ = 1 + e^(−(φ+π/2)/(X/R))·sin φ and φ = atan(X/R)

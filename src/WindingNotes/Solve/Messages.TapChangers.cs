@@ -39,5 +39,5 @@ public sealed partial class DiagnosticBag
 
     private static string Target(FindModel f) => Measured(f, f.Target);
 
-    private static string Measured(FindModel f, double v) => f.Measure.Unit == "%" ? Numbers.Format(v * 100, "%") : Numbers.Format(v, f.Measure.Unit);
+    private static string Measured(FindModel f, double v) => Show(v, f.Measure.Unit);
 }
