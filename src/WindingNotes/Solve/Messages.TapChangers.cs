@@ -16,7 +16,7 @@ public sealed partial class DiagnosticBag
 
     public Diagnostic ReportTapBackwards(TapChangerModel t, int from, int to, double before, double after, TapControlModel k) =>
         Warning("tap-control-backwards", t.NameSpan,
-            $"{t.Name}'s control is wired backwards: stepping toward its band {Volts(k.BandLow)} to {Volts(k.BandHigh)}, from {Signed(from)} to {Signed(to)}, moved its relay away from it ({Volts(before)} to {Volts(after)}), so it runs to a limit; reverse the regulated voltage's terminals or the winding's connection, or the sense of its positions");
+            $"{t.Name}'s control is wired backwards: stepping toward its band {Volts(k.BandLow)} to {Volts(k.BandHigh)}, from {Signed(from)} to {Signed(to)}, moved its relay away from it ({Volts(before)} to {Volts(after)}), so it runs to a limit; check the voltage it regulates, the connection of its windings and the sense of its step");
 
     /// <summary>detail: <see cref="RegulatorLimitText"/>.</summary>
     public Diagnostic ReportRegulatorCurrentHigh(TextSpan span, string changer, double current, double rating, string detail, string where) =>
