@@ -1,5 +1,6 @@
 using WindingNotes.Solve;
 using WindingNotes.Tests.Support;
+using WindingNotes.Workspace;
 using Xunit;
 
 namespace WindingNotes.Tests.Solve;
@@ -144,5 +145,33 @@ public class RegulatorTests
         Assert.Contains("from 0 to +1, moved its relay away from it (113.4 V to 112.7 V)", d.Message);
         Assert.DoesNotContain(e.Diagnostics, x => x.Code == "tap-limit");
         Assert.Equal(e.Model.TapChangers.Single().NameSpan, d.Span);
+    }
+    [Fact]
+    public void The_faults_at_each_tolerance_corner_are_solved_at_that_corner_s_settled_positions()
+    {
+        // Each corner of the tolerance is settled, then its fault solved at the positions it settled on (the
+        // network kept from settling, not bound again): the band of the fault current equals the fault
+        // currents of the two corners written out as plain values and evaluated on their own.
+        const string file = """
+            frequency 60 Hz
+            let sel = 0 %
+            core K rating 333 kVA
+            winding SH on K turns 1000 rated 7620 V from N to S
+            winding SER on K turns 100 rated 762 V rated-current 50 A from S1 to S2
+            impedance SH SER 8 % +- 10 % xr 2
+            brush R on SER at sel
+            join S S1
+            supply grid S N 7200 V fault-level 4 kA xr 6
+            ground N
+            load town R N impedance 200 ohm pf 0.9
+            tap-changer REG on SER sets sel positions -16 to 16 step 6.25 % reversing regulate R N target 120 V bandwidth 2 V pt-ratio 63.5
+            fault F1 R N
+            """;
+        static double Fault(Evaluation e) => e.Cases.Single(c => c.Case.Fault is not null).Solution.FaultCurrent.Magnitude;
+        var band = Wn.Solved(file).Cases.Single(c => c.Case.Fault is not null).Bands.Single(b => b.Path == "faults.F1.i.rms");
+        var corners = new[] { "7.2 %", "8.8 %" }.Select(z => Wn.Solved(file.Replace("8 % +- 10 %", z))).ToList();
+        Assert.All(corners, c => Assert.Equal(TapState.InBand, Position(c.Normal!).State));
+        Wn.Near(corners.Min(Fault), band.Min, 1e-9, "lower end of the band");
+        Wn.Near(corners.Max(Fault), band.Max, 1e-9, "upper end of the band");
     }
 }
