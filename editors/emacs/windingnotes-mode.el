@@ -57,7 +57,7 @@ A bare program name is looked up on `exec-path' and then in
     "caution-fuse-output" "caution-above-supply" "caution-fault-duty"
     "bank" "three-limb" "five-limb" "shell" "abc" "acb"
     "hot-spot-high" "top-oil-high" "cycle-current-high" "caution-hot-spot"
-    "fault-duty-high"
+    "fault-duty-high" "regulator-current-high"
     "upgraded" "non-upgraded" "difference-equation" "exponential"
     "normal-cyclic" "long-time-emergency" "short-time-emergency"
     "equivalent-source" "as-loaded" "maximum" "minimum" "maximum-and-minimum" "three-phase"

@@ -119,7 +119,11 @@ public static class Hovers
                 }
                 break;
             case SymbolKind.TapChanger:
-                if (normal?.TapPositions.FirstOrDefault(t => t.Changer.Name == symbol.Name) is { } changer) lines.Add(TextReport.TapText(changer));
+                if (normal?.TapPositions.FirstOrDefault(t => t.Changer.Name == symbol.Name) is { } changer)
+                {
+                    lines.Add(TextReport.TapText(changer));
+                    if (changer.Regulation is { } r) lines.Add(TextReport.RegulationText(r));
+                }
                 break;
             case SymbolKind.Fault:
                 if (evaluation.Cases.FirstOrDefault(c => c.Case.Fault?.Name == symbol.Name) is { } faultCase)

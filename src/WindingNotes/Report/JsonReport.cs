@@ -147,8 +147,19 @@ public static class JsonReport
             {
                 w.WriteStartObject(t.Changer.Name);
                 w.WriteNumber("position", t.Position);
-                w.WriteString("state", t.State switch { TapState.InBand => "in-band", TapState.AtLimit => "at-limit", TapState.Hunting => "hunting", TapState.Follows => "follows", _ => "stated" });
+                w.WriteString("state", t.State switch { TapState.InBand => "in-band", TapState.AtLimit => "at-limit", TapState.Hunting => "hunting", TapState.Follows => "follows", TapState.Backwards => "wired-backwards", _ => "stated" });
                 if (t.Relay is { } relay) Number(w, "relay", relay);
+                if (t.Regulation is { } r)
+                {
+                    w.WriteStartObject("regulation");
+                    w.WriteString("series", r.Series);
+                    w.WriteString("shunt", r.Shunt);
+                    Number(w, "range", r.Range);
+                    Number(w, "currentMultiplier", r.Multiplier);
+                    if (r.CurrentRating is { } rating) Number(w, "currentRating", rating);
+                    Number(w, "current", r.Current);
+                    w.WriteEndObject();
+                }
                 w.WriteEndObject();
             }
             w.WriteEndObject();

@@ -103,7 +103,9 @@ public static class MarkdownReport
         if (!c.TapPositions.IsEmpty)
         {
             o.Append('\n');
-            Table(o, 1, ["tap changer", "setting"], c.TapPositions.Select(t => new[] { t.Changer.Name, TextReport.TapText(t) }));
+            var regulators = c.TapPositions.Any(t => t.Regulation is not null);
+            Table(o, 1, ["tap changer", "setting", .. If(regulators, "regulation")], c.TapPositions.Select(t => (string[])
+                [t.Changer.Name, TextReport.TapText(t), .. If(regulators, t.Regulation is { } r ? TextReport.RegulationText(r) : "")]));
         }
         if (!c.Cores.IsEmpty)
         {

@@ -51,7 +51,7 @@ public static class SweepTables
         if (points.Any(c => !c.Taps.IsEmpty))
             tables.Add(Build("Taps, current out of the winding", axes, points, c => c.Taps.Select(t => (t.Point, TextReport.Value(t.Current.Magnitude, "A")))));
         if (points.Any(c => !c.TapPositions.IsEmpty))
-            tables.Add(Build("Tap changers, position", axes, points, c => c.TapPositions.Select(t => (t.Changer.Name, t.State is TapState.AtLimit or TapState.Hunting ? $"{t.Position} ({t.StateText})" : $"{t.Position}"))));
+            tables.Add(Build("Tap changers, position", axes, points, c => c.TapPositions.Select(t => (t.Changer.Name, t.State is TapState.AtLimit or TapState.Hunting or TapState.Backwards ? $"{t.Position} ({t.StateText})" : $"{t.Position}"))));
         if (points.Any(c => c.Cores.Any(k => k.Flux is not null)))
             tables.Add(Build("Cores, peak flux", axes, points, c => c.Cores.Where(k => k.Flux is not null).Select(k => (k.Core.Name, TextReport.Value(k.Flux!.Value, "T")))));
         tables.Add(Build("Supplies, current and power", axes, points, c => c.Supplies.SelectMany(s => new[]

@@ -70,7 +70,7 @@ public static class TextReport
         if (!c.TapPositions.IsEmpty)
         {
             Heading(o, "Tap changers");
-            foreach (var t in c.TapPositions) Line(o, t.Changer.Name, TapText(t));
+            foreach (var t in c.TapPositions) Line(o, t.Changer.Name, TapText(t) + (t.Regulation is { } r ? $"; {RegulationText(r)}" : ""));
         }
         if (!c.Cores.IsEmpty)
         {
@@ -204,6 +204,11 @@ public static class TextReport
     /// <summary>"position +8 of -16 to +16, in band, relay 119.1 V".</summary>
     public static string TapText(TapPosition t) =>
         $"position {Signed(t.Position)} of {Signed(t.Changer.Low)} to {Signed(t.Changer.High)}, {t.StateText}" + (t.Relay is { } r ? $", relay {Numbers.Format(r, "V")}" : "");
+
+    /// <summary>A step-voltage regulator's range of regulation and its series winding's current against its rating at that range.</summary>
+    public static string RegulationText(RegulatorRating r) =>
+        $"range of regulation ±{Numbers.Format(r.Range * 100, "%")}, series winding {r.Series} {Numbers.Format(r.Current, "A")}"
+        + (r.CurrentRating is { } a ? $" of {Numbers.Format(a, "A")} ({Numbers.Format(r.Multiplier * 100, "%")} of rated current)" : $", its rated current not known ({Numbers.Format(r.Multiplier * 100, "%")} of it allowed)");
 
     private static string Signed(int k) => k > 0 ? $"+{k}" : $"{k}";
 

@@ -14,6 +14,18 @@ public sealed partial class DiagnosticBag
             ? $"{t.Name} cannot reach its band: at its highest position {Signed(position)} the relay sees {Volts(relay)}, below the band {Volts(k.BandLow)} to {Volts(k.BandHigh)}"
             : $"{t.Name} cannot reach its band: at its lowest position {Signed(position)} the relay sees {Volts(relay)}, above the band {Volts(k.BandLow)} to {Volts(k.BandHigh)}");
 
+    public Diagnostic ReportTapBackwards(TapChangerModel t, int from, int to, double before, double after, TapControlModel k) =>
+        Warning("tap-control-backwards", t.NameSpan,
+            $"{t.Name}'s control is wired backwards: stepping toward its band {Volts(k.BandLow)} to {Volts(k.BandHigh)}, from {Signed(from)} to {Signed(to)}, moved its relay away from it ({Volts(before)} to {Volts(after)}), so it runs to a limit; check the voltage it regulates, the connection of its windings and the sense of its step");
+
+    /// <summary>detail: <see cref="RegulatorLimitText"/>.</summary>
+    public Diagnostic ReportRegulatorCurrentHigh(TextSpan span, string changer, double current, double rating, string detail, string where) =>
+        Warning("regulator-current-high", span, $"{changer}'s series winding {detail} carries {Numbers.Format(current, "A")}, above its current rating of {Numbers.Format(rating, "A")}{where}");
+
+    /// <summary>"SER, at a range of regulation of ±10.00 % (100.0 % of rated current),".</summary>
+    public static string RegulatorLimitText(Solve.RegulatorRating r) =>
+        $"{r.Series}, at a range of regulation of ±{Numbers.Format(r.Range * 100, "%")} ({Numbers.Format(r.Multiplier * 100, "%")} of rated current),";
+
     public Diagnostic ReportTapHunting(TapChangerModel t, int from, int to, double relayFrom, double? relayTo, TapControlModel k, string where) =>
         Warning("tap-hunting", t.NameSpan, relayTo is { } v
             ? $"{t.Name} hunts between positions {Signed(from)} and {Signed(to)}: one step moves its relay {Volts(Math.Abs(v - relayFrom))}, more than its bandwidth {Volts(k.Bandwidth)}; widen the bandwidth beyond one step (kept at {Signed(from)})"

@@ -17,7 +17,7 @@ public sealed class RatingTally
     public const double OnLoadExcitation = 1.05, NoLoadExcitation = 1.10;
 
     /// <summary>The codes of the rating warnings: a diff and a report summary count them as ratings crossed.</summary>
-    public static readonly ImmutableHashSet<string> Codes = ["loading-high", "flux-high", "overexcited", "brush-current-high", "current-density-high", "connection-rating", "hot-spot-high", "top-oil-high", "cycle-current-high"];
+    public static readonly ImmutableHashSet<string> Codes = ["loading-high", "flux-high", "overexcited", "brush-current-high", "current-density-high", "connection-rating", "hot-spot-high", "top-oil-high", "cycle-current-high", "regulator-current-high"];
 
     private readonly Dictionary<(string Code, string Key), Finding> findings = [];
     private readonly List<(string Code, string Key)> order = [];
@@ -47,7 +47,13 @@ public sealed class RatingTally
                 : f with { Count = f.Count + 1 };
         }
 
-        foreach (var winding in c.Sections.Where(s => s.Loading is not null).GroupBy(s => s.Winding.Name))
+        var network = c.Solution.Network;
+        // A regulator's series winding may carry more than its rated current at a narrower range of
+        // regulation: it is checked against that rating below, not against its rated current here.
+        var regulators = network.Model.TapChangers.Select(t => (Changer: t, Rating: Regulators.Rating(t, c)))
+            .Where(r => r.Rating?.CurrentRating is not null).ToList();
+        var series = regulators.Select(r => r.Rating!.Series).ToHashSet(StringComparer.Ordinal);
+        foreach (var winding in c.Sections.Where(s => s.Loading is not null && !series.Contains(s.Winding.Name)).GroupBy(s => s.Winding.Name))
         {
             var worst = winding.Max(s => s.Loading!.Value);
             if (worst > 1 + 1e-9) Found("loading-high", winding.Key, winding.First().Winding.Source.NameSpan, winding.Key, worst, 1);
@@ -57,7 +63,9 @@ public sealed class RatingTally
         foreach (var k in c.Cores)
             if (k.Flux is { } flux && k.Core.FluxLimit is { } limit && flux > limit * (1 + 1e-9))
                 Found("flux-high", k.Core.Name, k.Core.Source.NameSpan, k.Core.Name, flux, limit);
-        var network = c.Solution.Network;
+        foreach (var (t, r) in regulators)
+            if (r!.Current > r.CurrentRating!.Value * (1 + 1e-9))
+                Found("regulator-current-high", t.Name, t.NameSpan, t.Name, r.Current, r.CurrentRating.Value, DiagnosticBag.RegulatorLimitText(r));
         Excitation(c, network, c.Loads.Length > 0 && !c.Case.WithoutLoads, Found);
         if (p.NoLoad is { } noLoad && noLoad != c) Excitation(noLoad, network, false, Found);
         var carried = c.Taps.ToDictionary(t => t.Point, t => t.Current.Magnitude);
@@ -115,6 +123,7 @@ public sealed class RatingTally
                 case "flux-high": diagnostics.ReportFluxHigh(f.Span, f.Name, f.Value, f.Limit, where); break;
                 case "overexcited": diagnostics.ReportOverexcited(f.Span, f.Name, f.Value, f.Limit, f.Detail, where); break;
                 case "brush-current-high": diagnostics.ReportBrushCurrentHigh(f.Span, f.Name, f.Value, f.Limit, where); break;
+                case "regulator-current-high": diagnostics.ReportRegulatorCurrentHigh(f.Span, f.Name, f.Value, f.Limit, f.Detail, where); break;
                 case "current-density-high": diagnostics.ReportCurrentDensityHigh(f.Span, f.Name, f.Value, CurrentDensity.CopperLow, f.Limit, where); break;
                 default: diagnostics.ReportConnectionRating(f.Span, f.Name, f.Value, f.Limit, f.Detail, where); break;
             }

@@ -6,7 +6,7 @@ using WindingNotes.Text;
 
 namespace WindingNotes.Solve;
 
-public enum TapState { Stated, InBand, AtLimit, Hunting, Follows }
+public enum TapState { Stated, InBand, AtLimit, Hunting, Follows, Backwards }
 
 /// <summary>
 /// Where a tap changer stands in a case: its position, how it got there, and for a controlled one
@@ -16,6 +16,9 @@ public sealed record TapPosition(TapChangerModel Changer, int Position, TapState
 {
     public bool AtLowest => Position == Changer.Low;
 
+    /// <summary>A step-voltage regulator's range of regulation and current rating in this case; null for other tap changers.</summary>
+    public RegulatorRating? Regulation { get; init; }
+
     public bool AtHighest => Position == Changer.High;
 
     public string StateText => State switch
@@ -24,6 +27,7 @@ public sealed record TapPosition(TapChangerModel Changer, int Position, TapState
         TapState.InBand => "in band",
         TapState.AtLimit => AtHighest ? "at highest, below band" : "at lowest, above band",
         TapState.Hunting => "hunting",
+        TapState.Backwards => AtHighest ? "at highest, wired backwards" : AtLowest ? "at lowest, wired backwards" : "wired backwards",
         _ => $"follows {Changer.Follows}",
     };
 }
@@ -109,16 +113,37 @@ public sealed class TapPlan
         return model with { Windings = windingsOut, Taps = taps };
     }
 
+    /// <summary>
+    /// The last point bound and built, by its overrides (the same object) and positions: settling ends
+    /// where it last solved, so the faults at the settled positions and the document's own model at
+    /// them reuse it instead of binding and building again.
+    /// </summary>
+    private (BindOverrides Point, string Key, Model.Model Model, Network? Network)? last;
+
+    /// <summary>The model of the normal case at its settled positions, once settled.</summary>
+    public Model.Model? NominalModel { get; private set; }
+
     /// <summary>One point at fixed positions: bind, build, solve (as <see cref="Points.Solve(SyntaxTree, BindOverrides, CaseSpec, bool, CancellationToken)"/>).</summary>
     public PointResult SolveAt(BindOverrides point, int[] positions, CaseSpec spec, bool withFaults, CancellationToken cancel)
     {
-        var model = Bind(point, positions);
-        if (model.HasErrors || model.Supplies.IsEmpty) return new PointResult(null, null, [], model.Diagnostics);
-        if (point.RatedFrequency is { } rated) model = model with { RatedFrequency = rated };
-        var network = NetworkBuilder.Build(model);
+        var (model, network) = Built(point, positions);
+        if (network is null) return new PointResult(null, null, [], model.Diagnostics);
         if (network.Diagnostics.Any(d => d.IsError)) return new PointResult(null, null, [], [.. model.Diagnostics, .. network.Diagnostics]);
         var solved = Points.Solve(network, spec, withFaults, cancel);
         return solved with { Diagnostics = [.. model.Diagnostics, .. network.Diagnostics, .. solved.Diagnostics] };
+    }
+
+    /// <summary>The model (as <see cref="Bind"/>) and its network (null where the model has errors or no supply) of a point.</summary>
+    private (Model.Model Model, Network? Network) Built(BindOverrides point, int[] positions)
+    {
+        var key = Key(positions);
+        if (last is { } l && ReferenceEquals(l.Point, point) && l.Key == key) return (l.Model, l.Network);
+        var model = Bind(point, positions);
+        Network? network = null;
+        if (!model.HasErrors && !model.Supplies.IsEmpty)
+            network = NetworkBuilder.Build(point.RatedFrequency is { } rated ? model with { RatedFrequency = rated } : model);
+        last = (point, key, model, network);
+        return (model, network);
     }
 
     /// <summary>A point with its tap changers settled, the positions attached to its case.</summary>
@@ -132,6 +157,7 @@ public sealed class TapPlan
     public (BindOverrides Overrides, int[] Positions) SettleNominal(DiagnosticBag diagnostics, CancellationToken cancel)
     {
         var (p, taps, positions) = Settle(BindOverrides.None, CaseSpec.Normal, withFaults: false, cancel);
+        NominalModel = Built(BindOverrides.None, positions).Model;
         // The document's own evaluation solves this point again and reports what its solve says;
         // here only what settling found.
         diagnostics.AddRange(p.Diagnostics.Where(d => d.Code.StartsWith("tap-", StringComparison.Ordinal)));
@@ -149,6 +175,9 @@ public sealed class TapPlan
         var budget = 20 + 4 * changers.Sum(t => t.High - t.Low);
         var extra = new List<Diagnostic>();
         var states = new TapState[changers.Length];
+        // A control wired backwards: its step toward the band moved its relay away from it.
+        var backwards = new (int From, int To, double Before, double After)?[changers.Length];
+        (int Who, int From, double Relay, int Sign)? stepped = null;
         while (true)
         {
             cancel.ThrowIfCancellationRequested();
@@ -156,6 +185,9 @@ public sealed class TapPlan
             if (p.Case is not { } c || !controlled) return Finish(p, p.Case, null);
             var relays = changers.Select(t => t.Control is { } k ? Relay(k, c) : null).ToArray();
             history[Key(positions)] = relays;
+            if (stepped is { } last && backwards[last.Who] is null && relays[last.Who] is { } now
+                && (now - last.Relay) * last.Sign < -1e-9 * Math.Max(Math.Abs(now), Math.Abs(last.Relay)))
+                backwards[last.Who] = (last.From, positions[last.Who], last.Relay, now);
             var mover = -1;
             for (var i = 0; i < changers.Length && mover < 0; i++)
             {
@@ -168,6 +200,7 @@ public sealed class TapPlan
             var who = mover / 2;
             var from = positions[who];
             positions[who] += mover % 2 == 1 ? 1 : -1;
+            stepped = (who, from, relays[who]!.Value, mover % 2 == 1 ? 1 : -1);
             Follow(positions);
             if (history.TryGetValue(Key(positions), out var before) || --budget < 0)
             {
@@ -189,10 +222,19 @@ public sealed class TapPlan
                 }
                 if (relays is not null)
                     for (var i = 0; i < changers.Length; i++)
-                        if (states[i] == TapState.AtLimit && changers[i].Control is { } k && relays[i] is { } v)
+                    {
+                        if (states[i] == TapState.AtLimit && backwards[i] is { } w && changers[i].Control is { } kw)
+                        {
+                            // One diagnostic for the cause: the limit it ran to follows from the wiring.
+                            states[i] = TapState.Backwards;
+                            extra.Add(Bag(b => b.ReportTapBackwards(changers[i], w.From, w.To, w.Before, w.After, kw)));
+                        }
+                        else if (states[i] == TapState.AtLimit && changers[i].Control is { } k && relays[i] is { } v)
                             extra.Add(Bag(b => b.ReportTapLimit(changers[i], positions[i], v, k)));
+                    }
                 var taps = changers.Select((t, i) => new TapPosition(t, positions[i],
-                    t.Follows is not null ? TapState.Follows : t.Control is null ? TapState.Stated : states[i], relays?[i])).ToImmutableArray();
+                    t.Follows is not null ? TapState.Follows : t.Control is null ? TapState.Stated : states[i], relays?[i])
+                    { Regulation = p.Case is { } at ? Regulators.Rating(t, at) : null }).ToImmutableArray();
                 return (p with { Diagnostics = [.. p.Diagnostics, .. extra] }, taps, (int[])positions.Clone());
             }
         }
@@ -251,7 +293,7 @@ public static class TapStudy
             plan.Found = ImmutableDictionary<string, Quantity>.Empty.Add(wanted.Let, value);
         }
         var (overrides, positions) = plan.SettleNominal(diagnostics, cancel);
-        var settled = plan.Bind(overrides, positions) with { };
+        var settled = plan.NominalModel ?? plan.Bind(overrides, positions);
         settled = CompleteExpects(settled);
         if (settled.HasErrors) return null;
         var network = NetworkBuilder.Build(settled with { RatedFrequency = model.RatedFrequency });

@@ -76,7 +76,7 @@ public static class Grammar
     private static ClauseForm Clause(string keyword, string summary, params Part[] parts) => new(keyword, parts, Summary: summary);
 
     /// <summary>The rating warnings a file may make errors of with 'fail-on' (their wording is in Solve/Messages.cs).</summary>
-    public static readonly string[] RatingWarnings = ["loading-high", "flux-high", "overexcited", "brush-current-high", "connection-rating", "current-density-high", "hot-spot-high", "top-oil-high", "cycle-current-high", "fault-duty-high"];
+    public static readonly string[] RatingWarnings = ["loading-high", "flux-high", "overexcited", "brush-current-high", "connection-rating", "current-density-high", "hot-spot-high", "top-oil-high", "cycle-current-high", "fault-duty-high", "regulator-current-high"];
 
     /// <summary>The cautions a file may acknowledge (their wording is in Solve/Messages.cs).</summary>
     public static readonly string[] Cautions = ["caution-no-isolation", "caution-common-terminal", "caution-fuse-output", "caution-above-supply", "caution-fault-duty", "caution-hot-spot"];
