@@ -54,6 +54,9 @@ public static class Documents
     /// <summary>Forty-three units: 1,000 lines.</summary>
     public static readonly string ThousandLines = Units(43, 1000);
 
+    /// <summary><paramref name="count"/> such units and nothing else (how evaluation grows with the number of units).</summary>
+    public static string ManyUnits(int count) => Units(count, 0);
+
     /// <summary>
     /// A hundred bench units on one 2.4 kV bus, each with a centre-tapped winding: 300 sections in one
     /// part, about 600 unknowns, solved by the sparse LU.

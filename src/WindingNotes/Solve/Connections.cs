@@ -1,4 +1,6 @@
 using System.Collections.Immutable;
+using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
 using WindingNotes.Model;
 
 namespace WindingNotes.Solve;
@@ -38,6 +40,37 @@ public static class Connections
     /// it shares a terminal other than earth with the supply and is not simply across the supply.
     /// </summary>
     public static ImmutableArray<Connection> Find(Network network)
+    {
+        // What a connection is follows from the wiring alone, which a moved brush or a sweep point
+        // leaves as it was: every point of a sweep would otherwise search the windings again.
+        var nodes = ImmutableCollectionsMarshal.AsArray(network.Nodes)!;
+        if (Known.TryGetValue(nodes, out var known) && known.SameWiring(network)) return known.Connections;
+        var found = Search(network);
+        Known.AddOrUpdate(nodes, new Wiring(network, found));
+        return found;
+    }
+
+    /// <summary>The connections last found for a network's nodes, with what they were found from.</summary>
+    private static readonly ConditionalWeakTable<NetworkNode[], Wiring> Known = new();
+
+    private sealed class Wiring(Network network, ImmutableArray<Connection> connections)
+    {
+        public ImmutableArray<Connection> Connections => connections;
+
+        /// <summary>The same supplies and loads (the very records a connection holds) and sections between the same nodes.</summary>
+        public bool SameWiring(Network other)
+        {
+            if (other.Supplies != network.Supplies || other.Loads != network.Loads || other.Sections.Length != network.Sections.Length) return false;
+            for (var k = 0; k < other.Sections.Length; k++)
+            {
+                var (a, b) = (other.Sections[k], network.Sections[k]);
+                if (a.NodeA != b.NodeA || a.NodeB != b.NodeB || a.Core != b.Core) return false;
+            }
+            return true;
+        }
+    }
+
+    private static ImmutableArray<Connection> Search(Network network)
     {
         var earth = network.EarthNode;
         var sets = new DisjointSets(network.Nodes.Length);
