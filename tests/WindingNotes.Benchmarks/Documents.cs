@@ -77,6 +77,28 @@ public static class Documents
         return o.ToString();
     }
 
+    /// <summary>
+    /// The twenty sections with the heater's impedance a <c>let</c>, swept over <paramref name="points"/>
+    /// points (a load changed, no brush: each point is bound, built and solved).
+    /// </summary>
+    public static string TwentySectionsLoadSweep(int points) =>
+        TwentySections(2).Replace("load heater BR A impedance 20 ohm", "let rh = 20 ohm\nload heater BR A impedance rh")
+            .Replace("sweep BR from 1 % to 99 % points 2", $"sweep rh from 5 ohm to 50 ohm points {points}");
+
+    /// <summary>The twenty sections with eleven values given with a tolerance: a Monte Carlo of 1,000 samples.</summary>
+    public static string TwentySectionsMonteCarlo()
+    {
+        var text = TwentySections(2).Replace("sweep BR from 1 % to 99 % points 2\n", "")
+            .Replace("impedance P W 4 % xr 3", "impedance P W 4 % +- 7.5 % xr 3")
+            .Replace("load heater BR A impedance 20 ohm", "load heater BR A impedance 20 ohm +- 10 %")
+            .Replace("load lamp P9 H2 impedance 200 ohm", "load lamp P9 H2 impedance 200 ohm +- 10 %")
+            .Replace("resistance 1.2 ohm", "resistance 1.2 ohm +- 5 %")
+            .Replace("resistance 0.3 ohm", "resistance 0.3 ohm +- 5 %")
+            .Replace("480 V fault-level 10 kA", "480 V +- 5 % fault-level 10 kA +- 20 %");
+        for (var i = 1; i <= 5; i++) text = text.Replace($"tap P{i} on P at {i * 26} turns", $"tap P{i} on P at {i * 26} turns +- 1 %");
+        return text;
+    }
+
     /// <summary>Twenty sections: a primary tapped seventeen times feeding a winding with a brush, swept over <paramref name="points"/> points.</summary>
     public static string TwentySections(int points)
     {
