@@ -54,6 +54,9 @@ public static class Documents
     /// <summary>Forty-three units: 1,000 lines.</summary>
     public static readonly string ThousandLines = Units(43, 1000);
 
+    /// <summary><paramref name="count"/> such units and nothing else (how evaluation grows with the number of units).</summary>
+    public static string ManyUnits(int count) => Units(count, 0);
+
     /// <summary>
     /// A hundred bench units on one 2.4 kV bus, each with a centre-tapped winding: 300 sections in one
     /// part, about 600 unknowns, solved by the sparse LU.
@@ -72,6 +75,28 @@ public static class Documents
             o.Append($"load a{k} A{k} M{k} impedance {6 + k % 5} ohm\nload b{k} M{k} C{k} impedance {8 + k % 3} ohm\n");
         }
         return o.ToString();
+    }
+
+    /// <summary>
+    /// The twenty sections with the heater's impedance a <c>let</c>, swept over <paramref name="points"/>
+    /// points (a load changed, no brush: each point is bound, built and solved).
+    /// </summary>
+    public static string TwentySectionsLoadSweep(int points) =>
+        TwentySections(2).Replace("load heater BR A impedance 20 ohm", "let rh = 20 ohm\nload heater BR A impedance rh")
+            .Replace("sweep BR from 1 % to 99 % points 2", $"sweep rh from 5 ohm to 50 ohm points {points}");
+
+    /// <summary>The twenty sections with eleven values given with a tolerance: a Monte Carlo of 1,000 samples.</summary>
+    public static string TwentySectionsMonteCarlo()
+    {
+        var text = TwentySections(2).Replace("sweep BR from 1 % to 99 % points 2\n", "")
+            .Replace("impedance P W 4 % xr 3", "impedance P W 4 % +- 7.5 % xr 3")
+            .Replace("load heater BR A impedance 20 ohm", "load heater BR A impedance 20 ohm +- 10 %")
+            .Replace("load lamp P9 H2 impedance 200 ohm", "load lamp P9 H2 impedance 200 ohm +- 10 %")
+            .Replace("resistance 1.2 ohm", "resistance 1.2 ohm +- 5 %")
+            .Replace("resistance 0.3 ohm", "resistance 0.3 ohm +- 5 %")
+            .Replace("480 V fault-level 10 kA", "480 V +- 5 % fault-level 10 kA +- 20 %");
+        for (var i = 1; i <= 5; i++) text = text.Replace($"tap P{i} on P at {i * 26} turns", $"tap P{i} on P at {i * 26} turns +- 1 %");
+        return text;
     }
 
     /// <summary>Twenty sections: a primary tapped seventeen times feeding a winding with a brush, swept over <paramref name="points"/> points.</summary>

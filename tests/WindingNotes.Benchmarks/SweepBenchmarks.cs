@@ -18,7 +18,7 @@ namespace WindingNotes.Benchmarks;
 public class SweepBenchmarks
 {
     private const int Points = 1000;
-    private string bench = "", twenty = "";
+    private string bench = "", twenty = "", loadSweep = "", monteCarlo = "";
     private SystemMatrix matrix = null!;
     private Complex[,] dense = null!;
     private Complex[] rhs = null!;
@@ -42,6 +42,8 @@ public class SweepBenchmarks
             expect voltage BR A between 0 V and 141 V
             """;
         twenty = Documents.TwentySections(Points);
+        loadSweep = Documents.TwentySectionsLoadSweep(Points);
+        monteCarlo = Documents.TwentySectionsMonteCarlo();
         syntax = Parser.Parse(twenty);
         model = Binder.Bind(syntax);
         axes = Sweeps.Plan(model, new Text.DiagnosticBag());
@@ -75,6 +77,14 @@ public class SweepBenchmarks
         }
         return last;
     }
+
+    /// <summary>The whole pipeline, per point of a 1,000-point sweep of a let that sets a load's impedance (no brush).</summary>
+    [Benchmark(OperationsPerInvoke = Points)]
+    public Evaluation TwentySectionsLoadSweepPerPoint() => Evaluator.Evaluate(loadSweep, "load-sweep.wn");
+
+    /// <summary>The whole evaluation of the twenty sections with eleven tolerances: 1,000 Monte Carlo samples.</summary>
+    [Benchmark]
+    public Evaluation TwentySectionsMonteCarlo() => Evaluator.Evaluate(monteCarlo, "monte-carlo.wn");
 
     /// <summary>The bare dense LU factor-and-solve of the same (42-unknown) matrix.</summary>
     [Benchmark]

@@ -1,5 +1,4 @@
 using System.Collections.Immutable;
-using System.Numerics;
 using WindingNotes.Model;
 using WindingNotes.Syntax;
 using WindingNotes.Text;
@@ -42,7 +41,7 @@ internal sealed class BrushSweep(SyntaxTree syntax, Model.Model model)
     /// <summary>A network solved the general way with no message from its solves, and its factors, loaded and without loads.</summary>
     private sealed class Base(Network network, ImmutableArray<Diagnostic> diagnostics)
     {
-        private readonly Dictionary<bool, List<LowRankUpdate>?> updates = [];
+        private readonly Dictionary<bool, KeptFactors> updates = [];
 
         public Network Network => network;
 
@@ -59,32 +58,8 @@ internal sealed class BrushSweep(SyntaxTree syntax, Model.Model model)
         public Solution Solve(Network moved, CaseSpec spec, CancellationToken cancel)
         {
             cancel.ThrowIfCancellationRequested();
-            if (!updates.TryGetValue(spec.WithoutLoads, out var parts)) updates[spec.WithoutLoads] = parts = Factor(spec);
-            if (parts is not null)
-            {
-                var solved = new List<(MnaSystem, Complex[])>();
-                foreach (var part in parts)
-                {
-                    if (part.Solve(moved, Changed(part.System, moved)) is not { } x) return NetworkSolver.Solve(moved, spec, cancel);
-                    // The first system's layout and loads are the moved one's: only numbers differ.
-                    solved.Add((part.System, x));
-                }
-                return NetworkSolver.Collect(moved, spec, solved, true, []);
-            }
-            return NetworkSolver.Solve(moved, spec, cancel);
-        }
-
-        /// <summary>The factors of every part with a source, or null where one cannot be updated (Newton's loads, poor conditioning).</summary>
-        private List<LowRankUpdate>? Factor(CaseSpec spec)
-        {
-            var reference = Islands.References(network, []);
-            var parts = new List<LowRankUpdate>();
-            foreach (var group in SolveGroup.Find(network, spec).Where(g => g.Supplies.Count > 0))
-            {
-                if (LowRankUpdate.Of(MnaSystem.Assemble(network, group, reference, spec)) is not { } u) return null;
-                parts.Add(u);
-            }
-            return parts;
+            if (!updates.TryGetValue(spec.WithoutLoads, out var kept)) updates[spec.WithoutLoads] = kept = KeptFactors.Of(network, spec);
+            return kept.Solve(moved, spec, m => Changed(m, moved)) ?? NetworkSolver.Solve(moved, spec, cancel);
         }
 
         /// <summary>The unknowns whose rows and columns a move can change: the sections whose turns differ, and their cores.</summary>

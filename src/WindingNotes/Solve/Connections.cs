@@ -1,4 +1,6 @@
 using System.Collections.Immutable;
+using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
 using WindingNotes.Model;
 
 namespace WindingNotes.Solve;
@@ -38,6 +40,44 @@ public static class Connections
     /// it shares a terminal other than earth with the supply and is not simply across the supply.
     /// </summary>
     public static ImmutableArray<Connection> Find(Network network)
+    {
+        // What a connection is follows from the wiring alone, which a moved brush or a sweep point
+        // leaves as it was: every point of a sweep would otherwise search the windings again.
+        var nodes = ImmutableCollectionsMarshal.AsArray(network.Nodes)!;
+        if (Known.TryGetValue(nodes, out var known) && known.For(network) is { } same) return same;
+        var found = Search(network);
+        Known.AddOrUpdate(nodes, new Wiring(network, found));
+        return found;
+    }
+
+    /// <summary>The connections last found for a network's nodes, with what they were found from.</summary>
+    private static readonly ConditionalWeakTable<NetworkNode[], Wiring> Known = new();
+
+    private sealed class Wiring(Network network, ImmutableArray<Connection> connections)
+    {
+        /// <summary>
+        /// The connections of <paramref name="other"/> where it is wired as the network they were
+        /// found in (its sections, supplies and loads between the same nodes), with its own supplies
+        /// and loads (a load cycle scales them); else null.
+        /// </summary>
+        public ImmutableArray<Connection>? For(Network other)
+        {
+            if (other.Sections.Length != network.Sections.Length || other.Supplies.Length != network.Supplies.Length || other.Loads.Length != network.Loads.Length) return null;
+            for (var k = 0; k < other.Sections.Length; k++)
+            {
+                var (a, b) = (other.Sections[k], network.Sections[k]);
+                if (a.NodeA != b.NodeA || a.NodeB != b.NodeB || a.Core != b.Core) return null;
+            }
+            if (other.Supplies == network.Supplies && other.Loads == network.Loads) return connections;
+            for (var i = 0; i < other.Supplies.Length; i++)
+                if (other.Supplies[i].NodeP != network.Supplies[i].NodeP || other.Supplies[i].NodeQ != network.Supplies[i].NodeQ) return null;
+            for (var i = 0; i < other.Loads.Length; i++)
+                if (other.Loads[i].NodeA != network.Loads[i].NodeA || other.Loads[i].NodeB != network.Loads[i].NodeB) return null;
+            return [.. connections.Select(c => c with { Supply = other.Supplies[c.Supply.Index], Load = other.Loads[c.Load.Index] })];
+        }
+    }
+
+    private static ImmutableArray<Connection> Search(Network network)
     {
         var earth = network.EarthNode;
         var sets = new DisjointSets(network.Nodes.Length);

@@ -190,7 +190,10 @@ public static class NetworkSolver
     /// <summary>Rounding leaves values like 1e-17 where the answer is zero; they would print as noise.</summary>
     private static void Chop(params Complex[][] groups)
     {
-        var max = groups.SelectMany(g => g).Select(v => v.Magnitude).DefaultIfEmpty(0).Max();
+        var max = 0.0;
+        foreach (var values in groups)
+            foreach (var v in values)
+                if (v.Magnitude > max) max = v.Magnitude;
         var limit = 1e-12 * max;
         foreach (var values in groups)
             for (var i = 0; i < values.Length; i++)

@@ -57,13 +57,14 @@ public static class ThermalStudy
         // The network at each cycle point's load.
         var solved = new CaseResult[points.Length];
         var byLoad = new Dictionary<double, CaseResult>();
+        var scaling = new LoadScaling(network);
         for (var i = 0; i < points.Length; i++)
         {
             cancel.ThrowIfCancellationRequested();
             var value = points[i].Load.Real;
             if (!byLoad.TryGetValue(value, out var at))
             {
-                at = SolveAt(syntax, model, network, normal, cycle, points[i], out var problem, cancel);
+                at = SolveAt(syntax, model, scaling, normal, cycle, points[i], out var problem, cancel);
                 if (at is null)
                 {
                     diagnostics.ReportCyclePointUnsolved(points[i].Line, problem ?? "");
@@ -158,10 +159,11 @@ public static class ThermalStudy
         return result;
     }
 
-    private static CaseResult? SolveAt(SyntaxTree syntax, Model.Model model, Network network, CaseResult normal, LoadCycleModel cycle, CyclePointModel point, out string? problem, CancellationToken cancel)
+    private static CaseResult? SolveAt(SyntaxTree syntax, Model.Model model, LoadScaling scaling, CaseResult normal, LoadCycleModel cycle, CyclePointModel point, out string? problem, CancellationToken cancel)
     {
         problem = null;
         Network at;
+        var scaled = false;
         CaseSpec spec = CaseSpec.Normal;
         if (cycle.Let is { } let)
         {
@@ -180,17 +182,17 @@ public static class ThermalStudy
             if (k == 1) return normal;
             if (k == 0)
             {
-                at = network;
+                at = scaling.Network;
                 spec = spec.WithoutLoad();
             }
-            else at = NetworkBuilder.Build(model with { Loads = [.. model.Loads.Select(l => l with { S0 = l.S0 * k })] });
+            else (at, scaled) = (scaling.At(k), true);
         }
         if (at.Diagnostics.FirstOrDefault(d => d.IsError) is { } buildError)
         {
             problem = buildError.Message;
             return null;
         }
-        var solution = NetworkSolver.Solve(at, spec, cancel);
+        var solution = scaled ? scaling.Solve(at, cancel) : NetworkSolver.Solve(at, spec, cancel);
         if (!solution.Solved)
         {
             problem = solution.Diagnostics.FirstOrDefault(d => d.IsError)?.Message;
