@@ -126,4 +126,70 @@ internal static class ThreePhaseReport
         JsonReport.Phasor(w, "negative", s.Negative);
         w.WriteEndObject();
     }
+
+    private static string Test(SequenceTest t) =>
+        $"{(t.Kind == SequenceKind.Positive ? "positive" : "zero")} sequence, {t.Energised} energised, " +
+        (t.Shorted is { } x ? $"{x} short-circuited" : "the others open (magnetising)");
+
+    private static string Impedance(SequenceTest t) =>
+        Numbers.Format(t.Impedance.Magnitude, "ohm") + (t.Impedance.Real > 0 ? $", X/R {Numbers.Fixed(t.Impedance.Imaginary / t.Impedance.Real)}" : "")
+        + (t.PerUnit is { } pu ? $", {TextReport.Percent(pu)} at {Numbers.Format(t.BaseVoltage!.Value, "V")}" : "");
+
+    private static string Base(UnitSequenceImpedances u) =>
+        u.Tests.FirstOrDefault()?.BasePower is { } s ? $" (percent on {Numbers.Format(s, "VA")})" : "";
+
+    /// <summary>The sequence impedances of each three-phase unit, from its test connections.</summary>
+    public static void SequenceText(StringBuilder o, IReadOnlyList<UnitSequenceImpedances> units)
+    {
+        if (units.Count == 0) return;
+        o.Append("\nSequence impedances (each unit alone, ohms per phase at the energised line terminals)\n");
+        foreach (var u in units)
+        {
+            o.Append("  ").Append(u.Core).Append(Base(u)).Append('\n');
+            foreach (var t in u.Tests) o.Append("    ").Append(Test(t)).Append(": ").Append(Impedance(t)).Append('\n');
+        }
+    }
+
+    public static void SequenceMarkdown(StringBuilder o, IReadOnlyList<UnitSequenceImpedances> units)
+    {
+        if (units.Count == 0) return;
+        o.Append("\n### Sequence impedances\n\nEach unit alone; ohms per phase at the energised line terminals, percent on the unit's rated power at their rated line-to-line voltage.\n\n");
+        MarkdownReport.Table(o, 4, ["unit", "sequence", "energised", "short-circuited", "Z", "X/R", "Z %"], units.SelectMany(u => u.Tests.Select(t => new[]
+        {
+            MarkdownReport.Code(u.Core), t.Kind == SequenceKind.Positive ? "positive" : "zero", MarkdownReport.Code(t.Energised),
+            t.Shorted is { } x ? MarkdownReport.Code(x) : "none (magnetising)",
+            Numbers.Format(t.Impedance.Magnitude, "ohm"),
+            t.Impedance.Real > 0 ? Numbers.Fixed(t.Impedance.Imaginary / t.Impedance.Real) : "",
+            t.PerUnit is { } pu ? TextReport.Percent(pu) : "",
+        })));
+    }
+
+    public static void SequenceJson(Utf8JsonWriter w, IReadOnlyList<UnitSequenceImpedances> units)
+    {
+        if (units.Count == 0) return;
+        w.WriteStartObject("sequenceImpedances");
+        foreach (var u in units)
+        {
+            w.WriteStartArray(u.Core);
+            foreach (var t in u.Tests)
+            {
+                w.WriteStartObject();
+                w.WriteString("sequence", t.Kind == SequenceKind.Positive ? "positive" : "zero");
+                w.WriteString("energised", t.Energised);
+                if (t.Shorted is { } x) w.WriteString("shortCircuited", x);
+                JsonReport.Number(w, "r", t.Impedance.Real);
+                JsonReport.Number(w, "x", t.Impedance.Imaginary);
+                JsonReport.Number(w, "z", t.Impedance.Magnitude);
+                if (t.PerUnit is { } pu)
+                {
+                    JsonReport.Number(w, "perUnit", pu);
+                    JsonReport.Number(w, "baseVoltage", t.BaseVoltage!.Value);
+                    JsonReport.Number(w, "basePower", t.BasePower!.Value);
+                }
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
+        }
+        w.WriteEndObject();
+    }
 }
