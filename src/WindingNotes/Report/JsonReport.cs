@@ -33,6 +33,7 @@ public static class JsonReport
             w.WriteEndArray();
             ThermalReport.Json(w, evaluation.Thermal);
             ThreePhaseReport.SequenceJson(w, evaluation.SequenceImpedances);
+            ThreePhaseReport.ParallelJson(w, evaluation.Parallel);
             if (evaluation.Checks.Any(c => !c.Evaluated))
             {
                 w.WriteStartArray("notEvaluated");

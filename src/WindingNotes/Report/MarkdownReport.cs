@@ -39,6 +39,7 @@ public static class MarkdownReport
         WriteSweep(o, [.. evaluation.Cases.Where(c => c.Case.IsSweepPoint)]);
         ThermalReport.Markdown(o, evaluation.Thermal);
         ThreePhaseReport.SequenceMarkdown(o, evaluation.SequenceImpedances);
+        ThreePhaseReport.ParallelMarkdown(o, evaluation.Parallel);
         o.Append("\n> ").Append(Cautions.Judgement).Append('\n');
         return o.ToString();
     }

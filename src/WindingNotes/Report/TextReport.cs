@@ -34,6 +34,7 @@ public static class TextReport
         SweepTables.Write(o, [.. evaluation.Cases.Where(c => c.Case.IsSweepPoint)]);
         ThermalReport.Text(o, evaluation.Thermal);
         ThreePhaseReport.SequenceText(o, evaluation.SequenceImpedances);
+        ThreePhaseReport.ParallelText(o, evaluation.Parallel);
         WriteChecks(o, evaluation);
         o.Append("\nCautions\n");
         foreach (var d in evaluation.Diagnostics.Where(d => d.Code.StartsWith("caution")))

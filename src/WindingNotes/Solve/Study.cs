@@ -16,6 +16,9 @@ public sealed record StudyResult(ImmutableArray<CaseResult> Cases, ImmutableArra
 
     /// <summary>The sequence impedances of each three-phase unit, from its test connections solved on the unit alone.</summary>
     public ImmutableArray<UnitSequenceImpedances> SequenceImpedances { get; init; } = [];
+
+    /// <summary>Paralleled three-phase units: the current circulating with every load removed, and each one's share of the load.</summary>
+    public ImmutableArray<ParallelGroup> Parallel { get; init; } = [];
 }
 
 /// <summary>
@@ -111,7 +114,7 @@ public static class Study
         run.ReportNew();
         if (stopped)
             diagnostics.ReportTimeLimit(model.Sweeps.FirstOrDefault()?.Line ?? model.Tolerances.FirstOrDefault()?.Span ?? default, budget.Limit, run.Done, run.Total);
-        return new StudyResult(all, checkResults) { Thermal = thermal, SequenceImpedances = sequence };
+        return new StudyResult(all, checkResults) { Thermal = thermal, SequenceImpedances = sequence, Parallel = ParallelUnits.Find(network, normal, nominal.NoLoad) };
 
         // The bands of the normal case and of each fault over the tolerance samples.
         (ImmutableArray<Band> Normal, ImmutableArray<ImmutableArray<Band>> Faults) SampleNominal()

@@ -114,3 +114,28 @@ public class SequenceImpedanceTests
         Assert.Contains("zero-sequence LV is 5.750 %", e.Single("expect-failed").Message);
     }
 }
+
+public class UnbalanceSequenceTests
+{
+    private static string Service(string sequence, string loadLines) => $"""
+        frequency 60 Hz
+        three-phase-supply service H1 H2 H3 480 V sequence {sequence} fault-level 10 kA xr 4
+        three-phase-load motors H1 H2 H3 delta power 60 kW pf 0.85
+        load welder {loadLines} impedance 4 ohm
+
+        """;
+
+    [Fact]
+    public void The_unbalance_factor_is_taken_in_the_sequence_the_supply_runs_in()
+    {
+        // R35 (IEC 61000-2-12 / IEC 61000-4-30 definition): VUF = |V2|/|V1| with V1 the sequence that
+        // runs. An acb source with the welder across lines 1 and 3 is the mirror of an abc source with
+        // it across lines 1 and 2 (b and c swapped): the same factor, where the abc frame's |V2|/|V1|
+        // would read its inverse.
+        var abc = Wn.Solved(Service("abc", "H1 H2")).Normal!.ThreePhase.SetOf("service")!;
+        var acb = Wn.Solved(Service("acb", "H1 H3")).Normal!.ThreePhase.SetOf("service")!;
+        Assert.True(abc.Unbalance > 0.001);
+        Assert.Equal(abc.Unbalance!.Value, acb.Unbalance!.Value, 12);
+        Assert.Equal(1 / acb.VoltageSequence.Unbalance!.Value, acb.Unbalance!.Value, 9);
+    }
+}
