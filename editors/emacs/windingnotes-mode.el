@@ -46,7 +46,8 @@ A bare program name is looked up on `exec-path' and then in
     "sets" "positions" "on-load" "off-circuit" "reversing" "follows" "regulate" "target"
     "bandwidth" "pt-ratio" "compensation" "line-current" "ct" "position" "clear-of-limits"
     "equals" "currents" "voltage-tolerance" "duration" "initial-temperature" "earth-impedance"
-    "nominal" "fault-current" "peak-current" "thermal-current" "earth-fault-factor" "in")
+    "nominal" "fault-current" "peak-current" "thermal-current" "earth-fault-factor" "in"
+    "positive-sequence")
   "Words that start a clause or join its parts.")
 
 (defconst windingnotes-option-keywords

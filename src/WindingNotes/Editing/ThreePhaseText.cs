@@ -16,7 +16,7 @@ internal static class ThreePhaseText
         if (normal.ThreePhase.GroupOf(name) is { } group) return group.Symbol ?? "no clock number";
         if (normal.ThreePhase.SetOf(name) is not { } set) return null;
         var text = string.Join(", ", set.LineToLine.Select((v, k) => $"{Pairs[k]} {Numbers.Format(v.Magnitude, "V")}"));
-        return set.VoltageSequence.Unbalance is { } u ? $"{text}; unbalance {TextReport.Percent(u)}" : text;
+        return set.Unbalance is { } u ? $"{text}; unbalance {TextReport.Percent(u)}" : text;
     }
 
     /// <summary>Hover lines: the set's line-to-line voltages, line currents, totals and sequence components, or the vector group.</summary>
@@ -34,7 +34,7 @@ internal static class ThreePhaseText
         yield return "three phases: " + TextReport.Powers(set.Power);
         var v = set.VoltageSequence;
         yield return $"voltage sequence: zero {TextReport.Phasor(v.Zero, "V")}, positive {TextReport.Phasor(v.Positive, "V")}, negative {TextReport.Phasor(v.Negative, "V")}";
-        if (v.Unbalance is { } u) yield return $"voltage unbalance |V2|/|V1| {TextReport.Percent(u)} (IEC 61000-2-12)";
+        if (set.Unbalance is { } u) yield return $"voltage unbalance {(set.Acb ? "|V1|/|V2| (acb sequence)" : "|V2|/|V1|")} {TextReport.Percent(u)} (IEC 61000-2-12)";
         var i = set.CurrentSequence;
         yield return $"current sequence: zero {TextReport.Phasor(i.Zero, "A")}, positive {TextReport.Phasor(i.Positive, "A")}, negative {TextReport.Phasor(i.Negative, "A")}";
     }

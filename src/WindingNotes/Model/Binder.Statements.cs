@@ -488,6 +488,11 @@ internal sealed partial class BindRun
             BindThermalExpect(s, measureClause, conditionClause);
             return;
         }
+        if (measureClause.Keyword!.Text is "positive-sequence" or "zero-sequence")
+        {
+            BindSequenceExpect(s, measureClause, conditionClause);
+            return;
+        }
         if (measureClause.Keyword!.Text == "vector-group" || conditionClause.Keyword!.Text == "is")
         {
             BindVectorGroupExpect(s, measureClause, conditionClause);

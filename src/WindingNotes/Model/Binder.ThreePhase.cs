@@ -384,4 +384,84 @@ internal sealed partial class BindRun
             Symbol = symbol.Text,
         });
     }
+
+    /// <summary>
+    /// 'expect positive-sequence HV LV …' and 'expect zero-sequence HV [LV] …': two (or for the
+    /// zero-sequence magnetising impedance one) three-phase windings of one unit, bounds in ohm or
+    /// as a percentage on the unit's rating, the unit the first bound is written in deciding.
+    /// </summary>
+    private void BindSequenceExpect(StatementSyntax s, ClauseSyntax measure, ClauseSyntax condition)
+    {
+        var windings = new List<ThreePhaseWindingModel>();
+        foreach (var name in measure.Names)
+        {
+            if (Resolve(name, "a winding", SymbolKind.Winding) is not { } symbol) return;
+            if (!threePhaseWindings.TryGetValue(symbol.Name, out var w))
+            {
+                if (!declaredThreePhase.Contains(symbol.Name)) diagnostics.ReportSequenceWinding(name.Name, "is not a three-phase winding: sequence impedances belong to a winding declared with 'wye', 'delta', 'zigzag', 'series' or 'ends' on a three-phase core");
+                return;
+            }
+            if (windings.Count == 1 && (w.Core != windings[0].Core || w.Name == windings[0].Name))
+            {
+                diagnostics.ReportSequenceWinding(name.Name, w.Name == windings[0].Name ? "is the winding energised: name another winding of the unit to short-circuit" : $"is on '{w.Core}', not on '{windings[0].Core}': a test is made on one unit");
+                return;
+            }
+            windings.Add(w);
+        }
+        if (windings.Count == 0) return;
+        if (condition.Keyword!.Text is "is" or "clear-of-limits")
+        {
+            diagnostics.ReportOutOfBounds(condition.Span, $"a check on {measure.Keyword!.Text}", "'below', 'above', 'between' or 'near'");
+            return;
+        }
+        var first = Value(condition.Value(0), "a bound on the impedance");
+        if (first is null) return;
+        var ohms = first.Value.Dimension.Fits(Dimension.Impedance) && !first.Value.IsBare;
+        var (dimension, unit) = ohms ? (Dimension.Impedance, "ohm") : (Dimension.None, "%");
+        var what = $"a bound on {measure.Keyword!.Text}";
+        double? Bound(int k) => Real(condition.Value(k), dimension, what, ratio: !ohms);
+        double low = double.NegativeInfinity, high = double.PositiveInfinity, target = double.NaN;
+        switch (condition.Keyword!.Text)
+        {
+            case "between":
+                if (Bound(0) is not { } lo || Bound(1) is not { } hi) return;
+                (low, high) = (Math.Min(lo, hi), Math.Max(lo, hi));
+                break;
+            case "below":
+                if (Bound(0) is not { } below) return;
+                high = below;
+                break;
+            case "above":
+                if (Bound(0) is not { } above) return;
+                low = above;
+                break;
+            default:
+                if (Bound(0) is not { } near) return;
+                var withinSyntax = condition.Value(1);
+                if (Value(withinSyntax, "the tolerance of the check") is not { } within) return;
+                if (within.IsBare)
+                {
+                    MissingUnit(withinSyntax!, "the tolerance", ohms ? ["%", "ohm"] : ["%"]);
+                    return;
+                }
+                double band;
+                if (within.IsPercent && ohms) band = Math.Abs(near) * within.Real;
+                else if (within.Dimension.Fits(dimension) && within.IsReal) band = Math.Abs(within.Real);
+                else
+                {
+                    diagnostics.ReportToleranceDimension(withinSyntax!.Span, dimension, within.Dimension);
+                    return;
+                }
+                (low, high, target) = (near - band, near + band, near);
+                break;
+        }
+        var kind = measure.Keyword!.Text == "positive-sequence" ? MeasureKind.PositiveSequence : MeasureKind.ZeroSequence;
+        expects.Add(new ExpectModel(s.Span, tree.Text[s.Span], kind, [.. measure.Names.Select(n => new NodeRef(n.Text, n.Name.Span))],
+            Enum.Parse<ConditionKind>(condition.Keyword.Text, true), low, high, unit)
+        {
+            Target = target,
+            MeasureText = tree.Text[measure.Span],
+            ConditionText = tree.Text[condition.Span],
+        });
+    }
 }

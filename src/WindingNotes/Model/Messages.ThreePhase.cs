@@ -34,4 +34,7 @@ public sealed partial class DiagnosticBag
         Warning("zero-sequence-unknown", span, $"three-limb core '{core}' has no 'zero-sequence' magnetising impedance: its limbs are taken as uncoupled, as in a bank, which overstates the zero-sequence magnetising impedance");
 
     public Diagnostic ReportNoClockNumber(TextSpan span, string problem) => Warning("no-clock-number", span, problem);
+
+    public Diagnostic ReportSequenceWinding(Token name, string problem) =>
+        Error("wrong-kind", name.Span, $"'{name.Text}' {problem}");
 }

@@ -32,6 +32,8 @@ public static class JsonReport
             foreach (var c in evaluation.Cases) WriteCase(w, evaluation, c);
             w.WriteEndArray();
             ThermalReport.Json(w, evaluation.Thermal);
+            ThreePhaseReport.SequenceJson(w, evaluation.SequenceImpedances);
+            ThreePhaseReport.ParallelJson(w, evaluation.Parallel);
             if (evaluation.Checks.Any(c => !c.Evaluated))
             {
                 w.WriteStartArray("notEvaluated");

@@ -38,6 +38,8 @@ public static class MarkdownReport
         foreach (var c in evaluation.Cases.Where(c => !c.Case.IsSweepPoint)) WriteCase(o, c);
         WriteSweep(o, [.. evaluation.Cases.Where(c => c.Case.IsSweepPoint)]);
         ThermalReport.Markdown(o, evaluation.Thermal);
+        ThreePhaseReport.SequenceMarkdown(o, evaluation.SequenceImpedances);
+        ThreePhaseReport.ParallelMarkdown(o, evaluation.Parallel);
         o.Append("\n> ").Append(Cautions.Judgement).Append('\n');
         return o.ToString();
     }

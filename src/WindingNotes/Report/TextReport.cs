@@ -33,6 +33,8 @@ public static class TextReport
         foreach (var c in evaluation.Cases.Where(c => !c.Case.IsSweepPoint)) WriteCase(o, c);
         SweepTables.Write(o, [.. evaluation.Cases.Where(c => c.Case.IsSweepPoint)]);
         ThermalReport.Text(o, evaluation.Thermal);
+        ThreePhaseReport.SequenceText(o, evaluation.SequenceImpedances);
+        ThreePhaseReport.ParallelText(o, evaluation.Parallel);
         WriteChecks(o, evaluation);
         o.Append("\nCautions\n");
         foreach (var d in evaluation.Diagnostics.Where(d => d.Code.StartsWith("caution")))

@@ -34,7 +34,7 @@ internal static class ThreePhaseReport
             var v = s.VoltageSequence;
             o.Append("      sequence V0 ").Append(Numbers.Format(v.Zero.Magnitude, "V")).Append(", V1 ").Append(Numbers.Format(v.Positive.Magnitude, "V"))
                 .Append(", V2 ").Append(Numbers.Format(v.Negative.Magnitude, "V"));
-            if (v.Unbalance is { } vuf) o.Append(", unbalance ").Append(TextReport.Percent(vuf));
+            if (s.Unbalance is { } vuf) o.Append(", unbalance ").Append(TextReport.Percent(vuf));
             var i = s.CurrentSequence;
             o.Append("; I0 ").Append(Numbers.Format(i.Zero.Magnitude, "A")).Append(", I1 ").Append(Numbers.Format(i.Positive.Magnitude, "A"))
                 .Append(", I2 ").Append(Numbers.Format(i.Negative.Magnitude, "A")).Append('\n');
@@ -61,7 +61,7 @@ internal static class ThreePhaseReport
                 Numbers.Format(s.Power.Real, "W"), Numbers.Format(s.Power.Imaginary, "var"),
                 Numbers.Format(s.VoltageSequence.Positive.Magnitude, "V"), Numbers.Format(s.VoltageSequence.Negative.Magnitude, "V"),
                 Numbers.Format(s.VoltageSequence.Zero.Magnitude, "V"),
-                s.VoltageSequence.Unbalance is { } u ? TextReport.Percent(u) : "",
+                s.Unbalance is { } u ? TextReport.Percent(u) : "",
             ]));
     }
 
@@ -104,7 +104,7 @@ internal static class ThreePhaseReport
             JsonReport.Number(w, "pf", s.PowerFactor);
             Sequence(w, "vSequence", s.VoltageSequence);
             Sequence(w, "iSequence", s.CurrentSequence);
-            if (s.VoltageSequence.Unbalance is { } vuf) JsonReport.Number(w, "unbalance", vuf);
+            if (s.Unbalance is { } vuf) JsonReport.Number(w, "unbalance", vuf);
             w.WriteEndObject();
         }
         w.WriteEndObject();
@@ -125,5 +125,128 @@ internal static class ThreePhaseReport
         JsonReport.Phasor(w, "positive", s.Positive);
         JsonReport.Phasor(w, "negative", s.Negative);
         w.WriteEndObject();
+    }
+
+    private static string Test(SequenceTest t) =>
+        $"{(t.Kind == SequenceKind.Positive ? "positive" : "zero")} sequence, {t.Energised} energised, " +
+        (t.Shorted is { } x ? $"{x} short-circuited" : "the others open (magnetising)");
+
+    private static string Impedance(SequenceTest t) =>
+        Numbers.Format(t.Impedance.Magnitude, "ohm") + (t.Impedance.Real > 0 ? $", X/R {Numbers.Fixed(t.Impedance.Imaginary / t.Impedance.Real)}" : "")
+        + (t.PerUnit is { } pu ? $", {TextReport.Percent(pu)} at {Numbers.Format(t.BaseVoltage!.Value, "V")}" : "");
+
+    private static string Base(UnitSequenceImpedances u) =>
+        u.Tests.FirstOrDefault()?.BasePower is { } s ? $" (percent on {Numbers.Format(s, "VA")})" : "";
+
+    /// <summary>The sequence impedances of each three-phase unit, from its test connections.</summary>
+    public static void SequenceText(StringBuilder o, IReadOnlyList<UnitSequenceImpedances> units)
+    {
+        if (units.Count == 0) return;
+        o.Append("\nSequence impedances (each unit alone, ohms per phase at the energised line terminals)\n");
+        foreach (var u in units)
+        {
+            o.Append("  ").Append(u.Core).Append(Base(u)).Append('\n');
+            foreach (var t in u.Tests) o.Append("    ").Append(Test(t)).Append(": ").Append(Impedance(t)).Append('\n');
+        }
+    }
+
+    public static void SequenceMarkdown(StringBuilder o, IReadOnlyList<UnitSequenceImpedances> units)
+    {
+        if (units.Count == 0) return;
+        o.Append("\n### Sequence impedances\n\nEach unit alone; ohms per phase at the energised line terminals, percent on the unit's rated power at their rated line-to-line voltage.\n\n");
+        MarkdownReport.Table(o, 4, ["unit", "sequence", "energised", "short-circuited", "Z", "X/R", "Z %"], units.SelectMany(u => u.Tests.Select(t => new[]
+        {
+            MarkdownReport.Code(u.Core), t.Kind == SequenceKind.Positive ? "positive" : "zero", MarkdownReport.Code(t.Energised),
+            t.Shorted is { } x ? MarkdownReport.Code(x) : "none (magnetising)",
+            Numbers.Format(t.Impedance.Magnitude, "ohm"),
+            t.Impedance.Real > 0 ? Numbers.Fixed(t.Impedance.Imaginary / t.Impedance.Real) : "",
+            t.PerUnit is { } pu ? TextReport.Percent(pu) : "",
+        })));
+    }
+
+    public static void SequenceJson(Utf8JsonWriter w, IReadOnlyList<UnitSequenceImpedances> units)
+    {
+        if (units.Count == 0) return;
+        w.WriteStartObject("sequenceImpedances");
+        foreach (var u in units)
+        {
+            w.WriteStartArray(u.Core);
+            foreach (var t in u.Tests)
+            {
+                w.WriteStartObject();
+                w.WriteString("sequence", t.Kind == SequenceKind.Positive ? "positive" : "zero");
+                w.WriteString("energised", t.Energised);
+                if (t.Shorted is { } x) w.WriteString("shortCircuited", x);
+                JsonReport.Number(w, "r", t.Impedance.Real);
+                JsonReport.Number(w, "x", t.Impedance.Imaginary);
+                JsonReport.Number(w, "z", t.Impedance.Magnitude);
+                if (t.PerUnit is { } pu)
+                {
+                    JsonReport.Number(w, "perUnit", pu);
+                    JsonReport.Number(w, "baseVoltage", t.BaseVoltage!.Value);
+                    JsonReport.Number(w, "basePower", t.BasePower!.Value);
+                }
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
+        }
+        w.WriteEndObject();
+    }
+
+    private static string Circulating(CirculatingCurrent c) =>
+        $"{c.Winding} {Numbers.Format(c.Current, "A")}" + (c.OfRated is { } r ? $" ({TextReport.Percent(r)} of rated)" : "");
+
+    /// <summary>Paralleled units: each one's share of the load in the normal case and the current circulating with every load removed.</summary>
+    public static void ParallelText(StringBuilder o, IReadOnlyList<ParallelGroup> groups)
+    {
+        foreach (var g in groups)
+        {
+            o.Append("\nParalleled units ").Append(string.Join(", ", g.Units.Select(u => u.Core)))
+                .Append(" (load shares in the normal case; currents circulating with every load removed)\n");
+            foreach (var u in g.Units)
+                o.Append("  ").Append(u.Core).Append(" carries ").Append(Numbers.Format(u.Apparent, "VA")).Append(", ").Append(TextReport.Percent(u.Share)).Append(" of the group's")
+                    .Append(u.Loading is { } l ? $", loading {TextReport.Percent(l)}" : "")
+                    .Append("; circulating ").Append(string.Join(", ", u.Circulating.Select(Circulating))).Append('\n');
+        }
+    }
+
+    public static void ParallelMarkdown(StringBuilder o, IReadOnlyList<ParallelGroup> groups)
+    {
+        if (groups.Count == 0) return;
+        o.Append("\n### Paralleled units\n\nLoad shares in the normal case; currents circulating with every load removed.\n\n");
+        MarkdownReport.Table(o, 2, ["unit", "circulating", "carries", "share", "loading"], groups.SelectMany(g => g.Units.Select(u => new[]
+        {
+            MarkdownReport.Code(u.Core), string.Join(", ", u.Circulating.Select(Circulating)),
+            Numbers.Format(u.Apparent, "VA"), TextReport.Percent(u.Share), u.Loading is { } l ? TextReport.Percent(l) : "",
+        })));
+    }
+
+    public static void ParallelJson(Utf8JsonWriter w, IReadOnlyList<ParallelGroup> groups)
+    {
+        if (groups.Count == 0) return;
+        w.WriteStartArray("parallel");
+        foreach (var g in groups)
+        {
+            w.WriteStartObject();
+            foreach (var u in g.Units)
+            {
+                w.WriteStartObject(u.Core);
+                JsonReport.Number(w, "s", u.Apparent);
+                JsonReport.Number(w, "share", u.Share);
+                if (u.Loading is { } l) JsonReport.Number(w, "loading", l);
+                w.WriteStartObject("circulating");
+                foreach (var c in u.Circulating)
+                {
+                    w.WriteStartObject(c.Winding);
+                    JsonReport.Number(w, "i", c.Current);
+                    if (c.OfRated is { } r) JsonReport.Number(w, "ofRated", r);
+                    w.WriteEndObject();
+                }
+                w.WriteEndObject();
+                w.WriteEndObject();
+            }
+            w.WriteEndObject();
+        }
+        w.WriteEndArray();
     }
 }

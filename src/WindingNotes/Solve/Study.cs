@@ -13,6 +13,12 @@ public sealed record StudyResult(ImmutableArray<CaseResult> Cases, ImmutableArra
 {
     /// <summary>The load cycle through the units' thermal data, where the file gives both.</summary>
     public ThermalResult? Thermal { get; init; }
+
+    /// <summary>The sequence impedances of each three-phase unit, from its test connections solved on the unit alone.</summary>
+    public ImmutableArray<UnitSequenceImpedances> SequenceImpedances { get; init; } = [];
+
+    /// <summary>Paralleled three-phase units: the current circulating with every load removed, and each one's share of the load.</summary>
+    public ImmutableArray<ParallelGroup> Parallel { get; init; } = [];
 }
 
 /// <summary>
@@ -45,7 +51,7 @@ public static class Study
             diagnostics.ReportBandsNotSwept(model.Sweeps[0].Line, points, samples.Length, Sweeps.Budget);
 
         var run = new PointRun(syntax, model.Frequency, new BrushSweep(syntax, model), taps, diagnostics, cancel, progress, samples.Length + points * (1 + (bandsAtPoints ? samples.Length : 0)));
-        var studied = model.Expects.Where(e => !ThermalStudy.IsThermal(e)).ToImmutableArray();
+        var studied = model.Expects.Where(e => !ThermalStudy.IsThermal(e) && !SequenceImpedances.IsSequence(e)).ToImmutableArray();
         var checks = new CheckTally([.. studied.Where(e => !FaultChecks.InFault(e))]);
         var shortCircuits = FaultStudy.Run(network, normal.Solution, diagnostics, cancel);
         var ratings = new RatingTally();
@@ -92,12 +98,23 @@ public static class Study
             {
                 stopped = true;
             }
+        var sequence = ImmutableArray<UnitSequenceImpedances>.Empty;
+        if (!stopped && !model.ThreePhase.Cores.IsEmpty)
+            try
+            {
+                sequence = SequenceImpedances.Run(model, cancel);
+                checkResults = [.. checkResults.Concat(SequenceImpedances.Check(model, sequence, diagnostics)).OrderBy(c => c.Expect.Line.Start)];
+            }
+            catch (OperationCanceledException) when (budget.Exceeded)
+            {
+                stopped = true;
+            }
         ratings.Report(diagnostics);
         SafetyCautions.Report(network, all, outputs, diagnostics);
         run.ReportNew();
         if (stopped)
             diagnostics.ReportTimeLimit(model.Sweeps.FirstOrDefault()?.Line ?? model.Tolerances.FirstOrDefault()?.Span ?? default, budget.Limit, run.Done, run.Total);
-        return new StudyResult(all, checkResults) { Thermal = thermal };
+        return new StudyResult(all, checkResults) { Thermal = thermal, SequenceImpedances = sequence, Parallel = ParallelUnits.Find(network, normal, nominal.NoLoad) };
 
         // The bands of the normal case and of each fault over the tolerance samples.
         (ImmutableArray<Band> Normal, ImmutableArray<ImmutableArray<Band>> Faults) SampleNominal()

@@ -20,6 +20,12 @@ public sealed record Sequence(Complex Zero, Complex Positive, Complex Negative)
 
     /// <summary>|X2|/|X1|: for voltages the voltage unbalance factor as IEC 61000-2-12 and IEC 61000-4-30 define it (R35); null without a positive sequence.</summary>
     public double? Unbalance => Positive.Magnitude > 0 ? Negative.Magnitude / Positive.Magnitude : null;
+
+    /// <summary>
+    /// The unbalance factor in the sequence the supplies run in: a source written 'sequence acb'
+    /// runs in what the abc frame calls the negative sequence, so there the factor is |X1|/|X2|.
+    /// </summary>
+    public double? UnbalanceIn(bool acb) => !acb ? Unbalance : Negative.Magnitude > 0 ? Positive.Magnitude / Negative.Magnitude : null;
 }
 
 /// <summary>
@@ -32,6 +38,12 @@ public sealed record PhaseSetResult(string Name, string Kind, ImmutableArray<Com
     ImmutableArray<Complex> PhaseCurrents, ImmutableArray<Complex> LineCurrents, Complex? NeutralCurrent, Complex Power, Sequence VoltageSequence, Sequence CurrentSequence)
 {
     public double PowerFactor => Power.Magnitude == 0 ? 1 : Math.Abs(Power.Real) / Power.Magnitude;
+
+    /// <summary>Whether the file's three-phase supplies all run in the acb sequence.</summary>
+    public bool Acb { get; init; }
+
+    /// <summary>The voltage unbalance factor, negative over positive sequence, in the sequence the supplies run in.</summary>
+    public double? Unbalance => VoltageSequence.UnbalanceIn(Acb);
 }
 
 public sealed record ThreePhaseResult(ImmutableArray<PhaseSetResult> Sets, ImmutableArray<VectorGroup> VectorGroups)
@@ -94,7 +106,8 @@ public static class ThreePhaseResults
             var star = l.StarPoint is { } point ? network.Node(point) : -1;
             sets.Add(Set(network, result, l.Name, "load", l.LineTerminals.Select(t => t.Name), [.. phases.Select(p => p!.Current)], branches, star, power));
         }
-        return new ThreePhaseResult(sets.ToImmutable(), network.VectorGroups);
+        var acb = !three.Supplies.IsEmpty && three.Supplies.All(s => s.Acb);
+        return new ThreePhaseResult([.. sets.Select(s => s with { Acb = acb })], network.VectorGroups);
     }
 
     /// <summary>

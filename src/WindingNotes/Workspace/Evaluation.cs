@@ -39,6 +39,12 @@ public sealed record Evaluation(
 
     /// <summary>The load cycle through the units' thermal data, where the file gives both and it was solved.</summary>
     public ThermalResult? Thermal { get; init; }
+
+    /// <summary>The sequence impedances of each three-phase unit, where the file was solved.</summary>
+    public ImmutableArray<UnitSequenceImpedances> SequenceImpedances { get; init; } = [];
+
+    /// <summary>Paralleled three-phase units: circulating currents and load shares.</summary>
+    public ImmutableArray<ParallelGroup> Parallel { get; init; } = [];
 }
 
 /// <summary>An earlier version of a document that was solved, and its evaluation.</summary>
@@ -153,7 +159,7 @@ public static class Evaluator
     {
         var ordered = stages.Diagnostics.Select(d => AsTheFileSays(d, stages.Model)).OrderBy(d => d.Span.Start).ThenBy(d => d.Severity).ToImmutableArray();
         var checks = stages.Study.Cases.IsEmpty ? NotEvaluated(stages.Syntax, stages.Model) : stages.Study.Checks;
-        return new Evaluation(path, stages.Syntax, stages.Model, stages.Network, stages.Study.Cases, checks, ordered) { Thermal = stages.Study.Thermal };
+        return new Evaluation(path, stages.Syntax, stages.Model, stages.Network, stages.Study.Cases, checks, ordered) { Thermal = stages.Study.Thermal, SequenceImpedances = stages.Study.SequenceImpedances, Parallel = stages.Study.Parallel };
     }
 
     /// <summary>A rating warning the file fails on becomes an error; a caution it acknowledges is marked so.</summary>
