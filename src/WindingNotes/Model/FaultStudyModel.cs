@@ -44,5 +44,8 @@ public sealed record FaultStudyModel(FaultMethod Method, bool Maximum, bool Mini
     /// standard's starting temperature for oil-immersed windings (40 °C ambient plus a 65 K average
     /// winding rise; from memory).
     /// </summary>
+    /// <summary>Whether the file has a 'fault-study' line (two-node faults then follow its method).</summary>
+    public bool Stated => Line != default;
+
     public static readonly FaultStudyModel Default = new(FaultMethod.EquivalentSource, true, false, 0.10, 2, 378.15, default);
 }

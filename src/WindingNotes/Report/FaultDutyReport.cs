@@ -18,6 +18,15 @@ public static class FaultDutyReport
         ? "network as loaded: supplies as written, constant-power and constant-current loads as their pre-fault impedance"
         : $"equivalent voltage source at the fault (IEC 60909-0), c = {Numbers.Fixed(sc.VoltageFactor, 3)} ({(sc.Minimum ? "cmin" : "cmax")}) on Un = {Numbers.Format(sc.Nominal, "V")} from {sc.NominalFrom}, loads left out";
 
+    /// <summary>How a two-node fault was solved, and which loads were taken as their pre-fault impedance.</summary>
+    public static string Method(FaultResult f)
+    {
+        if (f.Method == FaultMethod.EquivalentSource)
+            return $"equivalent voltage source at the fault (IEC 60909-0), c = {Numbers.Fixed(f.VoltageFactor ?? 1, 3)} on {Numbers.Format(f.Nominal ?? 0, "V")} across the fault at no load, loads left out";
+        var loads = f.LoadsAsImpedance.Select(l => $"{(l.Behaviour == LoadBehaviour.ConstantPower ? "constant-power" : "constant-current")} load '{l.Name}'").ToList();
+        return "network as loaded: supplies as written" + (loads.Count == 0 ? "" : $", {string.Join(", ", loads)} as {(loads.Count == 1 ? "its" : "their")} pre-fault impedance");
+    }
+
     public static string Kappa(ShortCircuitResult sc) =>
         $"κ {Numbers.Fixed(sc.Kappa)} from R/X {Numbers.Fixed(sc.RX)} of the short-circuit impedance at the fault (positive sequence, {Numbers.Format(sc.Z1.Magnitude, "ohm")})";
 

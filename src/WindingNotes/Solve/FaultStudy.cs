@@ -373,7 +373,7 @@ public static class FaultStudy
     }
 
     /// <summary>A constant-power or constant-current load as the impedance drawing its pre-fault power at its pre-fault voltage (common practice).</summary>
-    private static LoadNet AsImpedance(LoadNet l, Solution pre)
+    internal static LoadNet AsImpedance(LoadNet l, Solution pre)
     {
         if (l.Source.Exponent == 2) return l;
         var v = pre.LoadVoltage(l);
