@@ -166,7 +166,9 @@ public static class FaultStudy
                 };
                 sc = Finish(network, sc, result, model.Frequency, vpre, scale);
                 ReportDuty(sc, diagnostics);
-                cases.Add(result with { ShortCircuit = sc, Solution = result.Solution.Compact() });
+                // The case keeps the network as written (its fault branches and hot resistances are the solver's business),
+                // so what reads it beside the normal case (the phasor diagram's voltage levels) finds the same nodes.
+                cases.Add(result with { ShortCircuit = sc, Solution = result.Solution.Compact() with { Network = network } });
             }
         }
         return cases.ToImmutable();
