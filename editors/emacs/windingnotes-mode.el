@@ -45,7 +45,7 @@ A bare program name is looked up on `exec-path' and then in
     "time-constants" "k11" "k21" "k22" "paper" "of" "ambient" "method" "duty"
     "sets" "positions" "on-load" "off-circuit" "reversing" "follows" "regulate" "target"
     "bandwidth" "pt-ratio" "compensation" "line-current" "ct" "position" "clear-of-limits"
-    "equals" "currents" "voltage-tolerance" "duration" "initial-temperature" "earth-impedance"
+    "equals" "currents" "voltage-tolerance" "duration" "initial-temperature" "peak-method" "end-temperature" "earth-impedance"
     "nominal" "fault-current" "peak-current" "thermal-current" "earth-fault-factor" "in"
     "positive-sequence")
   "Words that start a clause or join its parts.")
@@ -61,7 +61,7 @@ A bare program name is looked up on `exec-path' and then in
     "fault-duty-high" "regulator-current-high"
     "upgraded" "non-upgraded" "difference-equation" "exponential"
     "normal-cyclic" "long-time-emergency" "short-time-emergency"
-    "equivalent-source" "as-loaded" "maximum" "minimum" "maximum-and-minimum" "three-phase"
+    "equivalent-source" "as-loaded" "at-fault" "meshed" "maximum" "minimum" "maximum-and-minimum" "three-phase"
     "line-to-ground" "line-to-line" "double-line-to-ground")
   "Words chosen from a fixed set inside a clause.")
 

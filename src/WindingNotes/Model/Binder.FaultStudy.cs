@@ -24,6 +24,7 @@ internal sealed partial class BindRun
             Maximum = currents != "minimum",
             Minimum = currents != "maximum",
             Line = s.Span,
+            Meshed = s.Clause("peak-method")?.Word(_ => true)?.Text == "meshed",
         };
         if (s.Value("voltage-tolerance") is { } tolSyntax && Real(tolSyntax, Dimension.None, "the voltage tolerance", ratio: true) is { } tol)
         {
@@ -45,8 +46,15 @@ internal sealed partial class BindRun
             if (Real(t, Dimension.TemperatureDim, "the initial temperature", positive: true) is not { } kelvin) return;
             study = study with { InitialTemperature = kelvin };
         }
+        if (s.Value("end-temperature") is { } end)
+        {
+            if (Real(end, Dimension.TemperatureDim, "the end temperature", positive: true) is not { } kelvin) return;
+            study = study with { EndTemperature = kelvin };
+        }
         if (method == FaultMethod.AsLoaded && s.Clause("voltage-tolerance") is { } c)
             diagnostics.ReportOutOfBounds(c.Span, "the voltage tolerance", "given with the equivalent source only: the network as loaded has no voltage factor");
+        else if (s.Clause("end-temperature") is { } e && !study.Minimum)
+            diagnostics.ReportOutOfBounds(e.Span, "the end temperature", "given with minimum currents only ('currents minimum' or 'maximum-and-minimum')");
         faultStudy = study;
     }
 

@@ -44,5 +44,14 @@ public sealed record FaultStudyModel(FaultMethod Method, bool Maximum, bool Mini
     /// standard's starting temperature for oil-immersed windings (40 °C ambient plus a 65 K average
     /// winding rise; from memory).
     /// </summary>
+    /// <summary>κ by the ratio R/X at the fault times 1.15, as IEC 60909-0 asks for a meshed network.</summary>
+    public bool Meshed { get; init; }
+
+    /// <summary>For minimum currents: the conductors' temperature at the end of the fault, K (IEC 60909-0); null keeps the reference temperature.</summary>
+    public double? EndTemperature { get; init; }
+
+    /// <summary>Whether the file has a 'fault-study' line (two-node faults then follow its method).</summary>
+    public bool Stated => Line != default;
+
     public static readonly FaultStudyModel Default = new(FaultMethod.EquivalentSource, true, false, 0.10, 2, 378.15, default);
 }

@@ -100,10 +100,11 @@ public sealed partial class DiagnosticBag
             d => d with { Related = [new RelatedSpan("first given here", first)] });
 
     public Diagnostic ReportPercentNeedsRating(TextSpan span, string core) =>
-        Error("needs-rating", span, $"an impedance in % or pu needs a base (the rating of core '{core}', or 'base') and the first winding's rated voltage");
+        items.Find(d => d.Code == "needs-rating" && d.Span == span) ?? Error("needs-rating", span, $"an impedance in % or pu needs a base (the rating of core '{core}', or 'base') and the first winding's rated voltage");
 
+    /// <summary>Once a line: a three-phase impedance line is one line for every phase it stands for (one mistake, one message).</summary>
     public Diagnostic ReportResistanceMismatch(TextSpan span, double fromLine, double fromWindings) =>
-        Warning("resistance-mismatch", span,
+        items.Find(d => d.Code == "resistance-mismatch" && d.Span == span) ?? Warning("resistance-mismatch", span,
             $"this impedance implies {Numbers.Format(fromLine, "ohm")} of resistance but the windings' resistances give {Numbers.Format(fromWindings, "ohm")} (referred to the first winding)");
 
     public Diagnostic ReportPowerFactorSense(Token word, string meant) =>
@@ -144,8 +145,9 @@ public sealed partial class DiagnosticBag
     public Diagnostic ReportNoLoadInconsistent(TextSpan span) =>
         Error("no-load-inconsistent", span, "the no-load loss is more than the no-load current can carry at this voltage (P > V·I)");
 
+    /// <summary>Once a line, as the mismatch.</summary>
     public Diagnostic ReportResistanceExceedsImpedance(TextSpan span, double resistance, double impedance) =>
-        Error("resistance-exceeds-impedance", span,
+        items.Find(d => d.Code == "resistance-exceeds-impedance" && d.Span == span) ?? Error("resistance-exceeds-impedance", span,
             $"the windings' resistances ({Numbers.Format(resistance, "ohm")} referred) exceed this impedance ({Numbers.Format(impedance, "ohm")})");
 
     public Diagnostic ReportLeakageOverlap(TextSpan span, string part, string other, TextSpan otherSpan) =>

@@ -16,10 +16,21 @@ public static class FaultDutyReport
 {
     public static string Method(ShortCircuitResult sc) => sc.Study.Method == FaultMethod.AsLoaded
         ? "network as loaded: supplies as written, constant-power and constant-current loads as their pre-fault impedance"
-        : $"equivalent voltage source at the fault (IEC 60909-0), c = {Numbers.Fixed(sc.VoltageFactor, 3)} ({(sc.Minimum ? "cmin" : "cmax")}) on Un = {Numbers.Format(sc.Nominal, "V")} from {sc.NominalFrom}, loads left out";
+        : $"equivalent voltage source at the fault (IEC 60909-0), c = {Numbers.Fixed(sc.VoltageFactor, 3)} ({(sc.Minimum ? "cmin" : "cmax")}) on Un = {Numbers.Format(sc.Nominal, "V")} from {sc.NominalFrom}, loads left out"
+          + (sc.EndTemperature is { } end ? $", resistances given with a temperature at {Numbers.Format(end - 273.15, "degC")}" : "");
 
-    public static string Kappa(ShortCircuitResult sc) =>
-        $"κ {Numbers.Fixed(sc.Kappa)} from R/X {Numbers.Fixed(sc.RX)} of the short-circuit impedance at the fault (positive sequence, {Numbers.Format(sc.Z1.Magnitude, "ohm")})";
+    /// <summary>How a two-node fault was solved, and which loads were taken as their pre-fault impedance.</summary>
+    public static string Method(FaultResult f)
+    {
+        if (f.Method == FaultMethod.EquivalentSource)
+            return $"equivalent voltage source at the fault (IEC 60909-0), c = {Numbers.Fixed(f.VoltageFactor ?? 1, 3)} on {Numbers.Format(f.Nominal ?? 0, "V")} across the fault at no load, loads left out";
+        var loads = f.LoadsAsImpedance.Select(l => $"{(l.Behaviour == LoadBehaviour.ConstantPower ? "constant-power" : "constant-current")} load '{l.Name}'").ToList();
+        return "network as loaded: supplies as written" + (loads.Count == 0 ? "" : $", {string.Join(", ", loads)} as {(loads.Count == 1 ? "its" : "their")} pre-fault impedance");
+    }
+
+    public static string Kappa(ShortCircuitResult sc) => sc.Study.Meshed
+        ? $"κ {Numbers.Fixed(sc.Kappa)} for a meshed network (IEC 60909-0 method B: 1.15 × {Numbers.Fixed(sc.KappaAtFault)} at most {(sc.Nominal > 1000 ? "2.0" : "1.8")}) from R/X {Numbers.Fixed(sc.RX)} of the short-circuit impedance at the fault (positive sequence, {Numbers.Format(sc.Z1.Magnitude, "ohm")})"
+        : $"κ {Numbers.Fixed(sc.Kappa)} by the ratio R/X at the fault (IEC 60909-0 method B), R/X {Numbers.Fixed(sc.RX)} of the short-circuit impedance there (positive sequence, {Numbers.Format(sc.Z1.Magnitude, "ohm")})";
 
     public static void Text(StringBuilder o, ShortCircuitResult sc, Action<string> heading, Action<string, string> line)
     {
@@ -93,6 +104,8 @@ public static class FaultDutyReport
         SequenceJson(w, "vSequence", sc.Voltages);
         JsonReport.Number(w, "ik", sc.Initial);
         JsonReport.Number(w, "kappa", sc.Kappa);
+        w.WriteString("kappaMethod", sc.Study.Meshed ? "meshed" : "at-fault");
+        if (sc.EndTemperature is { } end) JsonReport.Number(w, "endTemperature", end - 273.15);
         if (double.IsFinite(sc.RX)) JsonReport.Number(w, "rx", sc.RX);
         JsonReport.Number(w, "ip", sc.Peak);
         JsonReport.Number(w, "ith", sc.Thermal);

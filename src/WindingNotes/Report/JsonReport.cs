@@ -200,6 +200,14 @@ public static class JsonReport
             Number(w, "peak", fault.Peak);
             if (double.IsFinite(fault.XR)) Number(w, "xr", fault.XR);
             Number(w, "peakFactor", fault.PeakFactor);
+            w.WriteString("method", fault.Method == FaultMethod.AsLoaded ? "as-loaded" : "equivalent-source");
+            if (fault.VoltageFactor is { } factor) Number(w, "c", factor);
+            if (!fault.LoadsAsImpedance.IsEmpty)
+            {
+                w.WriteStartArray("loadsAsImpedance");
+                foreach (var l in fault.LoadsAsImpedance) w.WriteStringValue(l.Name);
+                w.WriteEndArray();
+            }
             w.WriteEndObject();
             w.WriteEndObject();
             WriteBands(w, c);

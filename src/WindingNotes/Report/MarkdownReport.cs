@@ -134,6 +134,7 @@ public static class MarkdownReport
                 fault.Fault.Name, $"{fault.Fault.A.Name} and {fault.Fault.B.Name}", V(fault.Current.Magnitude, "A"), Angle(fault.Current),
                 V(fault.Peak, "A"), double.IsFinite(fault.XR) ? Numbers.Fixed(fault.XR) : "infinite", Numbers.Fixed(fault.PeakFactor),
             ]]);
+            o.Append('\n').Append($"Fault {fault.Fault.Name}: {FaultDutyReport.Method(fault)}.\n");
             WriteBands(o, c);
             return;
         }

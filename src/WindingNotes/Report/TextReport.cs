@@ -108,6 +108,7 @@ public static class TextReport
             Heading(o, "Fault");
             var xr = double.IsFinite(fault.XR) ? Numbers.Fixed(fault.XR) : "infinite";
             Line(o, fault.Fault.Name, $"{fault.Fault.A.Name} to {fault.Fault.B.Name}: {Phasor(fault.Current, "A")}, peak {Numbers.Format(fault.Peak, "A")} (X/R {xr}, factor {Numbers.Fixed(fault.PeakFactor)})");
+            Line(o, "method", FaultDutyReport.Method(fault));
             WriteBands(o, c);
             return;
         }

@@ -42,6 +42,12 @@ public sealed record WindingDuty(WindingNet Winding, string Section, double Curr
 /// <summary>A bus fault studied once: at its maximum (cmax) or minimum (cmin) currents, or as loaded.</summary>
 public sealed record ShortCircuitResult(BusFaultModel Fault, FaultStudyModel Study, bool Minimum)
 {
+    /// <summary>Minimum currents with the conductors at the end temperature: that temperature, K.</summary>
+    public double? EndTemperature { get; init; }
+
+    /// <summary>κ before the factor 1.15 of a meshed network (IEC 60909-0 method B); equal to κ otherwise.</summary>
+    public double KappaAtFault { get; init; }
+
     /// <summary>The voltage factor c of the equivalent source; 1 as loaded.</summary>
     public double VoltageFactor { get; init; } = 1;
 
@@ -114,6 +120,7 @@ public static class FaultStudy
         var study = model.FaultStudy;
         var cases = ImmutableArray.CreateBuilder<CaseResult>();
         Solution? noLoad = null;
+        Network? hotNetwork = null;
         foreach (var fault in model.BusFaults)
         {
             cancel.ThrowIfCancellationRequested();
@@ -147,12 +154,21 @@ public static class FaultStudy
             {
                 var c = study.Method == FaultMethod.AsLoaded ? 1 : VoltageFactor(nominal, minimum, study.LowVoltageTolerance);
                 var scale = study.Method == FaultMethod.AsLoaded ? 1 : c * nominal / Math.Sqrt(3) / phaseVolts;
-                var result = Solve(network, pre, fault, bus, earth, minimum, c, scale, diagnostics, cancel);
+                // Minimum currents with the conductors hot: resistances given with a temperature (stated at one,
+                // or from a conductor at 20 °C) corrected to the end temperature (IEC 60909-0, from memory).
+                var hot = minimum && study.EndTemperature is { } end ? hotNetwork ??= NetworkBuilder.Build(model with { Temperature = end }) : network;
+                var result = Solve(hot, pre, fault, bus, earth, minimum, c, scale, diagnostics, cancel);
                 if (result is null) continue;
-                var sc = result.ShortCircuit! with { Nominal = nominal, NominalFrom = from, PreFault = [.. vpre.Select(v => v * scale)] };
+                var sc = result.ShortCircuit! with
+                {
+                    Nominal = nominal, NominalFrom = from, PreFault = [.. vpre.Select(v => v * scale)],
+                    EndTemperature = hot == network ? null : study.EndTemperature,
+                };
                 sc = Finish(network, sc, result, model.Frequency, vpre, scale);
                 ReportDuty(sc, diagnostics);
-                cases.Add(result with { ShortCircuit = sc, Solution = result.Solution.Compact() });
+                // The case keeps the network as written (its fault branches and hot resistances are the solver's business),
+                // so what reads it beside the normal case (the phasor diagram's voltage levels) finds the same nodes.
+                cases.Add(result with { ShortCircuit = sc, Solution = result.Solution.Compact() with { Network = network } });
             }
         }
         return cases.ToImmutable();
@@ -177,6 +193,12 @@ public static class FaultStudy
 
     /// <summary>κ = 1.02 + 0.98·e^(−3R/X) (IEC 60909-0, formula from memory): 2 for a loop without resistance.</summary>
     public static double Kappa(double rx) => double.IsPositiveInfinity(rx) ? 1.02 : 1.02 + 0.98 * Math.Exp(-3 * Math.Max(rx, 0));
+
+    /// <summary>
+    /// κ of a meshed network by method B of IEC 60909-0 (from memory): 1.15 times κ of the ratio R/X
+    /// at the fault, at most 1.8 in low-voltage networks (up to 1 kV) and 2.0 above.
+    /// </summary>
+    public static double MeshedKappa(double kappaAtFault, double nominal) => Math.Min(1.15 * kappaAtFault, nominal > 1000 ? 2.0 : 1.8);
 
     /// <summary>
     /// m of the thermal equivalent current Ith = I″k·√(m + n) (IEC 60909-0, from memory):
@@ -373,7 +395,7 @@ public static class FaultStudy
     }
 
     /// <summary>A constant-power or constant-current load as the impedance drawing its pre-fault power at its pre-fault voltage (common practice).</summary>
-    private static LoadNet AsImpedance(LoadNet l, Solution pre)
+    internal static LoadNet AsImpedance(LoadNet l, Solution pre)
     {
         if (l.Source.Exponent == 2) return l;
         var v = pre.LoadVoltage(l);
@@ -393,7 +415,8 @@ public static class FaultStudy
         var initial = faulted.Max(p => sc.LineCurrents[p].Magnitude);
         var rx = sc.RX;
         var xr = rx > 0 ? 1 / rx : double.PositiveInfinity;
-        var kappa = Kappa(rx);
+        var atFault = Kappa(rx);
+        var kappa = sc.Study.Meshed ? MeshedKappa(atFault, sc.Nominal) : atFault;
         var m = ThermalM(kappa, frequency, sc.Study.Duration);
         double? earthFactor = null;
         if (sc.Fault.ToEarth)
@@ -436,6 +459,7 @@ public static class FaultStudy
         {
             Initial = initial,
             Kappa = kappa,
+            KappaAtFault = atFault,
             Peak = kappa * Math.Sqrt(2) * initial,
             Peak60076 = asym * initial,
             ThermalFactorM = m,

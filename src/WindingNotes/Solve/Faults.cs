@@ -1,5 +1,7 @@
+using System.Collections.Immutable;
 using System.Numerics;
 using WindingNotes.Model;
+using WindingNotes.Text;
 
 namespace WindingNotes.Solve;
 
@@ -13,6 +15,18 @@ public sealed record FaultResult(FaultModel Fault, Complex Current, double XR, d
     public double? WorstMultiple { get; init; }
 
     public string? WorstWinding { get; init; }
+
+    /// <summary>How the case was solved: the equivalent source (loads left out) or the network as loaded.</summary>
+    public FaultMethod Method { get; init; } = FaultMethod.AsLoaded;
+
+    /// <summary>The voltage factor c of the equivalent source; null as loaded.</summary>
+    public double? VoltageFactor { get; init; }
+
+    /// <summary>The equivalent source: the voltage across the fault at no load that c is applied to, V.</summary>
+    public double? Nominal { get; init; }
+
+    /// <summary>As loaded: the constant-power and constant-current loads of the fault's part, taken as the impedance drawing their pre-fault power.</summary>
+    public ImmutableArray<LoadModel> LoadsAsImpedance { get; init; } = [];
 }
 
 public static class Faults
@@ -33,19 +47,64 @@ public static class Faults
     }
 
     /// <summary>
-    /// By Thévenin, the loop impedance (the network seen from the fault plus the fault's own) is the
-    /// voltage across the fault before it, from the normal case, over the fault current. Exact for a
-    /// linear network; with constant-power loads it is the usual approximation.
+    /// How a two-node fault is studied: as the file's 'fault-study' line says (the equivalent source
+    /// unless it says 'as-loaded'); without one, as loaded, as files written before the line meant.
     /// </summary>
-    public static FaultResult Compute(Solution fault, Solution normal)
+    public static FaultMethod MethodOf(Model.Model model) => model.FaultStudy.Stated ? model.FaultStudy.Method : FaultMethod.AsLoaded;
+
+    /// <summary>
+    /// A two-node fault's case. With the equivalent source (IEC 60909-0) loads are left out and every
+    /// supply's EMF is scaled by the voltage factor c, taken on the voltage across the fault at no
+    /// load (the nominal voltage there); c is cmax unless the study asks for minimum currents only.
+    /// As loaded, the supplies are as written and constant-power and constant-current loads become
+    /// the impedance that draws their pre-fault power at their pre-fault voltage (common practice),
+    /// so the faulted network is linear and its loop impedance exact. Null when it does not solve.
+    /// </summary>
+    internal static CaseResult? Solve(Network network, FaultModel fault, Solution main, Solution? noLoad, ImmutableArray<Diagnostic>.Builder diagnostics, CancellationToken cancel)
+    {
+        var (a, b) = (network.Node(fault.A.Name), network.Node(fault.B.Name));
+        var spec = CaseSpec.ForFault(fault);
+        if (MethodOf(network.Model) == FaultMethod.AsLoaded)
+        {
+            var loads = network.Loads.Select(l => FaultStudy.AsImpedance(l, main)).ToImmutableArray();
+            // The case keeps the network as written: its loads are what the file says, their stand-ins the solver's business.
+            var solved = NetworkSolver.Solve(network with { Loads = loads }, spec, cancel) with { Network = network };
+            // A load the fault shorts has no voltage: that is the fault, not something to warn about.
+            diagnostics.AddRange(solved.Diagnostics.Where(d => d.Code != "load-without-voltage"));
+            if (!solved.Solved) return null;
+            var converted = network.Loads.Where(l => l.Source.Exponent != 2 && (solved.Scope?.Loads.Contains(l.Index) ?? true)).Select(l => l.Source);
+            var result = Results.Compute(solved, null);
+            return result with { Fault = Compute(solved, main.Voltage(a) - main.Voltage(b)) with { LoadsAsImpedance = [.. converted] } };
+        }
+        var pre = network.Loads.IsEmpty ? main : noLoad;
+        if (pre is null) return null;
+        var before = pre.Voltage(a) - pre.Voltage(b);
+        var study = network.Model.FaultStudy;
+        var c = FaultStudy.VoltageFactor(before.Magnitude, minimum: !study.Maximum, study.LowVoltageTolerance);
+        var scaled = network with { Supplies = [.. network.Supplies.Select(s => s with { Voltage = s.Voltage * c })] };
+        var source = NetworkSolver.Solve(scaled, spec with { WithoutLoads = true }, cancel) with { Network = network };
+        diagnostics.AddRange(source.Diagnostics.Where(d => d.Code != "load-without-voltage"));
+        if (!source.Solved) return null;
+        return Results.Compute(source, null) with
+        {
+            Fault = Compute(source, c * before) with { Method = FaultMethod.EquivalentSource, VoltageFactor = c, Nominal = before.Magnitude },
+        };
+    }
+
+    /// <summary>
+    /// By Thévenin, the loop impedance (the network seen from the fault plus the fault's own) is the
+    /// voltage across the fault before it over the fault current: exact, as the faulted network is
+    /// linear. Loads left out of the case are left out of the loop. The peak factor is the IEC 60076-5
+    /// asymmetry factor k·√2 (2.55 above X/R 14).
+    /// </summary>
+    public static FaultResult Compute(Solution fault, Complex before)
     {
         var f = fault.Case.Fault!;
         var network = fault.Network;
         var i = fault.FaultCurrent;
-        var before = normal.Voltage(network.Node(f.A.Name)) - normal.Voltage(network.Node(f.B.Name));
         var loop = i == Complex.Zero ? Complex.Zero : before / i;
         var xr = loop.Imaginary <= 0 ? 0 : loop.Real <= 1e-12 * loop.Magnitude ? double.PositiveInfinity : loop.Imaginary / loop.Real;
-        var factor = PeakFactor(xr);
+        var factor = FaultStudy.AsymmetryFactor(xr);
         double? worst = null;
         string? worstWinding = null;
         var worstTouches = false;

@@ -56,12 +56,7 @@ public static class Points
         var faults = ImmutableArray.CreateBuilder<CaseResult>();
         if (withFaults)
             foreach (var fault in network.Model.Faults)
-            {
-                var solved = NetworkSolver.Solve(network, CaseSpec.ForFault(fault), cancel);
-                // A load the fault shorts has no voltage: that is the fault, not something to warn about.
-                diagnostics.AddRange(solved.Diagnostics.Where(d => d.Code != "load-without-voltage"));
-                if (solved.Solved) faults.Add(Results.Compute(solved, null, main));
-            }
+                if (Faults.Solve(network, fault, main, noLoad, diagnostics, cancel) is { } solved) faults.Add(solved);
         return new PointResult(result, noLoadResult, faults.ToImmutable(), diagnostics.ToImmutable());
     }
 }

@@ -1,6 +1,7 @@
 using System.Collections.Immutable;
 using System.Numerics;
 using WindingNotes.Model;
+using WindingNotes.Text;
 
 namespace WindingNotes.Solve;
 
@@ -134,9 +135,9 @@ public static class Results
     /// <summary>
     /// The results of a solved case: of the whole network, or of the part its <see cref="Solution.Scope"/>
     /// names (a fault's). <paramref name="noLoad"/> (the same network without loads) gives the
-    /// regulation; <paramref name="normal"/> (the case without the fault) gives a fault's X/R.
+    /// regulation. A two-node fault's own results are <see cref="Faults"/>'.
     /// </summary>
-    public static CaseResult Compute(Solution solution, Solution? noLoad, Solution? normal = null)
+    public static CaseResult Compute(Solution solution, Solution? noLoad)
     {
         var network = solution.Network;
         var model = network.Model;
@@ -204,7 +205,6 @@ public static class Results
         {
             Taps = TapsOf(network, solution, inScope),
             Connections = ConnectionsOf(network, solution, loads),
-            Fault = solution.Case.Fault is not null && normal is not null ? Faults.Compute(solution, normal) : null,
         };
         return model.ThreePhase.IsEmpty ? result : result with { ThreePhase = ThreePhaseResults.Of(network, result) };
     }
@@ -224,15 +224,17 @@ public static class Results
     /// <summary>The current out of each tap and brush of the sections given, by Kirchhoff's current law at the point.</summary>
     private static ImmutableArray<TapResult> TapsOf(Network network, Solution solution, List<Section> sections)
     {
-        var at = new Dictionary<string, (int Winding, Complex Current)>(StringComparer.Ordinal);
+        var at = new Dictionary<string, (int Winding, Complex Current, double Scale)>(StringComparer.Ordinal);
         foreach (var s in sections)
         {
             var i = solution.SectionCurrents[s.Index];
-            at[s.ToPoint] = (s.Winding, at.GetValueOrDefault(s.ToPoint).Current + i);
-            at[s.FromPoint] = (s.Winding, at.GetValueOrDefault(s.FromPoint).Current - i);
+            var (to, from) = (at.GetValueOrDefault(s.ToPoint), at.GetValueOrDefault(s.FromPoint));
+            at[s.ToPoint] = (s.Winding, to.Current + i, Math.Max(to.Scale, i.Magnitude));
+            at[s.FromPoint] = (s.Winding, from.Current - i, Math.Max(from.Scale, i.Magnitude));
         }
+        // The difference of two equal currents through a tap is zero, not the solver's rounding (picoamperes of kiloamperes).
         return [.. network.Model.Taps.DistinctBy(t => t.Name).Where(t => at.ContainsKey(t.Name))
-            .Select(t => new TapResult(t.Name, network.Windings[at[t.Name].Winding], at[t.Name].Current))];
+            .Select(t => new TapResult(t.Name, network.Windings[at[t.Name].Winding], Numbers.Clean(at[t.Name].Current, at[t.Name].Scale)))];
     }
 
     private static ImmutableArray<ConnectionResult> ConnectionsOf(Network network, Solution solution, ImmutableArray<LoadResult> loads)

@@ -320,4 +320,54 @@ public class FaultStudyTests
         Assert.StartsWith("winding LV", DeltaWye.Split('\n')[line]);
         Assert.Contains(e.Diagnostics, d => d.Code == "caution-fault-duty" && d.Message.Contains("bus fault 'F3'"));
     }
+
+    [Fact]
+    public void Kappa_of_a_meshed_network_is_1_15_times_the_ratio_at_the_fault_within_its_cap()
+    {
+        // IEC 60909-0 method B (from memory): κ = 1.15·κb with κb = 1.02 + 0.98·e^(−3R/X) of the ratio at the
+        // fault (R37: 1.746 at R/X 0.1, 1.418 at 0.3); 1.15·κb at most 1.8 up to 1 kV and 2.0 above.
+        Assert.Equal(1.8, FaultStudy.MeshedKappa(FaultStudy.Kappa(0.1), 415));
+        Assert.Equal(2.0, FaultStudy.MeshedKappa(FaultStudy.Kappa(0.1), 11000));
+        Assert.Equal(1.15 * 1.418, FaultStudy.MeshedKappa(FaultStudy.Kappa(0.3), 415), 3);
+        // The bank of DeltaWye: R/X of Zs + Zt (by hand above) gives κb; meshed, 1.15·κb = 1.95 is capped at 1.8.
+        var z1 = Zs + Zt;
+        var kb = 1.02 + 0.98 * Math.Exp(-3 * z1.Real / z1.Imaginary);
+        var atFault = Bus(Wn.Solved(DeltaWye), "F3");
+        Assert.Equal(kb, atFault.Kappa, 9);
+        Assert.Contains("by the ratio R/X at the fault (IEC 60909-0 method B)", WindingNotes.Report.FaultDutyReport.Kappa(atFault));
+        var meshed = Bus(Wn.Solved(DeltaWye + "fault-study equivalent-source peak-method meshed\n"), "F3");
+        Assert.Equal(kb, meshed.KappaAtFault, 9);
+        Assert.True(1.15 * kb > 1.8);
+        Assert.Equal(1.8, meshed.Kappa);
+        Wn.Near(1.8 * Math.Sqrt(2) * E / z1.Magnitude, meshed.Peak, 1e-9, "ip = κ·√2·I″k");
+        Assert.Contains("for a meshed network (IEC 60909-0 method B: 1.15", WindingNotes.Report.FaultDutyReport.Kappa(meshed));
+    }
+
+    [Fact]
+    public void Minimum_currents_take_resistances_given_with_a_temperature_at_the_end_temperature()
+    {
+        // IEC 60909-0 (from memory): minimum short-circuit currents with conductor resistances at the
+        // temperature at the end of the fault. One unit a phase of 500 kVA, 11 kV delta / 239.6 V wye;
+        // resistances measured at 20 °C: 0.8 ohm (HV), 0.32 mohm (LV). By hand, referred to the LV phase:
+        // R20 = 0.32e-3 + 0.8·(239.6/11 000)²; copper R_T = R20·(234.5 + T)/(234.5 + 20) (R15, IEEE C57.12.90).
+        // The line's X/R 8 gives X = 6 %·Zbase·8/√65 (the windings' R replaces the line's R).
+        var text = DeltaWye
+            .Replace("delta H1 H2 H3\n", "delta H1 H2 H3 resistance 0.8 ohm at 20 degC\n")
+            .Replace("neutral X0\n", "neutral X0 resistance 0.32 mohm at 20 degC\n")
+            + "fault-study equivalent-source currents maximum-and-minimum end-temperature 80 degC\n";
+        var e = Wn.Solved(text);
+        var lvPhase = 415 / Math.Sqrt(3);
+        var r20 = 0.32e-3 + 0.8 * Math.Pow(lvPhase / 11000, 2);
+        double At(double t) => r20 * (234.5 + t) / (234.5 + 20);
+        var x = Zt.Imaginary;
+        var maximum = Bus(e, "F3");
+        var minimum = Bus(e, "F3", minimum: true);
+        // Maximum at the reference temperature (75 °C unless said), cmax 1.10; minimum at 80 °C, cmin 0.90 (R36, from memory).
+        Close(Zs + new Complex(At(75), x), maximum.Z1, 1e-7, "Z1 at 75 °C");
+        Close(Zs + new Complex(At(80), x), minimum.Z1, 1e-7, "Z1 at 80 °C");
+        Wn.Near(0.90 * lvPhase / (Zs + new Complex(At(80), x)).Magnitude, minimum.Initial, 1e-7, "I″k min");
+        Assert.Equal(80 + 273.15, minimum.EndTemperature!.Value, 9);
+        Assert.Null(maximum.EndTemperature);
+        Assert.Contains("resistances given with a temperature at 80.00 degC", WindingNotes.Report.FaultDutyReport.Method(minimum));
+    }
 }

@@ -166,6 +166,27 @@ public class LeakageTests
     }
 
     [Fact]
+    public void A_three_phase_impedance_line_that_mismatches_its_resistances_says_so_once()
+    {
+        // One unit a phase of 100 kVA, 11 kV / 240 V: 4 % is 48.4 ohm referred to HV, X/R 3 gives R 15.31 ohm;
+        // the windings give 10 + 0.01·(11 000/239.6)² = 31.08 ohm. One line, one mistake: one warning, not one a phase.
+        var e = Wn.Eval("""
+            frequency 50 Hz
+            core T1 construction bank rating 300 kVA
+            winding HV on T1 rated 11 kV delta H1 H2 H3 resistance 10 ohm
+            winding LV on T1 rated 415 V wye X1 X2 X3 neutral X0 resistance 0.01 ohm
+            impedance HV LV 4 % xr 3
+            three-phase-supply grid H1 H2 H3 11 kV
+            ground X0
+
+            """);
+        var d = Assert.Single(e.Diagnostics, x => x.Code == "resistance-mismatch");
+        Assert.Equal("4 %", e.TextAt(d.Span));
+        Assert.Contains("15.31 ohm", d.Message);
+        Assert.Contains("31.08 ohm", d.Message);
+    }
+
+    [Fact]
     public void A_bare_magnitude_leaves_the_reactance_beside_the_stated_resistances()
     {
         var data = TwoWinding.Replace("4 % xr 3", "4 %");

@@ -3,6 +3,7 @@ using WindingNotes.Report.Diagrams;
 using WindingNotes.Tests.Solve;
 using WindingNotes.Tests.Support;
 using WindingNotes.Workspace;
+using WindingNotes.Text;
 using Xunit;
 
 namespace WindingNotes.Tests.Report;
@@ -294,6 +295,31 @@ public class DiagramTests
         return [.. captions.Select((c, i) => (c.Text,
             texts.Where(t => t.Class is "vlabel" or "ilabel" && GridOf(t.X) == i).Select(t => t.Text).ToList(),
             texts.Where(t => t.Class == "igrid" && GridOf(t.X) == i).Select(t => Amperes(t.Text)).DefaultIfEmpty(0).Max()))];
+    }
+
+    [Fact]
+    public void A_bus_fault_draws_each_line_current_into_the_fault_on_the_grid_of_the_bus()
+    {
+        // Quarry Lane, a line-to-ground fault FE on the 415 V bus: the faulted line carries I″k into the
+        // fault and the sound lines none (symmetrical components, R30); the currents belong to the 415 V
+        // grid, not the 11 kV one, and the phasors are the study's own line currents.
+        var quarry = Evaluator.Evaluate(File.ReadAllText(Command.Example("quarry-lane-fault-duty.wn")), "q.wn");
+        var fe = quarry.Cases.Single(c => c.ShortCircuit is { Minimum: false } sc && sc.Fault.Name == "FE");
+        var sc = fe.ShortCircuit!;
+        var svg = PhasorDiagram.Draw(quarry, fe).Svg;
+        var grids = Grids(svg);
+        Assert.Equal(2, grids.Count);
+        var lv = grids.Single(g => g.Caption.Contains("X1"));
+        Assert.DoesNotContain("X1", grids.Single(g => g != lv).Caption);
+        Assert.Contains("FE X1", lv.Labels);
+        Assert.True(lv.OuterCurrent >= sc.Initial, $"{lv.OuterCurrent} A against I″k {sc.Initial} A");
+        Assert.True(grids.Single(g => g != lv).OuterCurrent < sc.Initial / 10, "the 11 kV grid keeps its own scale");
+        // The table lists the line current with the study's magnitude and angle.
+        Assert.Contains("I FE X1", svg);
+        Assert.Contains(Numbers.Format(sc.LineCurrents[0].Magnitude, "A"), svg);
+        // A sound line carries no current into a line-to-ground fault: it is not drawn.
+        Assert.True(sc.LineCurrents[1].Magnitude < 1e-6 * sc.Initial);
+        Assert.DoesNotContain("I FE X2", svg);
     }
 
     [Fact]

@@ -178,6 +178,9 @@ public static class PhasorDiagram
                 arrows.Add(new Arrow(s.Section.Name, c.PointVoltage(s.Section.ToPoint), s.Voltage, "V", "section", $"V {s.Section.Name}", s.Section.NodeA, s.Section.NodeB));
         var currents = c.Supplies.Select(s => (s.Supply.Name, s.Current, s.Supply.NodeP, s.Supply.NodeQ)).ToList();
         if (c.Case.Fault is { } fault) currents.Add((fault.Name, c.Solution.FaultCurrent, network.Node(fault.A.Name), network.Node(fault.B.Name)));
+        // A bus fault: each line's current into the fault, from its line terminal (the earth current is their sum).
+        else if (c.ShortCircuit is { } sc)
+            currents.AddRange(sc.Fault.Lines.Select((l, p) => ($"{sc.Fault.Name} {l.Name}", sc.LineCurrents[p], network.Node(l.Name), network.EarthNode)));
         else currents.AddRange(c.Loads.Select(l => (l.Load.Name, l.Current, l.Load.NodeA, l.Load.NodeB)));
         var scaleI = currents.Select(x => x.Item2.Magnitude).DefaultIfEmpty(0).Max();
         foreach (var (name, i, node, other) in currents)
