@@ -425,7 +425,11 @@ internal sealed partial class BindRun
             if (Value(v, "a bound of the check") is not { } q) return;
             bounds.Add((q, v.Span));
         }
-        if (bounds.Count == 0) return;
+        if (bounds.Count == 0)
+        {
+            diagnostics.ReportOutOfBounds(conditionClause.Span, $"a check on {measureClause.Keyword!.Text}", "'below', 'above', 'between' or 'near'");
+            return;
+        }
         if (measure == MeasureKind.EquivalentAging)
             foreach (var (q, span) in bounds.Where(b => !b.Value.Dimension.IsNone || !b.Value.IsReal))
             {
