@@ -31,7 +31,7 @@ A bare program name is looked up on `exec-path' and then in
   '("frequency" "temperature" "let" "core" "winding" "tap" "brush" "impedance" "no-load"
     "join" "ground" "supply" "load" "fault" "sweep" "expect" "fail-on" "acknowledge"
     "three-phase-supply" "three-phase-load" "thermal" "load-cycle" "cycle-point"
-    "tap-changer" "find" "fault-study" "bus-fault")
+    "capability" "tap-changer" "find" "fault-study" "bus-fault")
   "Words that start a statement.")
 
 (defconst windingnotes-clause-keywords
@@ -47,7 +47,7 @@ A bare program name is looked up on `exec-path' and then in
     "bandwidth" "pt-ratio" "compensation" "line-current" "ct" "position" "clear-of-limits"
     "equals" "currents" "voltage-tolerance" "duration" "initial-temperature" "peak-method" "end-temperature" "earth-impedance"
     "nominal" "fault-current" "peak-current" "thermal-current" "earth-fault-factor" "in"
-    "positive-sequence")
+    "positive-sequence" "class" "winding-rise" "equivalent-aging")
   "Words that start a clause or join its parts.")
 
 (defconst windingnotes-option-keywords
@@ -58,7 +58,7 @@ A bare program name is looked up on `exec-path' and then in
     "caution-fuse-output" "caution-above-supply" "caution-fault-duty"
     "bank" "three-limb" "five-limb" "shell" "abc" "acb"
     "hot-spot-high" "top-oil-high" "cycle-current-high" "caution-hot-spot"
-    "fault-duty-high" "regulator-current-high"
+    "fault-duty-high" "regulator-current-high" "constant-load" "cycle-scale"
     "upgraded" "non-upgraded" "difference-equation" "exponential"
     "normal-cyclic" "long-time-emergency" "short-time-emergency"
     "equivalent-source" "as-loaded" "at-fault" "meshed" "maximum" "minimum" "maximum-and-minimum" "three-phase"

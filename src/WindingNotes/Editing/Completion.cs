@@ -39,6 +39,9 @@ public static class Completion
             entries.AddRange(Grammar.Statements.Select(s => new CompletionEntry(s.Keyword, CompletionKind.Statement, s.Summary, range, $"`{s.Example}`")));
         foreach (var word in expected.Words.Distinct())
             entries.Add(new CompletionEntry(word, CompletionKind.Word, "", range));
+        // Where a name of the trade stands (a cooling mode), its words.
+        foreach (var word in expected.Names.SelectMany(r => r.Suggestions).Distinct())
+            entries.Add(new CompletionEntry(word, CompletionKind.Word, "", range));
         // A name the line being typed defines is not offered on it (its unfinished line declares it).
         bool Elsewhere(Symbol s) => !line.Span.Touches(s.Span.Start);
         foreach (var role in expected.Names.Where(r => !r.Defines).DistinctBy(r => r.Label))

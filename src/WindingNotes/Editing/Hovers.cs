@@ -82,6 +82,7 @@ public static class Hovers
                 }
                 var windings = model.Windings.Where(w => w.Core == symbol.Name).Select(w => w.Name).ToList();
                 if (windings.Count > 0) lines.Add("windings: " + string.Join(", ", windings));
+                lines.AddRange(ThermalLines(evaluation.Thermal, symbol.Name));
                 break;
             case SymbolKind.Winding:
                 if (network?.Windings.FirstOrDefault(w => w.Name == symbol.Name) is { } wn) lines.Add(WindingData(wn));
@@ -134,6 +135,20 @@ public static class Hovers
         lines.AddRange(ThreePhaseText.HoverLines(normal, symbol.Name));
         if (lines.Count == 0 && symbol.Kind != SymbolKind.Let) lines.Add("no results: the network was not solved");
         return $"**{symbol.Name}**: {symbol.Describe()}\n\n" + string.Join("\n", lines.Select(l => "- " + l));
+    }
+
+    /// <summary>A unit's day of load: its peaks, ageing and capabilities (the thermal line's hover, and its core's anywhere).</summary>
+    private static IEnumerable<string> ThermalLines(ThermalResult? thermal, string core)
+    {
+        if (thermal?.Units.FirstOrDefault(u => u.Unit.Core == core) is not { } u) yield break;
+        yield return $"load cycle: hot-spot up to {Numbers.Format(u.PeakHotSpot, "degC")} at {thermal.Clock(u.PeakHotSpotTime)} in '{u.HottestWinding}', "
+            + $"{(u.Unit.Dry ? "winding average" : "top oil")} up to {Numbers.Format(u.PeakTopOil, "degC")} at {thermal.Clock(u.PeakTopOilTime)}";
+        yield return $"loss of life {ThermalResult.Hours(u.LossOfLife)} a day (mean ageing {Numbers.Fixed(u.MeanAgeing)}, 1 at {Numbers.Format(ThermalEquations.AgeingReference(u.Unit), "degC")})"
+            + (u.EquivalentAging is { } feqa ? $", FEQA {Numbers.Fixed(feqa)}, FAA up to {Numbers.Fixed(u.PeakAgingFactor!.Value)}" : "");
+        foreach (var c in thermal.Capabilities.Where(c => c.Capability.Core == core))
+            yield return $"capability ({c.Capability.KindWord}): " + (c.Value is { } v
+                ? (c.Beyond ? "at least " : "") + ThermalCapability.Shown(thermal, c.Capability, v) + (c.Beyond ? "" : $", where the {ThermalCapability.Readable(c.Binding)} reaches {ThermalCapability.Measured(c.Binding, c.AtBinding)}")
+                : $"unknown, {c.Problem}");
     }
 
     private static string CoreData(CoreModel core)

@@ -69,6 +69,7 @@ public static class InlayHints
             StatementKind.Winding => Sections(index.OfWinding[name].ToList()),
             StatementKind.Tap or StatementKind.Brush => Tap(evaluation.Normal, index.AtPoint[name].ToList(), name),
             StatementKind.Thermal => ThermalHint(evaluation.Thermal, name),
+            StatementKind.Capability => CapabilityHint(evaluation.Thermal, s),
             StatementKind.TapChanger => evaluation.Normal?.TapPositions.FirstOrDefault(t => t.Changer.Name == name) is { } tap ? Report.TextReport.TapText(tap) : null,
             StatementKind.Find => evaluation.Normal is not null && evaluation.Model.Find is { } find && evaluation.Model.Lets.TryGetValue(find.Let, out var found)
                 ? $"{find.Let} = {SolveFor.Text(found)}" : null,
@@ -96,6 +97,12 @@ public static class InlayHints
     private static string? ThermalHint(ThermalResult? thermal, string core) =>
         thermal?.Units.FirstOrDefault(u => u.Unit.Core == core) is { } u
             ? $"hot-spot up to {Numbers.Format(u.PeakHotSpot, "degC")} at {thermal.Clock(u.PeakHotSpotTime)} in '{u.HottestWinding}', loss of life {ThermalResult.Hours(u.LossOfLife)} a day"
+            : null;
+
+    /// <summary>A capability line: what it found and the limit that binds.</summary>
+    private static string? CapabilityHint(ThermalResult? thermal, StatementSyntax s) =>
+        thermal?.Capabilities.FirstOrDefault(c => c.Capability.Line == s.Span) is { Value: { } v } c
+            ? (c.Beyond ? "at least " : "") + ThermalCapability.Shown(thermal, c.Capability, v) + (c.Beyond ? ", the end of the search" : $", {ThermalCapability.Readable(c.Binding)} {ThermalCapability.Measured(c.Binding, c.AtBinding)}")
             : null;
 
     private static string? Sections(IReadOnlyList<SectionResult> sections) => sections.Count switch

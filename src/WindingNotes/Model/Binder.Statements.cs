@@ -45,6 +45,7 @@ internal sealed partial class BindRun
             case StatementKind.Thermal: BindThermal(s); break;
             case StatementKind.LoadCycle: BindLoadCycle(s); break;
             case StatementKind.CyclePoint: BindCyclePoint(s); break;
+            case StatementKind.Capability: BindCapability(s); break;
             case StatementKind.TapChanger: BindTapChanger(s); break;
             case StatementKind.Find: BindFind(s); break;
             case StatementKind.FaultStudy: if (Once(s)) BindFaultStudy(s); break;
@@ -483,7 +484,7 @@ internal sealed partial class BindRun
             diagnostics.ReportPositionCondition(conditionClause.Span);
             return;
         }
-        if (measureClause.Keyword!.Text is "hot-spot" or "top-oil" or "loss-of-life")
+        if (measureClause.Keyword!.Text is "hot-spot" or "top-oil" or "loss-of-life" or "equivalent-aging" or "capability")
         {
             BindThermalExpect(s, measureClause, conditionClause);
             return;

@@ -7,7 +7,7 @@ namespace WindingNotes.Text;
 public sealed partial class DiagnosticBag
 {
     public Diagnostic ReportUnknownCooling(Token name, string? suggestion) =>
-        WithSuggestion(Error("unknown-cooling", name.Span, $"unknown cooling mode '{name.Text}': ONAN, ONAF, OF or OD"), suggestion, name.Span);
+        WithSuggestion(Error("unknown-cooling", name.Span, $"unknown cooling mode '{name.Text}': ONAN, ONAF, OF or OD for an oil-immersed unit, AN or AF for a dry-type unit"), suggestion, name.Span);
 
     public Diagnostic ReportDuplicateThermal(Token core, TextSpan first) =>
         Amend(Error("duplicate-statement", core.Span, $"core '{core.Text}' has thermal data already"),
@@ -28,4 +28,25 @@ public sealed partial class DiagnosticBag
 
     public Diagnostic ReportCycleWithoutAmbient(TextSpan span) =>
         Error("no-ambient", span, "the load cycle has no ambient temperature: give 'ambient' here or on a cycle point");
+
+    public Diagnostic ReportClassOfOil(TextSpan span) =>
+        Error("thermal-class", span, "an insulation class is given for a dry-type unit (cooling AN or AF); an oil-immersed unit's insulation is its 'paper'");
+
+    public Diagnostic ReportDryWithoutClass(TextSpan span) =>
+        Error("thermal-class", span, "a dry-type unit needs its insulation system temperature: 'class' and one of 105, 120, 130, 155, 180, 200, 220 degC, such as 'cooling AN class 155 degC'");
+
+    public Diagnostic ReportRiseOfOtherCooling(TextSpan span, bool dry) =>
+        Error("thermal-class", span, dry
+            ? "a dry-type unit has no oil: give its average winding rise with 'winding-rise'"
+            : "an oil-immersed unit's rise is its top oil's: give 'top-oil-rise'");
+
+    public Diagnostic ReportThermalClauseMissing(TextSpan span, string clause) =>
+        Error("thermal-incomplete", span, $"the thermal data of an oil-immersed unit needs {clause}");
+
+    public Diagnostic ReportPaperOfDry(TextSpan span) =>
+        Error("thermal-class", span, "a dry-type unit has no paper in oil: its ageing follows its insulation class");
+
+    public Diagnostic ReportDuplicateCapability(Token core, TextSpan first) =>
+        Amend(Error("duplicate-statement", core.Span, $"core '{core.Text}' has this capability already"),
+            d => d with { Related = [new RelatedSpan("first given here", first)] });
 }

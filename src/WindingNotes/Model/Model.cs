@@ -106,7 +106,7 @@ public sealed record FaultModel(string Name, TextSpan NameSpan, TextSpan Line, N
 
 public sealed record SweepModel(Symbol Target, TextSpan Line, Quantity From, Quantity To, Quantity? Step, int? Points);
 
-public enum MeasureKind { Voltage, Current, Loading, Flux, Power, Efficiency, Regulation, VectorGroup, HotSpot, TopOil, LossOfLife, Position, FaultCurrent, PeakCurrent, ThermalCurrent, EarthFaultFactor, PositiveSequence, ZeroSequence }
+public enum MeasureKind { Voltage, Current, Loading, Flux, Power, Efficiency, Regulation, VectorGroup, HotSpot, TopOil, LossOfLife, Position, EquivalentAging, Capability, FaultCurrent, PeakCurrent, ThermalCurrent, EarthFaultFactor, PositiveSequence, ZeroSequence }
 
 public enum ConditionKind { Between, Below, Above, Near }
 

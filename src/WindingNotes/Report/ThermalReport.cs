@@ -30,10 +30,29 @@ public static class ThermalReport
         return Enumerable.Range(0, 25).Select(h => (int)Math.Round(h * 3600 / dt)).Where(k => k < r.Times.Length).Distinct();
     }
 
+    /// <summary>The bulk temperature the unit follows: its top oil, or a dry-type unit's average winding temperature.</summary>
+    private static string Bulk(ThermalUnitResult u) => u.Unit.Dry ? "winding average" : "top oil";
+
     private static string Summary(ThermalResult r, ThermalUnitResult u) =>
-        $"peak hot-spot {C(u.PeakHotSpot)} at {r.Clock(u.PeakHotSpotTime)} in '{u.HottestWinding}', peak top oil {C(u.PeakTopOil)} at {r.Clock(u.PeakTopOilTime)}, " +
+        $"peak hot-spot {C(u.PeakHotSpot)} at {r.Clock(u.PeakHotSpotTime)} in '{u.HottestWinding}', peak {Bulk(u)} {C(u.PeakTopOil)} at {r.Clock(u.PeakTopOilTime)}, " +
         $"loss of life {ThermalResult.Hours(u.LossOfLife)} (mean ageing {Numbers.Fixed(u.MeanAgeing)}, highest {Numbers.Fixed(u.PeakAgeing)}), " +
-        $"{u.Unit.Cooling} {u.Unit.Class}, {(u.Unit.Upgraded ? "upgraded" : "non-upgraded")} paper, loss ratio {Numbers.Fixed(u.LossRatio)}";
+        (u.EquivalentAging is { } feqa ? $"FEQA {Numbers.Fixed(feqa)} (FAA up to {Numbers.Fixed(u.PeakAgingFactor!.Value)}), " : "") +
+        $"{u.Unit.Cooling} {u.Unit.Class}, {Insulation(u.Unit)}, loss ratio {Numbers.Fixed(u.LossRatio)}";
+
+    /// <summary>What the unit ages by: its paper, or a dry-type unit's class with the basis of its ageing rate.</summary>
+    private static string Insulation(ThermalUnitModel u) => u.Dry
+        ? $"class {u.InsulationClass} degC insulation (ageing 1 at its rated hot-spot {C(ThermalEquations.AgeingReference(u))}, doubling every 10 K)"
+        : $"{(u.Upgraded ? "upgraded" : "non-upgraded")} paper";
+
+    private static string Capability(ThermalResult r, CapabilityResult c)
+    {
+        var what = c.Capability.Kind == CapabilityKind.ConstantLoad ? "load held all day" : "multiple of the cycle";
+        var limits = $"hot-spot {C(c.HotSpotLimit)}" + (c.TopOilLimit is { } o ? $", top oil {C(o)}" : "") + (c.LossOfLifeLimit is { } l ? $", loss of life {ThermalResult.Hours(l)}" : "");
+        if (c.Value is not { } v) return $"{what}: unknown ({c.Problem})";
+        return c.Beyond
+            ? $"{what}: at least {ThermalCapability.Shown(r, c.Capability, v)}, the end of the search (within {limits})"
+            : $"{what}: {ThermalCapability.Shown(r, c.Capability, v)}, where the {ThermalCapability.Readable(c.Binding)} reaches {ThermalCapability.Measured(c.Binding, c.AtBinding)} (limits {limits})";
+    }
 
     private static string Winding(ThermalResult r, WindingHeat w) =>
         $"load up to {Numbers.Fixed(w.PeakLoad)} pu from {r.Clock(w.PeakLoadTime)}, hot-spot up to {C(w.PeakHotSpot)} at {r.Clock(w.PeakHotSpotTime)}";
@@ -46,8 +65,9 @@ public static class ThermalReport
         {
             o.Append("  ").Append(u.Unit.Core.PadRight(12)).Append(' ').Append(Summary(r, u)).Append('\n');
             foreach (var w in u.Windings) o.Append("    ").Append(w.Winding.PadRight(10)).Append(' ').Append(Winding(r, w)).Append('\n');
+            foreach (var c in r.Capabilities.Where(c => c.Capability.Core == u.Unit.Core)) o.Append("    capability ").Append(Capability(r, c)).Append('\n');
         }
-        o.Append("  hour by hour: time, load and ambient up to it").Append(string.Concat(r.Units.Select(u => $"; {u.Unit.Core} top oil, hot-spot"))).Append('\n');
+        o.Append("  hour by hour: time, load and ambient up to it").Append(string.Concat(r.Units.Select(u => $"; {u.Unit.Core} {Bulk(u)}, hot-spot"))).Append('\n');
         foreach (var k in Hourly(r))
         {
             o.Append("    ").Append(r.Clock(r.Times[k])).Append("  ").Append(Load(r, r.Load[k])).Append("  ").Append(C(r.Ambient[k]));
@@ -60,17 +80,25 @@ public static class ThermalReport
     {
         if (r is null) return;
         o.Append("\n### Load cycle\n\n").Append(Method(r)).Append(", ").Append(Step(r)).Append(" steps; the day after ").Append(r.Days - 1).Append(" days of the same cycle.\n\n");
-        MarkdownReport.Table(o, 2, ["unit", "hottest winding", "peak hot-spot", "at", "peak top oil", "at", "loss of life", "mean ageing"], r.Units.Select(u => new[]
+        MarkdownReport.Table(o, 2, ["unit", "hottest winding", "peak hot-spot", "at", r.Units.Any(u => u.Unit.Dry) ? "peak top oil or winding average" : "peak top oil", "at", "loss of life", "mean ageing", "FEQA", "highest FAA"], r.Units.Select(u => new[]
         {
             u.Unit.Core, u.HottestWinding, C(u.PeakHotSpot), r.Clock(u.PeakHotSpotTime), C(u.PeakTopOil), r.Clock(u.PeakTopOilTime), ThermalResult.Hours(u.LossOfLife), Numbers.Fixed(u.MeanAgeing),
+            u.EquivalentAging is { } feqa ? Numbers.Fixed(feqa) : "—", u.PeakAgingFactor is { } faa ? Numbers.Fixed(faa) : "—",
         }));
+        o.Append('\n');
+        foreach (var u in r.Units) o.Append("- ").Append(u.Unit.Core).Append(": ").Append(u.Unit.Cooling.ToString()).Append(' ').Append(u.Unit.Class).Append(", ").Append(Insulation(u.Unit)).Append('\n');
+        if (!r.Capabilities.IsEmpty)
+        {
+            o.Append('\n');
+            foreach (var c in r.Capabilities) o.Append("- capability of ").Append(c.Capability.Core).Append(", ").Append(Capability(r, c)).Append('\n');
+        }
         o.Append('\n');
         MarkdownReport.Table(o, 2, ["unit", "winding", "highest load", "from", "peak hot-spot", "at"], r.Units.SelectMany(u => u.Windings.Select(w => new[]
         {
             u.Unit.Core, w.Winding, Numbers.Fixed(w.PeakLoad) + " pu", r.Clock(w.PeakLoadTime), C(w.PeakHotSpot), r.Clock(w.PeakHotSpotTime),
         })));
         o.Append('\n');
-        string[] header = ["time", "load up to it", "ambient up to it", .. r.Units.SelectMany(u => new[] { $"{u.Unit.Core} top oil", $"{u.Unit.Core} hot-spot" })];
+        string[] header = ["time", "load up to it", "ambient up to it", .. r.Units.SelectMany(u => new[] { $"{u.Unit.Core} {Bulk(u)}", $"{u.Unit.Core} hot-spot" })];
         MarkdownReport.Table(o, 1, header, Hourly(r).Select(k => new[] { r.Clock(r.Times[k]), Load(r, r.Load[k]), C(r.Ambient[k]) }
             .Concat(r.Units.SelectMany(u => new[] { C(u.TopOil[k]), C(u.HotSpot[k]) })).ToArray()));
     }
@@ -88,16 +116,42 @@ public static class ThermalReport
         {
             w.WriteStartObject(u.Unit.Core);
             w.WriteString("cooling", u.Unit.Cooling.ToString());
-            w.WriteBoolean("upgradedPaper", u.Unit.Upgraded);
+            if (u.Unit.InsulationClass is { } insulation) JsonReport.Number(w, "insulationClass", insulation);
+            else w.WriteBoolean("upgradedPaper", u.Unit.Upgraded);
+            JsonReport.Number(w, "ageingReference", ThermalEquations.AgeingReference(u.Unit));
             JsonReport.Number(w, "lossRatio", u.LossRatio);
             JsonReport.Number(w, "peakHotSpot", u.PeakHotSpot);
             JsonReport.Number(w, "peakHotSpotTime", u.PeakHotSpotTime);
             w.WriteString("hottestWinding", u.HottestWinding);
-            JsonReport.Number(w, "peakTopOil", u.PeakTopOil);
-            JsonReport.Number(w, "peakTopOilTime", u.PeakTopOilTime);
+            JsonReport.Number(w, u.Unit.Dry ? "peakWindingAverage" : "peakTopOil", u.PeakTopOil);
+            JsonReport.Number(w, u.Unit.Dry ? "peakWindingAverageTime" : "peakTopOilTime", u.PeakTopOilTime);
             JsonReport.Number(w, "lossOfLife", u.LossOfLife);
             JsonReport.Number(w, "meanAgeing", u.MeanAgeing);
             JsonReport.Number(w, "peakAgeing", u.PeakAgeing);
+            if (u.EquivalentAging is { } feqa) JsonReport.Number(w, "equivalentAging", feqa);
+            if (u.PeakAgingFactor is { } faa) JsonReport.Number(w, "peakAgingFactor", faa);
+            var capabilities = r.Capabilities.Where(c => c.Capability.Core == u.Unit.Core).ToList();
+            if (capabilities.Count > 0)
+            {
+                w.WriteStartObject("capability");
+                foreach (var c in capabilities)
+                {
+                    w.WriteStartObject(c.Capability.KindWord);
+                    if (c.Value is { } v)
+                    {
+                        JsonReport.Number(w, "value", v);
+                        w.WriteBoolean("atLeast", c.Beyond);
+                        w.WriteString("binding", c.Binding);
+                        JsonReport.Number(w, "atBinding", c.AtBinding);
+                        JsonReport.Number(w, "hotSpotLimit", c.HotSpotLimit);
+                        if (c.TopOilLimit is { } o) JsonReport.Number(w, "topOilLimit", o);
+                        if (c.LossOfLifeLimit is { } l) JsonReport.Number(w, "lossOfLifeLimit", l);
+                    }
+                    else w.WriteString("problem", c.Problem);
+                    w.WriteEndObject();
+                }
+                w.WriteEndObject();
+            }
             w.WriteStartObject("windings");
             foreach (var h in u.Windings)
             {
@@ -123,7 +177,7 @@ public static class ThermalReport
             foreach (var u in r.Units)
             {
                 w.WriteStartObject(u.Unit.Core);
-                JsonReport.Number(w, "topOil", u.TopOil[k]);
+                JsonReport.Number(w, u.Unit.Dry ? "windingAverage" : "topOil", u.TopOil[k]);
                 JsonReport.Number(w, "hotSpot", u.HotSpot[k]);
                 w.WriteEndObject();
             }

@@ -44,3 +44,15 @@ public sealed partial class DiagnosticBag
         Info("caution-hot-spot", span,
             $"the hot-spot of '{core}' reaches {Numbers.Format(peak, "degC")} at {at}: above {Numbers.Plain(Solve.ThermalStudy.BubbleRisk)} degC gas bubbles may form in the insulation and lower its dielectric strength; such loading needs the maker's agreement and a unit in good condition");
 }
+
+// Messages of the thermal capability ('capability' lines).
+public sealed partial class DiagnosticBag
+{
+    public Diagnostic ReportCapability(CapabilityModel c, string value, bool beyond, string binding, string there) =>
+        Info("capability", c.Line, beyond
+            ? $"'{c.Core}' stays within its limits up to {value}, the end of the search ({binding} {there} there)"
+            : $"the largest {(c.Kind == CapabilityKind.ConstantLoad ? "load held all day" : "multiple of the load cycle")} within the limits of '{c.Core}' is {value}, where the {binding} reaches its limit ({there})");
+
+    public Diagnostic ReportCapabilityUnknown(CapabilityModel c, string problem) =>
+        Warning("capability-unknown", c.Line, $"the capability of '{c.Core}' is unknown: {problem}");
+}

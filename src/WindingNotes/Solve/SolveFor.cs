@@ -32,35 +32,23 @@ public static class SolveFor
         }
         Quantity At(double x) => find.Low with { Value = x };
 
-        var xs = Enumerable.Range(0, Intervals + 1).Select(k => lo + (hi - lo) * k / Intervals).ToArray();
-        var fs = new double?[xs.Length];
-        for (var k = 0; k < xs.Length; k++)
-        {
-            fs[k] = Residual(xs[k]);
-            if (fs[k] is null) unsolved++;
-        }
-        var solved = fs.Where(f => f is not null).Select(f => f!.Value).ToList();
+        var scan = Bracket(Residual, lo, hi, Intervals, 1e-13);
+        unsolved = scan.Unsolved;
+        var solved = scan.Values;
         if (solved.Count == 0)
         {
             diagnostics.ReportFindUnsolved(find);
             return null;
         }
         var scale = Math.Max(Math.Abs(find.Target), solved.Max(Math.Abs));
-        var roots = new List<double>();
+        var roots = new List<double>(scan.Zeros);
         var jumps = new List<double>();
-        for (var k = 0; k < xs.Length; k++)
+        foreach (var (x, fx) in scan.Crossings)
         {
-            if (fs[k] is not { } fk) continue;
-            if (fk == 0)
-            {
-                roots.Add(xs[k]);
-                continue;
-            }
-            if (k + 1 >= xs.Length || fs[k + 1] is not { } fn || fn == 0 || Math.Sign(fk) == Math.Sign(fn)) continue;
-            var (x, fx) = Refine(xs[k], fk, xs[k + 1], fn, Residual, hi - lo);
             if (fx is { } r && Math.Abs(r) <= 1e-6 * scale) roots.Add(x);
             else jumps.Add(x);
         }
+        roots.Sort();
         var unit = Unit(find.Low);
         if (roots.Count == 1)
         {
@@ -72,13 +60,45 @@ public static class SolveFor
         return null;
     }
 
-    /// <summary>Illinois regula falsi on a bracket [a, b] with f(a), f(b) of opposite signs.</summary>
-    private static (double X, double? F) Refine(double a, double fa, double b, double fb, Func<double, double?> f, double width)
+    /// <summary>
+    /// What a scan of [lo, hi] in equal intervals saw: the residuals it could compute (<see cref="Values"/>),
+    /// how many points it could not, the points where the residual is zero, and each change of sign
+    /// refined to where it happens (with the residual there, or null where it could not be computed), in order.
+    /// </summary>
+    internal sealed record Scan(List<double> Values, int Unsolved, List<double> Zeros, List<(double X, double? F)> Crossings);
+
+    /// <summary>
+    /// The bracketing search of 'find', for any residual: each change of sign between two points of
+    /// the scan is refined until the bracket is narrower than <paramref name="narrow"/> times the range.
+    /// The thermal capability searches the same way (<see cref="ThermalCapability"/>).
+    /// </summary>
+    internal static Scan Bracket(Func<double, double?> residual, double lo, double hi, int intervals, double narrow)
+    {
+        var xs = Enumerable.Range(0, intervals + 1).Select(k => lo + (hi - lo) * k / intervals).ToArray();
+        var fs = xs.Select(residual).ToArray();
+        var zeros = new List<double>();
+        var crossings = new List<(double, double?)>();
+        for (var k = 0; k < xs.Length; k++)
+        {
+            if (fs[k] is not { } fk) continue;
+            if (fk == 0)
+            {
+                zeros.Add(xs[k]);
+                continue;
+            }
+            if (k + 1 >= xs.Length || fs[k + 1] is not { } fn || fn == 0 || Math.Sign(fk) == Math.Sign(fn)) continue;
+            crossings.Add(Refine(xs[k], fk, xs[k + 1], fn, residual, (hi - lo) * narrow));
+        }
+        return new Scan([.. fs.OfType<double>()], fs.Count(f => f is null), zeros, crossings);
+    }
+
+    /// <summary>Illinois regula falsi on a bracket [a, b] with f(a), f(b) of opposite signs, until it is narrower than <paramref name="narrowest"/>.</summary>
+    private static (double X, double? F) Refine(double a, double fa, double b, double fb, Func<double, double?> f, double narrowest)
     {
         var side = 0;
         var x = a;
         double? fx = fa;
-        for (var i = 0; i < MaxIterations && Math.Abs(b - a) > 1e-13 * width; i++)
+        for (var i = 0; i < MaxIterations && Math.Abs(b - a) > narrowest; i++)
         {
             x = (a * fb - b * fa) / (fb - fa);
             if (!(x > Math.Min(a, b) && x < Math.Max(a, b))) x = (a + b) / 2;

@@ -21,7 +21,7 @@ internal sealed class Heating
 
     private double[] topOilSamples = [], hotSpotSamples = [];
     private double[][] windingHotSpot = [];
-    private double lossOfLife, peakAgeing;
+    private double lossOfLife, peakAgeing, aged, peakFaa;
 
     private Heating(ThermalUnitModel unit, double ratio, WindingNet[] windings, double[] topOil, double[][] load, double[][] gradient)
     {
@@ -104,6 +104,8 @@ internal sealed class Heating
         windingHotSpot = [.. windings.Select(_ => new double[steps + 1])];
         lossOfLife = 0;
         peakAgeing = 0;
+        aged = 0;
+        peakFaa = 0;
         Sample(0, ambient);
     }
 
@@ -111,9 +113,13 @@ internal sealed class Heating
     public void Record(int sample, double ambient, double dt)
     {
         Sample(sample, ambient);
-        var v = ThermalEquations.AgeingRate(hotSpotSamples[sample], unit.Upgraded);
+        var v = ThermalEquations.AgeingRate(unit, hotSpotSamples[sample]);
         lossOfLife += v * dt;
         peakAgeing = Math.Max(peakAgeing, v);
+        // IEEE C57.91: F_EQA = Σ F_AA·Δt / Σ Δt, the steps' F_AA at the hot-spot reached, as the ageing above.
+        var faa = ThermalEquations.AgingAccelerationFactor(hotSpotSamples[sample]);
+        aged += faa * dt;
+        peakFaa = Math.Max(peakFaa, faa);
     }
 
     private void Sample(int k, double ambient)
@@ -152,6 +158,8 @@ internal sealed class Heating
             LossOfLife = lossOfLife / 3600,
             MeanAgeing = lossOfLife / 86400,
             PeakAgeing = peakAgeing,
+            EquivalentAging = unit.Dry ? null : aged / 86400,
+            PeakAgingFactor = unit.Dry ? null : peakFaa,
         };
     }
 

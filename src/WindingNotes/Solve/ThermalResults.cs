@@ -25,6 +25,27 @@ public sealed record ThermalUnitResult(ThermalUnitModel Unit, double LossRatio, 
     public double LossOfLife { get; init; }
     public double MeanAgeing { get; init; }
     public double PeakAgeing { get; init; }
+
+    /// <summary>IEEE C57.91's equivalent aging factor F_EQA over the day (the mean of F_AA); null for a dry-type unit, for which F_AA is not defined.</summary>
+    public double? EquivalentAging { get; init; }
+
+    /// <summary>The highest aging acceleration factor F_AA of the day; null for a dry-type unit.</summary>
+    public double? PeakAgingFactor { get; init; }
+}
+
+/// <summary>
+/// What a 'capability' line found: the largest value (a per-unit multiple, or the let's value for a
+/// constant load of a let's cycle) that keeps the unit within its limits, the limit that binds there
+/// (hot-spot, top oil or loss of life) and that measure's value there. <see cref="Beyond"/>: still
+/// within every limit at the end of the search, so the capability is at least <see cref="Value"/>.
+/// Null <see cref="Value"/>: not found (<see cref="Problem"/> says why).
+/// </summary>
+public sealed record CapabilityResult(CapabilityModel Capability, double? Value, string Binding, double AtBinding, bool Beyond, string? Problem)
+{
+    /// <summary>The limits applied: hot-spot and top oil in °C (top oil null for a dry-type unit), loss of life in h (null: none).</summary>
+    public double HotSpotLimit { get; init; }
+    public double? TopOilLimit { get; init; }
+    public double? LossOfLifeLimit { get; init; }
 }
 
 /// <summary>The load cycle as solved: its samples (time; the load and ambient over the step ending there) and each unit over them.</summary>
@@ -32,6 +53,9 @@ public sealed record ThermalResult(LoadCycleModel Cycle, ImmutableArray<double> 
 {
     /// <summary>Days run from the steady state of midnight's load until the day repeated itself; the last is the one given.</summary>
     public int Days { get; init; } = 1;
+
+    /// <summary>The 'capability' lines' results, in file order.</summary>
+    public ImmutableArray<CapabilityResult> Capabilities { get; init; } = [];
 
     /// <summary>"18:30", or "18:30:15" where the step is not a whole minute.</summary>
     public string Clock(double seconds) => ClockText(seconds, Cycle.Step % 60 != 0);

@@ -13,7 +13,7 @@ namespace WindingNotes.Solve;
 /// </summary>
 public static class ThermalStudy
 {
-    public static bool IsThermal(ExpectModel e) => e.Measure is MeasureKind.HotSpot or MeasureKind.TopOil or MeasureKind.LossOfLife;
+    public static bool IsThermal(ExpectModel e) => e.Measure is MeasureKind.HotSpot or MeasureKind.TopOil or MeasureKind.LossOfLife or MeasureKind.EquivalentAging or MeasureKind.Capability;
 
     /// <summary>Change of any rise over a day (K) below which the day is taken to repeat itself.</summary>
     private const double Settled = 1e-3;
@@ -23,11 +23,17 @@ public static class ThermalStudy
     public static (ThermalResult? Result, ImmutableArray<CheckResult> Checks) Run(SyntaxTree syntax, Model.Model model, Network network, CaseResult normal, DiagnosticBag diagnostics, CancellationToken cancel)
     {
         var result = Cycle(syntax, model, network, normal, diagnostics, cancel);
-        if (result is not null) Limits(result, diagnostics);
+        if (result is not null)
+        {
+            Limits(result, diagnostics);
+            result = result with { Capabilities = ThermalCapability.Run(syntax, model, network, normal, result, diagnostics, cancel) };
+        }
+        else foreach (var cap in model.Thermal.Capabilities)
+                diagnostics.ReportCapabilityUnknown(cap, model.Thermal.Cycle is null ? "there is no load cycle: give a 'load-cycle' line and its 'cycle-point' lines" : "the load cycle was not evaluated");
         return (result, Check(model, result, diagnostics));
     }
 
-    private static ThermalResult? Cycle(SyntaxTree syntax, Model.Model model, Network network, CaseResult normal, DiagnosticBag diagnostics, CancellationToken cancel)
+    internal static ThermalResult? Cycle(SyntaxTree syntax, Model.Model model, Network network, CaseResult normal, DiagnosticBag diagnostics, CancellationToken cancel)
     {
         var thermal = model.Thermal;
         if (thermal.Cycle is not { } cycle)
@@ -209,6 +215,18 @@ public static class ThermalStudy
         _ => (160, 115, unitClass switch { "distribution" => 2.0, "medium" => 1.8, _ => 1.5 }),
     };
 
+    /// <summary>
+    /// A unit's limits under a duty: an oil-immersed unit's by its class (<see cref="LimitsOf(LoadingDuty, string)"/>);
+    /// a dry-type unit's hot-spot at its insulation system temperature, the temperature its class is
+    /// rated for (IEC 60085), under every duty, no top oil, and 1.5 pu of current (IEC 60076-12, from memory).
+    /// </summary>
+    internal static (double HotSpot, double? TopOil, double Current) LimitsOf(LoadingDuty duty, ThermalUnitModel u)
+    {
+        if (u.Dry) return (u.InsulationClass ?? double.NaN, null, 1.5);
+        var oil = LimitsOf(duty, u.Class);
+        return (oil.HotSpot, oil.TopOil, oil.Current);
+    }
+
     /// <summary>Above this hot-spot (°C) gas bubbles may form from the paper's moisture (IEC 60076-7, from memory).</summary>
     public const double BubbleRisk = 140;
 
@@ -217,16 +235,16 @@ public static class ThermalStudy
         var duty = r.Cycle.Duty switch { LoadingDuty.NormalCyclic => "normal cyclic", LoadingDuty.LongTimeEmergency => "long-time emergency", _ => "short-time emergency" };
         foreach (var u in r.Units)
         {
-            var limit = LimitsOf(r.Cycle.Duty, u.Unit.Class);
+            var limit = LimitsOf(r.Cycle.Duty, u.Unit);
             var span = u.Unit.NameSpan;
             if (u.PeakHotSpot > limit.HotSpot)
                 diagnostics.ReportHotSpotHigh(span, u.Unit.Core, u.PeakHotSpot, r.Clock(u.PeakHotSpotTime), u.HottestWinding, limit.HotSpot, duty);
-            if (u.PeakTopOil > limit.TopOil)
-                diagnostics.ReportTopOilHigh(span, u.Unit.Core, u.PeakTopOil, r.Clock(u.PeakTopOilTime), limit.TopOil, duty);
+            if (limit.TopOil is { } topOilLimit && u.PeakTopOil > topOilLimit)
+                diagnostics.ReportTopOilHigh(span, u.Unit.Core, u.PeakTopOil, r.Clock(u.PeakTopOilTime), topOilLimit, duty);
             var loaded = u.Windings.MaxBy(w => w.PeakLoad)!;
             if (loaded.PeakLoad > limit.Current + 1e-9)
-                diagnostics.ReportCycleCurrentHigh(span, u.Unit.Core, loaded.Winding, loaded.PeakLoad, r.Clock(loaded.PeakLoadTime), limit.Current, duty, u.Unit.Class);
-            if (u.PeakHotSpot > BubbleRisk)
+                diagnostics.ReportCycleCurrentHigh(span, u.Unit.Core, loaded.Winding, loaded.PeakLoad, r.Clock(loaded.PeakLoadTime), limit.Current, duty, u.Unit.Dry ? "dry-type" : u.Unit.Class);
+            if (!u.Unit.Dry && u.PeakHotSpot > BubbleRisk)
                 diagnostics.ReportHotSpotCaution(span, u.Unit.Core, u.PeakHotSpot, r.Clock(u.PeakHotSpotTime));
         }
     }
@@ -239,7 +257,20 @@ public static class ThermalStudy
             var units = r?.Units.Where(u => e.Targets.IsEmpty || u.Unit.Core == e.Targets[0].Name).ToList() ?? [];
             string? problem = r is null
                 ? model.Thermal.Cycle is null ? "there is no load cycle: give a 'load-cycle' line and its 'cycle-point' lines" : "the load cycle was not evaluated"
-                : units.Count == 0 ? $"core '{e.Targets[0].Name}' has no 'thermal' line" : null;
+                : units.Count == 0 ? $"core '{e.Targets[0].Name}' has no 'thermal' line"
+                : e.Measure == MeasureKind.EquivalentAging && units.Any(u => u.EquivalentAging is null) ? "the equivalent aging factor is defined for oil-immersed units only"
+                : e.Measure == MeasureKind.TopOil && units.All(u => u.Unit.Dry) ? "a dry-type unit has no top oil"
+                : null;
+            CapabilityResult? capability = null;
+            if (problem is null && e.Measure == MeasureKind.Capability)
+            {
+                var kind = e.Targets.Length > 1 && e.Targets[1].Name == "constant-load" ? CapabilityKind.ConstantLoad : CapabilityKind.CycleScale;
+                capability = r!.Capabilities.FirstOrDefault(c => c.Capability.Core == e.Targets[0].Name && c.Capability.Kind == kind);
+                problem = capability is null ? $"there is no 'capability {e.Targets[0].Name} {(kind == CapabilityKind.ConstantLoad ? "constant-load" : "cycle-scale")}' line"
+                    : capability.Value is null ? $"the capability was not found: {capability.Problem}"
+                    : capability.Beyond && !(double.IsPositiveInfinity(e.High) && capability.Value >= e.Low)
+                        ? $"the capability is beyond the search, at least {ThermalCapability.Shown(r, capability.Capability, capability.Value.Value)}" : null;
+            }
             if (problem is not null)
             {
                 diagnostics.ReportCannotCheck(e, problem);
@@ -249,12 +280,14 @@ public static class ThermalStudy
             var (value, time) = e.Measure switch
             {
                 MeasureKind.HotSpot => units.Select(u => (u.PeakHotSpot, u.PeakHotSpotTime)).MaxBy(x => x.Item1),
-                MeasureKind.TopOil => units.Select(u => (u.PeakTopOil, u.PeakTopOilTime)).MaxBy(x => x.Item1),
+                MeasureKind.TopOil => units.Where(u => !u.Unit.Dry).Select(u => (u.PeakTopOil, u.PeakTopOilTime)).MaxBy(x => x.Item1),
+                MeasureKind.EquivalentAging => (units.Max(u => u.EquivalentAging!.Value), double.NaN),
+                MeasureKind.Capability => (capability!.Value!.Value, double.NaN),
                 _ => (units.Max(u => u.LossOfLife), double.NaN),
             };
             var slack = 1e-9 * Math.Max(Math.Abs(double.IsFinite(e.Low) ? e.Low : 0), Math.Abs(double.IsFinite(e.High) ? e.High : 0));
             var passed = value >= e.Low - slack && value <= e.High + slack;
-            if (!passed) diagnostics.ReportCheckFailed(e, value, double.IsNaN(time) ? "over the day" : $"at {r!.Clock(time)}", [], 1, 1);
+            if (!passed) diagnostics.ReportCheckFailed(e, value, e.Measure == MeasureKind.Capability ? "" : double.IsNaN(time) ? "over the day" : $"at {r!.Clock(time)}", [], 1, 1);
             results.Add(new CheckResult(e, passed, value) { Min = value, Max = value, Failing = passed ? 0 : 1 });
         }
         return results.ToImmutable();

@@ -2,13 +2,17 @@ using System.Collections.Frozen;
 
 namespace WindingNotes.Syntax;
 
-public enum StatementKind { Frequency, Temperature, Let, Core, Winding, Tap, Brush, Impedance, NoLoad, Join, Ground, Supply, Load, Fault, Sweep, Expect, FailOn, Acknowledge, ThreePhaseSupply, ThreePhaseLoad, Thermal, LoadCycle, CyclePoint, TapChanger, Find, FaultStudy, BusFault }
+public enum StatementKind { Frequency, Temperature, Let, Core, Winding, Tap, Brush, Impedance, NoLoad, Join, Ground, Supply, Load, Fault, Sweep, Expect, FailOn, Acknowledge, ThreePhaseSupply, ThreePhaseLoad, Thermal, LoadCycle, CyclePoint, TapChanger, Find, FaultStudy, BusFault, Capability }
 
 /// <summary>What a name stands for. One namespace holds them all.</summary>
 public enum SymbolKind { Let, Core, Winding, Terminal, Tap, Brush, Node, Supply, Load, Fault, TapChanger }
 
 /// <summary>How a name in a statement is used: it defines a symbol or refers to one of some kinds.</summary>
-public sealed record NameRole(bool Defines, SymbolKind[] Kinds, string Label, bool AllowsSection = false);
+public sealed record NameRole(bool Defines, SymbolKind[] Kinds, string Label, bool AllowsSection = false)
+{
+    /// <summary>Words of the trade completion offers where no symbol stands (cooling modes, say).</summary>
+    public string[] Suggestions { get; init; } = [];
+}
 
 /// <summary>One element of a statement's form.</summary>
 public abstract record Part;
@@ -80,6 +84,15 @@ public static class Grammar
 
     /// <summary>The cautions a file may acknowledge (their wording is in Solve/Messages.cs).</summary>
     public static readonly string[] Cautions = ["caution-no-isolation", "caution-common-terminal", "caution-fuse-output", "caution-above-supply", "caution-fault-duty", "caution-hot-spot"];
+
+    /// <summary>
+    /// Cooling modes by their codes (IEC 60076-2 for oil-immersed units: oil natural or forced (directed),
+    /// air natural or forced; IEC 60076-11 for dry-type units: air natural, air forced).
+    /// </summary>
+    public static readonly string[] CoolingModes = ["ONAN", "ONAF", "OF", "OD", "AN", "AF"];
+
+    /// <summary>What a thermal capability is the largest of: one load held all day, or a multiple of the cycle's loads.</summary>
+    private static readonly ChoicePart CapabilityKind = new("'constant-load' or 'cycle-scale'", "constant-load", "cycle-scale");
 
     /// <summary>What an 'expect' or a 'find' measures (one of them).</summary>
     private static readonly ClauseForm[] Measures =
@@ -204,6 +217,8 @@ public static class Grammar
                 new("hot-spot", [new OptionalPart(new NamePart(CoreRef))], Group: "measure", Summary: "the highest hot-spot temperature over the load cycle, of one unit or of every unit with thermal data"),
                 new("top-oil", [new OptionalPart(new NamePart(CoreRef))], Group: "measure", Summary: "the highest top-oil temperature over the load cycle"),
                 new("loss-of-life", [new OptionalPart(new NamePart(CoreRef))], Group: "measure", Summary: "the insulation life used over the day of the load cycle, in hours at the reference ageing rate"),
+                new("equivalent-aging", [new OptionalPart(new NamePart(CoreRef))], Group: "measure", Summary: "the equivalent aging factor FEQA over the day of the load cycle (IEEE C57.91): the mean of the aging acceleration factor"),
+                new("capability", [new NamePart(CoreRef), CapabilityKind], Group: "measure", Summary: "the thermal capability a 'capability' line finds: the largest constant load or multiple of the cycle"),
                 new("position", [new NamePart(Use("a tap changer name", SymbolKind.TapChanger))], Group: "measure", Summary: "the position a tap changer is set to or settles on"),
                 new("positive-sequence", [new NamePart(WindingRef), new NamePart(WindingRef)], Group: "measure",
                     Summary: "the positive-sequence short-circuit impedance of a three-phase unit: the first winding energised, the second short-circuited, the others open"),
@@ -254,8 +269,11 @@ public static class Grammar
             "three-phase-load mill X1 X2 X3 wye X0 power 300 kW pf 0.85", "a three-phase load, wye or delta", ["connection", "demand"]),
         new(StatementKind.Thermal, "thermal", [new NamePart(CoreRef)],
             [
-                new("cooling", [new NamePart(new NameRole(false, [], "a cooling mode: ONAN, ONAF, OF or OD"))], Required: true, Summary: "the cooling mode"),
-                new("top-oil-rise", [Value], Required: true, Summary: "the top-oil rise over ambient at rated load"),
+                new("cooling", [new NamePart(new NameRole(false, [], "a cooling mode: ONAN, ONAF, OF, OD, or AN, AF for a dry-type unit") { Suggestions = CoolingModes }),
+                    new OptionalPart(new WordPart("class"), new ValuePart("an insulation system temperature"))],
+                    Required: true, Summary: "the cooling mode; a dry-type unit (AN, AF) also its insulation system temperature, such as class 155 degC"),
+                new("top-oil-rise", [Value], Group: "rise", Summary: "the top-oil rise over ambient at rated load (an oil-immersed unit)"),
+                new("winding-rise", [Value], Group: "rise", Summary: "the average winding rise over ambient at rated load (a dry-type unit; its class's limit when left out)"),
                 new("hot-spot-gradient", [Value], Group: "gradient", Summary: "the hot-spot to top-oil gradient at rated current"),
                 new("hot-spot-factor", [Value, new WordPart("winding-gradient"), Value], Group: "gradient", Summary: "the hot-spot factor and the average winding to average oil gradient at rated current"),
                 Clause("loss-ratio", "load loss at rated current over no-load loss (from the windings' resistances and the no-load test when left out)", Value),
@@ -267,7 +285,7 @@ public static class Grammar
                 Clause("paper", "whether the winding paper is thermally upgraded", new ChoicePart("'upgraded' or 'non-upgraded'", "upgraded", "non-upgraded")),
             ],
             "thermal T1 cooling ONAN top-oil-rise 52 K hot-spot-gradient 26 K loss-ratio 6 paper upgraded",
-            "a unit's thermal data: its hot-spot and ageing are followed over the load cycle", ["gradient"]),
+            "a unit's thermal data: its hot-spot and ageing are followed over the load cycle"),
         new(StatementKind.LoadCycle, "load-cycle", [],
             [
                 Clause("of", "the let whose values the cycle points give (every load scaled by a per-unit value when left out)", new NamePart(Use("a let name", SymbolKind.Let))),
@@ -283,6 +301,14 @@ public static class Grammar
                 Clause("ambient", "the ambient temperature from this time on", Value),
             ],
             "cycle-point 18 h load 1.2 pu ambient 35 degC", "the load of the cycle from a time of day until the next cycle point"),
+        new(StatementKind.Capability, "capability", [new NamePart(CoreRef), CapabilityKind],
+            [
+                Clause("hot-spot", "the highest hot-spot temperature allowed (the load cycle's duty limit when left out)", Value),
+                Clause("top-oil", "the highest top-oil temperature allowed (the duty limit when left out; none for a dry-type unit)", Value),
+                Clause("loss-of-life", "the most insulation life the day may use, in hours at the reference ageing rate (no limit when left out)", Value),
+            ],
+            "capability T1 cycle-scale hot-spot 120 degC loss-of-life 24 h",
+            "the largest load held all day, or the largest multiple of the load cycle, that keeps a unit within its hot-spot, top-oil and ageing limits"),
         new(StatementKind.TapChanger, "tap-changer", [new NamePart(Def(SymbolKind.TapChanger, "a new tap changer name"))],
             [
                 new("on", [new NamePart(WindingRef)], Required: true, Summary: "the tapped winding (the one a reversing switch reverses)"),

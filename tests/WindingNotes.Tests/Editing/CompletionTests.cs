@@ -38,6 +38,7 @@ public class CompletionTests
     [InlineData("measure-target", "expect power $0")]
     [InlineData("condition", "expect loading HV $0")]
     [InlineData("value-names", "let vout = 1.1 * $0")]
+    [InlineData("cooling-modes", "thermal K1 cooling $0")]
     [InlineData("tap-winding", "tap T10 on $0")]
     [InlineData("section", "impedance HV:H1-T60 $0")]
     [InlineData("group-used", "load motor X1 H2 power 2 kW $0")]

@@ -27,7 +27,7 @@ public class DiagramTests
         foreach (var file in Files())
         {
             foreach (var kind in new[] { "network", "phasors" }) data.Add(Path.GetFileName(file), kind);
-            if (File.ReadAllText(file).Contains("\nsweep ")) data.Add(Path.GetFileName(file), "sweep");
+            if (File.ReadAllText(file) is var text && (text.Contains("\nsweep ") || text.Contains("\nload-cycle"))) data.Add(Path.GetFileName(file), "sweep");
         }
         return data;
     }

@@ -29,6 +29,8 @@ public static class SweepPlot
         var points = evaluation.Cases.Where(c => c.Case.IsSweepPoint).ToList();
         if (points.Count == 0)
         {
+            // A file with a load cycle and no sweep: its day is what varies.
+            if (evaluation.Thermal is { } day && evaluation.Model.Sweeps.IsEmpty) return Cycle(evaluation, day, results, out problem);
             problem = evaluation.Model.Sweeps.IsEmpty ? "the file has no sweep" : "the sweep was not run: see the file's diagnostics";
             return null;
         }
@@ -76,13 +78,46 @@ public static class SweepPlot
                 var label = ResultValues.Readable(path) + (group.Length > 0 ? $" ({group})" : "");
                 series.Add(new Series(path, label, unit ?? "", line, series.Count % Palette.Length));
             }
-        return Plot(evaluation, axis, xUnit, series);
+        var name = evaluation.Path.Length == 0 ? "standard input" : evaluation.Path;
+        var count = series.Count == 0 ? 0 : series.Max(s => s.Points.Count);
+        return Plot($"Sweep of {axis} in {name}", $"{count} point{(count == 1 ? "" : "s")} of the sweep; a gap where a point does not have the result.", $"{axis} ({UnitName(xUnit)})", xUnit, series, marks: true);
+    }
+
+    /// <summary>
+    /// The load cycle's day against the time of day: each unit's hot-spot and top oil (a dry-type
+    /// unit's average winding temperature) with the ambient in one panel, the load in another. Results
+    /// by name: 'hot-spot', 'top-oil', 'ambient', 'load' (all when left out).
+    /// </summary>
+    private static Drawing? Cycle(Evaluation evaluation, ThermalResult day, IReadOnlyList<string>? results, out string? problem)
+    {
+        problem = null;
+        string[] known = ["hot-spot", "top-oil", "ambient", "load"];
+        var wanted = results is { Count: > 0 } ? results : known;
+        if (wanted.FirstOrDefault(w => !known.Contains(w)) is { } unknown)
+        {
+            problem = $"no result of the load cycle is called '{unknown}': its results are {string.Join(", ", known)}";
+            return null;
+        }
+        var hours = day.Times.Select(t => t / 3600).ToList();
+        List<(double X, double Y)?> Line(IEnumerable<double> ys) => [.. hours.Zip(ys, (x, y) => ((double X, double Y)?)(x, y))];
+        var series = new List<Series>();
+        void Add(string label, string unit, IEnumerable<double> ys) => series.Add(new Series(label, label, unit, Line(ys), series.Count % Palette.Length));
+        foreach (var u in day.Units)
+        {
+            if (wanted.Contains("hot-spot")) Add($"{u.Unit.Core} hot-spot", "degC", u.HotSpot);
+            if (wanted.Contains("top-oil")) Add($"{u.Unit.Core} {(u.Unit.Dry ? "winding average" : "top oil")}", "degC", u.TopOil);
+        }
+        if (wanted.Contains("ambient")) Add("ambient", "degC", day.Ambient);
+        if (wanted.Contains("load")) Add($"load ({day.LoadUnit})", day.LoadUnit, day.Load);
+        var name = evaluation.Path.Length == 0 ? "standard input" : evaluation.Path;
+        return Plot($"Load cycle of {name}", $"the day after {day.Days - 1} days of the same cycle, a sample every {Numbers.Plain(day.Cycle.Step)} s; the load and ambient are those of the step ending at each sample.",
+            "time of day (h)", "h", series, marks: false);
     }
 
     private static Regex Glob(string pattern) =>
         new("^" + string.Join("[^.]*", pattern.Split('*').Select(Regex.Escape)) + "$", RegexOptions.CultureInvariant);
 
-    private static Drawing Plot(Evaluation evaluation, string axis, string xUnit, List<Series> series)
+    private static Drawing Plot(string title, string note, string axisLabel, string xUnit, List<Series> series, bool marks)
     {
         var svg = new Svg();
         var panels = series.GroupBy(s => s.Unit).ToList();
@@ -128,7 +163,7 @@ public static class SweepPlot
                         continue;
                     }
                     run.Add((X(point.X), Y(point.Y)));
-                    svg.Raw($"<circle cx=\"{Svg.N(X(point.X))}\" cy=\"{Svg.N(Y(point.Y))}\" r=\"2.3\" fill=\"{colour}\"/>");
+                    if (marks) svg.Raw($"<circle cx=\"{Svg.N(X(point.X))}\" cy=\"{Svg.N(Y(point.Y))}\" r=\"2.3\" fill=\"{colour}\"/>");
                 }
                 Flush();
                 legendY += 15;
@@ -141,15 +176,12 @@ public static class SweepPlot
         var bottom = y0 - PanelGap;
         foreach (var t in Ticks(xLow, xHigh, xStep))
             svg.Text(Tick(t, xUnit), X(t), bottom + 14, "tick", ValueSize, Anchor.Middle);
-        svg.Text($"{axis} ({UnitName(xUnit)})", Left + PlotWidth / 2, bottom + 32, "strong", NameSize, Anchor.Middle);
+        svg.Text(axisLabel, Left + PlotWidth / 2, bottom + 32, "strong", NameSize, Anchor.Middle);
 
         var width = legendX + 24 + series.Select(s => Svg.TextWidth(s.Label, NameSize)).DefaultIfEmpty(0).Max() + 24;
-        var name = evaluation.Path.Length == 0 ? "standard input" : evaluation.Path;
-        var title = $"Sweep of {axis} in {name}";
-        width = Math.Max(width, Svg.TextWidth(title, 13) + 48);
+        width = Math.Max(width, Math.Max(Svg.TextWidth(title, 13), Svg.TextWidth(note, ValueSize)) + 48);
         svg.Text(title, 24, 28, "title", 13);
-        var points = series.Count == 0 ? 0 : series.Max(s => s.Points.Count);
-        svg.Text($"{points} point{(points == 1 ? "" : "s")} of the sweep; a gap where a point does not have the result.", 24, 46, "note", ValueSize);
+        svg.Text(note, 24, 46, "note", ValueSize);
         var height = svg.Notes(24, Math.Max(bottom + 40, legendY + 10) + 13, width - 48) + 20;
         return new Drawing(svg.Document(width, height, Css), svg.TextBoxes, width, height);
     }
