@@ -51,10 +51,10 @@ internal static class ResultText
         if (c.Expect.Measure == Model.MeasureKind.VectorGroup) return $"{verdict}: {c.Shown ?? "no clock number"}";
         if (c.Points > 1 && c.Min is { } min && c.Max is { } max)
             return $"{verdict}: {Range(min, max, c.Expect.Unit)} over {c.Points} points";
-        return $"{verdict}: " + (c.Value is { } v ? DiagnosticBag.Show(v, c.Expect.Unit) : "cannot be measured");
+        return $"{verdict}: " + (c.Value is { } v ? SolveMessages.Show(v, c.Expect.Unit) : "cannot be measured");
     }
 
     /// <summary>"198.0 V to 240.2 V": a range in one unit (fractions as percent), ends in increasing order.</summary>
     public static string Range(double low, double high, string unit) =>
-        low == high ? DiagnosticBag.Show(low, unit) : $"{DiagnosticBag.Show(low, unit)} to {DiagnosticBag.Show(high, unit)}";
+        low == high ? SolveMessages.Show(low, unit) : $"{SolveMessages.Show(low, unit)} to {SolveMessages.Show(high, unit)}";
 }

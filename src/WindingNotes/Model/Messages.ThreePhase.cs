@@ -1,40 +1,44 @@
+using WindingNotes.Text;
 using WindingNotes.Syntax;
 
-namespace WindingNotes.Text;
+namespace WindingNotes.Model;
 
 // Messages of the binding stage about three-phase statements.
-public sealed partial class DiagnosticBag
+public static partial class ModelMessages
 {
-    public Diagnostic ReportPhaseNameTaken(Token owner, string name, TextSpan existing) =>
-        Error("duplicate-name", owner.Span, $"'{owner.Text}' names its phase elements '{name}' and so on, but '{name}' is already defined")
-            is var d ? Amend(d, x => x with { Hints = [new DiagnosticHint($"'{name}' is defined here", existing, null)] }) : d;
+    extension(DiagnosticBag bag)
+    {
+        public Diagnostic ReportPhaseNameTaken(Token owner, string name, TextSpan existing) =>
+            bag.Error("duplicate-name", owner.Span, $"'{owner.Text}' names its phase elements '{name}' and so on, but '{name}' is already defined")
+                is var d ? bag.Amend(d, x => x with { Hints = [new DiagnosticHint($"'{name}' is defined here", existing, null)] }) : d;
 
-    public Diagnostic ReportBankZeroSequence(TextSpan span) =>
-        Error("out-of-bounds", span, "a bank's three cores share no flux: its zero-sequence magnetising impedance is each core's own, from its 'no-load' test");
+        public Diagnostic ReportBankZeroSequence(TextSpan span) =>
+            bag.Error("out-of-bounds", span, "a bank's three cores share no flux: its zero-sequence magnetising impedance is each core's own, from its 'no-load' test");
 
-    public Diagnostic ReportNeedsConnection(Token winding, string core) =>
-        Error("missing-clause", winding.Span, $"'{core}' is a three-phase core: give '{winding.Text}' a connection ('wye', 'delta', 'zigzag', 'series' or 'ends'), or put it on one limb ('{core}_a')");
+        public Diagnostic ReportNeedsConnection(Token winding, string core) =>
+            bag.Error("missing-clause", winding.Span, $"'{core}' is a three-phase core: give '{winding.Text}' a connection ('wye', 'delta', 'zigzag', 'series' or 'ends'), or put it on one limb ('{core}_a')");
 
-    public Diagnostic ReportConnectionOnSinglePhase(Token keyword, string core) =>
-        Error("wrong-kind", keyword.Span, $"'{keyword.Text}' connects three phase windings; '{core}' is a single-phase core (give it a 'construction')");
+        public Diagnostic ReportConnectionOnSinglePhase(Token keyword, string core) =>
+            bag.Error("wrong-kind", keyword.Span, $"'{keyword.Text}' connects three phase windings; '{core}' is a single-phase core (give it a 'construction')");
 
-    public Diagnostic ReportPhaseImpedance(TextSpan span) =>
-        Error("wrong-kind", span, "an impedance between three-phase windings holds on each limb: name two three-phase windings, neither a zigzag, or give it per phase winding (HV_a LV_a)");
+        public Diagnostic ReportPhaseImpedance(TextSpan span) =>
+            bag.Error("wrong-kind", span, "an impedance between three-phase windings holds on each limb: name two three-phase windings, neither a zigzag, or give it per phase winding (HV_a LV_a)");
 
-    public Diagnostic ReportVectorGroupPair(TextSpan span) =>
-        Error("wrong-kind", span, "'vector-group' goes with 'is' and a connection symbol, and 'is' with 'vector-group'");
+        public Diagnostic ReportVectorGroupPair(TextSpan span) =>
+            bag.Error("wrong-kind", span, "'vector-group' goes with 'is' and a connection symbol, and 'is' with 'vector-group'");
 
-    public Diagnostic ReportNotThreePhase(Token name, string core) =>
-        Error("wrong-kind", name.Span, $"'{core}' is a single-phase core; a vector group belongs to a three-phase core");
+        public Diagnostic ReportNotThreePhase(Token name, string core) =>
+            bag.Error("wrong-kind", name.Span, $"'{core}' is a single-phase core; a vector group belongs to a three-phase core");
 
-    public Diagnostic ReportNamePhase(Token name, string element) =>
-        Error("wrong-kind", name.Span, $"'{element}' is three-phase here: name one of its phases ('{element}_a', '{element}_b' or '{element}_c')");
+        public Diagnostic ReportNamePhase(Token name, string element) =>
+            bag.Error("wrong-kind", name.Span, $"'{element}' is three-phase here: name one of its phases ('{element}_a', '{element}_b' or '{element}_c')");
 
-    public Diagnostic ReportNoZeroSequence(TextSpan span, string core) =>
-        Warning("zero-sequence-unknown", span, $"three-limb core '{core}' has no 'zero-sequence' magnetising impedance: its limbs are taken as uncoupled, as in a bank, which overstates the zero-sequence magnetising impedance");
+        public Diagnostic ReportNoZeroSequence(TextSpan span, string core) =>
+            bag.Warning("zero-sequence-unknown", span, $"three-limb core '{core}' has no 'zero-sequence' magnetising impedance: its limbs are taken as uncoupled, as in a bank, which overstates the zero-sequence magnetising impedance");
 
-    public Diagnostic ReportNoClockNumber(TextSpan span, string problem) => Warning("no-clock-number", span, problem);
+        public Diagnostic ReportNoClockNumber(TextSpan span, string problem) => bag.Warning("no-clock-number", span, problem);
 
-    public Diagnostic ReportSequenceWinding(Token name, string problem) =>
-        Error("wrong-kind", name.Span, $"'{name.Text}' {problem}");
+        public Diagnostic ReportSequenceWinding(Token name, string problem) =>
+            bag.Error("wrong-kind", name.Span, $"'{name.Text}' {problem}");
+    }
 }

@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Net;
 using System.Text;
+using WindingNotes.Solve;
 using WindingNotes.Text;
 
 namespace WindingNotes.Report;
@@ -219,7 +220,7 @@ public static class DiffReport
     private static string Show(double? value, string unit) => value is not { } v ? "-" : unit switch
     {
         "deg" => $"{v:F2} deg".Replace("-0.00 deg", "0.00 deg"),
-        _ => DiagnosticBag.Show(v, unit),
+        _ => SolveMessages.Show(v, unit),
     };
 
     /// <summary>

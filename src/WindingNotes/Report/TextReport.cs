@@ -176,11 +176,11 @@ public static class TextReport
     {
         if (check.Expect.Measure == MeasureKind.VectorGroup) return check.Shown ?? "";
         if (check.Value is not { } v) return "";
-        var value = DiagnosticBag.Show(v, check.Expect.Unit);
+        var value = SolveMessages.Show(v, check.Expect.Unit);
         if ((check.Points > 1 || check.Min != check.Max) && check.Min is { } min && check.Max is { } max)
-            value += $"; {DiagnosticBag.Show(min, check.Expect.Unit)} to {DiagnosticBag.Show(max, check.Expect.Unit)} over {check.Points} point{(check.Points == 1 ? "" : "s")}{(check.Min != check.Max && check.Points == 1 ? " and the tolerance band" : "")}";
+            value += $"; {SolveMessages.Show(min, check.Expect.Unit)} to {SolveMessages.Show(max, check.Expect.Unit)} over {check.Points} point{(check.Points == 1 ? "" : "s")}{(check.Min != check.Max && check.Points == 1 ? " and the tolerance band" : "")}";
         if (!check.Failures.IsEmpty && check.Points > 1)
-            value += $"; fails at {check.Failing}: {DiagnosticBag.ListPoints(check.Failures)}";
+            value += $"; fails at {check.Failing}: {SolveMessages.ListPoints(check.Failures)}";
         return value;
     }
 

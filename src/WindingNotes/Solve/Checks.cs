@@ -228,7 +228,7 @@ public sealed class CheckTally(ImmutableArray<ExpectModel> expects)
             if (e.Problem is { } problem) diagnostics.ReportCannotCheck(e.Expect, problem);
             else if (e.Failing > 0 && e.Expect.Measure == MeasureKind.VectorGroup) diagnostics.ReportVectorGroupFailed(e.Expect, e.Shown);
             else if (e.Failing > 0 && e.WorstValue is { } worst) diagnostics.ReportCheckFailed(e.Expect, worst, e.WorstWhere, e.Failures, e.Failing, points);
-            else if (e.Failing > 0) diagnostics.ReportCannotCheck(e.Expect, $"not solved at {DiagnosticBag.ListPoints(e.Failures)}");
+            else if (e.Failing > 0) diagnostics.ReportCannotCheck(e.Expect, $"not solved at {SolveMessages.ListPoints(e.Failures)}");
             results.Add(result);
         }
         return results.ToImmutable();

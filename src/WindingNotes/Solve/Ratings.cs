@@ -116,7 +116,7 @@ public sealed class RatingTally
         foreach (var id in order)
         {
             var f = findings[id];
-            var where = DiagnosticBag.PointsText(f.Where, f.Count, points);
+            var where = SolveMessages.PointsText(f.Where, f.Count, points);
             switch (f.Code)
             {
                 case "loading-high": diagnostics.ReportLoadingHigh(f.Span, f.Name, f.Value, where); break;

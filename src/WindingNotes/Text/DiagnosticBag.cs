@@ -4,10 +4,12 @@ using System.Collections.Immutable;
 namespace WindingNotes.Text;
 
 /// <summary>
-/// Collects diagnostics. The wording of every message lives in a <c>Messages.cs</c> of the stage that
-/// reports it (Syntax/, Model/, Solve/), one <c>ReportX</c> method a message, all in this one class.
+/// Collects diagnostics. The wording of every message lives with the stage that reports it: each
+/// stage's <c>Messages*.cs</c> (Syntax/, Model/, Solve/) adds one <c>ReportX</c> extension member a
+/// message, in its own namespace, built on <see cref="Error"/>, <see cref="Warning"/> and <see cref="Info"/>;
+/// this class knows no stage's types.
 /// </summary>
-public sealed partial class DiagnosticBag : IEnumerable<Diagnostic>
+public sealed class DiagnosticBag : IEnumerable<Diagnostic>
 {
     private readonly List<Diagnostic> items = [];
 
@@ -25,11 +27,11 @@ public sealed partial class DiagnosticBag : IEnumerable<Diagnostic>
 
     IEnumerator IEnumerable.GetEnumerator() => GetEnumerator();
 
-    private Diagnostic Error(string code, TextSpan span, string message) => Put(Severity.Error, code, span, message);
+    public Diagnostic Error(string code, TextSpan span, string message) => Put(Severity.Error, code, span, message);
 
-    private Diagnostic Warning(string code, TextSpan span, string message) => Put(Severity.Warning, code, span, message);
+    public Diagnostic Warning(string code, TextSpan span, string message) => Put(Severity.Warning, code, span, message);
 
-    private Diagnostic Info(string code, TextSpan span, string message) => Put(Severity.Information, code, span, message);
+    public Diagnostic Info(string code, TextSpan span, string message) => Put(Severity.Information, code, span, message);
 
     private Diagnostic Put(Severity severity, string code, TextSpan span, string message)
     {
@@ -55,7 +57,7 @@ public sealed partial class DiagnosticBag : IEnumerable<Diagnostic>
         (char.IsControl(c) && c is not ('\t' or '\n')) || char.GetUnicodeCategory(c) == System.Globalization.UnicodeCategory.Format;
 
     /// <summary>Replaces the last diagnostic with a copy (to attach hints or related spans).</summary>
-    private Diagnostic Amend(Diagnostic diagnostic, Func<Diagnostic, Diagnostic> change)
+    public Diagnostic Amend(Diagnostic diagnostic, Func<Diagnostic, Diagnostic> change)
     {
         var index = items.LastIndexOf(diagnostic);
         var changed = change(diagnostic);
@@ -63,7 +65,7 @@ public sealed partial class DiagnosticBag : IEnumerable<Diagnostic>
         return changed;
     }
 
-    private Diagnostic WithSuggestion(Diagnostic diagnostic, string? suggestion, TextSpan span) =>
+    public Diagnostic WithSuggestion(Diagnostic diagnostic, string? suggestion, TextSpan span) =>
         suggestion is null
             ? diagnostic
             : Amend(diagnostic, d => d with { Hints = [new DiagnosticHint($"did you mean '{suggestion}'?", span, suggestion)] });
