@@ -20,9 +20,10 @@ internal sealed class Publisher(DocumentWorkspace workspace, Func<PublishDiagnos
     private readonly HashSet<string> busy = [];
     private readonly HashSet<string> dirty = [];
 
-    // As many documents evaluated at once as there are cores: more only share the cores and hold
-    // their half-built evaluations in memory together (50 opened at once would otherwise all run).
-    private readonly SemaphoreSlim evaluating = new(Environment.ProcessorCount);
+    // As many documents evaluated at once as there are cores, and at most four: more only share the
+    // cores and hold their half-built evaluations in memory together (50 opened at once would
+    // otherwise all run), and the memory the server needs must not grow with the machine's cores.
+    private readonly SemaphoreSlim evaluating = new(Math.Min(Environment.ProcessorCount, 4));
 
     // Publishing one at a time, with the version each document was last published at: results shown
     // from an earlier version while a long evaluation runs never follow the current version's.
