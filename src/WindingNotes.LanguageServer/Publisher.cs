@@ -1,4 +1,5 @@
 using System.Diagnostics;
+using StreamJsonRpc;
 using WindingNotes.LanguageServer.Protocol;
 using WindingNotes.Workspace;
 
@@ -9,7 +10,9 @@ namespace WindingNotes.LanguageServer;
 /// latest version; changes that arrive meanwhile cancel the stale evaluation (the workspace does)
 /// and are coalesced into one more pass, so a burst of a thousand changes costs a few evaluations
 /// and the latest version always wins. Publishes for a document come from its one worker, in order;
-/// a closed document gets its diagnostics cleared.
+/// a closed document gets its diagnostics cleared. Once the connection is <see cref="Close">closed</see>
+/// nothing more is sent, and a send that the close overtook (its connection disposed under it) ends
+/// quietly: the client has gone, there is no one to tell.
 /// </summary>
 internal sealed class Publisher(DocumentWorkspace workspace, Func<PublishDiagnosticsParams, Task> publish, TimeSpan debounce, TraceSource trace)
 {
@@ -17,27 +20,33 @@ internal sealed class Publisher(DocumentWorkspace workspace, Func<PublishDiagnos
     private readonly HashSet<string> busy = [];
     private readonly HashSet<string> dirty = [];
 
-    // As many documents evaluated at once as there are cores: more only share the cores and hold
-    // their half-built evaluations in memory together (50 opened at once would otherwise all run).
-    private readonly SemaphoreSlim evaluating = new(Environment.ProcessorCount);
+    // As many documents evaluated at once as there are cores, and at most four: more only share the
+    // cores and hold their half-built evaluations in memory together (50 opened at once would
+    // otherwise all run), and the memory the server needs must not grow with the machine's cores.
+    private readonly SemaphoreSlim evaluating = new(Math.Min(Environment.ProcessorCount, 4));
 
     // Publishing one at a time, with the version each document was last published at: results shown
     // from an earlier version while a long evaluation runs never follow the current version's.
     private readonly SemaphoreSlim sending = new(1, 1);
     private readonly Dictionary<string, int> published = [];
+    private volatile bool closed;
 
-    public void Changed(string uri)
+    /// <summary>Marks the document for publishing; the task is its worker's (already done when a worker runs and will pass again).</summary>
+    public Task Changed(string uri)
     {
         lock (gate)
         {
             if (!busy.Add(uri))
             {
                 dirty.Add(uri);
-                return;
+                return Task.CompletedTask;
             }
         }
-        _ = Task.Run(() => Work(uri));
+        return Task.Run(() => Work(uri));
     }
+
+    /// <summary>The connection has ended (or is about to be disposed): from now on sending is a no-op.</summary>
+    public void Close() => closed = true;
 
     private async Task Work(string uri)
     {
@@ -92,14 +101,25 @@ internal sealed class Publisher(DocumentWorkspace workspace, Func<PublishDiagnos
     public Task Stale(string uri, Evaluation shown, int version) =>
         Send(uri, version, () => workspace.Find(uri) is { } d && published.GetValueOrDefault(uri, int.MinValue) < d.Version ? Conversion.ToLsp(shown, uri, version) : null);
 
+    /// <summary>Never throws: a fault is traced, and after <see cref="Close"/> nothing is sent or traced.</summary>
     private async Task Send(string uri, int version, Func<PublishDiagnosticsParams?> message)
     {
         await sending.WaitAsync();
         try
         {
-            if (message() is not { } p) return;
+            if (closed || message() is not { } p) return;
             published[uri] = version;
             await publish(p);
+        }
+        catch (Exception e) when (closed || e is ObjectDisposedException or ConnectionLostException)
+        {
+            // The connection closed while this was being sent (its stream or JsonRpc disposed, or the
+            // client's end gone before the server noticed): nothing more will reach the client.
+            closed = true;
+        }
+        catch (Exception e)
+        {
+            trace.TraceEvent(TraceEventType.Error, 0, $"publishing diagnostics of {uri} failed: {e}");
         }
         finally
         {

@@ -91,6 +91,8 @@ public sealed partial class Server
             rpc.AddLocalRpcMethod(route.Target, route, new JsonRpcMethodAttribute(route.Method) { UseSingleObjectParameterDeserialization = true });
         rpc.StartListening();
         var ended = await Task.WhenAny(server.exited.Task, rpc.Completion.ContinueWith(_ => 0, TaskScheduler.Default));
+        // Before the connection is disposed: a publish still on its way then ends quietly.
+        server.publisher.Close();
         if (ended != server.exited.Task) return server.shuttingDown ? 0 : 1;
         return await server.exited.Task;
     }
@@ -230,7 +232,7 @@ public sealed partial class Server
     {
         var d = p.TextDocument;
         workspace.Open(d.Uri, Conversion.PathOf(d.Uri), d.Version, d.Text);
-        publisher.Changed(d.Uri);
+        _ = publisher.Changed(d.Uri);
     }
 
     private void DidChange(DidChangeTextDocumentParams p)
@@ -252,12 +254,12 @@ public sealed partial class Server
             text = string.Concat(text.AsSpan(0, start), change.Text, text.AsSpan(end));
         }
         workspace.Update(uri, p.TextDocument.Version, text);
-        publisher.Changed(uri);
+        _ = publisher.Changed(uri);
     }
 
     private void DidClose(DidCloseTextDocumentParams p)
     {
         workspace.Close(p.TextDocument.Uri);
-        publisher.Changed(p.TextDocument.Uri);
+        _ = publisher.Changed(p.TextDocument.Uri);
     }
 }

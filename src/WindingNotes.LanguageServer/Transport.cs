@@ -67,7 +67,7 @@ internal sealed class LspMessageHandler(Stream sending, Stream receiving, System
             catch (Exception e) when (e is JsonException or InvalidOperationException or NotSupportedException or FormatException or KeyNotFoundException or ArgumentException or InvalidCastException)
             {
                 report($"skipped a message that is not JSON-RPC: {e.Message}");
-                await WriteAsync(ErrorFor(body, e), cancellationToken);
+                await Answer(ErrorFor(body, e), cancellationToken);
                 continue;
             }
             // The server sends no requests, so a response from the client answers nothing: it is dropped.
@@ -76,9 +76,46 @@ internal sealed class LspMessageHandler(Stream sending, Stream receiving, System
                 report("skipped a response to a request the server never sent");
                 continue;
             }
+            if (message is JsonRpcRequest { IsResponseExpected: true } request && !Answering(request.RequestId))
+            {
+                report($"skipped a request whose id {request.RequestId} is still being answered");
+                await Answer(new JsonRpcError
+                {
+                    RequestId = request.RequestId,
+                    Error = new JsonRpcError.ErrorDetail { Code = JsonRpcErrorCode.InvalidRequest, Message = $"a request with the id {request.RequestId} is still being answered" },
+                }, cancellationToken);
+                continue;
+            }
             return message;
         }
         return null;
+    }
+
+    // The ids of the requests being answered. A request that reuses one (a fault of the client) is
+    // answered with an error here: StreamJsonRpc's dispatcher throws on it and the connection closes.
+    // An answer this reader writes itself (to a message it skipped) does not end the request in flight.
+    private readonly Lock ids = new();
+    private readonly HashSet<RequestId> answering = [];
+    private readonly HashSet<JsonRpcMessage> ownAnswers = new(ReferenceEqualityComparer.Instance);
+
+    /// <summary>Marks the id as being answered; false when a request with it is already.</summary>
+    private bool Answering(RequestId id)
+    {
+        lock (ids) return answering.Add(id);
+    }
+
+    private ValueTask Answer(JsonRpcError error, CancellationToken cancel)
+    {
+        lock (ids) ownAnswers.Add(error);
+        return WriteAsync(error, cancel);
+    }
+
+    protected override void Write(JsonRpcMessage content, CancellationToken cancellationToken)
+    {
+        if (content is IJsonRpcMessageWithId { RequestId: var id } and (JsonRpcResult or JsonRpcError))
+            lock (ids)
+                if (!ownAnswers.Remove(content)) answering.Remove(id);
+        base.Write(content, cancellationToken);
     }
 
     /// <summary>

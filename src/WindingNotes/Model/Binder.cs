@@ -97,6 +97,8 @@ internal sealed partial class BindRun
         if (!statements.Concat(broken).Any(s => s.Kind == StatementKind.Frequency) && statements.Count > 0)
             diagnostics.ReportNoFrequency(tree.Lines[0].Span);
         CheckLonelyNodes();
+        foreach (var name in laterUses)
+            if (symbols.Find(name.Text) is { } symbol) symbols.Reference(name.Name.Span, symbol);
         // Points the three-phase statements made (star points) come after the author's, so a node keeps the author's name.
         var points = symbols.References
             .Where(r => r.Symbol.IsConnectionPoint)
@@ -203,11 +205,23 @@ internal sealed partial class BindRun
                 symbol = new Symbol(name.Text, SymbolKind.Node, name.Name.Span, default);
                 symbols.TryDefine(symbol, out _);
             }
-            if (symbol is null) continue;
+            if (symbol is null)
+            {
+                laterUses.Add(name);
+                continue;
+            }
             symbols.Reference(name.Name.Span, symbol);
             brokenUses.Add(symbol);
         }
     }
+
+    /// <summary>
+    /// Uses on a broken line of a name nothing had defined when they were read: a free node that a
+    /// later statement makes is still used there, so a rename changes it too (the fuzzer found a
+    /// rename of a node that left a broken 'sweep' line naming it behind). Referenced after the
+    /// diagnostics, which they do not change.
+    /// </summary>
+    private readonly List<NameSyntax> laterUses = [];
 
     /// <summary>
     /// A name on a line with an error that no part of its statement holds (tokens passed over after

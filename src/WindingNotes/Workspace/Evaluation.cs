@@ -74,7 +74,7 @@ public static class Evaluator
     /// the evaluation stops with a <c>time-limit</c> error and keeps what was complete.
     /// </summary>
     /// <param name="progress">Told how far a long run (sweeps, tolerance samples) has come; the front end decides how to show it.</param>
-    /// <param name="timeLimit">Wall-clock budget; <see cref="DefaultTimeLimit"/> when null, none with <see cref="Timeout.InfiniteTimeSpan"/>.</param>
+    /// <param name="timeLimit">Budget of processor time on the calling thread (wall-clock time where the platform cannot tell it, <see cref="TimeBudget"/>); <see cref="DefaultTimeLimit"/> when null, none with <see cref="Timeout.InfiniteTimeSpan"/>.</param>
     public static Evaluation Evaluate(string text, string path = "", CancellationToken cancel = default, Action<StudyProgress>? progress = null, TimeSpan? timeLimit = null)
     {
         using var budget = new TimeBudget(timeLimit ?? DefaultTimeLimit, cancel);

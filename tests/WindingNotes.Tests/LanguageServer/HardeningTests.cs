@@ -137,4 +137,32 @@ public class HardeningTests
         await pipe.Notify("textDocument/didClose", "{\"textDocument\":{\"uri\":\"" + Slow + "\"}}");
         Assert.Equal(0, await pipe.ShutDown());
     }
+
+    [Fact]
+    public async Task A_request_that_reuses_the_id_of_one_still_being_answered_gets_an_error_and_the_connection_stays()
+    {
+        // Found by the server stream fuzzer run on one connection: StreamJsonRpc's dispatcher threw on
+        // the second request of one id, and no request after it was answered.
+        await using var pipe = await LspPipe.Initialized();
+        const string Slow = "file:///work/slow.wn";
+        var text = Cursor.Example("alder-creek-boost.wn");
+        // A million points, each a bind and a solve: the hover on it waits for that evaluation.
+        await pipe.Open(Slow, text.Replace("supply mains H1 H2 208 V", "let vs = 208 V\nsupply mains H1 H2 vs") + "sweep vs from 200 V to 216 V points 1000000\n");
+        await pipe.SendRaw($"{{\"jsonrpc\":\"2.0\",\"id\":900001,\"method\":\"textDocument/hover\",\"params\":{LspPipe.At(Slow, 5, 9)}}}");
+        await pipe.SendRaw($"{{\"jsonrpc\":\"2.0\",\"id\":900001,\"method\":\"textDocument/hover\",\"params\":{LspPipe.At(Slow, 5, 9)}}}");
+        var refused = await pipe.Next(null, m => (long?)m["id"] == 900001);
+        Assert.Equal(-32600, Code(refused));
+        Assert.Equal("a request with the id 900001 is still being answered", (string?)refused["error"]!["message"]);
+        await pipe.Open(Uri, text);
+        var hover = await pipe.Request("textDocument/hover", LspPipe.At(Uri, 5, 9));
+        Assert.Contains("17.11 A", (string?)hover!["contents"]!["value"]);
+        // Closing the slow document cancels its study: the first request is answered, and its id may be used again.
+        await pipe.Notify("textDocument/didClose", "{\"textDocument\":{\"uri\":\"" + Slow + "\"}}");
+        await pipe.Next(null, m => (long?)m["id"] == 900001);
+        await pipe.SendRaw($"{{\"jsonrpc\":\"2.0\",\"id\":900001,\"method\":\"textDocument/hover\",\"params\":{LspPipe.At(Uri, 5, 9)}}}");
+        var again = await pipe.Next(null, m => (long?)m["id"] == 900001);
+        Assert.Contains("17.11 A", (string?)again["result"]!["contents"]!["value"]);
+        Assert.Equal(0, await pipe.ShutDown());
+        Assert.DoesNotContain("same key", pipe.Log.ToString());
+    }
 }

@@ -18,23 +18,37 @@ namespace WindingNotes.Tests.Robustness;
 /// lies in their range; semantic tokens in order; formatting that is idempotent and keeps the
 /// statements; a rename that keeps the model's shape. <see cref="Step"/> says where it is, for a hang.
 /// </summary>
-public sealed class FuzzTarget(FuzzInput input, TimeSpan timeLimit, CancellationToken cancel)
+public sealed class FuzzTarget(FuzzInput input, TimeSpan timeLimit, TimeSpan giveUp)
 {
     private readonly List<string> problems = [];
     private readonly Random random = new(input.Seed);
+    private CancellationToken cancel;
 
     public volatile string Step = "start";
 
     public IReadOnlyList<string> Problems => problems;
 
+    /// <summary>True when the input worked past <c>giveUp</c> (processor time of its thread) and was cancelled.</summary>
+    public bool Overran { get; private set; }
+
     public void Run()
     {
-        var evaluation = Do("evaluate", () => Evaluator.Evaluate(input.Text, "fuzz.wn", cancel, timeLimit: timeLimit));
-        if (evaluation is null) return;
-        Diagnostics(evaluation);
-        Reports(evaluation);
-        Formatting(evaluation);
-        Editor(evaluation);
+        // Made on this thread: it counts this thread's processor time, as the evaluation's own limit does.
+        using var watch = new WindingNotes.Solve.TimeBudget(giveUp);
+        cancel = watch.Token;
+        try
+        {
+            var evaluation = Do("evaluate", () => Evaluator.Evaluate(input.Text, "fuzz.wn", cancel, timeLimit: timeLimit));
+            if (evaluation is null) return;
+            Diagnostics(evaluation);
+            Reports(evaluation);
+            Formatting(evaluation);
+            Editor(evaluation);
+        }
+        finally
+        {
+            Overran = watch.Exceeded;
+        }
     }
 
     private T? Do<T>(string step, Func<T> action)

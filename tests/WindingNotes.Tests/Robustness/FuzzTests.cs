@@ -1,6 +1,5 @@
 using System.Collections.Concurrent;
 using System.Diagnostics;
-using WindingNotes.Tests.Support;
 using Xunit;
 using Xunit.Abstractions;
 
@@ -85,33 +84,25 @@ public class FuzzTests(ITestOutputHelper output)
 }
 
 /// <summary>
-/// Runs one input on a thread of its own, so a hang is reported instead of holding up the run. The
-/// budget is the processor time the input's thread spends through every stage, so a loaded machine
-/// does not fail an input that is not slow; the evaluation keeps its own time limit, and a wall-clock
-/// deadline, far beyond the budget, cancels the input and then gives up on it when even
-/// cancellation does not bring it back.
+/// Runs one input on a thread of its own, so a hang is reported instead of holding up the run: the
+/// evaluation has a time limit, and the target cancels itself when it has worked well past that limit
+/// (both in processor time of its thread, so a loaded machine does not make a slow input of a quick
+/// one); a thread that does not come back even in wall-clock minutes (waiting on something, using no
+/// processor time) is given up on as hung. A thread costs about a tenth of a millisecond against the
+/// tens of milliseconds an input's work takes (RESULTS.md, long fuzz run).
 /// </summary>
 public static class FuzzRunner
 {
     public static string? Run(FuzzInput input)
     {
         var limit = TimeSpan.FromSeconds(input.IsLarge ? 20 : 1);
-        var budget = limit + TimeSpan.FromSeconds(input.IsLarge ? 60 : 10);
-        using var cancel = new CancellationTokenSource(budget * 5);
-        var target = new FuzzTarget(input, limit, cancel.Token);
-        var used = TimeSpan.Zero;
+        var target = new FuzzTarget(input, limit, limit + TimeSpan.FromSeconds(input.IsLarge ? 60 : 10));
         // The default stack, as the language server's and the command's threads have: a deep recursion must fail here too.
-        var thread = new Thread(() =>
-        {
-            var start = ThreadClock.Now;
-            target.Run();
-            used = ThreadClock.Now - start;
-        }) { IsBackground = true, Name = $"fuzz {input.Seed}" };
+        var thread = new Thread(target.Run) { IsBackground = true, Name = $"fuzz {input.Seed}" };
         thread.Start();
-        var done = thread.Join(budget * 5 + TimeSpan.FromSeconds(input.IsLarge ? 180 : 30));
+        var done = thread.Join(TimeSpan.FromMinutes(input.IsLarge ? 30 : 10));
         var problems = done ? target.Problems.ToList() : [$"hung in step '{target.Step}'"];
-        if (done && problems.Count == 0 && used > budget) problems.Add($"took {used.TotalSeconds:F1} s of processor time, past its budget of {budget.TotalSeconds:F0} s");
-        if (done && cancel.IsCancellationRequested && problems.Count == 0) problems.Add("ran past its time limit until the test cancelled it");
+        if (done && target.Overran && problems.Count == 0) problems.Add("ran past its time limit until the test cancelled it");
         if (problems.Count == 0) return null;
         return $"seed {input.Seed} ({input.BaseName}: {input.Recipe}):\n  " + string.Join("\n  ", problems.Take(5).Select(p => p.Length > 3000 ? p[..3000] + "…" : p))
             + (input.Text.Length <= 3000 ? $"\n--- input ---\n{input.Text}\n---" : $"\n--- input of {input.Text.Length} characters ---");

@@ -1,4 +1,5 @@
 using System.Text;
+using System.Text.Json.Nodes;
 using WindingNotes.Tests.LanguageServer;
 using WindingNotes.Tests.Support;
 using Xunit;
@@ -12,7 +13,7 @@ namespace WindingNotes.Tests.Robustness;
 /// garbage between frames, bodies shorter or longer than said, responses to ids never sent,
 /// parameters of the wrong shape, null texts in changes), mixed with good requests and edits. After
 /// each sequence a good request must be answered and the trace hold no fault of the server.
-/// CI runs 40 sequences; <c>WN_SERVER_FUZZ=N</c> runs N.
+/// CI runs 40 sequences; <c>WN_SERVER_FUZZ=N</c> runs N, from seed <c>WN_FUZZ_SEED</c> (0).
 /// </summary>
 public class ServerStreamFuzzTests(ITestOutputHelper output)
 {
@@ -58,22 +59,38 @@ public class ServerStreamFuzzTests(ITestOutputHelper output)
     public async Task Fuzzed_message_streams_never_close_the_connection_or_lose_the_next_answer()
     {
         var count = int.TryParse(Environment.GetEnvironmentVariable("WN_SERVER_FUZZ"), out var n) ? n : 40;
+        var first = int.TryParse(Environment.GetEnvironmentVariable("WN_FUZZ_SEED"), out var s) ? s : 0;
         var text = Cursor.Example("alder-creek-boost.wn");
         var messages = 0;
-        for (var seed = 0; seed < count; seed++)
+        // One server serves a run of sequences (starting one, initialising it and shutting it down
+        // cost more than the thirty messages of a sequence); each sequence opens the document afresh.
+        const int PerServer = 20;
+        for (var from = first; from < first + count; from += PerServer)
         {
-            var random = new Random(seed);
             await using var pipe = await LspPipe.Initialized();
-            await pipe.Open(Uri, text);
-            var (id, version) = (100_000, 1);
-            for (var i = 0; i < 30; i++, messages++) await pipe.SendFramed(Piece(random, ref id, ref version, text));
-            // Whatever came before, a well-framed request is answered.
-            var answer = await pipe.Call("textDocument/documentSymbol", "{\"textDocument\":{\"uri\":\"" + Uri + "\"}}");
-            Assert.True(answer.ContainsKey("result") || answer.ContainsKey("error"), $"seed {seed}: {answer.ToJsonString()}");
+            for (var seed = from; seed < Math.Min(first + count, from + PerServer); seed++)
+            {
+                var random = new Random(seed);
+                await pipe.Notify("textDocument/didClose", "{\"textDocument\":{\"uri\":\"" + Uri + "\"}}");
+                await pipe.Open(Uri, text);
+                var (id, version) = (100_000, 1);
+                for (var i = 0; i < 30; i++, messages++) await pipe.SendFramed(Piece(random, ref id, ref version, text));
+                // Whatever came before, a well-framed request is answered.
+                JsonObject answer;
+                try
+                {
+                    answer = await pipe.Call("textDocument/documentSymbol", "{\"textDocument\":{\"uri\":\"" + Uri + "\"}}");
+                }
+                catch (TimeoutException)
+                {
+                    throw new Xunit.Sdk.XunitException($"seed {seed}: no answer; the trace:\n{pipe.Log}");
+                }
+                Assert.True(answer.ContainsKey("result") || answer.ContainsKey("error"), $"seed {seed}: {answer.ToJsonString()}");
+            }
             Assert.Equal(0, await pipe.ShutDown());
             var log = pipe.Log.ToString();
-            Assert.False(log.Contains("NullReferenceException") || log.Contains("failed:"), $"seed {seed}: {log}");
+            Assert.False(log.Contains("NullReferenceException") || log.Contains("failed:"), $"seeds {from} to {Math.Min(first + count, from + PerServer) - 1}: {log}");
         }
-        output.WriteLine($"{count} streams, {messages} fuzzed messages");
+        output.WriteLine($"{count} streams from seed {first}, {messages} fuzzed messages");
     }
 }
