@@ -532,41 +532,7 @@ internal sealed partial class BindRun
         };
         var what = $"a bound on {measureClause.Keyword.Text}";
         var ratio = unit == "%";
-        double low = double.NegativeInfinity, high = double.PositiveInfinity, target = double.NaN;
-        switch (conditionClause.Keyword!.Text)
-        {
-            case "between":
-                if (Real(conditionClause.Value(0), dimension, what, ratio: ratio) is not { } lo || Real(conditionClause.Value(1), dimension, what, ratio: ratio) is not { } hi) return;
-                (low, high) = (Math.Min(lo, hi), Math.Max(lo, hi));
-                break;
-            case "below":
-                if (Real(conditionClause.Value(0), dimension, what, ratio: ratio) is not { } below) return;
-                high = below;
-                break;
-            case "above":
-                if (Real(conditionClause.Value(0), dimension, what, ratio: ratio) is not { } above) return;
-                low = above;
-                break;
-            default:
-                if (Real(conditionClause.Value(0), dimension, what, ratio: ratio) is not { } near) return;
-                var withinSyntax = conditionClause.Value(1);
-                if (Value(withinSyntax, "the tolerance of the check") is not { } within) return;
-                if (within.IsBare)
-                {
-                    MissingUnit(withinSyntax!, "the tolerance", ratio ? ["%"] : ["%", unit]);
-                    return;
-                }
-                double band;
-                if (within.IsPercent && !dimension.IsNone) band = Math.Abs(near) * within.Real;
-                else if (within.Dimension.Fits(dimension) && within.IsReal) band = Math.Abs(within.Real);
-                else
-                {
-                    diagnostics.ReportToleranceDimension(withinSyntax!.Span, dimension, within.Dimension);
-                    return;
-                }
-                (low, high, target) = (near - band, near + band, near);
-                break;
-        }
+        if (ConditionRange(conditionClause, v => Real(v, dimension, what, ratio: ratio), dimension, percentOfNear: !dimension.IsNone, ratio ? ["%"] : ["%", unit]) is not (var low, var high, var target)) return;
         var text = tree.Text[s.Span];
         expects.Add(new ExpectModel(s.Span, text, measure, targets.ToImmutable(), Enum.Parse<ConditionKind>(conditionClause.Keyword.Text, true), low, high, unit)
         {
@@ -576,5 +542,42 @@ internal sealed partial class BindRun
         InFault = inFault,
         Minimum = minimum,
         });
+    }
+
+    /// <summary>
+    /// What a check's condition allows: between two bounds, below or above one, or near a value within
+    /// a tolerance, in the measure's unit or (where <paramref name="percentOfNear"/>) in % of the value.
+    /// The bounds are read by <paramref name="bound"/>; null after a diagnostic.
+    /// </summary>
+    private (double Low, double High, double Target)? ConditionRange(ClauseSyntax condition, Func<ValueSyntax?, double?> bound, Dimension dimension, bool percentOfNear, string[] toleranceUnits)
+    {
+        switch (condition.Keyword!.Text)
+        {
+            case "between":
+                if (bound(condition.Value(0)) is not { } lo || bound(condition.Value(1)) is not { } hi) return null;
+                return (Math.Min(lo, hi), Math.Max(lo, hi), double.NaN);
+            case "below":
+                return bound(condition.Value(0)) is { } below ? (double.NegativeInfinity, below, double.NaN) : null;
+            case "above":
+                return bound(condition.Value(0)) is { } above ? (above, double.PositiveInfinity, double.NaN) : null;
+            default:
+                if (bound(condition.Value(0)) is not { } near) return null;
+                var withinSyntax = condition.Value(1);
+                if (Value(withinSyntax, "the tolerance of the check") is not { } within) return null;
+                if (within.IsBare)
+                {
+                    MissingUnit(withinSyntax!, "the tolerance", toleranceUnits);
+                    return null;
+                }
+                double band;
+                if (within.IsPercent && percentOfNear) band = Math.Abs(near) * within.Real;
+                else if (within.Dimension.Fits(dimension) && within.IsReal) band = Math.Abs(within.Real);
+                else
+                {
+                    diagnostics.ReportToleranceDimension(withinSyntax!.Span, dimension, within.Dimension);
+                    return null;
+                }
+                return (near - band, near + band, near);
+        }
     }
 }

@@ -419,42 +419,7 @@ internal sealed partial class BindRun
         var ohms = first.Value.Dimension.Fits(Dimension.Impedance) && !first.Value.IsBare;
         var (dimension, unit) = ohms ? (Dimension.Impedance, "ohm") : (Dimension.None, "%");
         var what = $"a bound on {measure.Keyword!.Text}";
-        double? Bound(int k) => Real(condition.Value(k), dimension, what, ratio: !ohms);
-        double low = double.NegativeInfinity, high = double.PositiveInfinity, target = double.NaN;
-        switch (condition.Keyword!.Text)
-        {
-            case "between":
-                if (Bound(0) is not { } lo || Bound(1) is not { } hi) return;
-                (low, high) = (Math.Min(lo, hi), Math.Max(lo, hi));
-                break;
-            case "below":
-                if (Bound(0) is not { } below) return;
-                high = below;
-                break;
-            case "above":
-                if (Bound(0) is not { } above) return;
-                low = above;
-                break;
-            default:
-                if (Bound(0) is not { } near) return;
-                var withinSyntax = condition.Value(1);
-                if (Value(withinSyntax, "the tolerance of the check") is not { } within) return;
-                if (within.IsBare)
-                {
-                    MissingUnit(withinSyntax!, "the tolerance", ohms ? ["%", "ohm"] : ["%"]);
-                    return;
-                }
-                double band;
-                if (within.IsPercent && ohms) band = Math.Abs(near) * within.Real;
-                else if (within.Dimension.Fits(dimension) && within.IsReal) band = Math.Abs(within.Real);
-                else
-                {
-                    diagnostics.ReportToleranceDimension(withinSyntax!.Span, dimension, within.Dimension);
-                    return;
-                }
-                (low, high, target) = (near - band, near + band, near);
-                break;
-        }
+        if (ConditionRange(condition, v => Real(v, dimension, what, ratio: !ohms), dimension, percentOfNear: ohms, ohms ? ["%", "ohm"] : ["%"]) is not (var low, var high, var target)) return;
         var kind = measure.Keyword!.Text == "positive-sequence" ? MeasureKind.PositiveSequence : MeasureKind.ZeroSequence;
         expects.Add(new ExpectModel(s.Span, tree.Text[s.Span], kind, [.. measure.Names.Select(n => new NodeRef(n.Text, n.Name.Span))],
             Enum.Parse<ConditionKind>(condition.Keyword.Text, true), low, high, unit)
