@@ -272,6 +272,21 @@ public static class Results
     /// its own gets a share of none, and no share is ever negative. On a core whose series
     /// resistances are all zero, the diagonal of R (zero where negative) stands in for them.
     /// </summary>
+    /// <summary>
+    /// What heats each section: its winding, current and loss, as <see cref="Compute"/> gives them,
+    /// without the rest of a case's results (a load cycle solves the network at every point).
+    /// </summary>
+    public static SectionHeat[] Heat(Solution solution)
+    {
+        var network = solution.Network;
+        var losses = SectionLosses(network, solution, solution.Scope);
+        return [.. network.Sections
+            .Where(s => solution.Scope is null || solution.Scope.Sections.Contains(s.Index))
+            .Select(s => new SectionHeat(s.Winding, s.Turns > 0 ? solution.SectionCurrents[s.Index].Magnitude : 0, losses[s.Index]))];
+    }
+
+    public static SectionHeat[] Heat(CaseResult c) => [.. c.Sections.Select(s => new SectionHeat(s.Winding.Index, s.Current.Magnitude, s.Loss))];
+
     private static double[] SectionLosses(Network network, Solution solution, CaseScope? scope)
     {
         var result = new double[network.Sections.Length];
@@ -304,3 +319,6 @@ public static class Results
         return result;
     }
 }
+
+/// <summary>A section's winding (its index in the network), current magnitude and loss: what heats it.</summary>
+public readonly record struct SectionHeat(int Winding, double Current, double Loss);

@@ -36,7 +36,7 @@ internal sealed class Heating
     /// current over its rated current, so an autotransformer connection heats by the transformed
     /// power only, and windings loaded unequally heat unequally.
     /// </summary>
-    public static Heating? Of(ThermalUnitModel u, Model.Model model, Network network, CaseResult[] solved, DiagnosticBag diagnostics)
+    public static Heating? Of(ThermalUnitModel u, Model.Model model, Network network, SectionHeat[][] solved, DiagnosticBag diagnostics)
     {
         var coreNames = model.Cores.Any(c => c.Name == u.Core)
             ? new HashSet<string> { u.Core }
@@ -73,10 +73,10 @@ internal sealed class Heating
         {
             var k = new double[windings.Length];
             double loss = 0;
-            foreach (var s in solved[p].Sections)
+            foreach (var s in solved[p])
             {
-                if (!index.TryGetValue(s.Winding.Index, out var w)) continue;
-                k[w] = Math.Max(k[w], s.Current.Magnitude / windings[w].RatedCurrent!.Value);
+                if (!index.TryGetValue(s.Winding, out var w)) continue;
+                k[w] = Math.Max(k[w], s.Current / windings[w].RatedCurrent!.Value);
                 loss += s.Loss;
             }
             var k2 = ratedLoss > 0 ? loss / ratedLoss : k.Average(x => x * x);

@@ -61,8 +61,8 @@ public static class ThermalStudy
             }
 
         // The network at each cycle point's load.
-        var solved = new CaseResult[points.Length];
-        var byLoad = new Dictionary<double, CaseResult>();
+        var solved = new SectionHeat[points.Length][];
+        var byLoad = new Dictionary<double, SectionHeat[]>();
         var scaling = new LoadScaling(network);
         for (var i = 0; i < points.Length; i++)
         {
@@ -165,7 +165,7 @@ public static class ThermalStudy
         return result;
     }
 
-    private static CaseResult? SolveAt(SyntaxTree syntax, Model.Model model, LoadScaling scaling, CaseResult normal, LoadCycleModel cycle, CyclePointModel point, out string? problem, CancellationToken cancel)
+    private static SectionHeat[]? SolveAt(SyntaxTree syntax, Model.Model model, LoadScaling scaling, CaseResult normal, LoadCycleModel cycle, CyclePointModel point, out string? problem, CancellationToken cancel)
     {
         problem = null;
         Network at;
@@ -185,7 +185,7 @@ public static class ThermalStudy
         else
         {
             var k = point.Load.Real;
-            if (k == 1) return normal;
+            if (k == 1) return Results.Heat(normal);
             if (k == 0)
             {
                 at = scaling.Network;
@@ -204,7 +204,7 @@ public static class ThermalStudy
             problem = solution.Diagnostics.FirstOrDefault(d => d.IsError)?.Message;
             return null;
         }
-        return Results.Compute(solution, null);
+        return Results.Heat(solution);
     }
 
     /// <summary>Normal cyclic, long-time and short-time emergency limits (IEC 60076-7, its table of loading limits; from memory, REFERENCES R48): hot-spot and top oil (°C), current (pu) by class.</summary>
