@@ -45,7 +45,9 @@ public static class Navigation
             return new RenameResult([], $"'{newName}' is already used in the document, where it names nothing yet");
         // A three-phase element's phase elements (HV_a of HV) are renamed with it wherever they are written.
         var phases = evaluation.Model.Symbols.Symbols.Where(s => s.Derived && s.Owner == symbol.Name).ToList();
-        if (phases.Select(p => p.Name).Concat(PhaseUsesOfBrokenLine(evaluation, symbol.Name).Select(t => t.Text))
+        // Uses of its phases that a line with an error excuses (LV_a where the line making LV three-phase is broken) follow it too.
+        var excused = evaluation.Model.Symbols.PhaseUsesOf(symbol.Name).Select(span => (Span: span, Text: evaluation.Text[span])).ToList();
+        if (phases.Select(p => p.Name).Concat(excused.Select(u => u.Text))
                 .Select(n => newName + n[symbol.Name.Length..]).FirstOrDefault(n => evaluation.Model.Symbols.Find(n) is not null) is { } clash)
             return new RenameResult([], $"'{clash}' is already defined, and '{newName}' would name a phase element so");
         var edits = evaluation.Model.Symbols.ReferencesTo(symbol)
@@ -53,24 +55,11 @@ public static class Navigation
             .Concat(phases.SelectMany(p => evaluation.Model.Symbols.ReferencesTo(p)
                 .Where(r => !r.IsDefinition)
                 .Select(r => new TextEdit(evaluation.Text.GetRange(r.Span), newName + p.Name[symbol.Name.Length..]))))
-            .Concat(PhaseUsesOfBrokenLine(evaluation, symbol.Name)
-                .Select(t => new TextEdit(evaluation.Text.GetRange(t.Span), newName + t.Text[symbol.Name.Length..])))
+            .Concat(excused.Select(u => new TextEdit(evaluation.Text.GetRange(u.Span), newName + u.Text[symbol.Name.Length..])))
             .OrderBy(e => e.Range.Start.Line).ThenBy(e => e.Range.Start.Character)
             .ToList();
         return new RenameResult(edits);
     }
-
-    /// <summary>
-    /// Uses of a phase of a name that a line with an error declares (HV_a, where the line that would
-    /// make HV three-phase is broken): they define nothing, and the binder lets them pass because of
-    /// that line, so they follow the name when it is renamed.
-    /// </summary>
-    private static IEnumerable<Token> PhaseUsesOfBrokenLine(Evaluation evaluation, string name) =>
-        evaluation.Syntax.Lines.SelectMany(l => l.Tokens).Where(t =>
-            t.Kind == TokenKind.Word && t.Text.Length > name.Length + 1 && t.Text.StartsWith(name + "_", StringComparison.Ordinal)
-            && t.Text.LastIndexOf('_') == name.Length
-            && evaluation.Model.Symbols.Find(t.Text) is null && evaluation.Model.Symbols.At(t.Span.Start) is null
-            && !evaluation.Diagnostics.Any(d => d.Code == "unknown-name" && d.Span == t.Span));
 
     /// <summary>A word the lexer reads as one word and the parser takes as a name: ASCII, and no keyword.</summary>
     public static bool IsName(string text) =>

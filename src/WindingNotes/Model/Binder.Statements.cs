@@ -249,7 +249,7 @@ internal sealed partial class BindRun
             if (point is null || !point.IsConnectionPoint || point.Owner != winding.Name)
             {
                 var candidates = symbols.Symbols.Where(p => p.IsConnectionPoint && p.Owner == winding.Name).Select(p => p.Name);
-                if (!FollowsFromBrokenLine(end.Text))
+                if (!FollowsFromBrokenLine(end))
                     diagnostics.ReportUnknownName(end, $"point of winding {winding.Name}", Spelling.Nearest(end.Text, candidates));
                 return null;
             }

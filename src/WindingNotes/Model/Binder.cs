@@ -284,8 +284,14 @@ internal sealed partial class BindRun
     /// An unknown name, a lonely node or a name of the wrong kind that a line with an error also
     /// writes follows from that error: it is not reported (the file has its error, so it is not solved).
     /// </summary>
-    private bool FollowsFromBrokenLine(string name) =>
-        brokenWords.Contains(name) || (name.LastIndexOf('_') is > 0 and var i && brokenWords.Contains(name[..i]));
+    private bool FollowsFromBrokenLine(Token name)
+    {
+        if (brokenWords.Contains(name.Text)) return true;
+        if (name.Text.LastIndexOf('_') is not (> 0 and var i) || !brokenWords.Contains(name.Text[..i])) return false;
+        // A phase (LV_a) of a name the broken line writes: a rename of that name carries it.
+        if (symbols.Find(name.Text) is null) symbols.PhaseUse(name.Span, name.Text[..i]);
+        return true;
+    }
 
     /// <summary>
     /// A statement that redefines a name (a supply, load or fault: nothing else hangs on its name)
@@ -316,7 +322,7 @@ internal sealed partial class BindRun
         {
             if (!acceptsPoint)
             {
-                if (FollowsFromBrokenLine(name.Text) || kinds.Any(missingKinds.Contains)) return null;
+                if (FollowsFromBrokenLine(name.Name) || kinds.Any(missingKinds.Contains)) return null;
                 diagnostics.ReportUnknownName(name.Name, KindWord(kinds[0]), Spelling.Nearest(name.Text, symbols.NamesOf(kinds)));
                 return null;
             }
@@ -332,7 +338,7 @@ internal sealed partial class BindRun
         }
         else if (!(kinds.Contains(symbol.Kind) || (acceptsPoint && symbol.IsConnectionPoint)))
         {
-            if (!brokenUses.Contains(symbol) && !FollowsFromBrokenLine(name.Text) && !kinds.Any(missingKinds.Contains)) diagnostics.ReportWrongKind(name.Name, symbol.Describe(), expected);
+            if (!brokenUses.Contains(symbol) && !FollowsFromBrokenLine(name.Name) && !kinds.Any(missingKinds.Contains)) diagnostics.ReportWrongKind(name.Name, symbol.Describe(), expected);
             // Still a use of the name: navigation finds it, and a rename changes it with the others.
             symbols.Reference(name.Name.Span, symbol);
             return null;
@@ -408,7 +414,7 @@ internal sealed partial class BindRun
         var symbol = symbols.Find(token.Text);
         if (symbol is null)
         {
-            if (FollowsFromBrokenLine(token.Text) || missingKinds.Contains(SymbolKind.Let)) return null;
+            if (FollowsFromBrokenLine(token) || missingKinds.Contains(SymbolKind.Let)) return null;
             diagnostics.ReportUnknownName(token, "name", Spelling.Nearest(token.Text, symbols.NamesOf(SymbolKind.Let)));
             return null;
         }
@@ -420,7 +426,7 @@ internal sealed partial class BindRun
         }
         if (symbol.Kind != SymbolKind.Let)
         {
-            if (!brokenUses.Contains(symbol) && !FollowsFromBrokenLine(token.Text)) diagnostics.ReportWrongKind(token, symbol.Describe(), "a let value");
+            if (!brokenUses.Contains(symbol) && !FollowsFromBrokenLine(token)) diagnostics.ReportWrongKind(token, symbol.Describe(), "a let value");
             symbols.Reference(token.Span, symbol);
             return null;
         }

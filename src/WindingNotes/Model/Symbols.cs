@@ -68,6 +68,13 @@ public sealed class SymbolTable
         if (span != symbol.Span) references.Add(new SymbolReference(span, symbol, false));
     }
 
+    private readonly HashSet<(TextSpan Span, string Owner)> phaseUses = [];
+
+    /// <summary>A use written OWNER_x of a phase of a name that a line with an error writes: nothing defines it, and a rename of OWNER carries it.</summary>
+    internal void PhaseUse(TextSpan span, string owner) => phaseUses.Add((span, owner));
+
+    public IEnumerable<TextSpan> PhaseUsesOf(string owner) => phaseUses.Where(u => u.Owner == owner).Select(u => u.Span);
+
     public SymbolReference? At(int offset) => references.FirstOrDefault(r => r.Span.Touches(offset));
 
     public IEnumerable<SymbolReference> ReferencesTo(Symbol symbol) =>
