@@ -230,6 +230,14 @@ internal sealed partial class BindRun
             impedances.Add(z);
             return;
         }
+        if (first is { Connection: PhaseConnection.Zigzag } && first == second)
+        {
+            // A zigzag named twice: the impedance between its two halves on each limb, the line-side
+            // half of phase k and the star-side half of phase k − 1 (ohms referred to a half, % on a limb).
+            for (var k = 0; k < 3; k++)
+                impedances.Add(z with { First = z.First with { Winding = PhaseOn(first, k) }, Second = z.Second with { Winding = first.PhaseWindings[(k + 2) % 3] + "n" } });
+            return;
+        }
         if (first is null || second is null || first.Connection == PhaseConnection.Zigzag || second.Connection == PhaseConnection.Zigzag)
         {
             diagnostics.ReportPhaseImpedance(z.Line);
@@ -242,6 +250,9 @@ internal sealed partial class BindRun
     /// <summary>
     /// An open-circuit test of a three-phase core: total loss, line voltage and line current (or
     /// percent) at a three-phase winding; each limb gets a third of the loss at the phase voltage.
+    /// At a zigzag each limb's test is taken at its line-side half: a half stands at V/3, and the
+    /// limb's magnetising current I_a − I_c of a balanced set is √3 times the line current; in percent
+    /// of rated current it is the same figure (a half's rated current is √3 times the line's).
     /// </summary>
     private void AddNoLoad(NoLoadModel test)
     {
@@ -250,7 +261,7 @@ internal sealed partial class BindRun
             noLoads.Add(test);
             return;
         }
-        if (threePhaseWindings.GetValueOrDefault(test.Winding.Name) is not { } w || w.Core != test.Core || w.Connection == PhaseConnection.Zigzag)
+        if (threePhaseWindings.GetValueOrDefault(test.Winding.Name) is not { } w || w.Core != test.Core)
         {
             diagnostics.ReportNoLoadOffCore(test.Winding.Span, test.Winding.Name, test.Core);
             return;
@@ -258,6 +269,7 @@ internal sealed partial class BindRun
         var (voltage, current) = w.Connection switch
         {
             PhaseConnection.Delta or PhaseConnection.Ends => (test.Voltage, test.Current / Math.Sqrt(3)),
+            PhaseConnection.Zigzag => (test.Voltage / 3, test.Current * Math.Sqrt(3)),
             _ => (test.Voltage / Math.Sqrt(3), test.Current),
         };
         for (var k = 0; k < 3; k++)
@@ -269,6 +281,25 @@ internal sealed partial class BindRun
                 Current = test.CurrentIsFraction ? test.Current : current,
                 Loss = test.Loss / 3,
             });
+    }
+
+    /// <summary>
+    /// A zigzag alone on its core (a grounding transformer) with no magnetising branch: each limb
+    /// carries equal and opposite ampere-turns of two phases and every phase voltage is a difference
+    /// of two limbs' volts per turn, so nothing fixes the flux common to the three limbs and the
+    /// network has no unique solution. Said here, once, with what fixes it, not by the solver.
+    /// </summary>
+    private void CheckZigzagMagnetising()
+    {
+        foreach (var core in phaseCores)
+        {
+            if (core.ZeroSequence is not null || noLoads.Any(n => core.Limbs.Contains(n.Core))) continue;
+            var on = threePhaseWindings.Values.Where(w => w.Core == core.Name).ToList();
+            var phaseWindings = on.SelectMany(w => w.PhaseWindings.SelectMany(p => new[] { p, p + "n" })).ToHashSet(StringComparer.Ordinal);
+            if (on.Count == 0 || on.Any(w => w.Connection != PhaseConnection.Zigzag)
+                || windings.Any(w => core.Limbs.Contains(w.Core) && !phaseWindings.Contains(w.Name))) continue;
+            foreach (var w in on) diagnostics.ReportZigzagUnmagnetised(w.NameSpan, w.Name, core.Name);
+        }
     }
 
     /// <summary>Three-phase windings, supplies and loads by name, whether or not they bound: a check or a tap names one of their phases.</summary>

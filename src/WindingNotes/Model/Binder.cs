@@ -97,6 +97,7 @@ internal sealed partial class BindRun
         if (!statements.Concat(broken).Any(s => s.Kind == StatementKind.Frequency) && statements.Count > 0)
             diagnostics.ReportNoFrequency(tree.Lines[0].Span);
         CheckLonelyNodes();
+        CheckZigzagMagnetising();
         foreach (var name in laterUses)
             if (symbols.Find(name.Text) is { } symbol) symbols.Reference(name.Name.Span, symbol);
         // Points the three-phase statements made (star points) come after the author's, so a node keeps the author's name.

@@ -22,7 +22,7 @@ public static partial class ModelMessages
             bag.Error("wrong-kind", keyword.Span, $"'{keyword.Text}' connects three phase windings; '{core}' is a single-phase core (give it a 'construction')");
 
         public Diagnostic ReportPhaseImpedance(TextSpan span) =>
-            bag.Error("wrong-kind", span, "an impedance between three-phase windings holds on each limb: name two three-phase windings, neither a zigzag, or give it per phase winding (HV_a LV_a)");
+            bag.Error("wrong-kind", span, "an impedance between three-phase windings holds on each limb: name two three-phase windings, neither a zigzag (a zigzag twice for its two halves), or give it per phase winding (HV_a LV_a)");
 
         public Diagnostic ReportVectorGroupPair(TextSpan span) =>
             bag.Error("wrong-kind", span, "'vector-group' goes with 'is' and a connection symbol, and 'is' with 'vector-group'");
@@ -37,6 +37,9 @@ public static partial class ModelMessages
             bag.Warning("zero-sequence-unknown", span, $"three-limb core '{core}' has no 'zero-sequence' magnetising impedance: its limbs are taken as uncoupled, as in a bank, which overstates the zero-sequence magnetising impedance");
 
         public Diagnostic ReportNoClockNumber(TextSpan span, string problem) => bag.Warning("no-clock-number", span, problem);
+
+        public Diagnostic ReportZigzagUnmagnetised(TextSpan span, string winding, string core) =>
+            bag.Error("no-magnetising-branch", span, $"zigzag '{winding}' is alone on '{core}', which has no magnetising branch: nothing fixes the flux common to its limbs, so the network has no unique solution; give '{core}' its open-circuit test ('no-load {core} current … loss … at {winding} …')");
 
         public Diagnostic ReportSequenceWinding(Token name, string problem) =>
             bag.Error("wrong-kind", name.Span, $"'{name.Text}' {problem}");

@@ -129,7 +129,7 @@ internal static class ThreePhaseReport
 
     private static string Test(SequenceTest t) =>
         $"{(t.Kind == SequenceKind.Positive ? "positive" : "zero")} sequence, {t.Energised} energised, " +
-        (t.Shorted is { } x ? $"{x} short-circuited" : "the others open (magnetising)");
+        (t.Shorted is { } x ? $"{x} short-circuited" : t.Magnetising ? "the others open (magnetising)" : "the others open");
 
     private static string Impedance(SequenceTest t) =>
         Numbers.Format(t.Impedance.Magnitude, "ohm") + (t.Impedance.Real > 0 ? $", X/R {Numbers.Fixed(t.Impedance.Imaginary / t.Impedance.Real)}" : "")
@@ -157,7 +157,7 @@ internal static class ThreePhaseReport
         MarkdownReport.Table(o, 4, ["unit", "sequence", "energised", "short-circuited", "Z", "X/R", "Z %"], units.SelectMany(u => u.Tests.Select(t => new[]
         {
             MarkdownReport.Code(u.Core), t.Kind == SequenceKind.Positive ? "positive" : "zero", MarkdownReport.Code(t.Energised),
-            t.Shorted is { } x ? MarkdownReport.Code(x) : "none (magnetising)",
+            t.Shorted is { } x ? MarkdownReport.Code(x) : t.Magnetising ? "none (magnetising)" : "none",
             Numbers.Format(t.Impedance.Magnitude, "ohm"),
             t.Impedance.Real > 0 ? Numbers.Fixed(t.Impedance.Imaginary / t.Impedance.Real) : "",
             t.PerUnit is { } pu ? TextReport.Percent(pu) : "",

@@ -17,6 +17,12 @@ public sealed record SequenceTest(SequenceKind Kind, string Energised, string? S
 {
     /// <summary>|Z| over the base impedance V²/S, a fraction; null where the base is unknown.</summary>
     public double? PerUnit => BaseVoltage is { } v && BasePower is { } s ? Impedance.Magnitude * s / (v * v) : null;
+
+    /// <summary>
+    /// Whether an open-circuit zero-sequence test measures the magnetising branch: not at a zigzag,
+    /// whose halves on a limb carry equal and opposite ampere-turns, so it measures their leakage.
+    /// </summary>
+    public bool Magnetising { get; init; }
 }
 
 /// <summary>The sequence tests of one three-phase unit.</summary>
@@ -49,7 +55,8 @@ public static class SequenceImpedances
         foreach (var core in model.ThreePhase.Cores)
         {
             var windings = WindingsOn(model, core.Name);
-            if (windings.Count < 2) continue;
+            // A zigzag alone (a grounding transformer) has one test: its zero-sequence impedance.
+            if (windings.Count < 2 && windings is not [{ Connection: PhaseConnection.Zigzag }]) continue;
             var tests = ImmutableArray.CreateBuilder<SequenceTest>();
             for (var i = 0; i < windings.Count; i++)
                 for (var j = i + 1; j < windings.Count; j++)
@@ -106,7 +113,10 @@ public static class SequenceImpedances
             z = 3 * network.Supplies[0].Voltage / currents[0];
         }
         var baseVoltage = RatedLineVoltage(model, energised);
-        return new SequenceTest(kind, energised.Name, shorted?.Name, z, baseVoltage, RatedPower(model, core));
+        return new SequenceTest(kind, energised.Name, shorted?.Name, z, baseVoltage, RatedPower(model, core))
+        {
+            Magnetising = kind == SequenceKind.Zero && shorted is null && energised.Connection != PhaseConnection.Zigzag,
+        };
     }
 
     /// <summary>
