@@ -338,14 +338,29 @@ public class ThreePhaseTests
         Assert.Empty(limbs.Errors());
     }
 
+    [Fact]
+    public void The_Scott_T_example_gives_two_outputs_in_quadrature()
+    {
+        // R33 (any machines textbook; the 86.6 % teaser tap is common practice): equal loads on like
+        // units give outputs equal within the units' unequal regulation and 90° apart.
+        var e = Wn.Solved(Example("heron-bay-scott-t")).Normal!;
+        var main = e.V("X1", "X2");
+        var teaser = e.V("Y1", "Y2");
+        Wn.Near(main.Magnitude, teaser.Magnitude, 0.005, "equal outputs");
+        Assert.Equal(90, Math.Abs(Math.IEEERemainder((teaser / main).Phase * 180 / Math.PI, 360)), 0.1);
+    }
+
     // The examples, each held to the same network written phase by phase in the single-phase notation.
     // Statements of each form (three-phase against phase by phase): maple-ford 13 against 33, oak-hill
-    // 15 against 45, rowan-mill 18 against 24, kestrel-point 18 against 51.
+    // 15 against 45, rowan-mill 18 against 24, kestrel-point 18 against 51, tern-lake 13 against 31,
+    // heron-bay 22 against 26 (a Scott-T is two single-phase units: only its supply is three-phase).
     [Theory]
     [InlineData("maple-ford-station-unit")]
     [InlineData("oak-hill-autotransformer-bank")]
     [InlineData("rowan-mill-open-delta-boost")]
     [InlineData("kestrel-point-zigzag-grounding")]
+    [InlineData("heron-bay-scott-t")]
+    [InlineData("tern-lake-wye-boost")]
     public void Examples_equal_their_phase_by_phase_form(string name)
     {
         var threePhase = Wn.Solved(File.ReadAllText(Path.Combine(Snapshot.RepositoryRoot, "examples", name + ".wn")));
