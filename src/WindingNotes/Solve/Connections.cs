@@ -23,9 +23,10 @@ public sealed record Connection(SupplyNet Supply, LoadNet Load, ImmutableArray<i
     public (int A, int B) FedFrom { get; init; }
     /// <summary>
     /// Whether the supply or the load is a phase of a three-phase statement: the co-ratio, the
-    /// two-winding rating, the output against the supply and the common terminal compare one phase
-    /// element's voltage with another's, which a three-phase connection (line-to-line output from
-    /// line-to-neutral phases) does not allow; the lack of isolation holds all the same.
+    /// two-winding rating and the common terminal compare one phase element's voltage with another's,
+    /// which a three-phase connection (line-to-line output from line-to-neutral phases) does not
+    /// allow; the lack of isolation holds all the same, and so does the output against the voltage
+    /// between the supply points it is fed from.
     /// </summary>
     public bool IsPhaseElement(Model.Model model) =>
         model.ThreePhase.IsSupplyOrLoad(Supply.Source.Line) || model.ThreePhase.IsSupplyOrLoad(Load.Source.Line);

@@ -37,10 +37,13 @@ public static class SafetyCautions
         foreach (var (c, highest) in connections.Zip(outputs.Highest))
         {
             var load = c.Load.Source;
-            if (highest.Ratio <= 1 + 1e-6 || c.IsPhaseElement(model)) continue;
+            // The output is compared with the voltage between the supply points it is fed from, line
+            // to line for a delta load on a three-phase boost: that holds for phase elements too. One
+            // caution a statement: a three-phase load's phases share its line.
+            if (highest.Ratio <= 1 + 1e-6) continue;
             // Where the output hangs on a brush, the brush's line is where the setting is made.
             var brush = new[] { load.A.Name, load.B.Name }.Select(brushes.GetValueOrDefault).OfType<TapModel>().MinBy(t => t.NameSpan.Start);
-            if (warned.Add($"above/{load.Name}"))
+            if (warned.Add($"above/{load.NameSpan.Start}"))
                 diagnostics.ReportAboveSupply(brush?.NameSpan ?? load.NameSpan, load.Name, highest.Load, outputs.Source(c), highest.Supply, highest.Where);
         }
 

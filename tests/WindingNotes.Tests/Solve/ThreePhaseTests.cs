@@ -350,6 +350,19 @@ public class ThreePhaseTests
         Assert.Equal(90, Math.Abs(Math.IEEERemainder((teaser / main).Phase * 180 / Math.PI, 360)), 0.1);
     }
 
+    [Fact]
+    public void A_three_phase_boost_is_cautioned_once_for_its_output_above_the_supply()
+    {
+        // The Tern Lake example: three 277 x 27.7 V units in wye raise 440 V by about 10 %; its delta
+        // load's output is compared line to line with the lines it is fed from, as its phase-by-phase
+        // form compares each phase load, and said once for the three-phase load.
+        var e = Wn.Solved(Example("tern-lake-wye-boost"));
+        var above = e.Single("caution-above-supply");
+        Assert.Contains("reaches 482.2 V, above the 439.2 V between H1 and H2", above.Message);
+        var byPhase = Wn.Solved(File.ReadAllText(Path.Combine(Snapshot.TestsRoot(), "Data", "threephase", "tern-lake-wye-boost.wn")));
+        Assert.Contains(above.Message, byPhase.Diagnostics.Where(d => d.Code == "caution-above-supply").Select(d => d.Message));
+    }
+
     // The examples, each held to the same network written phase by phase in the single-phase notation.
     // Statements of each form (three-phase against phase by phase): maple-ford 13 against 33, oak-hill
     // 15 against 45, rowan-mill 18 against 24, kestrel-point 18 against 51, tern-lake 13 against 31,
