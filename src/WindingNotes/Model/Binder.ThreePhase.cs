@@ -284,21 +284,24 @@ internal sealed partial class BindRun
     }
 
     /// <summary>
-    /// A zigzag alone on its core (a grounding transformer) with no magnetising branch: each limb
-    /// carries equal and opposite ampere-turns of two phases and every phase voltage is a difference
-    /// of two limbs' volts per turn, so nothing fixes the flux common to the three limbs and the
-    /// network has no unique solution. Said here, once, with what fixes it, not by the solver.
+    /// A zigzag on a core with no magnetising branch, alone (a grounding transformer) or beside wye
+    /// windings without a neutral terminal: each limb carries equal and opposite ampere-turns of two
+    /// zigzag phases and every zigzag phase voltage is a difference of two limbs' volts per turn, a
+    /// floating star point takes up whatever the other windings' phases share, and no delta closes
+    /// on the sum; so nothing fixes the flux common to the three limbs and the network has no unique
+    /// solution. Said here, once, with what fixes it, not by the solver.
     /// </summary>
     private void CheckZigzagMagnetising()
     {
         foreach (var core in phaseCores)
         {
             if (core.ZeroSequence is not null || noLoads.Any(n => core.Limbs.Contains(n.Core))) continue;
-            var on = threePhaseWindings.Values.Where(w => w.Core == core.Name).ToList();
+            var on = threePhaseWindings.Values.Where(w => w.Core == core.Name).OrderBy(w => w.Line.Start).ToList();
             var phaseWindings = on.SelectMany(w => w.PhaseWindings.SelectMany(p => new[] { p, p + "n" })).ToHashSet(StringComparer.Ordinal);
-            if (on.Count == 0 || on.Any(w => w.Connection != PhaseConnection.Zigzag)
+            if (on.FirstOrDefault(w => w.Connection == PhaseConnection.Zigzag) is not { } zigzag
+                || on.Any(w => w.Connection != PhaseConnection.Zigzag && (w.Connection != PhaseConnection.Wye || w.NeutralTerminal))
                 || windings.Any(w => core.Limbs.Contains(w.Core) && !phaseWindings.Contains(w.Name))) continue;
-            foreach (var w in on) diagnostics.ReportZigzagUnmagnetised(w.NameSpan, w.Name, core.Name);
+            diagnostics.ReportZigzagUnmagnetised(zigzag.NameSpan, zigzag.Name, core.Name, alone: on.Count == 1);
         }
     }
 

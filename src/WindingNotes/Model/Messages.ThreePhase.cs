@@ -38,8 +38,8 @@ public static partial class ModelMessages
 
         public Diagnostic ReportNoClockNumber(TextSpan span, string problem) => bag.Warning("no-clock-number", span, problem);
 
-        public Diagnostic ReportZigzagUnmagnetised(TextSpan span, string winding, string core) =>
-            bag.Error("no-magnetising-branch", span, $"zigzag '{winding}' is alone on '{core}', which has no magnetising branch: nothing fixes the flux common to its limbs, so the network has no unique solution; give '{core}' its open-circuit test ('no-load {core} current … loss … at {winding} …')");
+        public Diagnostic ReportZigzagUnmagnetised(TextSpan span, string winding, string core, bool alone) =>
+            bag.Error("no-magnetising-branch", span, $"zigzag '{winding}' is {(alone ? "alone on" : "with no delta and no neutral terminal beside it on")} '{core}', which has no magnetising branch: nothing fixes the flux common to its limbs, so the network has no unique solution; give '{core}' its open-circuit test ('no-load {core} current … loss … at {winding} …')");
 
         public Diagnostic ReportSequenceWinding(Token name, string problem) =>
             bag.Error("wrong-kind", name.Span, $"'{name.Text}' {problem}");
