@@ -44,6 +44,34 @@ public sealed record ResultField(string Key, ResultKind Kind, string Unit, strin
 }
 
 /// <summary>
+/// One column of a group in the text and Markdown reports, in the order they show it: its Markdown
+/// header, its phrase in the text line (<c>{}</c> the value; the phrase carries its own separator,
+/// and is left out where the element has no value), the unit the value is read in, and the value:
+/// a field of the group (<see cref="Field"/>) or one of its own (<see cref="Read"/>), for what
+/// only a person reads (a supply's voltage, a power factor with its sense).
+/// </summary>
+public sealed record ResultColumn(string Header, string Text)
+{
+    /// <summary>The key of the field the column shows, in the field's unit.</summary>
+    public string? Field { get; init; }
+
+    /// <summary>The column's own value, where it shows no field as it is.</summary>
+    public Func<object, object?>? Read { get; init; }
+
+    /// <summary>The unit of <see cref="Read"/>'s value ("pf": a power factor with its sense, from the complex power).</summary>
+    public string Unit { get; init; } = "";
+
+    /// <summary>The Markdown header of a phasor's angle column; without it Markdown shows the magnitude only.</summary>
+    public string? Angle { get; init; }
+
+    /// <summary>A name: left-aligned in Markdown.</summary>
+    public bool IsName { get; init; }
+
+    /// <summary>Whether a case shows the column (a fault case shows loading as times rated).</summary>
+    public Func<CaseResult, bool> When { get; init; } = _ => true;
+}
+
+/// <summary>
 /// A group of results of a case in the JSON report (<c>sections</c>): its elements by name, each an
 /// object of the group's fields, or for a group of no elements (<c>totals</c>) one object.
 /// </summary>
@@ -60,6 +88,22 @@ public sealed record ResultGroup(string Key, string Description, ImmutableArray<
 
     /// <summary>Left out of the report where the case has no element of it.</summary>
     public bool OmitWhenEmpty { get; init; }
+
+    /// <summary>The text report's heading of the group, and the Markdown header of its elements' names.</summary>
+    public string Heading { get; init; } = "";
+
+    public string Element { get; init; } = "";
+
+    /// <summary>What the text and Markdown reports show of each element; empty where they write the group by hand.</summary>
+    public ImmutableArray<ResultColumn> Columns { get; init; } = [];
+
+    /// <summary>A column's value of an element, and its unit.</summary>
+    public (object? Value, string Unit) Shown(ResultColumn column, object item)
+    {
+        if (column.Read is { } read) return (read(item), column.Unit);
+        var field = Fields.First(f => f.Key == column.Field);
+        return (field.Read(item), field.Unit);
+    }
 
     public IEnumerable<(string? Name, object Item)> Items(CaseResult c) =>
         Single is { } single ? [(null, single(c))] : Elements!(c).Select(e => ((string?)e.Name, e.Item));
@@ -90,6 +134,14 @@ public static class ResultTable
     private static ResultGroup Group(string key, string description, Func<CaseResult, IEnumerable<(string, object)>> elements, params ResultField[] fields) =>
         new(key, description, [.. fields]) { Elements = elements };
 
+    /// <summary>A column showing a field as it is.</summary>
+    private static ResultColumn Show(string field, string header, string text, string? angle = null) =>
+        new(header, text) { Field = field, Angle = angle };
+
+    /// <summary>A column of its own value.</summary>
+    private static ResultColumn Column<T>(string header, string text, string unit, Func<T, object?> read) =>
+        new(header, text) { Read = x => read((T)x), Unit = unit };
+
     /// <summary>Loads and totals: results of a case with its loads, not of a fault's.</summary>
     private static bool Loaded(CaseResult c) => c.Fault is null && c.ShortCircuit is null;
 
@@ -101,7 +153,8 @@ public static class ResultTable
     [
         Group("nodes", "every connection point in the order the file first names it: its voltage against the reference",
             c => c.Points.Select(p => (p.Point, (object)p.Voltage)),
-            Phasor<Complex>("v", "V", v => v, band: true, required: true)),
+            Phasor<Complex>("v", "V", v => v, band: true, required: true))
+            with { Heading = "Nodes", Element = "node", Columns = [Show("v", "voltage", "{}", angle: "angle")] },
 
         Group("sections", "by section name: the winding's name when it has no tap or brush, else 'WINDING:A-B'",
             c => c.Sections.Select(s => (s.Section.Name, (object)s)),
@@ -113,7 +166,24 @@ public static class ResultTable
             Number<SectionResult>("s", "VA", s => s.Apparent, "apparent power, VA", band: true, required: true),
             Number<SectionResult>("loading", "%", s => s.Loading, "current over the winding's rated current, where a rating is known; in a fault case the multiple of rated current", band: true),
             Number<SectionResult>("loss", "W", s => s.Loss, "copper loss, W", band: true),
-            Number<SectionResult>("currentDensity", "A/m2", s => s.CurrentDensity, "current over the conductor's cross-section, A/m², where the winding gives its conductor")),
+            Number<SectionResult>("currentDensity", "A/m2", s => s.CurrentDensity, "current over the conductor's cross-section, A/m², where the winding gives its conductor"))
+            with
+            {
+                Heading = "Sections", Element = "section",
+                Columns =
+                [
+                    Show("from", "from", "{}") with { IsName = true },
+                    Show("to", "to", " to {}") with { IsName = true },
+                    Show("turns", "turns", ", {} turns"),
+                    Show("i", "current", ": {}", angle: "angle"),
+                    Show("s", "apparent", ", {}"),
+                    // Under a fault the loading is the multiple of rated current the winding carries.
+                    Show("loading", "loading", ", loading {}") with { When = c => c.Fault is null },
+                    Column<SectionResult>("times rated", ", {} x rated", "", s => s.Loading) with { When = c => c.Fault is not null },
+                    Column<SectionResult>("current density", ", {}", "A/mm2", s => s.CurrentDensity / 1e6) with { When = c => c.Sections.Any(s => s.CurrentDensity is not null) },
+                    Column<SectionResult>("loss", ", loss {}", "W", s => s.Loss > 0 ? s.Loss : null),
+                ],
+            },
 
         // A winding split by taps or a brush: its copper loss is the sum of its sections'.
         Group("windings", "by winding name: its copper loss, W, the sum over its sections",
@@ -124,7 +194,11 @@ public static class ResultTable
             c => c.Taps.Select(t => (t.Point, (object)t)),
             Word<TapResult>("winding", t => t.Winding.Name, required: true),
             Phasor<TapResult>("i", "A", t => t.Current, "the current out of the winding at the point: the current of the section ending there less that of the section starting there", band: true, required: true))
-            with { OmitWhenEmpty = true },
+            with
+            {
+                OmitWhenEmpty = true, Heading = "Taps, current out of the winding", Element = "tap",
+                Columns = [Show("winding", "winding", "on {}") with { IsName = true }, Show("i", "current out", ": {}", angle: "angle")],
+            },
 
         Group("tapChangers", "by tap changer name, in source order: the position stated or settled on",
             c => c.TapPositions.Select(t => (t.Changer.Name, (object)t)),
@@ -160,7 +234,18 @@ public static class ResultTable
             Number<SupplyResult>("p", "W", s => s.Power.Real, band: true, required: true),
             Number<SupplyResult>("q", "var", s => s.Power.Imaginary, band: true, required: true),
             Number<SupplyResult>("s", "VA", s => s.Power.Magnitude, band: true, required: true),
-            Number<SupplyResult>("pf", "", s => s.PowerFactor, band: true, required: true)),
+            Number<SupplyResult>("pf", "", s => s.PowerFactor, band: true, required: true))
+            with
+            {
+                Heading = "Supplies", Element = "supply",
+                Columns =
+                [
+                    Column<SupplyResult>("voltage", "{}", "V", s => s.Voltage.Magnitude),
+                    Show("i", "current", ", {}", angle: "angle"),
+                    Show("p", "P", ": P {}"), Show("q", "Q", ", Q {}"), Show("s", "S", ", S {}"),
+                    Column<SupplyResult>("pf", ", pf {}", "pf", s => s.Power),
+                ],
+            },
 
         Group("faults", "in a fault case: the fault's current; every section's current is then the fault duty it carries",
             c => c.Fault is { } f ? [(f.Fault.Name, (object)f)] : [],
@@ -183,7 +268,20 @@ public static class ResultTable
             Number<LoadRow>("regulation", "%", l => l.Load.Regulation, "no-load voltage minus loaded voltage, over loaded voltage, at the load's terminals", band: true),
             Number<LoadRow>("coRatio", "", l => l.Connection?.CoRatio, "for a load fed through an autotransformer connection: the two-winding rating over the throughput, (V_H − V_X)/V_H where the common winding is across the lower voltage; absent with no throughput"),
             Number<LoadRow>("twoWindingRating", "VA", l => l.Connection?.TwoWindingRating, "the two-winding rating that connection needs: the series winding's voltage times its current (the windings between the load and the supply points it is fed from), shared among the loads of one connection by their VA"))
-            with { When = Loaded },
+            with
+            {
+                When = Loaded, Heading = "Loads", Element = "load",
+                Columns =
+                [
+                    Show("v", "voltage", "{}", angle: "angle"), Show("i", "current", ", {}"),
+                    Show("p", "P", ": P {}"), Show("q", "Q", ", Q {}"),
+                    Column<LoadRow>("S", ", S {}", "VA", l => l.Load.Power.Magnitude),
+                    Column<LoadRow>("pf", ", pf {}", "pf", l => l.Load.Power),
+                    Show("regulation", "regulation", ", regulation {}"),
+                    Show("coRatio", "co-ratio", ", co-ratio {}") with { When = c => !c.Connections.IsEmpty },
+                    Show("twoWindingRating", "two-winding rating needed", ", two-winding rating needed {}") with { When = c => !c.Connections.IsEmpty },
+                ],
+            },
 
         new ResultGroup("totals", "",
         [
@@ -199,6 +297,9 @@ public static class ResultTable
         ])
         { When = Loaded, Single = c => c.Totals },
     ];
+
+    /// <summary>The group of the table with this key.</summary>
+    public static ResultGroup Named(string key) => Case.First(g => g.Key == key);
 
     /// <summary>A load with the autotransformer connection it is fed through, if any.</summary>
     public sealed record LoadRow(LoadResult Load, ConnectionResult? Connection);
