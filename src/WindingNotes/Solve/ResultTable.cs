@@ -30,6 +30,9 @@ public enum ResultKind
 /// </summary>
 public sealed record ResultField(string Key, ResultKind Kind, string Unit, string Description, Func<object, object?> Read)
 {
+    /// <summary>How a person says it ("copper loss"), where the key is not already that: the diff's words. Fields of one key share it.</summary>
+    public string Label { get; init; } = Key;
+
     /// <summary>Every element has it: the schema requires it.</summary>
     public bool Required { get; init; }
 
@@ -153,7 +156,7 @@ public static class ResultTable
     [
         Group("nodes", "every connection point in the order the file first names it: its voltage against the reference",
             c => c.Points.Select(p => (p.Point, (object)p.Voltage)),
-            Phasor<Complex>("v", "V", v => v, band: true, required: true))
+            Phasor<Complex>("v", "V", v => v, band: true, required: true) with { Label = "voltage" })
             with { Heading = "Nodes", Element = "node", Columns = [Show("v", "voltage", "{}", angle: "angle")] },
 
         Group("sections", "by section name: the winding's name when it has no tap or brush, else 'WINDING:A-B'",
@@ -162,11 +165,11 @@ public static class ResultTable
             Word<SectionResult>("from", s => s.Section.FromPoint, "the end nearer the winding's polarity end", required: true),
             Word<SectionResult>("to", s => s.Section.ToPoint, required: true),
             Number<SectionResult>("turns", "turns", s => s.Section.Turns, required: true),
-            Phasor<SectionResult>("i", "A", s => s.Current, "the current entering the 'from' end", band: true, required: true),
-            Number<SectionResult>("s", "VA", s => s.Apparent, "apparent power, VA", band: true, required: true),
+            Phasor<SectionResult>("i", "A", s => s.Current, "the current entering the 'from' end", band: true, required: true) with { Label = "current" },
+            Number<SectionResult>("s", "VA", s => s.Apparent, "apparent power, VA", band: true, required: true) with { Label = "S" },
             Number<SectionResult>("loading", "%", s => s.Loading, "current over the winding's rated current, where a rating is known; in a fault case the multiple of rated current", band: true),
             Number<SectionResult>("loss", "W", s => s.Loss, "copper loss, W", band: true),
-            Number<SectionResult>("currentDensity", "A/m2", s => s.CurrentDensity, "current over the conductor's cross-section, A/m², where the winding gives its conductor"))
+            Number<SectionResult>("currentDensity", "A/m2", s => s.CurrentDensity, "current over the conductor's cross-section, A/m², where the winding gives its conductor") with { Label = "current density" })
             with
             {
                 Heading = "Sections", Element = "section",
@@ -193,7 +196,7 @@ public static class ResultTable
         Group("taps", "by tap or brush name, in source order: the current the winding gives out at that point into what it feeds (at a centre tap, the neutral or return current; at a brush, the current the brush carries)",
             c => c.Taps.Select(t => (t.Point, (object)t)),
             Word<TapResult>("winding", t => t.Winding.Name, required: true),
-            Phasor<TapResult>("i", "A", t => t.Current, "the current out of the winding at the point: the current of the section ending there less that of the section starting there", band: true, required: true))
+            Phasor<TapResult>("i", "A", t => t.Current, "the current out of the winding at the point: the current of the section ending there less that of the section starting there", band: true, required: true) with { Label = "current" })
             with
             {
                 OmitWhenEmpty = true, Heading = "Taps, current out of the winding", Element = "tap",
@@ -223,17 +226,17 @@ public static class ResultTable
 
         Group("cores", "",
             c => c.Cores.Select(k => (k.Core.Name, (object)k)),
-            Phasor<CoreResult>("voltsPerTurn", "V", k => k.VoltsPerTurn, "where every winding on the core gives its turns", band: true),
-            Number<CoreResult>("flux", "T", k => k.Flux, "peak flux density, T, where the core gives its area", band: true),
+            Phasor<CoreResult>("voltsPerTurn", "V", k => k.VoltsPerTurn, "where every winding on the core gives its turns", band: true) with { Label = "volts per turn" },
+            Number<CoreResult>("flux", "T", k => k.Flux, "peak flux density, T, where the core gives its area", band: true) with { Label = "peak flux" },
             Number<CoreResult>("loss", "W", k => k.LossKnown ? k.Loss : null, "core loss, W; absent without an open-circuit ('no-load') test", band: true),
-            Phasor<CoreResult>("noLoadCurrent", "A", k => k.NoLoadCurrent, "the magnetising current the no-load test's winding draws at this volts per turn, where the core has a no-load test")),
+            Phasor<CoreResult>("noLoadCurrent", "A", k => k.NoLoadCurrent, "the magnetising current the no-load test's winding draws at this volts per turn, where the core has a no-load test") with { Label = "no-load current" }),
 
         Group("supplies", "",
             c => c.Supplies.Select(s => (s.Supply.Name, (object)s)),
-            Phasor<SupplyResult>("i", "A", s => s.Current, "the current leaving the positive terminal", band: true, required: true),
-            Number<SupplyResult>("p", "W", s => s.Power.Real, band: true, required: true),
-            Number<SupplyResult>("q", "var", s => s.Power.Imaginary, band: true, required: true),
-            Number<SupplyResult>("s", "VA", s => s.Power.Magnitude, band: true, required: true),
+            Phasor<SupplyResult>("i", "A", s => s.Current, "the current leaving the positive terminal", band: true, required: true) with { Label = "current" },
+            Number<SupplyResult>("p", "W", s => s.Power.Real, band: true, required: true) with { Label = "P" },
+            Number<SupplyResult>("q", "var", s => s.Power.Imaginary, band: true, required: true) with { Label = "Q" },
+            Number<SupplyResult>("s", "VA", s => s.Power.Magnitude, band: true, required: true) with { Label = "S" },
             Number<SupplyResult>("pf", "", s => s.PowerFactor, band: true, required: true))
             with
             {
@@ -249,10 +252,10 @@ public static class ResultTable
 
         Group("faults", "in a fault case: the fault's current; every section's current is then the fault duty it carries",
             c => c.Fault is { } f ? [(f.Fault.Name, (object)f)] : [],
-            Phasor<FaultResult>("i", "A", f => f.Current, "from the fault's first node to its second", band: true, required: true),
+            Phasor<FaultResult>("i", "A", f => f.Current, "from the fault's first node to its second", band: true, required: true) with { Label = "current" },
             Number<FaultResult>("peak", "A", f => f.Peak, "asymmetrical peak current of the fault, A: the peak factor times the rms current", band: true),
-            Number<FaultResult>("xr", "", f => double.IsFinite(f.XR) ? f.XR : null, "X/R of the loop that feeds the fault; absent when it is purely reactive"),
-            Number<FaultResult>("peakFactor", "", f => f.PeakFactor, "k·√2 with k = 1 + e^(−(φ+π/2)/(X/R))·sin φ, φ = atan(X/R), 2.55 above X/R 14 (IEC 60076-5)"),
+            Number<FaultResult>("xr", "", f => double.IsFinite(f.XR) ? f.XR : null, "X/R of the loop that feeds the fault; absent when it is purely reactive") with { Label = "X/R" },
+            Number<FaultResult>("peakFactor", "", f => f.PeakFactor, "k·√2 with k = 1 + e^(−(φ+π/2)/(X/R))·sin φ, φ = atan(X/R), 2.55 above X/R 14 (IEC 60076-5)") with { Label = "peak factor" },
             Field<FaultResult>("method", ResultKind.Choice, "", f => FaultMethods[f.Method == FaultMethod.AsLoaded ? 1 : 0], "equivalent source (IEC 60909-0, loads left out) where the file has a fault-study line not saying as-loaded, else the network as loaded")
                 with { Choices = FaultMethods },
             Number<FaultResult>("c", "", f => f.VoltageFactor, "the equivalent source's voltage factor, on the voltage across the fault at no load"),
@@ -261,13 +264,13 @@ public static class ResultTable
 
         Group("loads", "",
             c => c.Loads.Select(l => (l.Load.Name, (object)new LoadRow(l, c.Connections.FirstOrDefault(x => x.Connection.Load == l.Load)))),
-            Phasor<LoadRow>("v", "V", l => l.Load.Voltage, band: true, required: true),
-            Phasor<LoadRow>("i", "A", l => l.Load.Current, "the current entering the load's first node", band: true, required: true),
-            Number<LoadRow>("p", "W", l => l.Load.Power.Real, band: true, required: true),
-            Number<LoadRow>("q", "var", l => l.Load.Power.Imaginary, band: true, required: true),
+            Phasor<LoadRow>("v", "V", l => l.Load.Voltage, band: true, required: true) with { Label = "voltage" },
+            Phasor<LoadRow>("i", "A", l => l.Load.Current, "the current entering the load's first node", band: true, required: true) with { Label = "current" },
+            Number<LoadRow>("p", "W", l => l.Load.Power.Real, band: true, required: true) with { Label = "P" },
+            Number<LoadRow>("q", "var", l => l.Load.Power.Imaginary, band: true, required: true) with { Label = "Q" },
             Number<LoadRow>("regulation", "%", l => l.Load.Regulation, "no-load voltage minus loaded voltage, over loaded voltage, at the load's terminals", band: true),
-            Number<LoadRow>("coRatio", "", l => l.Connection?.CoRatio, "for a load fed through an autotransformer connection: the two-winding rating over the throughput, (V_H − V_X)/V_H where the common winding is across the lower voltage; absent with no throughput"),
-            Number<LoadRow>("twoWindingRating", "VA", l => l.Connection?.TwoWindingRating, "the two-winding rating that connection needs: the series winding's voltage times its current (the windings between the load and the supply points it is fed from), shared among the loads of one connection by their VA"))
+            Number<LoadRow>("coRatio", "", l => l.Connection?.CoRatio, "for a load fed through an autotransformer connection: the two-winding rating over the throughput, (V_H − V_X)/V_H where the common winding is across the lower voltage; absent with no throughput") with { Label = "co-ratio" },
+            Number<LoadRow>("twoWindingRating", "VA", l => l.Connection?.TwoWindingRating, "the two-winding rating that connection needs: the series winding's voltage times its current (the windings between the load and the supply points it is fed from), shared among the loads of one connection by their VA") with { Label = "two-winding rating" })
             with
             {
                 When = Loaded, Heading = "Loads", Element = "load",
@@ -285,18 +288,28 @@ public static class ResultTable
 
         new ResultGroup("totals", "",
         [
-            Number<Totals>("copperLoss", "W", t => t.CopperLoss, band: true, required: true),
+            Number<Totals>("copperLoss", "W", t => t.CopperLoss, band: true, required: true) with { Label = "copper loss" },
             // Unknown without an open-circuit test of every core: null, never a misleading zero.
-            Field<Totals>("coreLoss", ResultKind.NumberOrNull, "W", t => t.CoreLossKnown ? t.CoreLoss : null, "null where a core has no open-circuit ('no-load') test: its loss is unknown, and 'efficiency' and the maximum-efficiency load are then absent", band: true, required: true),
+            Field<Totals>("coreLoss", ResultKind.NumberOrNull, "W", t => t.CoreLossKnown ? t.CoreLoss : null, "null where a core has no open-circuit ('no-load') test: its loss is unknown, and 'efficiency' and the maximum-efficiency load are then absent", band: true, required: true) with { Label = "core loss" },
             Number<Totals>("efficiency", "%", t => t.Efficiency, "power delivered to loads over power supplied", band: true),
             Number<Totals>("throughput", "VA", t => t.Throughput, "apparent power of the loads, VA", band: true, required: true),
             Number<Totals>("transformed", "VA", t => t.Transformed, "apparent power the windings transform, VA", band: true, required: true),
-            Number<Totals>("maxEfficiencyLoad", "VA", t => t.MaxEfficiencyLoad, "the load (VA) at which efficiency is highest, where copper loss equals core loss", band: true),
-            Number<Totals>("maxEfficiencyFraction", "%", t => t.MaxEfficiencyFraction, "that load as a fraction of this case's load"),
-            Number<Totals>("maxEfficiency", "%", t => t.MaxEfficiency, "the efficiency at that load, at this case's power factor", band: true),
+            Number<Totals>("maxEfficiencyLoad", "VA", t => t.MaxEfficiencyLoad, "the load (VA) at which efficiency is highest, where copper loss equals core loss", band: true) with { Label = "maximum-efficiency load" },
+            Number<Totals>("maxEfficiencyFraction", "%", t => t.MaxEfficiencyFraction, "that load as a fraction of this case's load") with { Label = "maximum-efficiency fraction" },
+            Number<Totals>("maxEfficiency", "%", t => t.MaxEfficiency, "the efficiency at that load, at this case's power factor", band: true) with { Label = "maximum efficiency" },
         ])
         { When = Loaded, Single = c => c.Totals },
     ];
+
+    /// <summary>A field of a value by its key, in any group (the first; such fields of one key share their unit and label).</summary>
+    public static ResultField? FieldNamed(string key) => ByKey.Value.GetValueOrDefault(key);
+
+    private static readonly Lazy<Dictionary<string, ResultField>> ByKey = new(() =>
+    {
+        var byKey = new Dictionary<string, ResultField>(StringComparer.Ordinal);
+        foreach (var f in Case.SelectMany(g => g.Fields).SelectMany(f => f.Nested.Prepend(f)).Where(f => f.Kind != ResultKind.Object)) byKey.TryAdd(f.Key, f);
+        return byKey;
+    });
 
     /// <summary>The group of the table with this key.</summary>
     public static ResultGroup Named(string key) => Case.First(g => g.Key == key);
