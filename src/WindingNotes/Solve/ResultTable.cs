@@ -43,7 +43,6 @@ public sealed record ResultField(string Key, ResultKind Kind, string Unit, strin
 
     /// <summary>The fields of an <see cref="ResultKind.Object"/>, read from what <see cref="Read"/> gives.</summary>
     public ImmutableArray<ResultField> Nested { get; init; } = [];
-
 }
 
 /// <summary>
@@ -92,9 +91,10 @@ public sealed record ResultGroup(string Key, string Description, ImmutableArray<
     /// <summary>Left out of the report where the case has no element of it.</summary>
     public bool OmitWhenEmpty { get; init; }
 
-    /// <summary>The text report's heading of the group, and the Markdown header of its elements' names.</summary>
+    /// <summary>The text report's heading of the group.</summary>
     public string Heading { get; init; } = "";
 
+    /// <summary>The Markdown header of its elements' names ("section").</summary>
     public string Element { get; init; } = "";
 
     /// <summary>What the text and Markdown reports show of each element; empty where they write the group by hand.</summary>
@@ -114,11 +114,13 @@ public sealed record ResultGroup(string Key, string Description, ImmutableArray<
 
 /// <summary>
 /// The results of a case as data, in the order of the JSON report: every group and field once, with
-/// its unit, its meaning and where it comes from. The JSON report's case groups, the paths bands are
-/// kept by (<see cref="CaseValues"/>) and the case part of grammar/results.schema.json are written
-/// from this one table, so they cannot drift apart (as <c>Syntax/Grammar</c> is for statements). A
+/// its unit, its meaning and where it comes from, and what the text and Markdown reports show of it.
+/// The JSON report's case groups, the paths bands are kept by (<see cref="CaseValues"/>), the case
+/// part of grammar/results.schema.json, the diff's words and units, and the text and Markdown lines of
+/// the groups with columns are written from this one table, so they cannot drift apart (as
+/// <c>Syntax/Grammar</c> is for statements). It is in Solve because bands are kept while solving. A
 /// case's name, its sweep values, a bus fault's study, the three-phase sets, the checks and the bands
-/// are written beside it by the report.
+/// are written beside it by the report (DEVELOPERS.md, "Adding a result").
 /// </summary>
 public static class ResultTable
 {
