@@ -93,123 +93,9 @@ public static class JsonReport
             foreach (var v in c.Case.Sweep) Number(w, v.Name, v.Value);
             w.WriteEndObject();
         }
-        w.WriteStartObject("nodes");
-        foreach (var (point, v) in c.Points)
+        foreach (var group in ResultTable.Case) WriteGroup(w, group, c);
+        if (c.Fault is not null)
         {
-            w.WriteStartObject(point);
-            Phasor(w, "v", v);
-            w.WriteEndObject();
-        }
-        w.WriteEndObject();
-
-        w.WriteStartObject("sections");
-        foreach (var s in c.Sections)
-        {
-            w.WriteStartObject(s.Section.Name);
-            w.WriteString("winding", s.Winding.Name);
-            w.WriteString("from", s.Section.FromPoint);
-            w.WriteString("to", s.Section.ToPoint);
-            Number(w, "turns", s.Section.Turns);
-            Phasor(w, "i", s.Current);
-            Number(w, "s", s.Apparent);
-            if (s.Loading is { } loading) Number(w, "loading", loading);
-            Number(w, "loss", s.Loss);
-            if (s.CurrentDensity is { } density) Number(w, "currentDensity", density);
-            w.WriteEndObject();
-        }
-        w.WriteEndObject();
-
-        // A winding split by taps or a brush: its copper loss is the sum of its sections'.
-        w.WriteStartObject("windings");
-        foreach (var winding in c.Sections.GroupBy(s => s.Winding.Name))
-        {
-            w.WriteStartObject(winding.Key);
-            Number(w, "loss", winding.Sum(s => s.Loss));
-            w.WriteEndObject();
-        }
-        w.WriteEndObject();
-
-        if (!c.Taps.IsEmpty)
-        {
-            w.WriteStartObject("taps");
-            foreach (var t in c.Taps)
-            {
-                w.WriteStartObject(t.Point);
-                w.WriteString("winding", t.Winding.Name);
-                Phasor(w, "i", t.Current);
-                w.WriteEndObject();
-            }
-            w.WriteEndObject();
-        }
-
-        if (!c.TapPositions.IsEmpty)
-        {
-            w.WriteStartObject("tapChangers");
-            foreach (var t in c.TapPositions)
-            {
-                w.WriteStartObject(t.Changer.Name);
-                w.WriteNumber("position", t.Position);
-                w.WriteString("state", t.State switch { TapState.InBand => "in-band", TapState.AtLimit => "at-limit", TapState.Hunting => "hunting", TapState.Follows => "follows", TapState.Backwards => "wired-backwards", _ => "stated" });
-                if (t.Relay is { } relay) Number(w, "relay", relay);
-                if (t.Regulation is { } r)
-                {
-                    w.WriteStartObject("regulation");
-                    w.WriteString("series", r.Series);
-                    w.WriteString("shunt", r.Shunt);
-                    Number(w, "range", r.Range);
-                    Number(w, "currentMultiplier", r.Multiplier);
-                    if (r.CurrentRating is { } rating) Number(w, "currentRating", rating);
-                    Number(w, "current", r.Current);
-                    w.WriteEndObject();
-                }
-                w.WriteEndObject();
-            }
-            w.WriteEndObject();
-        }
-
-        w.WriteStartObject("cores");
-        foreach (var k in c.Cores)
-        {
-            w.WriteStartObject(k.Core.Name);
-            if (k.VoltsPerTurn is { } e) Phasor(w, "voltsPerTurn", e);
-            if (k.Flux is { } flux) Number(w, "flux", flux);
-            if (k.LossKnown) Number(w, "loss", k.Loss);
-            if (k.NoLoadCurrent is { } i0) Phasor(w, "noLoadCurrent", i0);
-            w.WriteEndObject();
-        }
-        w.WriteEndObject();
-
-        w.WriteStartObject("supplies");
-        foreach (var s in c.Supplies)
-        {
-            w.WriteStartObject(s.Supply.Name);
-            Phasor(w, "i", s.Current);
-            Number(w, "p", s.Power.Real);
-            Number(w, "q", s.Power.Imaginary);
-            Number(w, "s", s.Power.Magnitude);
-            Number(w, "pf", s.PowerFactor);
-            w.WriteEndObject();
-        }
-        w.WriteEndObject();
-
-        if (c.Fault is { } fault)
-        {
-            w.WriteStartObject("faults");
-            w.WriteStartObject(fault.Fault.Name);
-            Phasor(w, "i", fault.Current);
-            Number(w, "peak", fault.Peak);
-            if (double.IsFinite(fault.XR)) Number(w, "xr", fault.XR);
-            Number(w, "peakFactor", fault.PeakFactor);
-            w.WriteString("method", fault.Method == FaultMethod.AsLoaded ? "as-loaded" : "equivalent-source");
-            if (fault.VoltageFactor is { } factor) Number(w, "c", factor);
-            if (!fault.LoadsAsImpedance.IsEmpty)
-            {
-                w.WriteStartArray("loadsAsImpedance");
-                foreach (var l in fault.LoadsAsImpedance) w.WriteStringValue(l.Name);
-                w.WriteEndArray();
-            }
-            w.WriteEndObject();
-            w.WriteEndObject();
             WriteBands(w, c);
             w.WriteEndObject();
             return;
@@ -221,37 +107,6 @@ public static class JsonReport
             w.WriteEndObject();
             return;
         }
-
-        w.WriteStartObject("loads");
-        foreach (var l in c.Loads)
-        {
-            w.WriteStartObject(l.Load.Name);
-            Phasor(w, "v", l.Voltage);
-            Phasor(w, "i", l.Current);
-            Number(w, "p", l.Power.Real);
-            Number(w, "q", l.Power.Imaginary);
-            if (l.Regulation is { } r) Number(w, "regulation", r);
-            if (c.Connections.FirstOrDefault(x => x.Connection.Load == l.Load) is { } connection)
-            {
-                if (connection.CoRatio is { } coRatio) Number(w, "coRatio", coRatio);
-                Number(w, "twoWindingRating", connection.TwoWindingRating);
-            }
-            w.WriteEndObject();
-        }
-        w.WriteEndObject();
-
-        w.WriteStartObject("totals");
-        Number(w, "copperLoss", c.Totals.CopperLoss);
-        // Unknown without an open-circuit test of every core: null, never a misleading zero.
-        if (c.Totals.CoreLossKnown) Number(w, "coreLoss", c.Totals.CoreLoss);
-        else w.WriteNull("coreLoss");
-        if (c.Totals.Efficiency is { } eff) Number(w, "efficiency", eff);
-        Number(w, "throughput", c.Totals.Throughput);
-        Number(w, "transformed", c.Totals.Transformed);
-        if (c.Totals.MaxEfficiencyLoad is { } best) Number(w, "maxEfficiencyLoad", best);
-        if (c.Totals.MaxEfficiencyFraction is { } fraction) Number(w, "maxEfficiencyFraction", fraction);
-        if (c.Totals.MaxEfficiency is { } highest) Number(w, "maxEfficiency", highest);
-        w.WriteEndObject();
         ThreePhaseReport.Json(w, c);
 
         if (c.Case == CaseSpec.Normal)
@@ -287,6 +142,58 @@ public static class JsonReport
         }
         WriteBands(w, c);
         w.WriteEndObject();
+    }
+
+    /// <summary>One group of the results table, by its elements' names (or one object), where the case has it.</summary>
+    private static void WriteGroup(Utf8JsonWriter w, ResultGroup group, CaseResult c)
+    {
+        if (!group.When(c)) return;
+        var items = group.Items(c).ToList();
+        if (group.OmitWhenEmpty && items.Count == 0) return;
+        w.WriteStartObject(group.Key);
+        foreach (var (name, item) in items)
+        {
+            if (name is null)
+            {
+                WriteFields(w, group.Fields, item);
+                continue;
+            }
+            w.WriteStartObject(name);
+            WriteFields(w, group.Fields, item);
+            w.WriteEndObject();
+        }
+        w.WriteEndObject();
+    }
+
+    /// <summary>An element's fields by their kind; a field the element lacks is absent (null where its kind says so).</summary>
+    private static void WriteFields(Utf8JsonWriter w, IEnumerable<ResultField> fields, object item)
+    {
+        foreach (var f in fields)
+        {
+            var value = f.Read(item);
+            if (value is null)
+            {
+                if (f.Kind == ResultKind.NumberOrNull) w.WriteNull(f.Key);
+                continue;
+            }
+            switch (f.Kind)
+            {
+                case ResultKind.Number or ResultKind.NumberOrNull: Number(w, f.Key, (double)value); break;
+                case ResultKind.Phasor: Phasor(w, f.Key, (Complex)value); break;
+                case ResultKind.Integer: w.WriteNumber(f.Key, (int)value); break;
+                case ResultKind.Word or ResultKind.Choice: w.WriteString(f.Key, (string)value); break;
+                case ResultKind.Names:
+                    w.WriteStartArray(f.Key);
+                    foreach (var n in (IEnumerable<string>)value) w.WriteStringValue(n);
+                    w.WriteEndArray();
+                    break;
+                case ResultKind.Object:
+                    w.WriteStartObject(f.Key);
+                    WriteFields(w, f.Nested, value);
+                    w.WriteEndObject();
+                    break;
+            }
+        }
     }
 
     /// <summary>Each result that varies over the tolerances, by its path in this case, to its range.</summary>

@@ -77,20 +77,9 @@ public static class MarkdownReport
     private static void WriteCase(StringBuilder o, CaseResult c)
     {
         o.Append("\n### Case ").Append(c.Case.Name).Append("\n\n");
-        Table(o, 1, ["node", "voltage", "angle"], c.Points.Select(p => new[] { p.Point, V(p.Voltage.Magnitude, "V"), Angle(p.Voltage) }));
-
-        // Under a fault the loading is the multiple of rated current a winding carries.
-        var density = c.Sections.Any(s => s.CurrentDensity is not null);
+        WriteGroup(o, ResultTable.Named("nodes"), c);
         o.Append('\n');
-        Table(o, 3, ["section", "from", "to", "turns", "current", "angle", "apparent", c.Fault is null ? "loading" : "times rated", .. If(density, "current density"), "loss"],
-            c.Sections.Select(s => (string[])
-            [
-                s.Section.Name, s.Section.FromPoint, s.Section.ToPoint, Numbers.Plain(s.Section.Turns),
-                V(s.Current.Magnitude, "A"), Angle(s.Current), V(s.Apparent, "VA"),
-                s.Loading is not { } l ? "" : c.Fault is null ? TextReport.Percent(l) : Numbers.Fixed(l),
-                .. If(density, s.CurrentDensity is { } j ? Numbers.Format(j / 1e6, "A/mm2") : ""),
-                s.Loss > 0 ? V(s.Loss, "W") : "",
-            ]));
+        WriteGroup(o, ResultTable.Named("sections"), c);
         var split = c.Sections.GroupBy(s => s.Winding.Name).Where(g => g.Count() > 1 && g.Sum(s => s.Loss) > 0).ToList();
         if (split.Count > 0)
         {
@@ -100,7 +89,7 @@ public static class MarkdownReport
         if (!c.Taps.IsEmpty)
         {
             o.Append('\n');
-            Table(o, 2, ["tap", "winding", "current out", "angle"], c.Taps.Select(t => new[] { t.Point, t.Winding.Name, V(t.Current.Magnitude, "A"), Angle(t.Current) }));
+            WriteGroup(o, ResultTable.Named("taps"), c);
         }
         if (!c.TapPositions.IsEmpty)
         {
@@ -121,11 +110,7 @@ public static class MarkdownReport
             ]));
         }
         o.Append('\n');
-        Table(o, 1, ["supply", "voltage", "current", "angle", "P", "Q", "S", "pf"], c.Supplies.Select(s => new[]
-        {
-            s.Supply.Name, V(s.Voltage.Magnitude, "V"), V(s.Current.Magnitude, "A"), Angle(s.Current),
-            V(s.Power.Real, "W"), V(s.Power.Imaginary, "var"), V(s.Power.Magnitude, "VA"), TextReport.PowerFactor(s.Power),
-        }));
+        WriteGroup(o, ResultTable.Named("supplies"), c);
         if (c.Fault is { } fault)
         {
             o.Append('\n');
@@ -146,20 +131,8 @@ public static class MarkdownReport
         }
         if (!c.Loads.IsEmpty)
         {
-            var auto = !c.Connections.IsEmpty;
             o.Append('\n');
-            Table(o, 1, ["load", "voltage", "angle", "current", "P", "Q", "S", "pf", "regulation", .. If(auto, "co-ratio", "two-winding rating needed")],
-                c.Loads.Select(l =>
-                {
-                    var a = c.Connections.FirstOrDefault(x => x.Connection.Load == l.Load);
-                    return (string[])
-                    [
-                        l.Load.Name, V(l.Voltage.Magnitude, "V"), Angle(l.Voltage), V(l.Current.Magnitude, "A"),
-                        V(l.Power.Real, "W"), V(l.Power.Imaginary, "var"), V(l.Power.Magnitude, "VA"), TextReport.PowerFactor(l.Power),
-                        l.Regulation is { } r ? TextReport.Percent(r) : "",
-                        .. If(auto, a?.CoRatio is { } coRatio ? Numbers.Fixed(coRatio) : "", a is null ? "" : V(a.TwoWindingRating, "VA")),
-                    ];
-                }));
+            WriteGroup(o, ResultTable.Named("loads"), c);
         }
         o.Append('\n');
         var t = c.Totals;
@@ -172,6 +145,23 @@ public static class MarkdownReport
         ThreePhaseReport.Markdown(o, c);
         WriteBands(o, c);
     }
+
+    /// <summary>A group of the results table as a table: the elements' names, then its columns (a phasor's angle beside it where the column has one).</summary>
+    private static void WriteGroup(StringBuilder o, ResultGroup group, CaseResult c)
+    {
+        var columns = group.Columns.Where(k => k.When(c)).ToList();
+        Table(o, 1 + columns.TakeWhile(k => k.IsName).Count(),
+            [group.Element, .. columns.SelectMany(k => k.Angle is { } angle ? [k.Header, angle] : new[] { k.Header })],
+            group.Items(c).Select(e => (string[])[e.Name ?? "", .. columns.SelectMany(k => Cells(group.Shown(k, e.Item), k.Angle is not null))]));
+    }
+
+    /// <summary>A column's cells: empty where the element has no value; a phasor's magnitude, and its angle where the column shows it.</summary>
+    private static IEnumerable<string> Cells((object? Value, string Unit) shown, bool angle) => shown.Value switch
+    {
+        null => angle ? ["", ""] : [""],
+        Complex v when shown.Unit != "pf" => angle ? [V(v.Magnitude, shown.Unit), Angle(v)] : [V(v.Magnitude, shown.Unit)],
+        var value => [TextReport.Shown(value, shown.Unit)],
+    };
 
     private static void WriteBands(StringBuilder o, CaseResult c)
     {

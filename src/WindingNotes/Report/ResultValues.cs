@@ -13,32 +13,11 @@ public sealed record ResultValue(string Case, string Element, string Field, stri
 {
     public string Label => $"{Element} {FieldLabel(Field)}".Trim();
 
-    /// <summary>"current angle", "voltage", "copper loss": a field as a person says it.</summary>
+    /// <summary>"current angle", "voltage", "copper loss": a field as a person says it, its label in the results table.</summary>
     public static string FieldLabel(string field)
     {
         var parts = field.Split('.');
-        var label = parts[0] switch
-        {
-            "v" => "voltage",
-            "i" => "current",
-            "s" => "S",
-            "p" => "P",
-            "q" => "Q",
-            "voltsPerTurn" => "volts per turn",
-            "flux" => "peak flux",
-            "copperLoss" => "copper loss",
-            "coreLoss" => "core loss",
-            "coRatio" => "co-ratio",
-            "twoWindingRating" => "two-winding rating",
-            "maxEfficiencyLoad" => "maximum-efficiency load",
-            "maxEfficiencyFraction" => "maximum-efficiency fraction",
-            "maxEfficiency" => "maximum efficiency",
-            "peakFactor" => "peak factor",
-            "xr" => "X/R",
-            "currentDensity" => "current density",
-            "noLoadCurrent" => "no-load current",
-            var other => other,
-        };
+        var label = Solve.ResultTable.FieldNamed(parts[0])?.Label ?? parts[0];
         return parts.Length > 1 && parts[^1] == "deg" ? label + " angle" : label;
     }
 }
@@ -57,8 +36,6 @@ public static class ResultValues
         ["nodes"] = "node", ["sections"] = "section", ["windings"] = "winding", ["cores"] = "core", ["supplies"] = "supply",
         ["loads"] = "load", ["faults"] = "fault", ["totals"] = "", ["bands"] = BandOf.Trim(),
     }.ToImmutableDictionary();
-
-    private static readonly HashSet<string> Fractions = ["loading", "efficiency", "regulation", "maxEfficiency", "maxEfficiencyFraction"];
 
     public static ImmutableArray<ResultValue> Of(Evaluation evaluation)
     {
@@ -106,25 +83,13 @@ public static class ResultValues
         }
     }
 
-    /// <summary>The unit of a field of the report, from its name: "%" marks a fraction shown as percent; a power factor has none.</summary>
+    /// <summary>The unit of a field of the report, from its name in the results table: "%" marks a fraction shown as percent; a power factor has none.</summary>
     public static string UnitOf(string field)
     {
         var parts = field.Split('.');
         if (parts[^1] == "deg") return "deg";
         var name = parts.Length > 1 && parts[^1] is "rms" or "min" or "max" ? parts[^2] : parts[^1];
-        if (Fractions.Contains(name)) return "%";
-        return name switch
-        {
-            "v" or "voltsPerTurn" => "V",
-            "i" or "peak" or "noLoadCurrent" => "A",
-            "currentDensity" => "A/m2",
-            "s" or "throughput" or "transformed" or "twoWindingRating" or "maxEfficiencyLoad" => "VA",
-            "p" or "copperLoss" or "coreLoss" or "loss" => "W",
-            "q" => "var",
-            "flux" => "T",
-            "turns" => "turns",
-            _ => "",
-        };
+        return Solve.ResultTable.FieldNamed(name)?.Unit ?? "";
     }
 
     /// <summary>"sections.LV.i.rms" as "section LV current".</summary>

@@ -46,29 +46,15 @@ public static class TextReport
     private static void WriteCase(StringBuilder o, CaseResult c)
     {
         o.Append("\nCase ").Append(c.Case.Name).Append('\n');
-        Heading(o, "Nodes");
-        foreach (var (point, v) in c.Points) Line(o, point, Phasor(v, "V"));
-        Heading(o, "Sections");
-        foreach (var s in c.Sections)
-        {
-            var text = $"{s.Section.FromPoint} to {s.Section.ToPoint}, {Numbers.Plain(s.Section.Turns)} turns: {Phasor(s.Current, "A")}, {Numbers.Format(s.Apparent, "VA")}";
-            // Under a fault the loading is the multiple of rated current the winding carries.
-            if (s.Loading is { } loading) text += c.Fault is null ? $", loading {Percent(loading)}" : $", {Numbers.Fixed(loading)} x rated";
-            if (s.CurrentDensity is { } density) text += $", {Numbers.Format(density / 1e6, "A/mm2")}";
-            if (s.Loss > 0) text += $", loss {Numbers.Format(s.Loss, "W")}";
-            Line(o, s.Section.Name, text);
-        }
+        WriteGroup(o, ResultTable.Named("nodes"), c);
+        WriteGroup(o, ResultTable.Named("sections"), c);
         var split = c.Sections.GroupBy(s => s.Winding.Name).Where(g => g.Count() > 1 && g.Sum(s => s.Loss) > 0).ToList();
         if (split.Count > 0)
         {
             Heading(o, "Windings");
             foreach (var winding in split) Line(o, winding.Key, $"loss {Numbers.Format(winding.Sum(s => s.Loss), "W")}");
         }
-        if (!c.Taps.IsEmpty)
-        {
-            Heading(o, "Taps, current out of the winding");
-            foreach (var t in c.Taps) Line(o, t.Point, $"on {t.Winding.Name}: {Phasor(t.Current, "A")}");
-        }
+        if (!c.Taps.IsEmpty) WriteGroup(o, ResultTable.Named("taps"), c);
         if (!c.TapPositions.IsEmpty)
         {
             Heading(o, "Tap changers");
@@ -88,21 +74,8 @@ public static class TextReport
                 Line(o, k.Core.Name, string.Join(", ", parts));
             }
         }
-        Heading(o, "Supplies");
-        foreach (var s in c.Supplies)
-            Line(o, s.Supply.Name, $"{Numbers.Format(s.Voltage.Magnitude, "V")}, {Phasor(s.Current, "A")}: {Powers(s.Power)}");
-        if (!c.Loads.IsEmpty && c.Case.Fault is null)
-        {
-            Heading(o, "Loads");
-            foreach (var l in c.Loads)
-            {
-                var text = $"{Phasor(l.Voltage, "V")}, {Phasor(l.Current, "A")}: {Powers(l.Power)}";
-                if (l.Regulation is { } r) text += $", regulation {Percent(r)}";
-                if (c.Connections.FirstOrDefault(x => x.Connection.Load == l.Load) is { } a)
-                    text += $"{(a.CoRatio is { } coRatio ? $", co-ratio {Numbers.Fixed(coRatio)}" : "")}, two-winding rating needed {Numbers.Format(a.TwoWindingRating, "VA")}";
-                Line(o, l.Load.Name, text);
-            }
-        }
+        WriteGroup(o, ResultTable.Named("supplies"), c);
+        if (!c.Loads.IsEmpty && c.Case.Fault is null) WriteGroup(o, ResultTable.Named("loads"), c);
         if (c.Fault is { } fault)
         {
             Heading(o, "Fault");
@@ -130,6 +103,31 @@ public static class TextReport
         ThreePhaseReport.Text(o, c);
         WriteBands(o, c);
     }
+
+    /// <summary>A group of the results table: its heading, then a line an element of its columns' phrases.</summary>
+    private static void WriteGroup(StringBuilder o, ResultGroup group, CaseResult c)
+    {
+        Heading(o, group.Heading);
+        var columns = group.Columns.Where(k => k.When(c)).ToList();
+        foreach (var (name, item) in group.Items(c))
+        {
+            var text = new StringBuilder();
+            foreach (var column in columns)
+                if (group.Shown(column, item) is ({ } value, var unit)) text.Append(column.Text.Replace("{}", Shown(value, unit)));
+            Line(o, name ?? "", text.ToString());
+        }
+    }
+
+    /// <summary>A value of the results table in its unit: a phasor in polar form, a power factor with its sense, turns as a plain number, a name as it is.</summary>
+    public static string Shown(object value, string unit) => value switch
+    {
+        Complex s when unit == "pf" => PowerFactor(s),
+        Complex v => Phasor(v, unit),
+        double x when unit == "turns" => Numbers.Plain(x),
+        double x => Value(x, unit),
+        int k => k.ToString(System.Globalization.CultureInfo.InvariantCulture),
+        _ => value.ToString() ?? "",
+    };
 
     /// <summary>Why a core shows no flux density: what is missing to compute it.</summary>
     public static string FluxUnknown(CoreResult k) =>

@@ -51,6 +51,27 @@ public class ResultsSchemaTests
     }
 
     [Fact]
+    public void The_case_part_of_the_schema_is_the_results_table()
+    {
+        // As the EBNF is the grammar table's: grammar/results.schema.json holds each group of
+        // Solve/ResultTable.cs as ResultsSchema writes it; UPDATE_EXPECTED=1 rewrites those groups.
+        var path = Path.Combine(Snapshot.RepositoryRoot, "grammar", "results.schema.json");
+        var file = File.ReadAllText(path);
+        if (Snapshot.Updating) File.WriteAllText(path, ResultsSchema.WithCase(file));
+        Assert.Equal(ResultsSchema.WithCase(file), File.ReadAllText(path));
+    }
+
+    [Fact]
+    public void A_group_the_schema_lacks_is_written_after_the_one_before_it()
+    {
+        var file = File.ReadAllText(Path.Combine(Snapshot.RepositoryRoot, "grammar", "results.schema.json"));
+        var start = file.IndexOf("        \"taps\": {", StringComparison.Ordinal);
+        var end = file.IndexOf("        \"tapChangers\": {", StringComparison.Ordinal);
+        var without = file[..start] + file[end..];
+        Assert.Equal(ResultsSchema.WithCase(file), ResultsSchema.WithCase(without));
+    }
+
+    [Fact]
     public void The_schema_rejects_a_report_that_drifts_from_it()
     {
         var report = JsonNode.Parse(JsonReport.Write(Wn.Eval(Example("alder-creek-boost.wn"))))!;
