@@ -1,3 +1,4 @@
+using WindingNotes.Editing;
 using WindingNotes.Tests.Support;
 using Xunit;
 
@@ -38,6 +39,10 @@ public class ThreePhaseTapTests
             var ratio = c.V(tap, "X0") / c.V(line, "X0");
             Assert.True((ratio - 0.75).Magnitude < 1e-9, $"{tap}: {ratio}");
         }
+        // The tap's line shows each phase tap's voltage at its end.
+        var hint = InlayHints.For(e).Single(h => h.Position.Line == e.Text.GetPosition(e.Text.Text.IndexOf("tap T", StringComparison.Ordinal)).Line);
+        Assert.StartsWith("T_a ", hint.Label);
+        Assert.Contains("; T_c ", hint.Label);
         // Each phase winding is two sections, named by the phase tap.
         Assert.Equal(6, c.Sections.Count(s => s.Winding.Name.StartsWith("LV_")));
         Assert.Contains(c.Sections, s => s.Section.Name == "LV_b:T_b-X0");
@@ -54,6 +59,17 @@ public class ThreePhaseTapTests
         Wn.Near(0.75 * 415 / Math.Sqrt(3) / 10, c.Load("lamp").Current.Magnitude, 2e-3, "lamp current");
         Wn.Near(c.Load("lamp").Current.Magnitude, c.Section("LV_b:T_b-X0").Current.Magnitude, 1e-9, "LV_b lower section");
         Assert.True(c.Section("LV_a:T_a-X0").Current.Magnitude < 1e-9);
+    }
+
+    [Fact]
+    public void A_rename_of_a_three_phase_tap_carries_its_phase_taps()
+    {
+        var (evaluation, position) = Cursor.Parse(Unit + "tap T$0 on LV at 25 %\nload lamp T_b X0 impedance 10 ohm\n");
+        var result = Navigation.Rename(evaluation, position, "MID");
+        Assert.Null(result.Error);
+        var renamed = Cursor.Apply(evaluation.Text.Text, result.Edits);
+        Assert.Contains("tap MID on LV at 25 %\nload lamp MID_b X0 impedance 10 ohm\n", renamed);
+        Assert.DoesNotContain(Wn.Eval(renamed).Diagnostics, d => d.IsError);
     }
 
     [Fact]
