@@ -124,6 +124,53 @@ public class ThreePhaseDiagramTests
     }
 
     [Fact]
+    public void Paralleled_units_and_a_grounding_zigzag_stand_side_by_side_on_their_buses_each_drawn_once()
+    {
+        var text = """
+            frequency 60 Hz
+            core TA construction bank rating 1500 kVA
+            winding HA on TA rated 13.8 kV delta H1 H2 H3
+            winding LA on TA rated 480 V wye X1 X2 X3 neutral X0
+            impedance HA LA 5.75 % xr 6
+            core TB construction bank rating 1500 kVA
+            winding HB on TB rated 13.8 kV delta G1 G2 G3
+            winding LB on TB rated 492 V wye Y1 Y2 Y3 neutral Y0
+            impedance HB LB 6 % xr 6
+            join H1 G1
+            join H2 G2
+            join H3 G3
+            join X1 Y1
+            join X2 Y2
+            join X3 Y3
+            join X0 Y0
+            three-phase-supply utility H1 H2 H3 13.8 kV
+            ground X0
+            three-phase-load plant X1 X2 X3 wye X0 impedance 0.2 ohm pf 0.9
+            core TG construction three-limb rating 150 kVA zero-sequence 40 %
+            winding Z on TG rated 480 V zigzag Z1 Z2 Z3 neutral N
+            join Z1 X1
+            join Z2 X2
+            join Z3 X3
+            load nr N X0 impedance 2 ohm
+
+            """;
+        var e = Wn.Solved(text);
+        var drawing = OneLineDiagram.Draw(e);
+        var texts = Texts(drawing.Svg);
+        Assert.Single(texts, t => t == "TA Dyn11");
+        Assert.Single(texts, t => t == "TB Dyn11");
+        Assert.Single(texts, t => t == "TG");
+        Assert.Contains(texts, t => t.StartsWith("Z zigzag, neutral"));
+        // Two buses: the 13.8 kV one with the supply and both units' high-voltage leads, the 480 V one with the rest.
+        var bars = XDocument.Parse(drawing.Svg).Root!.Descendants(SvgNs + "line").Where(l => l.Attribute("class")?.Value == "bus").ToList();
+        Assert.Equal(2, bars.Count);
+        var labels = drawing.Labels;
+        for (var i = 0; i < labels.Count; i++)
+            for (var j = i + 1; j < labels.Count; j++)
+                Assert.False(labels[i].Overlaps(labels[j]), $"labels {labels[i]} and {labels[j]} overlap");
+    }
+
+    [Fact]
     public void A_file_without_three_phase_elements_says_there_is_nothing_to_draw()
     {
         var e = Evaluator.Evaluate(File.ReadAllText(Command.Example("alder-creek-boost.wn")), "a.wn");

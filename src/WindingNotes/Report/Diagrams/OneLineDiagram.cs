@@ -220,13 +220,17 @@ public static class OneLineDiagram
             if (!visited.Add(bus)) return;
             foreach (var s in On(suppliesOn, bus))
                 if (drawn++ < MaxElements) PlaceSupply(s, bus);
-            foreach (var unit in On(unitsOn, bus).Where(u => !placed.Contains(u)).ToList())
+            // Every unit that hangs from this bus side by side first (paralleled units stand together),
+            // then what hangs from their other buses.
+            var hanging = On(unitsOn, bus).Where(u => !placed.Contains(u)).ToList();
+            foreach (var unit in hanging)
             {
                 if (drawn++ >= MaxElements) return;
                 PlaceUnit(unit, bus);
+            }
+            foreach (var unit in hanging)
                 foreach (var w in unit.Windings)
                     if (BusOf(w) is var lower && lower != bus) Place(lower, ref drawn);
-            }
             foreach (var l in On(loadsOn, bus))
                 if (drawn++ < MaxElements) PlaceLoad(l, bus);
         }
