@@ -1,3 +1,4 @@
+using WindingNotes.Model;
 using WindingNotes.Solve;
 using WindingNotes.Syntax;
 using WindingNotes.Text;
@@ -67,7 +68,7 @@ public static class InlayHints
             StatementKind.Load => index.Loads.GetValueOrDefault(name) is { } l ? ResultText.Terminal(l.Voltage, l.Current, l.Power) : null,
             StatementKind.Core => index.Cores.GetValueOrDefault(name) is { } k ? ResultText.Core(k) : null,
             StatementKind.Winding => Sections(index.OfWinding[name].ToList()),
-            StatementKind.Tap or StatementKind.Brush => Tap(evaluation.Normal, index.AtPoint[name].ToList(), name),
+            StatementKind.Tap or StatementKind.Brush => Tap(evaluation.Normal, index.AtPoint[name].ToList(), name) ?? PhaseTaps(evaluation, name),
             StatementKind.Thermal => ThermalHint(evaluation.Thermal, name),
             StatementKind.Capability => CapabilityHint(evaluation.Thermal, s),
             StatementKind.TapChanger => evaluation.Normal?.TapPositions.FirstOrDefault(t => t.Changer.Name == name) is { } tap ? Report.TextReport.TapText(tap) : null,
@@ -118,6 +119,12 @@ public static class InlayHints
         if (normal is null || sections.Count == 0) return null;
         return $"{ResultText.Magnitude(normal.PointVoltage(name), "V")}; {string.Join("; ", sections.Select(ResultText.NamedSection))}";
     }
+
+    /// <summary>A tap on a three-phase winding: the voltage of each of its phase taps.</summary>
+    private static string? PhaseTaps(Evaluation evaluation, string name) =>
+        evaluation.Normal is { } normal && evaluation.Model.Taps.Any(t => t.Name == Phases.Of(name, 0))
+            ? string.Join("; ", Phases.All(name).Select(p => $"{p} {ResultText.Magnitude(normal.PointVoltage(p), "V")}"))
+            : null;
 
     /// <summary>Over the sweep's points: each load's voltage, or each supply's current where there is no load.</summary>
     private static string? SweepRange(Evaluation evaluation, string name)

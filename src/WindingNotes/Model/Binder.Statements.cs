@@ -168,14 +168,11 @@ internal sealed partial class BindRun
         var name = s.Head.Name(0)!;
         var isBrush = s.Kind == StatementKind.Brush;
         var winding = Resolve(s.Clause("on")?.Name(0), "a winding", SymbolKind.Winding);
-        if (winding is not null && declaredThreePhase.Contains(winding.Name))
-        {
-            diagnostics.ReportNamePhase(s.Clause("on")!.Name(0)!.Name, winding.Name);
-            return;
-        }
         var at = s.Value("at");
         // A tap written without its position has none at any sweep point either.
-        var position = at is not null && overrides.Values.TryGetValue(name.Text, out var moved) ? moved : Value(at, $"the position of {name.Text}");
+        Quantity? Position() => at is not null && overrides.Values.TryGetValue(name.Text, out var moved) ? moved : Value(at, $"the position of {name.Text}");
+        if (winding is not null && BindThreePhaseTap(s, winding, name, isBrush, () => Position() is { } p ? TapPosition(p, at!, name.Text) : null)) return;
+        var position = Position();
         if (winding is null || position is null || TapPosition(position.Value, at!, name.Text) is not { } place) return;
         TapRange? range = null;
         if (s.Clause("range") is { } r && Value(r.Value(0), "the start of the range") is { } a && Value(r.Value(1), "the end of the range") is { } b
@@ -503,6 +500,7 @@ internal sealed partial class BindRun
         if (FaultCase(s, measureClause, measure) is not { } inCase) return;
         var (inFault, minimum) = inCase;
         var targets = ImmutableArray.CreateBuilder<NodeRef>();
+        var phaseTargets = ImmutableArray<string>.Empty;
         var names = measureClause.Names.ToList();
         for (var i = 0; i < names.Count; i++)
         {
@@ -514,10 +512,16 @@ internal sealed partial class BindRun
             var isPoint = measure == MeasureKind.Voltage || i > 0;
             var symbol = isPoint ? Observed(names[i]) : Resolve(names[i], names[i].Role.Label, names[i].Role.Kinds);
             if (symbol is null) return;
+            if (isPoint && IsThreePhaseTap(symbol, names[i])) return;
             if (!isPoint && declaredThreePhase.Contains(symbol.Name))
             {
-                diagnostics.ReportNamePhase(names[i].Name, symbol.Name);
-                return;
+                // A current or loading check of a whole three-phase element checks each of its phases.
+                if (names.Count == 1 && PhasesChecked(symbol, measure) is { IsEmpty: false } phases) phaseTargets = phases;
+                else
+                {
+                    diagnostics.ReportNamePhase(names[i].Name, symbol.Name);
+                    return;
+                }
             }
             targets.Add(new NodeRef(symbol.Name, names[i].Name.Span));
         }
@@ -541,6 +545,7 @@ internal sealed partial class BindRun
         ConditionText = tree.Text[conditionClause.Span],
         InFault = inFault,
         Minimum = minimum,
+        Phases = phaseTargets,
         });
     }
 

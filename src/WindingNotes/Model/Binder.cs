@@ -77,6 +77,7 @@ internal sealed partial class BindRun
             else if (line.Statement is { } statement) statements.Add(statement);
         }
         foreach (var statement in statements) Declare(statement);
+        foreach (var statement in statements) DeclareTapPhases(statement);
         foreach (var partial in broken) DeclarePartial(partial);
         // A supply, load or fault that redefines a name is bound for its values, which uses its names.
         foreach (var said in broken.Concat(rejected.Where(r => r.Kind is not (StatementKind.Supply or StatementKind.Load or StatementKind.Fault))))
@@ -102,7 +103,7 @@ internal sealed partial class BindRun
             if (symbols.Find(name.Text) is { } symbol) symbols.Reference(name.Name.Span, symbol);
         // Points the three-phase statements made (star points) come after the author's, so a node keeps the author's name.
         var points = symbols.References
-            .Where(r => r.Symbol.IsConnectionPoint)
+            .Where(r => r.Symbol.IsConnectionPoint && !threePhaseTaps.Contains(r.Symbol.Name))
             .OrderBy(r => r.Span.Start)
             .Select(r => r.Symbol)
             .Concat(derivedPoints)
@@ -351,7 +352,7 @@ internal sealed partial class BindRun
     private NodeRef? Node(NameSyntax? name, StatementSyntax statement)
     {
         var symbol = Resolve(name, "a terminal or node", SymbolKind.Terminal, SymbolKind.Node);
-        if (symbol is null) return null;
+        if (symbol is null || IsThreePhaseTap(symbol, name!)) return null;
         if (!nodeUses.TryGetValue(symbol, out var uses)) nodeUses[symbol] = uses = [];
         uses.Add(statement.Span.Start);
         return new NodeRef(symbol.Name, name!.Name.Span);

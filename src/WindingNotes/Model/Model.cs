@@ -132,6 +132,9 @@ public sealed record ExpectModel(TextSpan Line, string Text, MeasureKind Measure
 
     /// <summary>For a bus fault: its minimum study rather than its maximum.</summary>
     public bool Minimum { get; init; }
+
+    /// <summary>For a check of a whole three-phase element: its phase elements, each checked; empty otherwise.</summary>
+    public ImmutableArray<string> Phases { get; init; } = [];
 }
 
 /// <summary>

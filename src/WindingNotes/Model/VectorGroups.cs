@@ -76,6 +76,20 @@ public static class VectorGroups
         return result.ToImmutable();
     }
 
+    /// <summary>
+    /// The potentials a core's vector group is read from (balanced positive-sequence volts per turn
+    /// on its limbs, walked along its sections), by node, for drawing its clock diagram; null where
+    /// the core is not three-phase or a loop of its windings does not close.
+    /// </summary>
+    public static IReadOnlyDictionary<int, Complex>? Potentials(Network network, string core)
+    {
+        if (network.Model.ThreePhase.Cores.FirstOrDefault(c => c.Name == core) is not { } three) return null;
+        var limbOf = three.Limbs.Select((l, k) => (l, k)).ToDictionary(x => x.l, x => x.k, StringComparer.Ordinal);
+        var sections = network.Sections.Where(s => limbOf.ContainsKey(network.Cores[s.Core].Name)).ToList();
+        var (potential, conflict) = Walk(network, sections, s => Complex.Pow(Phases.A, -limbOf[network.Cores[s.Core].Name]), []);
+        return conflict is null ? potential : null;
+    }
+
     private sealed record TerminalSet(ThreePhaseWindingModel Winding, int[] Lines, string Letters);
 
     /// <summary>

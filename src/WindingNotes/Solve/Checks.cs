@@ -51,7 +51,33 @@ public static class Checks
     }
 
     /// <summary>The measured value in SI or as a fraction; null with the reason when it cannot be measured.</summary>
-    public static double? Measure(ExpectModel expect, CaseResult result, out string? problem)
+    public static double? Measure(ExpectModel expect, CaseResult result, out string? problem) => Measure(expect, result, out problem, out _);
+
+    /// <summary>
+    /// As above; a check of a whole three-phase element measures each phase element and gives the
+    /// value of the phase furthest past its bounds (or nearest to them, where all hold), and names it.
+    /// </summary>
+    public static double? Measure(ExpectModel expect, CaseResult result, out string? problem, out string? phase)
+    {
+        phase = null;
+        if (expect.Phases.IsEmpty) return MeasureOne(expect, result, out problem);
+        problem = null;
+        double? worst = null;
+        var worstExcess = double.NegativeInfinity;
+        foreach (var name in expect.Phases)
+        {
+            if (MeasureOne(expect with { Targets = [expect.Targets[0] with { Name = name }], Phases = [] }, result, out problem) is not { } v)
+            {
+                phase = name;
+                return null;
+            }
+            var excess = Math.Max(expect.Low - v, v - expect.High);
+            if (excess > worstExcess) (worst, worstExcess, phase) = (v, excess, name);
+        }
+        return worst;
+    }
+
+    private static double? MeasureOne(ExpectModel expect, CaseResult result, out string? problem)
     {
         problem = null;
         var t = expect.Targets;
@@ -172,7 +198,7 @@ public sealed class CheckTally(ImmutableArray<ExpectModel> expects)
         var first = points == 1 && sample is null;
         foreach (var e in entries)
         {
-            var value = Checks.Measure(e.Expect, result, out var problem);
+            var value = Checks.Measure(e.Expect, result, out var problem, out var phase);
             if (first)
             {
                 e.Nominal = value;
@@ -190,7 +216,7 @@ public sealed class CheckTally(ImmutableArray<ExpectModel> expects)
             // Bounds written with four figures hold for values that round to them.
             var slack = 1e-9 * Math.Max(Math.Abs(x.Low), Math.Abs(x.High)) is var s && double.IsFinite(s) ? s : 1e-9 * Math.Abs(v);
             var excess = Math.Max(x.Low - slack - v, v - x.High - slack);
-            if (excess > 0) Fail(e, v, excess, sample);
+            if (excess > 0) Fail(e, v, excess, sample, phase);
         }
     }
 
@@ -200,7 +226,7 @@ public sealed class CheckTally(ImmutableArray<ExpectModel> expects)
         foreach (var e in entries) Fail(e, null, double.NegativeInfinity, sample ?? "(not solved)");
     }
 
-    private void Fail(Entry e, double? value, double excess, string? sample)
+    private void Fail(Entry e, double? value, double excess, string? sample, string? phase = null)
     {
         if (!e.FailedHere && e.Failing++ < Named) e.Failures.Add(point);
         e.FailedHere = true;
@@ -208,6 +234,8 @@ public sealed class CheckTally(ImmutableArray<ExpectModel> expects)
         e.WorstExcess = excess;
         e.WorstValue = value;
         var at = point == "as written" ? "" : $"at {point}";
+        // A check of a whole three-phase element says which phase failed.
+        if (phase is not null) at = $"on {phase} {at}".Trim();
         e.WorstWhere = sample is null ? at : $"{at} {sample}".Trim();
     }
 

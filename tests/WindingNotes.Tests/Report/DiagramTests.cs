@@ -27,7 +27,10 @@ public class DiagramTests
         foreach (var file in Files())
         {
             foreach (var kind in new[] { "network", "phasors" }) data.Add(Path.GetFileName(file), kind);
-            if (File.ReadAllText(file) is var text && (text.Contains("\nsweep ") || text.Contains("\nload-cycle"))) data.Add(Path.GetFileName(file), "sweep");
+            var text = File.ReadAllText(file);
+            if (text.Contains("\nsweep ") || text.Contains("\nload-cycle")) data.Add(Path.GetFileName(file), "sweep");
+            if (text.Contains(" construction ") || text.Contains("\nthree-phase-"))
+                foreach (var kind in new[] { "one-line", "phase-sets" }) data.Add(Path.GetFileName(file), kind);
         }
         return data;
     }
@@ -41,6 +44,8 @@ public class DiagramTests
         {
             "network" => NetworkDiagram.Draw(evaluation),
             "phasors" => PhasorDiagram.Draw(evaluation, evaluation.Normal!),
+            "one-line" => OneLineDiagram.Draw(evaluation),
+            "phase-sets" => PhaseSetDiagram.Draw(evaluation, evaluation.Normal!),
             _ => SweepPlot.Draw(evaluation, null, out _)!,
         };
     }

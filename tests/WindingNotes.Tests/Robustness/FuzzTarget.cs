@@ -93,6 +93,8 @@ public sealed class FuzzTarget(FuzzInput input, TimeSpan timeLimit, TimeSpan giv
         Do("json report", () => JsonDocument.Parse(JsonReport.Write(e)).Dispose());
         Do("network diagram", () => Svg(NetworkDiagram.Draw(e).Svg, "network diagram"));
         if (e.Normal is { } normal) Do("phasor diagram", () => Svg(PhasorDiagram.Draw(e, normal).Svg, "phasor diagram"));
+        Do("one-line diagram", () => Svg(OneLineDiagram.Draw(e).Svg, "one-line diagram"));
+        if (e.Normal is { } solved) Do("phase-set diagram", () => Svg(PhaseSetDiagram.Draw(e, solved).Svg, "phase-set diagram"));
         Do("diagnostic lines", () => string.Concat(e.Diagnostics.Select(d => DiagnosticLines.Format(e, d))));
         Do("diff with itself", () =>
         {

@@ -189,7 +189,7 @@ public static class PhasorDiagram
         return arrows;
     }
 
-    private static void ArrowLine(Svg svg, double x0, double y0, double x1, double y1, string style)
+    internal static void ArrowLine(Svg svg, double x0, double y0, double x1, double y1, string style)
     {
         var length = Math.Sqrt((x1 - x0) * (x1 - x0) + (y1 - y0) * (y1 - y0));
         if (length < 1) return;
@@ -204,7 +204,7 @@ public static class PhasorDiagram
     /// The name just past the tip; moved further out along the arrow while it would cover another label, left out if it cannot be placed
     /// or when the grids already hold <see cref="MaxLabels"/> texts (each one is tried against all of them; the table names every phasor).
     /// </summary>
-    private static void Label(Svg svg, List<Box> taken, string text, double x0, double y0, double x1, double y1, string style)
+    internal static void Label(Svg svg, List<Box> taken, string text, double x0, double y0, double x1, double y1, string style)
     {
         if (taken.Count >= MaxLabels) return;
         var length = Math.Max(1, Math.Sqrt((x1 - x0) * (x1 - x0) + (y1 - y0) * (y1 - y0)));
@@ -224,7 +224,7 @@ public static class PhasorDiagram
         }
     }
 
-    private const string Css = Symbols.Css + """
+    internal const string Css = Symbols.Css + """
         .grid{stroke:#dde3e8;stroke-width:1;fill:none}
         .axis{stroke:#9aa5ae;stroke-width:1}
         .vgrid{font-size:9px;fill:#1f4e79}
