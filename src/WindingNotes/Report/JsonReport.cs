@@ -63,7 +63,8 @@ public static class JsonReport
             _ => "hint",
         });
         w.WriteString("code", d.Code);
-        w.WriteString("message", d.Message);
+        w.WriteString("message", d.Shown);
+        if (d.Case is not null) w.WriteString("case", d.Case);
         WriteRange(w, "range", text.GetRange(d.Span));
         if (d.Acknowledged) w.WriteBoolean("acknowledged", true);
         w.WriteEndObject();

@@ -15,7 +15,6 @@ public static class NetworkSolver
     public static Solution Solve(Network network, CaseSpec spec, CancellationToken cancel = default)
     {
         var diagnostics = new DiagnosticBag();
-        var prefix = spec == CaseSpec.Normal ? "" : $"in case '{spec.Name}': ";
         (int, int)[] extra = spec.Fault is { } f ? [(network.Node(f.A.Name), network.Node(f.B.Name))] : [];
         var reference = Islands.References(network, extra);
         var parts = new List<(MnaSystem, Complex[])>();
@@ -31,11 +30,13 @@ public static class NetworkSolver
             // A part with no source carries no current and no voltage.
             if (group.Supplies.Count == 0) continue;
             var m = MnaSystem.Assemble(network, group, reference, spec);
-            var x = SolveSystem(m, network, diagnostics, prefix, cancel);
+            var x = SolveSystem(m, network, diagnostics, cancel);
             if (x is null) solved = false;
             else parts.Add((m, x));
         }
-        var solution = Collect(network, spec, parts, solved, diagnostics.ToImmutable());
+        // Every message of a case other than the file as written belongs to that case.
+        var found = spec == CaseSpec.Normal ? diagnostics.ToImmutable() : [.. diagnostics.Select(d => d with { Case = spec.Name })];
+        var solution = Collect(network, spec, parts, solved, found);
         return faulted.Count > 0 ? solution with { Scope = ScopeOf(network, spec, faulted) } : solution;
     }
 
@@ -85,11 +86,11 @@ public static class NetworkSolver
         return new Solution(network, spec, voltages, sections, cores, supplies, loads, fault, solved, diagnostics);
     }
 
-    private static Complex[]? SolveSystem(MnaSystem m, Network network, DiagnosticBag diagnostics, string prefix, CancellationToken cancel)
+    private static Complex[]? SolveSystem(MnaSystem m, Network network, DiagnosticBag diagnostics, CancellationToken cancel)
     {
-        if (m.NonlinearLoads.Count > 0) DropDanglingLoads(m, network, diagnostics, prefix);
+        if (m.NonlinearLoads.Count > 0) DropDanglingLoads(m, network, diagnostics);
         var first = LinearSolver.Solve(m.A, m.B);
-        if (m.NonlinearLoads.Count == 0) return Accept(first, m, diagnostics, prefix) ? first.X : null;
+        if (m.NonlinearLoads.Count == 0) return Accept(first, m, diagnostics) ? first.X : null;
 
         var scale = m.B.Select(b => b.Magnitude).DefaultIfEmpty(0).Max();
         // Loads in series with nothing else at the nodes between them leave those nodes undetermined
@@ -100,7 +101,7 @@ public static class NetworkSolver
             foreach (var load in m.NonlinearLoads) Stamp(a0, load, AdmittanceAt(load, scale));
             if (LinearSolver.Solve(a0, m.B) is { Status: SolveStatus.Solved } loaded) first = loaded;
         }
-        if (!Accept(first, m, diagnostics, prefix)) return null;
+        if (!Accept(first, m, diagnostics)) return null;
 
         // Start Newton from the loads as impedances that draw their demand at the open-circuit voltage.
         var a = m.A.Clone();
@@ -109,7 +110,7 @@ public static class NetworkSolver
             var v = NewtonSolver.Across(load, first.X);
             if (v.Magnitude <= 1e-9 * scale)
             {
-                diagnostics.ReportLoadWithoutVoltage(network.Loads[load.Load].Source, prefix);
+                diagnostics.ReportLoadWithoutVoltage(network.Loads[load.Load].Source);
                 m.NonlinearLoads.Remove(load);
                 continue;
             }
@@ -118,7 +119,7 @@ public static class NetworkSolver
         var start = LinearSolver.Solve(a, m.B);
         var newton = NewtonSolver.Solve(m, start.Status == SolveStatus.Solved ? start.X : first.X, cancel);
         if (newton.Converged) return newton.X;
-        diagnostics.ReportNoConvergence(m.NonlinearLoads.Select(l => network.Loads[l.Load].Source).ToList(), NewtonSolver.MaxIterations, prefix);
+        diagnostics.ReportNoConvergence(m.NonlinearLoads.Select(l => network.Loads[l.Load].Source).ToList(), NewtonSolver.MaxIterations);
         return null;
     }
 
@@ -139,7 +140,7 @@ public static class NetworkSolver
     /// and its node held at the voltage of its other end, so the rest of the part still solves (and a
     /// load that then stands alone at that other end is dropped in turn).
     /// </summary>
-    private static void DropDanglingLoads(MnaSystem m, Network network, DiagnosticBag diagnostics, string prefix)
+    private static void DropDanglingLoads(MnaSystem m, Network network, DiagnosticBag diagnostics)
     {
         // No linear element stamps the node's own equation (its KCL row).
         bool Lone(int c)
@@ -155,7 +156,7 @@ public static class NetworkSolver
             {
                 var (end, other) = IsDangling(load.ColumnA) ? (load.ColumnA, load.ColumnB) : IsDangling(load.ColumnB) ? (load.ColumnB, load.ColumnA) : (-1, -1);
                 if (end < 0) continue;
-                diagnostics.ReportLoadWithoutVoltage(network.Loads[load.Load].Source, prefix);
+                diagnostics.ReportLoadWithoutVoltage(network.Loads[load.Load].Source);
                 m.NonlinearLoads.Remove(load);
                 m.A[end, end] = 1;
                 if (other >= 0) m.A[end, other] = -1;
@@ -166,7 +167,7 @@ public static class NetworkSolver
         bool IsDangling(int c) => c >= 0 && m.NonlinearLoads.Count(l => l.ColumnA == c || l.ColumnB == c) == 1 && Lone(c);
     }
 
-    private static bool Accept(LinearSolver.Result result, MnaSystem m, DiagnosticBag diagnostics, string prefix)
+    private static bool Accept(LinearSolver.Result result, MnaSystem m, DiagnosticBag diagnostics)
     {
         if (result.Status == SolveStatus.Solved) return true;
         var elements = result.NullEquations.Select(i => m.Equations[i])
@@ -177,13 +178,13 @@ public static class NetworkSolver
             .ToList();
         if (result.Status == SolveStatus.IllConditioned)
         {
-            diagnostics.ReportIllConditioned(elements, result.Condition, result.Residual, prefix);
+            diagnostics.ReportIllConditioned(elements, result.Condition, result.Residual);
             return result.X.Length == m.Size;
         }
         // A source in the null space is shorted: through ideal windings, or by a fault with no impedance.
         if (elements.FindIndex(e => e.Kind == "supply") is var supply and >= 0)
-            diagnostics.ReportSupplyShortedThrough(elements[supply], [.. elements.Where((e, i) => i != supply && e.Kind != "node")], prefix);
-        else diagnostics.ReportSingular(elements, prefix);
+            diagnostics.ReportSupplyShortedThrough(elements[supply], [.. elements.Where((e, i) => i != supply && e.Kind != "node")]);
+        else diagnostics.ReportSingular(elements);
         return false;
     }
 

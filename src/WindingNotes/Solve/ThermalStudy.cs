@@ -201,7 +201,7 @@ public static class ThermalStudy
         var solution = scaled ? scaling.Solve(at, cancel) : NetworkSolver.Solve(at, spec, cancel);
         if (!solution.Solved)
         {
-            problem = solution.Diagnostics.FirstOrDefault(d => d.IsError)?.Message;
+            problem = solution.Diagnostics.FirstOrDefault(d => d.IsError)?.Shown;
             return null;
         }
         return Results.Heat(solution);
