@@ -39,7 +39,7 @@ public static partial class SolveMessages
 
         public Diagnostic ReportNoConvergence(IReadOnlyList<LoadModel> loads, int iterations)
         {
-            var span = loads.Count > 0 ? loads[0].NameSpan : default;
+            var span = loads[0].NameSpan;
             var names = string.Join(", ", loads.Select(l => $"'{l.Name}'"));
             var d = bag.Error("no-convergence", span,
                 $"the loads {names} did not converge in {iterations} iterations: the supply may be too weak for the demand");
@@ -62,8 +62,8 @@ public static partial class SolveMessages
                 d => d with { Related = [.. cores.Skip(1).Take(3).Select(c => new RelatedSpan($"core '{c.Name}'", c.NameSpan))] });
         }
 
-        public Diagnostic ReportInternalError(Exception e) =>
-            bag.Error("internal-error", default, $"internal error, please report it: {e.GetType().Name}: {e.Message}");
+        public Diagnostic ReportInternalError(TextSpan span, Exception e) =>
+            bag.Error("internal-error", span, $"internal error, please report it: {e.GetType().Name}: {e.Message}");
 
         /// <summary>
         /// A check that failed: the worst value and where it was; over a sweep or a band, at how many of
@@ -108,8 +108,8 @@ public static partial class SolveMessages
             bag.Error("time-limit", span,
                 $"the evaluation reached its time limit of {Seconds(limit)} after {Thousands(done)} of {Thousands(total)} further solves: results, bands and checks cover only what was solved by then");
 
-        public Diagnostic ReportTimeLimitWhile(TimeSpan limit, string stage) =>
-            bag.Error("time-limit", default, $"the evaluation reached its time limit of {Seconds(limit)} while {stage}: there are no results");
+        public Diagnostic ReportTimeLimitWhile(TextSpan span, TimeSpan limit, string stage) =>
+            bag.Error("time-limit", span, $"the evaluation reached its time limit of {Seconds(limit)} while {stage}: there are no results");
 
         private static string Seconds(TimeSpan t) => $"{Numbers.Plain(t.TotalSeconds)} s";
 

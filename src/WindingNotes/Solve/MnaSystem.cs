@@ -45,12 +45,12 @@ internal sealed class MnaSystem
     public static MnaSystem Assemble(Network network, SolveGroup group, int[] reference, CaseSpec spec)
     {
         var m = new MnaSystem { group = group, spec = spec };
-        var model = network.Model;
         foreach (var n in group.Nodes.Where(n => reference[n] != n))
         {
             m.NodeColumn[n] = m.Unknowns.Count;
-            m.Unknowns.Add(new Element("node", network.Nodes[n].Name, PointSpan(model, network.Nodes[n].Name)));
-            m.Equations.Add(new Element("node", network.Nodes[n].Name, PointSpan(model, network.Nodes[n].Name)));
+            var span = PointSpan(network, n);
+            m.Unknowns.Add(new Element("node", network.Nodes[n].Name, span));
+            m.Equations.Add(new Element("node", network.Nodes[n].Name, span));
         }
         foreach (var k in group.Sections)
         {
@@ -179,8 +179,13 @@ internal sealed class MnaSystem
         }
     }
 
-    private static TextSpan PointSpan(Model.Model model, string point) =>
-        model.Symbols.Find(point)?.Span ?? default;
+    /// <summary>Where a node is named; a node the file does not name (a phase's, a test's) is where the first element on it is written.</summary>
+    private static TextSpan PointSpan(Network network, int node) =>
+        network.Model.Symbols.Find(network.Nodes[node].Name)?.Span
+        ?? network.Sections.Where(s => s.NodeA == node || s.NodeB == node).Select(s => (TextSpan?)network.Windings[s.Winding].Source.Line).FirstOrDefault()
+        ?? network.Supplies.Where(s => s.NodeP == node || s.NodeQ == node).Select(s => (TextSpan?)s.Source.Line).FirstOrDefault()
+        ?? network.Loads.Where(l => l.NodeA == node || l.NodeB == node).Select(l => (TextSpan?)l.Source.Line).FirstOrDefault()
+        ?? default;
 }
 
 /// <summary>An independent part of the network: what is linked by wires or by a core is solved together.</summary>

@@ -116,6 +116,8 @@ public static class NetworkSolver
             }
             Stamp(a, load, AdmittanceAt(load, v.Magnitude));
         }
+        // With every load dropped the part is linear, and the first solve is its solution.
+        if (m.NonlinearLoads.Count == 0) return first.X;
         var start = LinearSolver.Solve(a, m.B);
         var newton = NewtonSolver.Solve(m, start.Status == SolveStatus.Solved ? start.X : first.X, cancel);
         if (newton.Converged) return newton.X;
@@ -176,6 +178,8 @@ public static class NetworkSolver
             .OrderBy(e => e.Kind == "node" ? 1 : 0)
             .Select(e => (e.Kind, e.Name, e.Span))
             .ToList();
+        // A weakest direction that names nothing (not a number, say) is the part's: its supplies.
+        if (elements.Count == 0) elements = [.. m.Unknowns.Where(e => e.Kind == "supply").Select(e => (e.Kind, e.Name, e.Span))];
         if (result.Status == SolveStatus.IllConditioned)
         {
             diagnostics.ReportIllConditioned(elements, result.Condition, result.Residual);

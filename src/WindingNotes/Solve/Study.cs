@@ -113,7 +113,7 @@ public static class Study
         SafetyCautions.Report(network, all, outputs, diagnostics);
         run.ReportNew();
         if (stopped)
-            diagnostics.ReportTimeLimit(model.Sweeps.FirstOrDefault()?.Line ?? model.Tolerances.FirstOrDefault()?.Span ?? default, budget.Limit, run.Done, run.Total);
+            diagnostics.ReportTimeLimit(model.Sweeps.FirstOrDefault()?.Line ?? model.Tolerances.FirstOrDefault()?.Span ?? model.Thermal.Cycle?.Line ?? model.Supplies[0].Line, budget.Limit, run.Done, run.Total);
         return new StudyResult(all, checkResults) { Thermal = thermal, SequenceImpedances = sequence, Parallel = ParallelUnits.Find(network, normal, nominal.NoLoad) };
 
         // The bands of the normal case and of each fault over the tolerance samples.
