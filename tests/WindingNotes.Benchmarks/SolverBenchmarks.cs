@@ -25,7 +25,7 @@ public class SolverBenchmarks
         var network = NetworkBuilder.Build(Binder.Bind(Parser.Parse(Documents.Connected(Units))));
         var group = SolveGroup.Find(network, CaseSpec.Normal).Single(g => g.Supplies.Count > 0);
         var m = MnaSystem.Assemble(network, group, Islands.References(network, []), CaseSpec.Normal);
-        (a, b) = (m.A, m.B);
+        (a, b) = (m.A, m.B.ToArray());
         Console.WriteLine($"// {Units} units: {m.Size} unknowns");
     }
 

@@ -8,33 +8,33 @@ public static partial class SolveMessages
 {
     extension(DiagnosticBag bag)
     {
-        public Diagnostic ReportSingular(IReadOnlyList<(string Kind, string Name, TextSpan Span)> elements)
+        public Diagnostic ReportSingular(IReadOnlyList<Element> elements)
         {
-            var named = elements.Where(e => e.Kind != "node").DefaultIfEmpty(elements.FirstOrDefault()).ToList();
-            var list = string.Join(", ", named.Take(6).Select(e => $"{e.Kind} '{e.Name}'"));
+            var named = elements.Where(e => e.Kind != ElementKind.Node).DefaultIfEmpty(elements.FirstOrDefault()).ToList();
+            var list = string.Join(", ", named.Take(6).Select(e => $"{e.Word} '{e.Name}'"));
             var d = bag.Error("singular", named[0].Span,
                 $"the network has no unique solution: {list} (ideally coupled sections in a loop); give the windings resistance or leakage impedance, or remove the loop");
-            return bag.Amend(d, x => x with { Related = [.. elements.Skip(1).Where(e => e.Span != named[0].Span).Select(e => new RelatedSpan($"{e.Kind} '{e.Name}'", e.Span))] });
+            return bag.Amend(d, x => x with { Related = [.. elements.Skip(1).Where(e => e.Span != named[0].Span).Select(e => new RelatedSpan($"{e.Word} '{e.Name}'", e.Span))] });
         }
 
-        public Diagnostic ReportSupplyShortedThrough((string Kind, string Name, TextSpan Span) supply, IReadOnlyList<(string Kind, string Name, TextSpan Span)> through)
+        public Diagnostic ReportSupplyShortedThrough(Element supply, IReadOnlyList<Element> through)
         {
-            var list = through.Count == 0 ? "" : $" through {string.Join(", ", through.Take(6).Select(e => $"{e.Kind} '{e.Name}'"))}";
+            var list = through.Count == 0 ? "" : $" through {string.Join(", ", through.Take(6).Select(e => $"{e.Word} '{e.Name}'"))}";
             var d = bag.Error("supply-shorted", supply.Span,
                 $"supply '{supply.Name}' is shorted{list} with no impedance in the path: give the windings leakage impedance or resistance, or the supply an internal impedance");
-            return bag.Amend(d, x => x with { Related = [.. through.Where(e => e.Span != supply.Span).Select(e => new RelatedSpan($"{e.Kind} '{e.Name}'", e.Span))] });
+            return bag.Amend(d, x => x with { Related = [.. through.Where(e => e.Span != supply.Span).Select(e => new RelatedSpan($"{e.Word} '{e.Name}'", e.Span))] });
         }
 
-        public Diagnostic ReportIllConditioned(IReadOnlyList<(string Kind, string Name, TextSpan Span)> elements, double condition, double residual)
+        public Diagnostic ReportIllConditioned(IReadOnlyList<Element> elements, double condition, double residual)
         {
-            var named = elements.Where(e => e.Kind != "node").DefaultIfEmpty(elements.FirstOrDefault()).ToList();
+            var named = elements.Where(e => e.Kind != ElementKind.Node).DefaultIfEmpty(elements.FirstOrDefault()).ToList();
             static string Rough(double x) => Numbers.Json(double.Parse(x.ToString("G2", System.Globalization.CultureInfo.InvariantCulture), System.Globalization.CultureInfo.InvariantCulture));
             var measure = double.IsFinite(condition) ? $"condition number {Rough(condition)}" : $"relative residual {Rough(residual)}";
             var figures = double.IsFinite(condition) ? $"about {Math.Max(0, (int)Math.Floor(16 - Math.Log10(condition)))} significant figures can be trusted" : "results may be inaccurate";
-            var list = named.Count > 0 && named[0].Name is not null ? $" around {string.Join(", ", named.Take(6).Select(e => $"{e.Kind} '{e.Name}'"))}" : "";
+            var list = named.Count > 0 && named[0].Name is not null ? $" around {string.Join(", ", named.Take(6).Select(e => $"{e.Word} '{e.Name}'"))}" : "";
             var d = bag.Warning("ill-conditioned", named.Count > 0 ? named[0].Span : default,
                 $"the network is ill-conditioned{list} ({measure}): {figures}; look for impedances that differ by many orders of magnitude");
-            return bag.Amend(d, x => x with { Related = [.. named.Skip(1).Where(e => e.Span != named[0].Span).Select(e => new RelatedSpan($"{e.Kind} '{e.Name}'", e.Span))] });
+            return bag.Amend(d, x => x with { Related = [.. named.Skip(1).Where(e => e.Span != named[0].Span).Select(e => new RelatedSpan($"{e.Word} '{e.Name}'", e.Span))] });
         }
 
         public Diagnostic ReportNoConvergence(IReadOnlyList<LoadModel> loads, int iterations)

@@ -1,14 +1,34 @@
+using System.Collections.Immutable;
 using System.Numerics;
 using WindingNotes.Model;
 using WindingNotes.Text;
 
 namespace WindingNotes.Solve;
 
+/// <summary>What an unknown and its equation belong to.</summary>
+public enum ElementKind { Node, Section, Supply, Fault, Core }
+
 /// <summary>An unknown or an equation of the system, named for diagnostics.</summary>
-internal readonly record struct Element(string Kind, string Name, TextSpan Span);
+public readonly record struct Element(ElementKind Kind, string Name, TextSpan Span)
+{
+    /// <summary>The element as messages name it: "section 'P'".</summary>
+    public override string ToString() => $"{Word} '{Name}'";
+
+    public string Word => Kind switch
+    {
+        ElementKind.Node => "node",
+        ElementKind.Section => "section",
+        ElementKind.Supply => "supply",
+        ElementKind.Fault => "fault",
+        _ => "core",
+    };
+}
 
 /// <summary>A constant-power or constant-current load, by the columns of its two nodes (−1 for a reference).</summary>
 internal readonly record struct NonlinearLoad(int Load, int ColumnA, int ColumnB, Complex S0, double V0, int Exponent);
+
+/// <summary>A constant-impedance load, stamped in the matrix, by the columns of its two nodes.</summary>
+internal readonly record struct LinearLoad(int Load, int ColumnA, int ColumnB);
 
 /// <summary>
 /// The linear system of one independent part of the network (nodes linked galvanically or through
@@ -20,97 +40,135 @@ internal readonly record struct NonlinearLoad(int Load, int ColumnA, int ColumnB
 /// The matrix is kept sparse (<see cref="SystemMatrix"/>). Every element stamps entries (i, j) and
 /// (j, i) together, so the pattern is symmetric, which the brush update relies on (a dangling load's
 /// node held at its other end is the exception; the update's residual check refuses what it misses).
+/// Once assembled it does not change: its matrix is frozen, and a system with a load dropped is a
+/// new one (<see cref="Without"/>, <see cref="Holding"/>); a network of the same shape is stamped
+/// into the caller's own matrix (<see cref="StampInto"/>).
 /// </summary>
 internal sealed class MnaSystem
 {
-    public int Size;
-    public SystemMatrix A = null!;
-    public Complex[] B = null!;
-    public readonly List<Element> Unknowns = [];
-    public readonly List<Element> Equations = [];
-    public readonly Dictionary<int, int> NodeColumn = [];
-    public readonly Dictionary<int, int> SectionColumn = [];
-    public readonly Dictionary<int, int> SupplyColumn = [];
-    public readonly Dictionary<int, int> CoreColumn = [];
-    public int FaultColumn = -1;
-    public List<NonlinearLoad> NonlinearLoads { get; private set; } = [];
-    public List<(int Load, int ColumnA, int ColumnB)> LinearLoads { get; private set; } = [];
-    public bool HasSource;
+    private readonly Complex[] b;
+    private readonly Dictionary<int, int> nodeColumn;
+    private readonly SolveGroup group;
+    private readonly CaseSpec spec;
 
-    public int Column(int node) => NodeColumn.TryGetValue(node, out var c) ? c : -1;
+    private MnaSystem(SolveGroup group, CaseSpec spec, Dictionary<int, int> nodeColumn, IReadOnlyDictionary<int, int> sectionColumn,
+        IReadOnlyDictionary<int, int> supplyColumn, IReadOnlyDictionary<int, int> coreColumn, int faultColumn, IReadOnlyList<Element> unknowns)
+    {
+        (this.group, this.spec, this.nodeColumn) = (group, spec, nodeColumn);
+        (SectionColumn, SupplyColumn, CoreColumn, FaultColumn, Unknowns) = (sectionColumn, supplyColumn, coreColumn, faultColumn, unknowns);
+        Size = unknowns.Count;
+        A = new SystemMatrix(Size);
+        b = new Complex[Size];
+    }
 
-    private SolveGroup group = null!;
-    private CaseSpec spec = null!;
+    private MnaSystem(MnaSystem other, SystemMatrix a, ImmutableArray<NonlinearLoad> nonlinear)
+    {
+        (group, spec, nodeColumn, b) = (other.group, other.spec, other.nodeColumn, other.b);
+        (SectionColumn, SupplyColumn, CoreColumn, FaultColumn, Unknowns, Size) = (other.SectionColumn, other.SupplyColumn, other.CoreColumn, other.FaultColumn, other.Unknowns, other.Size);
+        (LinearLoads, HasSource) = (other.LinearLoads, other.HasSource);
+        A = a;
+        NonlinearLoads = nonlinear;
+    }
+
+    public int Size { get; }
+
+    /// <summary>The matrix, frozen: stamp a <see cref="SystemMatrix.Clone"/>.</summary>
+    public SystemMatrix A { get; }
+
+    public ReadOnlySpan<Complex> B => b;
+
+    /// <summary>The unknowns; each equation belongs to the element of the unknown of its index.</summary>
+    public IReadOnlyList<Element> Unknowns { get; }
+
+    public IReadOnlyList<Element> Equations => Unknowns;
+
+    public IReadOnlyDictionary<int, int> NodeColumn => nodeColumn;
+
+    public IReadOnlyDictionary<int, int> SectionColumn { get; }
+
+    public IReadOnlyDictionary<int, int> SupplyColumn { get; }
+
+    public IReadOnlyDictionary<int, int> CoreColumn { get; }
+
+    public int FaultColumn { get; }
+
+    public ImmutableArray<NonlinearLoad> NonlinearLoads { get; private init; } = [];
+
+    public ImmutableArray<LinearLoad> LinearLoads { get; private init; } = [];
+
+    public bool HasSource { get; private init; }
+
+    public int Column(int node) => nodeColumn.TryGetValue(node, out var c) ? c : -1;
 
     public static MnaSystem Assemble(Network network, SolveGroup group, int[] reference, CaseSpec spec)
     {
-        var m = new MnaSystem { group = group, spec = spec };
+        var unknowns = new List<Element>();
+        var (nodes, sections, supplies, cores) = (new Dictionary<int, int>(), new Dictionary<int, int>(), new Dictionary<int, int>(), new Dictionary<int, int>());
         foreach (var n in group.Nodes.Where(n => reference[n] != n))
         {
-            m.NodeColumn[n] = m.Unknowns.Count;
-            var span = PointSpan(network, n);
-            m.Unknowns.Add(new Element("node", network.Nodes[n].Name, span));
-            m.Equations.Add(new Element("node", network.Nodes[n].Name, span));
+            nodes[n] = unknowns.Count;
+            unknowns.Add(new Element(ElementKind.Node, network.Nodes[n].Name, PointSpan(network, n)));
         }
         foreach (var k in group.Sections)
         {
-            var w = network.Windings[network.Sections[k].Winding].Source;
-            m.SectionColumn[k] = m.Unknowns.Count;
-            m.Unknowns.Add(new Element("section", network.Sections[k].Name, w.Line));
-            m.Equations.Add(new Element("section", network.Sections[k].Name, w.Line));
+            sections[k] = unknowns.Count;
+            unknowns.Add(new Element(ElementKind.Section, network.Sections[k].Name, network.Windings[network.Sections[k].Winding].Source.Line));
         }
         foreach (var s in group.Supplies)
         {
-            m.SupplyColumn[s] = m.Unknowns.Count;
-            m.Unknowns.Add(new Element("supply", network.Supplies[s].Name, network.Supplies[s].Source.Line));
-            m.Equations.Add(new Element("supply", network.Supplies[s].Name, network.Supplies[s].Source.Line));
+            supplies[s] = unknowns.Count;
+            unknowns.Add(new Element(ElementKind.Supply, network.Supplies[s].Name, network.Supplies[s].Source.Line));
         }
+        var fault = -1;
         if (group.HasFault)
         {
-            m.FaultColumn = m.Unknowns.Count;
-            m.Unknowns.Add(new Element("fault", spec.Fault!.Name, spec.Fault.Line));
-            m.Equations.Add(new Element("fault", spec.Fault.Name, spec.Fault.Line));
+            fault = unknowns.Count;
+            unknowns.Add(new Element(ElementKind.Fault, spec.Fault!.Name, spec.Fault.Line));
         }
         foreach (var c in group.Cores)
         {
-            m.CoreColumn[c] = m.Unknowns.Count;
-            m.Unknowns.Add(new Element("core", network.Cores[c].Name, network.Cores[c].Source.Line));
-            m.Equations.Add(new Element("core", network.Cores[c].Name, network.Cores[c].Source.Line));
+            cores[c] = unknowns.Count;
+            unknowns.Add(new Element(ElementKind.Core, network.Cores[c].Name, network.Cores[c].Source.Line));
         }
-        m.Size = m.Unknowns.Count;
-        m.A = new SystemMatrix(m.Size);
-        m.B = new Complex[m.Size];
-        m.Stamp(network, group, spec);
-        return m;
+        var m = new MnaSystem(group, spec, nodes, sections, supplies, cores, fault, unknowns);
+        var (nonlinear, linear, hasSource) = m.Stamp(network, m.A, m.b);
+        m.A.Freeze();
+        return new MnaSystem(m, m.A, nonlinear) { LinearLoads = linear, HasSource = hasSource };
     }
 
-    /// <summary>A copy with matrices of its own, for <see cref="Restamp"/>.</summary>
-    public MnaSystem Copy()
+    /// <summary>The same system without <paramref name="load"/> (one that draws nothing).</summary>
+    public MnaSystem Without(NonlinearLoad load) => new(this, A, NonlinearLoads.Remove(load));
+
+    /// <summary>
+    /// The same system without <paramref name="load"/>, its node <paramref name="end"/> held at the
+    /// voltage of <paramref name="other"/> (−1: the reference), for a load alone at that node.
+    /// </summary>
+    public MnaSystem Holding(NonlinearLoad load, int end, int other)
     {
-        var m = (MnaSystem)MemberwiseClone();
-        m.A = A.Clone();
-        m.B = (Complex[])B.Clone();
-        m.NonlinearLoads = [.. NonlinearLoads];
-        m.LinearLoads = [.. LinearLoads];
-        return m;
+        var a = A.Clone();
+        a[end, end] = 1;
+        if (other >= 0) a[end, other] = -1;
+        a.Freeze();
+        return new(this, a, NonlinearLoads.Remove(load));
     }
 
     /// <summary>
-    /// The numbers stamped again, in place, from a network of the same shape (a brush moved): the
-    /// unknowns and equations and their names stay, so nothing but the numbers is made again.
+    /// The numbers of a network of the same shape (a brush moved) stamped into <paramref name="a"/>
+    /// and <paramref name="rhs"/>, cleared first (a matrix of this one's entries keeps its places):
+    /// the unknowns, the equations and their names stay, so nothing but the numbers is made again.
     /// </summary>
-    public void Restamp(Network network)
+    public void StampInto(Network network, SystemMatrix a, Complex[] rhs)
     {
-        A.Clear();
-        Array.Clear(B);
-        NonlinearLoads.Clear();
-        LinearLoads.Clear();
-        HasSource = false;
-        Stamp(network, group, spec);
+        a.Clear();
+        Array.Clear(rhs);
+        Stamp(network, a, rhs);
     }
 
-    private void Stamp(Network network, SolveGroup group, CaseSpec spec)
+    private (ImmutableArray<NonlinearLoad>, ImmutableArray<LinearLoad>, bool) Stamp(Network network, SystemMatrix A, Complex[] B)
     {
+        var nonlinear = ImmutableArray.CreateBuilder<NonlinearLoad>();
+        var linear = ImmutableArray.CreateBuilder<LinearLoad>();
+        var hasSource = false;
         // Branch current leaving node a and entering node b.
         void Branch(int column, int a, int b)
         {
@@ -153,7 +211,7 @@ internal sealed class MnaSystem
             Across(row, s.NodeP, s.NodeQ);
             A.Add(row, row, s.Impedance);
             B[row] = s.Voltage;
-            HasSource |= s.Voltage != Complex.Zero;
+            hasSource |= s.Voltage != Complex.Zero;
         }
         if (FaultColumn >= 0)
         {
@@ -162,7 +220,7 @@ internal sealed class MnaSystem
             Across(FaultColumn, a, b);
             A.Add(FaultColumn, FaultColumn, -spec.Fault.Impedance);
         }
-        if (spec.WithoutLoads) return;
+        if (spec.WithoutLoads) return ([], [], hasSource);
         foreach (var i in group.Loads)
         {
             var l = network.Loads[i];
@@ -173,10 +231,11 @@ internal sealed class MnaSystem
                 var y = Complex.Conjugate(l.Source.S0) / (l.Source.V0 * l.Source.V0);
                 if (ca >= 0) { A.Add(ca, ca, y); if (cb >= 0) A.Add(ca, cb, -y); }
                 if (cb >= 0) { A.Add(cb, cb, y); if (ca >= 0) A.Add(cb, ca, -y); }
-                LinearLoads.Add((i, ca, cb));
+                linear.Add(new LinearLoad(i, ca, cb));
             }
-            else NonlinearLoads.Add(new NonlinearLoad(i, ca, cb, l.Source.S0, l.Source.V0, l.Source.Exponent));
+            else nonlinear.Add(new NonlinearLoad(i, ca, cb, l.Source.S0, l.Source.V0, l.Source.Exponent));
         }
+        return (nonlinear.ToImmutable(), linear.ToImmutable(), hasSource);
     }
 
     /// <summary>Where a node is named; a node the file does not name (a phase's, a test's) is where the first element on it is written.</summary>
