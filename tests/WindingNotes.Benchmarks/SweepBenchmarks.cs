@@ -1,6 +1,7 @@
 using Complex = System.Numerics.Complex;
 using BenchmarkDotNet.Attributes;
 using MathNet.Numerics.LinearAlgebra;
+using WindingNotes.Kernel;
 using WindingNotes.Model;
 using WindingNotes.Solve;
 using WindingNotes.Syntax;

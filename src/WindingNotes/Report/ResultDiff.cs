@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using System.Text.RegularExpressions;
+using WindingNotes.Kernel;
 using WindingNotes.Solve;
 using WindingNotes.Syntax;
 using WindingNotes.Text;

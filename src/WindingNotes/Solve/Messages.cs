@@ -1,3 +1,4 @@
+using WindingNotes.Kernel;
 using WindingNotes.Text;
 using WindingNotes.Model;
 

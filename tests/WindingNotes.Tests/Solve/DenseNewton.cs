@@ -1,5 +1,6 @@
 using Complex = System.Numerics.Complex;
 using MathNet.Numerics.LinearAlgebra;
+using WindingNotes.Kernel;
 using WindingNotes.Solve;
 
 namespace WindingNotes.Tests.Solve;

@@ -1,5 +1,6 @@
 using System.Numerics;
 using System.Text;
+using WindingNotes.Kernel;
 using WindingNotes.Model;
 using WindingNotes.Solve;
 using WindingNotes.Syntax;

@@ -1,6 +1,6 @@
 using System.Numerics;
 
-namespace WindingNotes.Solve;
+namespace WindingNotes.Kernel;
 
 /// <summary>
 /// The square complex matrix of a system, kept as it is stamped: by rows, each the columns it has

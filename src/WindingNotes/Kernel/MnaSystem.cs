@@ -3,7 +3,7 @@ using System.Numerics;
 using WindingNotes.Model;
 using WindingNotes.Text;
 
-namespace WindingNotes.Solve;
+namespace WindingNotes.Kernel;
 
 /// <summary>What an unknown and its equation belong to.</summary>
 public enum ElementKind { Node, Section, Supply, Fault, Core }

@@ -1,6 +1,6 @@
 using Complex = System.Numerics.Complex;
 
-namespace WindingNotes.Solve;
+namespace WindingNotes.Kernel;
 
 /// <summary>
 /// Newton's method for constant-power and constant-current loads on the linear system. A load

@@ -1,6 +1,6 @@
 using Complex = System.Numerics.Complex;
 
-namespace WindingNotes.Solve;
+namespace WindingNotes.Kernel;
 
 /// <summary>How a linear solve went.</summary>
 internal enum SolveStatus { Solved, IllConditioned, Singular }

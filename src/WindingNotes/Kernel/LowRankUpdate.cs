@@ -1,7 +1,7 @@
 using System.Numerics;
 using WindingNotes.Model;
 
-namespace WindingNotes.Solve;
+namespace WindingNotes.Kernel;
 
 /// <summary>
 /// One factorisation of an independent part, reused for systems that differ from it only in the rows
