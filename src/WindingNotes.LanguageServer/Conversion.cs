@@ -27,7 +27,7 @@ internal static class Conversion
     /// <summary>Hints go into the message as the command line prints them; related spans become related information.</summary>
     public static LspDiagnostic ToLsp(Diagnostic d, string uri, SourceText text)
     {
-        var message = d.Message + string.Concat(d.Hints.Select(h => $" ({h.Message})"));
+        var message = d.Shown + string.Concat(d.Hints.Select(h => $" ({h.Message})"));
         var related = d.Related.IsEmpty
             ? null
             : d.Related.Select(r => new DiagnosticRelatedInformation(new Location(uri, ToLsp(text.GetRange(r.Span))), r.Message)).ToArray();

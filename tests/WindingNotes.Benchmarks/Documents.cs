@@ -112,4 +112,20 @@ public static class Documents
         o.Append($"sweep BR from 1 % to 99 % points {points}\nexpect voltage BR A between 0 V and 250 V\n");
         return o.ToString();
     }
+
+    /// <summary>
+    /// A supply on a winding tapped every ten turns into 300 sections, a second winding feeding one
+    /// load of 20 kW at pf 0.9: a 301-section part (605 unknowns), its load constant-power (Newton's
+    /// method) or, with <paramref name="constantImpedance"/>, the same demand as an impedance (one linear solve).
+    /// </summary>
+    public static string ThreeHundredOneSections(bool constantImpedance)
+    {
+        var o = new StringBuilder("# a test winding tapped every ten turns\nfrequency 60 Hz\ncore K rating 50 kVA area 200 cm2 flux-limit 1.6 T\n");
+        o.Append("winding P on K turns 3000 rated 4160 V from H1 to H2 resistance 2 ohm\n");
+        for (var i = 1; i < 300; i++) o.Append($"tap P{i} on P at {i * 10} turns\n");
+        o.Append("winding S on K turns 300 rated 416 V from X1 to X2 resistance 0.02 ohm\nimpedance P S 4 % xr 5\n");
+        o.Append("supply mains H1 H2 4160 V fault-level 5 kA xr 8\nground H2\nground X2\n");
+        o.Append($"load heater X1 X2 power 20 kW pf 0.9{(constantImpedance ? " model constant-impedance" : "")}\n");
+        return o.ToString();
+    }
 }

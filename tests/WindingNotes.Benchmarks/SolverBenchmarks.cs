@@ -1,5 +1,6 @@
 using System.Numerics;
 using BenchmarkDotNet.Attributes;
+using WindingNotes.Kernel;
 using WindingNotes.Model;
 using WindingNotes.Solve;
 using WindingNotes.Syntax;
@@ -25,7 +26,7 @@ public class SolverBenchmarks
         var network = NetworkBuilder.Build(Binder.Bind(Parser.Parse(Documents.Connected(Units))));
         var group = SolveGroup.Find(network, CaseSpec.Normal).Single(g => g.Supplies.Count > 0);
         var m = MnaSystem.Assemble(network, group, Islands.References(network, []), CaseSpec.Normal);
-        (a, b) = (m.A, m.B);
+        (a, b) = (m.A, m.B.ToArray());
         Console.WriteLine($"// {Units} units: {m.Size} unknowns");
     }
 

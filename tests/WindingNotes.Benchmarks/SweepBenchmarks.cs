@@ -1,6 +1,7 @@
 using Complex = System.Numerics.Complex;
 using BenchmarkDotNet.Attributes;
 using MathNet.Numerics.LinearAlgebra;
+using WindingNotes.Kernel;
 using WindingNotes.Model;
 using WindingNotes.Solve;
 using WindingNotes.Syntax;
@@ -50,7 +51,7 @@ public class SweepBenchmarks
         var network = NetworkBuilder.Build(Binder.Bind(syntax, Sweeps.Point(axes, Points / 3).Overrides));
         var group = SolveGroup.Find(network, CaseSpec.Normal).Single(g => g.Supplies.Count > 0);
         var system = MnaSystem.Assemble(network, group, Islands.References(network, []), CaseSpec.Normal);
-        (matrix, rhs) = (system.A, system.B);
+        (matrix, rhs) = (system.A, system.B.ToArray());
         dense = new Complex[rhs.Length, rhs.Length];
         for (var i = 0; i < rhs.Length; i++)
             for (var j = 0; j < rhs.Length; j++) dense[i, j] = matrix[i, j];

@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using BenchmarkDotNet.Attributes;
+using WindingNotes.Kernel;
 using WindingNotes.Model;
 using WindingNotes.Solve;
 using WindingNotes.Syntax;

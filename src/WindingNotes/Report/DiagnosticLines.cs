@@ -10,7 +10,7 @@ public static class DiagnosticLines
     {
         var p = evaluation.Text.GetPosition(d.Span.Start);
         var hints = string.Concat(d.Hints.Select(h => $" ({h.Message})"));
-        return $"{evaluation.Path}:{p.Line + 1}:{p.Character + 1}: {TextReport.Severity(d.Severity)} {d.Code}: {d.Message}{hints}";
+        return $"{evaluation.Path}:{p.Line + 1}:{p.Character + 1}: {TextReport.Severity(d.Severity)} {d.Code}: {d.Shown}{hints}";
     }
 
     /// <summary>A check of a file that was not solved, in the same form: it neither passed nor failed.</summary>

@@ -1,3 +1,4 @@
+using WindingNotes.Kernel;
 using WindingNotes.Model;
 using System.Numerics;
 using System.Text;
@@ -63,7 +64,8 @@ public static class JsonReport
             _ => "hint",
         });
         w.WriteString("code", d.Code);
-        w.WriteString("message", d.Message);
+        w.WriteString("message", d.Shown);
+        if (d.Case is not null) w.WriteString("case", d.Case);
         WriteRange(w, "range", text.GetRange(d.Span));
         if (d.Acknowledged) w.WriteBoolean("acknowledged", true);
         w.WriteEndObject();

@@ -25,14 +25,14 @@ public static class MarkdownReport
         o.Append("\n### Cautions\n\n");
         var cautions = evaluation.Diagnostics.Where(IsCaution).ToList();
         foreach (var d in cautions)
-            o.Append("- line ").Append(TextReport.Location(evaluation, d)).Append(": ").Append(Cell(d.Message)).Append(d.Acknowledged ? " (acknowledged)" : "").Append('\n');
+            o.Append("- line ").Append(TextReport.Location(evaluation, d)).Append(": ").Append(Cell(d.Shown)).Append(d.Acknowledged ? " (acknowledged)" : "").Append('\n');
         if (cautions.Count == 0) o.Append(evaluation.Cases.IsEmpty ? "None found, but the network was not solved.\n" : "None apply.\n");
         var diagnostics = evaluation.Diagnostics.Where(d => !IsCaution(d) && !IsRating(d)).ToList();
         if (diagnostics.Count > 0)
         {
             o.Append("\n### Diagnostics\n\n");
             Table(o, 4, ["at", "severity", "code", "message"], diagnostics.Select(d =>
-                new[] { TextReport.Location(evaluation, d), TextReport.Severity(d.Severity), Code(d.Code), d.Message }));
+                new[] { TextReport.Location(evaluation, d), TextReport.Severity(d.Severity), Code(d.Code), d.Shown }));
         }
         if (evaluation.Cases.IsEmpty) o.Append("\nNo results: the network was not solved.\n");
         foreach (var c in evaluation.Cases.Where(c => !c.Case.IsSweepPoint)) WriteCase(o, c);
@@ -50,7 +50,7 @@ public static class MarkdownReport
         o.Append("\n### Ratings crossed\n\n");
         var ratings = evaluation.Diagnostics.Where(IsRating).ToList();
         foreach (var d in ratings)
-            o.Append("- line ").Append(TextReport.Location(evaluation, d)).Append(": ").Append(Cell(d.Message)).Append('\n');
+            o.Append("- line ").Append(TextReport.Location(evaluation, d)).Append(": ").Append(Cell(d.Shown)).Append('\n');
         if (ratings.Count == 0)
             o.Append(evaluation.Cases.IsEmpty ? "Not evaluated: the network was not solved.\n" : "None: no rating the file gives is exceeded.\n");
     }

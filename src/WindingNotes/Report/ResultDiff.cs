@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using System.Text.RegularExpressions;
+using WindingNotes.Kernel;
 using WindingNotes.Solve;
 using WindingNotes.Syntax;
 using WindingNotes.Text;
@@ -244,7 +245,7 @@ public sealed record ResultDiff(
     private static ImmutableArray<DiagnosticChange> CompareDiagnostics(Evaluation old, Evaluation @new)
     {
         static List<(Severity Severity, string Code, string Message)> Of(Evaluation e) =>
-            [.. e.Diagnostics.Where(d => d.Code != "expect-failed").Select(d => (d.Severity, d.Code, d.Message))];
+            [.. e.Diagnostics.Where(d => d.Code != "expect-failed").Select(d => (d.Severity, d.Code, d.Shown))];
         var before = Of(old);
         var after = Of(@new);
         // Each side less what the other has, as multisets: linear in the diagnostics, for files of thousands.

@@ -26,7 +26,7 @@ public static class TextReport
         {
             o.Append("\nDiagnostics\n");
             foreach (var d in findings)
-                o.Append("  ").Append(Location(evaluation, d)).Append(' ').Append(Severity(d.Severity)).Append(' ').Append(d.Code).Append(": ").Append(d.Message).Append('\n');
+                o.Append("  ").Append(Location(evaluation, d)).Append(' ').Append(Severity(d.Severity)).Append(' ').Append(d.Code).Append(": ").Append(d.Shown).Append('\n');
         }
         if (evaluation.Cases.IsEmpty)
             o.Append(evaluation.Model.HasErrors ? "\nNo results: the file has errors, so it was not solved.\n" : "\nNo results: the network was not solved.\n");
@@ -38,7 +38,7 @@ public static class TextReport
         WriteChecks(o, evaluation);
         o.Append("\nCautions\n");
         foreach (var d in evaluation.Diagnostics.Where(d => d.Code.StartsWith("caution")))
-            o.Append("  ").Append(Location(evaluation, d)).Append(' ').Append(d.Message).Append(d.Acknowledged ? " (acknowledged)" : "").Append('\n');
+            o.Append("  ").Append(Location(evaluation, d)).Append(' ').Append(d.Shown).Append(d.Acknowledged ? " (acknowledged)" : "").Append('\n');
         o.Append("  ").Append(Cautions.Judgement).Append('\n');
         return o.ToString();
     }

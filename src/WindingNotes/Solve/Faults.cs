@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using System.Numerics;
+using WindingNotes.Kernel;
 using WindingNotes.Model;
 using WindingNotes.Text;
 

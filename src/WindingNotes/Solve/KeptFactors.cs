@@ -1,4 +1,5 @@
 using System.Numerics;
+using WindingNotes.Kernel;
 using WindingNotes.Model;
 
 namespace WindingNotes.Solve;

@@ -1,3 +1,4 @@
+using WindingNotes.Kernel;
 using WindingNotes.Model;
 
 namespace WindingNotes.Solve;

@@ -1,3 +1,4 @@
+using WindingNotes.Kernel;
 using WindingNotes.Text;
 using WindingNotes.Model;
 
@@ -8,46 +9,46 @@ public static partial class SolveMessages
 {
     extension(DiagnosticBag bag)
     {
-        public Diagnostic ReportSingular(IReadOnlyList<(string Kind, string Name, TextSpan Span)> elements, string prefix)
+        public Diagnostic ReportSingular(IReadOnlyList<Element> elements)
         {
-            var named = elements.Where(e => e.Kind != "node").DefaultIfEmpty(elements.FirstOrDefault()).ToList();
-            var list = string.Join(", ", named.Take(6).Select(e => $"{e.Kind} '{e.Name}'"));
+            var named = elements.Where(e => e.Kind != ElementKind.Node).DefaultIfEmpty(elements.FirstOrDefault()).ToList();
+            var list = string.Join(", ", named.Take(6).Select(e => $"{e.Word} '{e.Name}'"));
             var d = bag.Error("singular", named[0].Span,
-                $"{prefix}the network has no unique solution: {list} (ideally coupled sections in a loop); give the windings resistance or leakage impedance, or remove the loop");
-            return bag.Amend(d, x => x with { Related = [.. elements.Skip(1).Where(e => e.Span != named[0].Span).Select(e => new RelatedSpan($"{e.Kind} '{e.Name}'", e.Span))] });
+                $"the network has no unique solution: {list} (ideally coupled sections in a loop); give the windings resistance or leakage impedance, or remove the loop");
+            return bag.Amend(d, x => x with { Related = [.. elements.Skip(1).Where(e => e.Span != named[0].Span).Select(e => new RelatedSpan($"{e.Word} '{e.Name}'", e.Span))] });
         }
 
-        public Diagnostic ReportSupplyShortedThrough((string Kind, string Name, TextSpan Span) supply, IReadOnlyList<(string Kind, string Name, TextSpan Span)> through, string prefix)
+        public Diagnostic ReportSupplyShortedThrough(Element supply, IReadOnlyList<Element> through)
         {
-            var list = through.Count == 0 ? "" : $" through {string.Join(", ", through.Take(6).Select(e => $"{e.Kind} '{e.Name}'"))}";
+            var list = through.Count == 0 ? "" : $" through {string.Join(", ", through.Take(6).Select(e => $"{e.Word} '{e.Name}'"))}";
             var d = bag.Error("supply-shorted", supply.Span,
-                $"{prefix}supply '{supply.Name}' is shorted{list} with no impedance in the path: give the windings leakage impedance or resistance, or the supply an internal impedance");
-            return bag.Amend(d, x => x with { Related = [.. through.Where(e => e.Span != supply.Span).Select(e => new RelatedSpan($"{e.Kind} '{e.Name}'", e.Span))] });
+                $"supply '{supply.Name}' is shorted{list} with no impedance in the path: give the windings leakage impedance or resistance, or the supply an internal impedance");
+            return bag.Amend(d, x => x with { Related = [.. through.Where(e => e.Span != supply.Span).Select(e => new RelatedSpan($"{e.Word} '{e.Name}'", e.Span))] });
         }
 
-        public Diagnostic ReportIllConditioned(IReadOnlyList<(string Kind, string Name, TextSpan Span)> elements, double condition, double residual, string prefix)
+        public Diagnostic ReportIllConditioned(IReadOnlyList<Element> elements, double condition, double residual)
         {
-            var named = elements.Where(e => e.Kind != "node").DefaultIfEmpty(elements.FirstOrDefault()).ToList();
+            var named = elements.Where(e => e.Kind != ElementKind.Node).DefaultIfEmpty(elements.FirstOrDefault()).ToList();
             static string Rough(double x) => Numbers.Json(double.Parse(x.ToString("G2", System.Globalization.CultureInfo.InvariantCulture), System.Globalization.CultureInfo.InvariantCulture));
             var measure = double.IsFinite(condition) ? $"condition number {Rough(condition)}" : $"relative residual {Rough(residual)}";
             var figures = double.IsFinite(condition) ? $"about {Math.Max(0, (int)Math.Floor(16 - Math.Log10(condition)))} significant figures can be trusted" : "results may be inaccurate";
-            var list = named.Count > 0 && named[0].Name is not null ? $" around {string.Join(", ", named.Take(6).Select(e => $"{e.Kind} '{e.Name}'"))}" : "";
+            var list = named.Count > 0 && named[0].Name is not null ? $" around {string.Join(", ", named.Take(6).Select(e => $"{e.Word} '{e.Name}'"))}" : "";
             var d = bag.Warning("ill-conditioned", named.Count > 0 ? named[0].Span : default,
-                $"{prefix}the network is ill-conditioned{list} ({measure}): {figures}; look for impedances that differ by many orders of magnitude");
-            return bag.Amend(d, x => x with { Related = [.. named.Skip(1).Where(e => e.Span != named[0].Span).Select(e => new RelatedSpan($"{e.Kind} '{e.Name}'", e.Span))] });
+                $"the network is ill-conditioned{list} ({measure}): {figures}; look for impedances that differ by many orders of magnitude");
+            return bag.Amend(d, x => x with { Related = [.. named.Skip(1).Where(e => e.Span != named[0].Span).Select(e => new RelatedSpan($"{e.Word} '{e.Name}'", e.Span))] });
         }
 
-        public Diagnostic ReportNoConvergence(IReadOnlyList<LoadModel> loads, int iterations, string prefix)
+        public Diagnostic ReportNoConvergence(IReadOnlyList<LoadModel> loads, int iterations)
         {
-            var span = loads.Count > 0 ? loads[0].NameSpan : default;
+            var span = loads[0].NameSpan;
             var names = string.Join(", ", loads.Select(l => $"'{l.Name}'"));
             var d = bag.Error("no-convergence", span,
-                $"{prefix}the loads {names} did not converge in {iterations} iterations: the supply may be too weak for the demand");
+                $"the loads {names} did not converge in {iterations} iterations: the supply may be too weak for the demand");
             return bag.Amend(d, x => x with { Related = [.. loads.Skip(1).Select(l => new RelatedSpan($"load '{l.Name}'", l.NameSpan))] });
         }
 
-        public Diagnostic ReportLoadWithoutVoltage(LoadModel load, string prefix) =>
-            bag.Warning("load-without-voltage", load.NameSpan, $"{prefix}load '{load.Name}' has no voltage across it and draws nothing");
+        public Diagnostic ReportLoadWithoutVoltage(LoadModel load) =>
+            bag.Warning("load-without-voltage", load.NameSpan, $"load '{load.Name}' has no voltage across it and draws nothing");
 
         public Diagnostic ReportCurrentDensityHigh(TextSpan span, string winding, double density, double low, double high, string where) =>
             bag.Warning("current-density-high", span,
@@ -62,8 +63,8 @@ public static partial class SolveMessages
                 d => d with { Related = [.. cores.Skip(1).Take(3).Select(c => new RelatedSpan($"core '{c.Name}'", c.NameSpan))] });
         }
 
-        public Diagnostic ReportInternalError(Exception e) =>
-            bag.Error("internal-error", default, $"internal error, please report it: {e.GetType().Name}: {e.Message}");
+        public Diagnostic ReportInternalError(TextSpan span, Exception e) =>
+            bag.Error("internal-error", span, $"internal error, please report it: {e.GetType().Name}: {e.Message}");
 
         /// <summary>
         /// A check that failed: the worst value and where it was; over a sweep or a band, at how many of
@@ -108,8 +109,8 @@ public static partial class SolveMessages
             bag.Error("time-limit", span,
                 $"the evaluation reached its time limit of {Seconds(limit)} after {Thousands(done)} of {Thousands(total)} further solves: results, bands and checks cover only what was solved by then");
 
-        public Diagnostic ReportTimeLimitWhile(TimeSpan limit, string stage) =>
-            bag.Error("time-limit", default, $"the evaluation reached its time limit of {Seconds(limit)} while {stage}: there are no results");
+        public Diagnostic ReportTimeLimitWhile(TextSpan span, TimeSpan limit, string stage) =>
+            bag.Error("time-limit", span, $"the evaluation reached its time limit of {Seconds(limit)} while {stage}: there are no results");
 
         private static string Seconds(TimeSpan t) => $"{Numbers.Plain(t.TotalSeconds)} s";
 

@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using System.Numerics;
+using WindingNotes.Kernel;
 using WindingNotes.Model;
 using WindingNotes.Text;
 
@@ -15,7 +16,6 @@ public static class NetworkSolver
     public static Solution Solve(Network network, CaseSpec spec, CancellationToken cancel = default)
     {
         var diagnostics = new DiagnosticBag();
-        var prefix = spec == CaseSpec.Normal ? "" : $"in case '{spec.Name}': ";
         (int, int)[] extra = spec.Fault is { } f ? [(network.Node(f.A.Name), network.Node(f.B.Name))] : [];
         var reference = Islands.References(network, extra);
         var parts = new List<(MnaSystem, Complex[])>();
@@ -31,11 +31,13 @@ public static class NetworkSolver
             // A part with no source carries no current and no voltage.
             if (group.Supplies.Count == 0) continue;
             var m = MnaSystem.Assemble(network, group, reference, spec);
-            var x = SolveSystem(m, network, diagnostics, prefix, cancel);
+            var x = SolveSystem(ref m, network, diagnostics, cancel);
             if (x is null) solved = false;
             else parts.Add((m, x));
         }
-        var solution = Collect(network, spec, parts, solved, diagnostics.ToImmutable());
+        // Every message of a case other than the file as written belongs to that case.
+        var found = spec == CaseSpec.Normal ? diagnostics.ToImmutable() : [.. diagnostics.Select(d => d with { Case = spec.Name })];
+        var solution = Collect(network, spec, parts, solved, found);
         return faulted.Count > 0 ? solution with { Scope = ScopeOf(network, spec, faulted) } : solution;
     }
 
@@ -85,40 +87,51 @@ public static class NetworkSolver
         return new Solution(network, spec, voltages, sections, cores, supplies, loads, fault, solved, diagnostics);
     }
 
-    private static Complex[]? SolveSystem(MnaSystem m, Network network, DiagnosticBag diagnostics, string prefix, CancellationToken cancel)
+    private static Complex[]? SolveSystem(ref MnaSystem m, Network network, DiagnosticBag diagnostics, CancellationToken cancel)
     {
-        if (m.NonlinearLoads.Count > 0) DropDanglingLoads(m, network, diagnostics, prefix);
+        if (m.NonlinearLoads.Length > 0) m = DropDanglingLoads(m, network, diagnostics);
         var first = LinearSolver.Solve(m.A, m.B);
-        if (m.NonlinearLoads.Count == 0) return Accept(first, m, diagnostics, prefix) ? first.X : null;
+        if (m.NonlinearLoads.Length == 0) return Accept(first, m, diagnostics) ? first.X : null;
 
-        var scale = m.B.Select(b => b.Magnitude).DefaultIfEmpty(0).Max();
+        var scale = 0.0;
+        foreach (var b in m.B) scale = Math.Max(scale, b.Magnitude);
+        // What the factors of the first solve hold beside the system's own matrix.
+        List<NewtonSolver.Stamp> firstStamps = [];
         // Loads in series with nothing else at the nodes between them leave those nodes undetermined
         // without the loads: start from the loads as impedances drawing their demand at the source voltage.
         if (first.Status != SolveStatus.Solved && scale > 0)
         {
             var a0 = m.A.Clone();
-            foreach (var load in m.NonlinearLoads) Stamp(a0, load, AdmittanceAt(load, scale));
-            if (LinearSolver.Solve(a0, m.B) is { Status: SolveStatus.Solved } loaded) first = loaded;
+            var stamps = m.NonlinearLoads.Select(l => new NewtonSolver.Stamp(l.ColumnA, l.ColumnB, AdmittanceAt(l, scale))).ToList();
+            foreach (var s in stamps) Stamp(a0, s);
+            if (LinearSolver.Solve(a0, m.B) is { Status: SolveStatus.Solved } loaded) (first, firstStamps) = (loaded, stamps);
         }
-        if (!Accept(first, m, diagnostics, prefix)) return null;
+        if (!Accept(first, m, diagnostics)) return null;
 
         // Start Newton from the loads as impedances that draw their demand at the open-circuit voltage.
         var a = m.A.Clone();
-        foreach (var load in m.NonlinearLoads.ToList())
+        var startStamps = new List<NewtonSolver.Stamp>();
+        foreach (var load in m.NonlinearLoads)
         {
             var v = NewtonSolver.Across(load, first.X);
             if (v.Magnitude <= 1e-9 * scale)
             {
-                diagnostics.ReportLoadWithoutVoltage(network.Loads[load.Load].Source, prefix);
-                m.NonlinearLoads.Remove(load);
+                diagnostics.ReportLoadWithoutVoltage(network.Loads[load.Load].Source);
+                m = m.Without(load);
                 continue;
             }
-            Stamp(a, load, AdmittanceAt(load, v.Magnitude));
+            startStamps.Add(new NewtonSolver.Stamp(load.ColumnA, load.ColumnB, AdmittanceAt(load, v.Magnitude)));
+            Stamp(a, startStamps[^1]);
         }
+        // With every load dropped the part is linear, and the first solve is its solution.
+        if (m.NonlinearLoads.Length == 0) return first.X;
         var start = LinearSolver.Solve(a, m.B);
-        var newton = NewtonSolver.Solve(m, start.Status == SolveStatus.Solved ? start.X : first.X, cancel);
+        // Newton's Jacobian is the system as the start factored it, or as the first solve did.
+        var newton = start is { Status: SolveStatus.Solved, Factors: { } factors }
+            ? NewtonSolver.Solve(m, factors, startStamps, start.X, cancel)
+            : NewtonSolver.Solve(m, first.Factors!, firstStamps, first.X, cancel);
         if (newton.Converged) return newton.X;
-        diagnostics.ReportNoConvergence(m.NonlinearLoads.Select(l => network.Loads[l.Load].Source).ToList(), NewtonSolver.MaxIterations, prefix);
+        diagnostics.ReportNoConvergence(m.NonlinearLoads.Select(l => network.Loads[l.Load].Source).ToList(), NewtonSolver.MaxIterations);
         return null;
     }
 
@@ -126,10 +139,11 @@ public static class NetworkSolver
     private static Complex AdmittanceAt(NonlinearLoad load, double v) =>
         Complex.Conjugate(load.Exponent == 0 ? load.S0 : load.S0 * (v / load.V0)) / (v * v);
 
-    private static void Stamp(SystemMatrix a, NonlinearLoad load, Complex y)
+    private static void Stamp(SystemMatrix a, NewtonSolver.Stamp s)
     {
-        if (load.ColumnA >= 0) { a[load.ColumnA, load.ColumnA] += y; if (load.ColumnB >= 0) a[load.ColumnA, load.ColumnB] -= y; }
-        if (load.ColumnB >= 0) { a[load.ColumnB, load.ColumnB] += y; if (load.ColumnA >= 0) a[load.ColumnB, load.ColumnA] -= y; }
+        var y = s.Y;
+        if (s.ColumnA >= 0) { a[s.ColumnA, s.ColumnA] += y; if (s.ColumnB >= 0) a[s.ColumnA, s.ColumnB] -= y; }
+        if (s.ColumnB >= 0) { a[s.ColumnB, s.ColumnB] += y; if (s.ColumnA >= 0) a[s.ColumnB, s.ColumnA] -= y; }
     }
 
     /// <summary>
@@ -139,51 +153,51 @@ public static class NetworkSolver
     /// and its node held at the voltage of its other end, so the rest of the part still solves (and a
     /// load that then stands alone at that other end is dropped in turn).
     /// </summary>
-    private static void DropDanglingLoads(MnaSystem m, Network network, DiagnosticBag diagnostics, string prefix)
+    private static MnaSystem DropDanglingLoads(MnaSystem m, Network network, DiagnosticBag diagnostics)
     {
+        for (var dropped = true; dropped;)
+        {
+            dropped = false;
+            foreach (var load in m.NonlinearLoads)
+            {
+                var (end, other) = IsDangling(m, load.ColumnA) ? (load.ColumnA, load.ColumnB) : IsDangling(m, load.ColumnB) ? (load.ColumnB, load.ColumnA) : (-1, -1);
+                if (end < 0) continue;
+                diagnostics.ReportLoadWithoutVoltage(network.Loads[load.Load].Source);
+                m = m.Holding(load, end, other);
+                dropped = true;
+            }
+        }
+        return m;
+
         // No linear element stamps the node's own equation (its KCL row).
-        bool Lone(int c)
+        static bool Lone(MnaSystem m, int c)
         {
             foreach (var v in m.A.Values(c))
                 if (v != Complex.Zero) return false;
             return true;
         }
-        for (var dropped = true; dropped;)
-        {
-            dropped = false;
-            foreach (var load in m.NonlinearLoads.ToList())
-            {
-                var (end, other) = IsDangling(load.ColumnA) ? (load.ColumnA, load.ColumnB) : IsDangling(load.ColumnB) ? (load.ColumnB, load.ColumnA) : (-1, -1);
-                if (end < 0) continue;
-                diagnostics.ReportLoadWithoutVoltage(network.Loads[load.Load].Source, prefix);
-                m.NonlinearLoads.Remove(load);
-                m.A[end, end] = 1;
-                if (other >= 0) m.A[end, other] = -1;
-                dropped = true;
-            }
-        }
-
-        bool IsDangling(int c) => c >= 0 && m.NonlinearLoads.Count(l => l.ColumnA == c || l.ColumnB == c) == 1 && Lone(c);
+        static bool IsDangling(MnaSystem m, int c) => c >= 0 && m.NonlinearLoads.Count(l => l.ColumnA == c || l.ColumnB == c) == 1 && Lone(m, c);
     }
 
-    private static bool Accept(LinearSolver.Result result, MnaSystem m, DiagnosticBag diagnostics, string prefix)
+    private static bool Accept(LinearSolver.Result result, MnaSystem m, DiagnosticBag diagnostics)
     {
         if (result.Status == SolveStatus.Solved) return true;
         var elements = result.NullEquations.Select(i => m.Equations[i])
             .Concat(result.NullUnknowns.Select(i => m.Unknowns[i]))
             .DistinctBy(e => (e.Kind, e.Name))
-            .OrderBy(e => e.Kind == "node" ? 1 : 0)
-            .Select(e => (e.Kind, e.Name, e.Span))
+            .OrderBy(e => e.Kind == ElementKind.Node ? 1 : 0)
             .ToList();
+        // A weakest direction that names nothing (not a number, say) is the part's: its supplies.
+        if (elements.Count == 0) elements = [.. m.Unknowns.Where(e => e.Kind == ElementKind.Supply)];
         if (result.Status == SolveStatus.IllConditioned)
         {
-            diagnostics.ReportIllConditioned(elements, result.Condition, result.Residual, prefix);
+            diagnostics.ReportIllConditioned(elements, result.Condition, result.Residual);
             return result.X.Length == m.Size;
         }
         // A source in the null space is shorted: through ideal windings, or by a fault with no impedance.
-        if (elements.FindIndex(e => e.Kind == "supply") is var supply and >= 0)
-            diagnostics.ReportSupplyShortedThrough(elements[supply], [.. elements.Where((e, i) => i != supply && e.Kind != "node")], prefix);
-        else diagnostics.ReportSingular(elements, prefix);
+        if (elements.FindIndex(e => e.Kind == ElementKind.Supply) is var supply and >= 0)
+            diagnostics.ReportSupplyShortedThrough(elements[supply], [.. elements.Where((e, i) => i != supply && e.Kind != ElementKind.Node)]);
+        else diagnostics.ReportSingular(elements);
         return false;
     }
 

@@ -1,3 +1,4 @@
+using WindingNotes.Kernel;
 using WindingNotes.Model;
 using WindingNotes.Text;
 

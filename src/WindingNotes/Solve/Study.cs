@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using WindingNotes.Kernel;
 using WindingNotes.Model;
 using WindingNotes.Syntax;
 using WindingNotes.Text;
@@ -113,7 +114,7 @@ public static class Study
         SafetyCautions.Report(network, all, outputs, diagnostics);
         run.ReportNew();
         if (stopped)
-            diagnostics.ReportTimeLimit(model.Sweeps.FirstOrDefault()?.Line ?? model.Tolerances.FirstOrDefault()?.Span ?? default, budget.Limit, run.Done, run.Total);
+            diagnostics.ReportTimeLimit(model.Sweeps.FirstOrDefault()?.Line ?? model.Tolerances.FirstOrDefault()?.Span ?? model.Thermal.Cycle?.Line ?? model.Supplies[0].Line, budget.Limit, run.Done, run.Total);
         return new StudyResult(all, checkResults) { Thermal = thermal, SequenceImpedances = sequence, Parallel = ParallelUnits.Find(network, normal, nominal.NoLoad) };
 
         // The bands of the normal case and of each fault over the tolerance samples.
@@ -181,7 +182,7 @@ public static class Study
     /// </summary>
     private sealed class PointRun(SyntaxTree syntax, double ratedFrequency, BrushSweep brushes, TapPlan? taps, DiagnosticBag diagnostics, CancellationToken cancel, Action<StudyProgress>? progress, long total)
     {
-        private readonly HashSet<(string, TextSpan, string)> known = [.. diagnostics.Select(d => (d.Code, d.Span, d.Message))];
+        private readonly HashSet<(string, TextSpan, string, string?)> known = [.. diagnostics.Select(d => (d.Code, d.Span, d.Message, d.Case))];
         private readonly Dictionary<(string, TextSpan), (Diagnostic First, string Where, int More)> fresh = [];
         private readonly List<(string, TextSpan)> order = [];
         private long done;
@@ -202,8 +203,8 @@ public static class Study
             var where = $"{(spec.IsSweepPoint ? $"at {spec.Where}" : "")} {sample}".Trim();
             foreach (var d in p.Diagnostics)
             {
-                // The solver names a sweep point's case in its messages already; compare without it.
-                if (known.Contains((d.Code, d.Span, d.Message)) || known.Contains((d.Code, d.Span, Unprefixed(d.Message)))) continue;
+                // Known where the file as written or the same case said it.
+                if (known.Contains((d.Code, d.Span, d.Message, null)) || known.Contains((d.Code, d.Span, d.Message, d.Case))) continue;
                 var key = (d.Code, d.Span);
                 if (fresh.TryGetValue(key, out var f)) fresh[key] = f with { More = f.More + 1 };
                 else
@@ -217,15 +218,12 @@ public static class Study
             return p;
         }
 
-        private static string Unprefixed(string message) =>
-            message.StartsWith("in case '", StringComparison.Ordinal) && message.IndexOf("': ", StringComparison.Ordinal) is var i and > 0 ? message[(i + 3)..] : message;
-
         public void ReportNew()
         {
             foreach (var key in order)
             {
                 var (first, where, more) = fresh[key];
-                diagnostics.ReportAtPoints(first, first.Message.StartsWith("in case '", StringComparison.Ordinal) ? "" : where, more);
+                diagnostics.ReportAtPoints(first, first.Case is not null ? "" : where, more);
             }
         }
     }

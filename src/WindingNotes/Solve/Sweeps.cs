@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using WindingNotes.Kernel;
 using WindingNotes.Model;
 using WindingNotes.Syntax;
 using WindingNotes.Text;

@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using WindingNotes.Kernel;
 using WindingNotes.Model;
 using WindingNotes.Syntax;
 using WindingNotes.Text;
@@ -201,7 +202,7 @@ public static class ThermalStudy
         var solution = scaled ? scaling.Solve(at, cancel) : NetworkSolver.Solve(at, spec, cancel);
         if (!solution.Solved)
         {
-            problem = solution.Diagnostics.FirstOrDefault(d => d.IsError)?.Message;
+            problem = solution.Diagnostics.FirstOrDefault(d => d.IsError)?.Shown;
             return null;
         }
         return Results.Heat(solution);

@@ -18,6 +18,15 @@ public sealed record Diagnostic(Severity Severity, string Code, string Message, 
     /// <summary>A caution the file acknowledges: check no longer prints it, reports keep it.</summary>
     public bool Acknowledged { get; init; }
 
+    /// <summary>
+    /// The case the diagnostic belongs to ("fault F1", "sweep BR=25 %"), where it is not the file as
+    /// written; the solver sets it, and the study compares messages without it.
+    /// </summary>
+    public string? Case { get; init; }
+
+    /// <summary>The message as every output shows it: <c>in case 'fault F1': </c> before it where it belongs to a case.</summary>
+    public string Shown => Case is null ? Message : $"in case '{DiagnosticBag.Printable(Case)}': {Message}";
+
     public bool IsError => Severity == Severity.Error;
 }
 

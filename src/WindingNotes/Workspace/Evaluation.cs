@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using WindingNotes.Kernel;
 using WindingNotes.Model;
 using WindingNotes.Solve;
 using WindingNotes.Syntax;
@@ -87,14 +88,16 @@ public static class Evaluator
         }
         catch (OperationCanceledException) when (budget.Exceeded && stages is not null)
         {
-            stages.Diagnostics.ReportTimeLimitWhile(budget.Limit, stages.Doing);
+            stages.Diagnostics.ReportTimeLimitWhile(stages.At, budget.Limit, stages.Doing);
             return Finish(path, stages);
         }
         catch (Exception e) when (e is not OperationCanceledException)
         {
             var diagnostics = new DiagnosticBag();
-            diagnostics.ReportInternalError(e);
-            return Finish(path, new Stages(stages?.Syntax ?? SafeParse(text)) { Diagnostics = diagnostics });
+            var syntax = stages?.Syntax ?? SafeParse(text);
+            // At the line the failing stage began from: the tool cannot know which line it failed on.
+            diagnostics.ReportInternalError(stages?.At ?? Stages.FirstLine(syntax), e);
+            return Finish(path, new Stages(syntax) { Diagnostics = diagnostics });
         }
     }
 
@@ -107,6 +110,13 @@ public static class Evaluator
         public StudyResult Study { get; set; } = new([], []);
         public DiagnosticBag Diagnostics { get; init; } = new();
         public string Doing { get; set; } = "binding the document";
+
+        /// <summary>The line a stage's time-limit or internal error is shown at: the first statement, the first tap changer, the first supply.</summary>
+        public TextSpan At { get; set; } = FirstLine(syntax);
+
+        /// <summary>The first line with a statement (or a broken one), else the first line.</summary>
+        public static TextSpan FirstLine(SyntaxTree syntax) =>
+            (syntax.Lines.FirstOrDefault(l => l.Statement is not null || l.Error is not null) ?? syntax.Lines.FirstOrDefault())?.Span ?? default;
     }
 
     private static SyntaxTree SafeParse(string text)
@@ -145,12 +155,14 @@ public static class Evaluator
         if (plan is not null)
         {
             stages.Doing = "finding values and settling tap changers";
+            stages.At = stages.Syntax.Statements.FirstOrDefault(s => s.Kind is StatementKind.TapChanger or StatementKind.Find)?.Span ?? stages.At;
             if (TapStudy.Prepare(plan, model, diagnostics, cancel) is not { } settled) return Finish(path, stages);
             (model, network) = settled;
             (stages.Model, stages.Network) = settled;
         }
 
         stages.Doing = "solving the normal case";
+        stages.At = model.Supplies[0].Line;
         stages.Study = Study.Run(stages.Syntax, model, network, diagnostics, budget, progress, plan);
         return Finish(path, stages);
     }

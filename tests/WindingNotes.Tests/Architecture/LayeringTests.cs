@@ -11,9 +11,9 @@ namespace WindingNotes.Tests.Architecture;
 /// </summary>
 public partial class LayeringTests
 {
-    private static readonly string[] Order = ["Text", "Syntax", "Model", "Solve", "Workspace", "Report", "Editing"];
+    private static readonly string[] Order = ["Text", "Syntax", "Model", "Kernel", "Solve", "Workspace", "Report", "Editing"];
 
-    [GeneratedRegex(@"\bWindingNotes\.(Text|Syntax|Model|Solve|Workspace|Report|Editing)\b")]
+    [GeneratedRegex(@"\bWindingNotes\.(Text|Syntax|Model|Kernel|Solve|Workspace|Report|Editing)\b")]
     private static partial Regex LayerReference();
 
     private static string Library => Path.Combine(Snapshot.RepositoryRoot, "src", "WindingNotes");

@@ -44,7 +44,7 @@ public partial class AnnotatedDiagnosticsTests
         {
             var range = evaluation.Text.GetRange(d.Span);
             var end = range.End.Line == range.Start.Line ? range.End.Character : evaluation.Text.GetLineSpan(range.Start.Line).Length;
-            return $"{range.Start.Line + 1}:{range.Start.Character + 1}-{end} {WindingNotes.Report.TextReport.Severity(d.Severity)} {d.Code}: {d.Message}";
+            return $"{range.Start.Line + 1}:{range.Start.Character + 1}-{end} {WindingNotes.Report.TextReport.Severity(d.Severity)} {d.Code}: {d.Shown}";
         }).ToList();
         Assert.Equal(expected.OrderBy(x => x, StringComparer.Ordinal), actual.OrderBy(x => x, StringComparer.Ordinal));
     }

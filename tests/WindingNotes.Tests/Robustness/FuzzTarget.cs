@@ -77,6 +77,7 @@ public sealed class FuzzTarget(FuzzInput input, TimeSpan timeLimit, TimeSpan giv
         foreach (var d in e.Diagnostics)
         {
             if (d.Code == "internal-error") Fail(d.Message);
+            if (d.Span == default && e.Text.Text.Trim().Length > 0) Fail($"diagnostic {d.Code} has no range: {d.Shown}");
             Span(e.Text, d.Span, $"diagnostic {d.Code}");
             foreach (var h in d.Hints) Span(e.Text, h.Span, $"hint of {d.Code}");
             foreach (var r in d.Related) Span(e.Text, r.Span, $"related span of {d.Code}");

@@ -1,4 +1,5 @@
 using System.Text.Json;
+using WindingNotes.Kernel;
 using WindingNotes.Report;
 using WindingNotes.Solve;
 using WindingNotes.Tests.Analysis;

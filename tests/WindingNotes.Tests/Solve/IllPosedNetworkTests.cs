@@ -145,7 +145,7 @@ public partial class IllPosedNetworkTests
     private static (WindingNotes.Solve.CaseResult Case, List<WindingNotes.Text.Diagnostic> Diagnostics) SolveAsBuilt(WindingNotes.Workspace.Evaluation e)
     {
         var network = WindingNotes.Model.NetworkBuilder.Build(e.Model);
-        var p = WindingNotes.Solve.Points.Solve(network, WindingNotes.Solve.CaseSpec.Normal, withFaults: false, default);
+        var p = WindingNotes.Solve.Points.Solve(network, WindingNotes.Kernel.CaseSpec.Normal, withFaults: false, default);
         return (p.Case!, [.. network.Diagnostics, .. p.Diagnostics]);
     }
 

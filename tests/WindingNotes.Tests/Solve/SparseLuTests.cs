@@ -1,5 +1,6 @@
 using System.Numerics;
 using CsCheck;
+using WindingNotes.Kernel;
 using WindingNotes.Model;
 using WindingNotes.Solve;
 using WindingNotes.Syntax;

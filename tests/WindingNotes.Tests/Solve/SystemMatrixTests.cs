@@ -1,4 +1,5 @@
 using System.Numerics;
+using WindingNotes.Kernel;
 using WindingNotes.Solve;
 using Xunit;
 

@@ -16,7 +16,7 @@ public static class Wn
     {
         var e = Eval(text);
         var errors = e.Diagnostics.Where(d => d.IsError && d.Code != "expect-failed").ToList();
-        Assert.True(errors.Count == 0, string.Join("\n", errors.Select(d => $"{e.Text.GetPosition(d.Span.Start)} {d.Code}: {d.Message}")));
+        Assert.True(errors.Count == 0, string.Join("\n", errors.Select(d => $"{e.Text.GetPosition(d.Span.Start)} {d.Code}: {d.Shown}")));
         Assert.NotNull(e.Normal);
         return e;
     }
@@ -42,7 +42,7 @@ public static class Wn
     public static Diagnostic Single(this Evaluation e, string code)
     {
         var found = e.Diagnostics.Where(d => d.Code == code).ToList();
-        Assert.True(found.Count == 1, $"expected one '{code}', found: {string.Join("; ", e.Diagnostics.Select(d => $"{d.Code}: {d.Message}"))}");
+        Assert.True(found.Count == 1, $"expected one '{code}', found: {string.Join("; ", e.Diagnostics.Select(d => $"{d.Code}: {d.Shown}"))}");
         return found[0];
     }
 

@@ -100,7 +100,7 @@ public static class NetworkDiagram
             DrawRails(width);
             svg.Text(title, Margin, Margin + 4, "title", TitleSize);
             // The cautions that apply to this network travel with its drawing.
-            var cautions = evaluation.Diagnostics.Where(d => d.Code.StartsWith("caution")).Select(d => "Caution: " + d.Message).Distinct();
+            var cautions = evaluation.Diagnostics.Where(d => d.Code.StartsWith("caution")).Select(d => "Caution: " + d.Shown).Distinct();
             var legend = elements > MaxElements
                 ? $"{Legend()} The network has {elements} supplies, cores, loads and faults, too many to draw legibly: the first {MaxElements} are drawn."
                 : Legend();

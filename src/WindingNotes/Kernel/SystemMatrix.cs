@@ -1,6 +1,6 @@
 using System.Numerics;
 
-namespace WindingNotes.Solve;
+namespace WindingNotes.Kernel;
 
 /// <summary>
 /// The square complex matrix of a system, kept as it is stamped: by rows, each the columns it has
@@ -8,7 +8,8 @@ namespace WindingNotes.Solve;
 /// assembly, equilibration, the sparse LU and the residual never touch its zeros, and a system of
 /// 600 unknowns takes kilobytes instead of the 5.8 MB of a dense matrix. An entry once stamped keeps
 /// its place when <see cref="Clear"/> sets the values to zero, so a matrix stamped again with other
-/// numbers (a brush moved) has the same entries or more.
+/// numbers (a brush moved) has the same entries or more. An assembled system's matrix is frozen
+/// (<see cref="Freeze"/>): changing it throws, and a <see cref="Clone"/> is the caller's to change.
 /// </summary>
 internal sealed class SystemMatrix
 {
@@ -40,6 +41,16 @@ internal sealed class SystemMatrix
 
     public int Size { get; }
 
+    private bool frozen;
+
+    /// <summary>From now on the matrix is read only.</summary>
+    public void Freeze() => frozen = true;
+
+    private void CheckWritable()
+    {
+        if (frozen) throw new InvalidOperationException("an assembled system's matrix is read only: change a clone");
+    }
+
     /// <summary>The columns of the entries of <paramref name="row"/>, ascending.</summary>
     public ReadOnlySpan<int> Columns(int row) => columns[row].AsSpan(0, counts[row]);
 
@@ -55,6 +66,7 @@ internal sealed class SystemMatrix
         }
         set
         {
+            CheckWritable();
             var at = Array.BinarySearch(columns[row], 0, counts[row], column);
             if (at < 0) at = Insert(row, ~at, column);
             values[row][at] = value;
@@ -64,6 +76,7 @@ internal sealed class SystemMatrix
     /// <summary>Adds to an entry, finding its place once (the stamps' <c>+=</c>).</summary>
     public void Add(int row, int column, Complex value)
     {
+        CheckWritable();
         var at = next[row];
         if (at >= counts[row] || columns[row][at] != column)
         {
@@ -94,6 +107,7 @@ internal sealed class SystemMatrix
     /// <summary>Every value zero; the entries keep their places.</summary>
     public void Clear()
     {
+        CheckWritable();
         for (var i = 0; i < Size; i++) Array.Clear(values[i], 0, counts[i]);
     }
 

@@ -1,6 +1,6 @@
 using System.Numerics;
 
-namespace WindingNotes.Solve;
+namespace WindingNotes.Kernel;
 
 /// <summary>A square sparse matrix by rows (compressed sparse rows).</summary>
 internal sealed class SparseRows(int size, int[] start, int[] column, Complex[] value)

@@ -3,7 +3,7 @@ using System.Numerics;
 using WindingNotes.Model;
 using WindingNotes.Text;
 
-namespace WindingNotes.Solve;
+namespace WindingNotes.Kernel;
 
 /// <summary>One swept value at a sweep point: the target's name, its value in SI (fractions for %), and as the report writes it.</summary>
 public sealed record SweepValue(string Name, double Value, string Text)

@@ -1,6 +1,6 @@
 using Complex = System.Numerics.Complex;
 
-namespace WindingNotes.Solve;
+namespace WindingNotes.Kernel;
 
 /// <summary>How a linear solve went.</summary>
 internal enum SolveStatus { Solved, IllConditioned, Singular }
@@ -43,12 +43,16 @@ internal static class LinearSolver
     /// The outcome; an ill-conditioned result whose solve broke down has an empty X. <paramref name="Condition"/> is the 2-norm condition number of the equilibrated
     /// matrix where the weakest direction was taken, NaN where the pivots showed no need.
     /// </summary>
-    public sealed record Result(SolveStatus Status, Complex[] X, double Residual, double Condition, List<int> NullUnknowns, List<int> NullEquations);
+    public sealed record Result(SolveStatus Status, Complex[] X, double Residual, double Condition, List<int> NullUnknowns, List<int> NullEquations)
+    {
+        /// <summary>The factors the solution came from, for more right-hand sides (Newton's); null where there is no solution.</summary>
+        public Factored? Factors { get; init; }
+    }
 
-    public static Result Solve(SystemMatrix a, Complex[] b) => Solve(a, b, sparse: b.Length > SparseAbove);
+    public static Result Solve(SystemMatrix a, ReadOnlySpan<Complex> b) => Solve(a, b, sparse: b.Length > SparseAbove);
 
     /// <summary>The same, with the factorisation chosen by the caller (tests compare the two).</summary>
-    public static Result Solve(SystemMatrix a, Complex[] b, bool sparse)
+    public static Result Solve(SystemMatrix a, ReadOnlySpan<Complex> b, bool sparse)
     {
         var n = b.Length;
         if (n == 0) return new Result(SolveStatus.Solved, [], 0, 1, [], []);
@@ -67,6 +71,7 @@ internal static class LinearSolver
         for (var j = 0; j < n; j++) x[j] = y[j] * columnScale[j];
         var residual = factors.RelativeResidual(y, rhs);
         var condition = weakest?.Condition ?? double.NaN;
+        var kept = new Factored(factors, rowScale, columnScale);
         if (!double.IsFinite(residual) || x.Any(v => !double.IsFinite(v.Real) || !double.IsFinite(v.Imaginary)))
         {
             weakest ??= factors.Weakest();
@@ -77,9 +82,9 @@ internal static class LinearSolver
         if (residual > ResidualLimit || condition > ConditionLimit)
         {
             weakest ??= factors.Weakest();
-            return new Result(SolveStatus.IllConditioned, x, residual, weakest.Condition, weakest.Unknowns, weakest.Equations);
+            return new Result(SolveStatus.IllConditioned, x, residual, weakest.Condition, weakest.Unknowns, weakest.Equations) { Factors = kept };
         }
-        return new Result(SolveStatus.Solved, x, residual, condition, [], []);
+        return new Result(SolveStatus.Solved, x, residual, condition, [], []) { Factors = kept };
     }
 
     /// <summary>Scales so every row, then every column, has its largest entry equal to one.</summary>
@@ -119,6 +124,19 @@ internal static class LinearSolver
         }
         var scale = norm * xs + bs;
         return scale == 0 ? 0 : r / scale;
+    }
+}
+
+/// <summary>The LU of a system's equilibrated matrix with its scales: solves the system for another right-hand side.</summary>
+internal sealed class Factored(IFactors factors, double[] rows, double[] columns)
+{
+    public Complex[] Solve(ReadOnlySpan<Complex> b)
+    {
+        var scaled = new Complex[b.Length];
+        for (var i = 0; i < b.Length; i++) scaled[i] = b[i] * rows[i];
+        var x = factors.Solve(scaled);
+        for (var j = 0; j < x.Length; j++) x[j] *= columns[j];
+        return x;
     }
 }
 

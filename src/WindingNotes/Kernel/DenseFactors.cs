@@ -1,7 +1,7 @@
 using Complex = System.Numerics.Complex;
 using MathNet.Numerics.LinearAlgebra;
 
-namespace WindingNotes.Solve;
+namespace WindingNotes.Kernel;
 
 /// <summary>Dense LU (MathNet.Numerics) of an equilibrated matrix; its weakest direction from the SVD.</summary>
 internal sealed class DenseFactors : IFactors
@@ -47,6 +47,6 @@ internal sealed class DenseFactors : IFactors
     {
         var svd = m.Svd(computeVectors: true);
         var last = svd.S.Count - 1;
-        return WindingNotes.Solve.Weakest.Of(svd.S[last].Magnitude, svd.S[0].Magnitude, svd.VT.Row(last).ToArray(), svd.U.Column(last).ToArray());
+        return WindingNotes.Kernel.Weakest.Of(svd.S[last].Magnitude, svd.S[0].Magnitude, svd.VT.Row(last).ToArray(), svd.U.Column(last).ToArray());
     }
 }

@@ -1,7 +1,7 @@
 using System.Numerics;
 using WindingNotes.Model;
 
-namespace WindingNotes.Solve;
+namespace WindingNotes.Kernel;
 
 /// <summary>
 /// One factorisation of an independent part, reused for systems that differ from it only in the rows
@@ -23,7 +23,11 @@ internal sealed class LowRankUpdate
     /// <summary>The relative residual an updated solution must reach; a full solve is accepted up to 1e-9.</summary>
     private const double ResidualLimit = 1e-12;
 
-    private readonly MnaSystem first, scratch;
+    private readonly MnaSystem first;
+
+    /// <summary>The matrix and right-hand side a point's network is stamped into.</summary>
+    private readonly SystemMatrix scratch;
+    private readonly Complex[] scratchB;
     private readonly double[] rows, columns;
     private readonly SparseLu lu;
     private readonly Complex[] z;
@@ -36,7 +40,8 @@ internal sealed class LowRankUpdate
     private LowRankUpdate(MnaSystem first, double[] rows, double[] columns, SparseLu lu)
     {
         (this.first, this.rows, this.columns, this.lu) = (first, rows, columns, lu);
-        scratch = first.Copy();
+        scratch = first.A.Clone();
+        scratchB = new Complex[first.Size];
         firstB = Scaled(first.B);
         z = lu.Solve(firstB);
         inS = new bool[first.Size];
@@ -48,13 +53,13 @@ internal sealed class LowRankUpdate
     /// <summary>The factors of a linear part, or null where they are not well enough conditioned to update.</summary>
     public static LowRankUpdate? Of(MnaSystem m)
     {
-        if (m.NonlinearLoads.Count > 0 || m.Size == 0) return null;
+        if (m.NonlinearLoads.Length > 0 || m.Size == 0) return null;
         var (rows, columns) = LinearSolver.Equilibrate(m.A);
         var lu = SparseLu.Factor(SparseRows.Of(m.A, rows, columns));
         return lu.SmallestPivot > PivotRatio * lu.LargestPivot ? new LowRankUpdate(m, rows, columns, lu) : null;
     }
 
-    private Complex[] Scaled(Complex[] b)
+    private Complex[] Scaled(ReadOnlySpan<Complex> b)
     {
         var r = new Complex[b.Length];
         for (var i = 0; i < b.Length; i++) r[i] = b[i] * rows[i];
@@ -67,16 +72,15 @@ internal sealed class LowRankUpdate
     /// </summary>
     public Complex[]? Solve(Network network, int[] s)
     {
-        var m = scratch;
-        m.Restamp(network);
-        var n = m.Size;
-        var (a0, a) = (first.A, m.A);
+        first.StampInto(network, scratch, scratchB);
+        var n = first.Size;
+        var (a0, a) = (first.A, scratch);
         // Buffers of this part, used again at every point: a sweep makes no garbage it need not.
         var inS = this.inS;
         Array.Clear(inS);
         foreach (var i in s) inS[i] = true;
         var k = s.Length;
-        var b = Scaled(m.B);
+        var b = Scaled(scratchB);
         var zb = b.AsSpan().SequenceEqual(firstB) ? z : lu.Solve(b);
         // W = A⁻¹·[E_S C]: the unit solves are kept for the next point that changes the same S,
         // and so are the arrays for A⁻¹·C.

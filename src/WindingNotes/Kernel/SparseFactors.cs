@@ -1,6 +1,6 @@
 using Complex = System.Numerics.Complex;
 
-namespace WindingNotes.Solve;
+namespace WindingNotes.Kernel;
 
 /// <summary>
 /// Sparse LU of an equilibrated matrix. Its weakest direction comes from inverse iteration on the
@@ -50,7 +50,7 @@ internal sealed class SparseFactors : IFactors
         for (var step = 0; step < PowerSteps; step++) w = Normalised(m.AdjointTimes(m.Times(w)), out largest);
         // ‖(AᴴA)⁻¹·v‖ → 1/σ²min and ‖AᴴA·w‖ → σ²max for unit vectors.
         var smallest = double.IsFinite(inverse) && inverse > 0 ? 1 / Math.Sqrt(inverse) : 0;
-        return WindingNotes.Solve.Weakest.Of(smallest, Math.Sqrt(largest), v, left);
+        return WindingNotes.Kernel.Weakest.Of(smallest, Math.Sqrt(largest), v, left);
     }
 
     private static Complex[] Normalised(Complex[] v, out double norm)

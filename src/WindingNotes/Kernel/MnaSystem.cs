@@ -1,0 +1,287 @@
+using System.Collections.Immutable;
+using System.Numerics;
+using WindingNotes.Model;
+using WindingNotes.Text;
+
+namespace WindingNotes.Kernel;
+
+/// <summary>What an unknown and its equation belong to.</summary>
+public enum ElementKind { Node, Section, Supply, Fault, Core }
+
+/// <summary>An unknown or an equation of the system, named for diagnostics.</summary>
+public readonly record struct Element(ElementKind Kind, string Name, TextSpan Span)
+{
+    /// <summary>The element as messages name it: "section 'P'".</summary>
+    public override string ToString() => $"{Word} '{Name}'";
+
+    public string Word => Kind switch
+    {
+        ElementKind.Node => "node",
+        ElementKind.Section => "section",
+        ElementKind.Supply => "supply",
+        ElementKind.Fault => "fault",
+        _ => "core",
+    };
+}
+
+/// <summary>A constant-power or constant-current load, by the columns of its two nodes (−1 for a reference).</summary>
+internal readonly record struct NonlinearLoad(int Load, int ColumnA, int ColumnB, Complex S0, double V0, int Exponent);
+
+/// <summary>A constant-impedance load, stamped in the matrix, by the columns of its two nodes.</summary>
+internal readonly record struct LinearLoad(int Load, int ColumnA, int ColumnB);
+
+/// <summary>
+/// The linear system of one independent part of the network (nodes linked galvanically or through
+/// cores). Unknowns: node voltages (references left out), section currents, supply currents, the
+/// fault current, and per core its volts per turn e. Rows, in the same order:
+/// KCL at each node; for each section V_a − V_b − N·e − Σ Z·I = 0; for each supply
+/// V_p − V_q + Z_s·I = E; for the fault V_a − V_b − Z_f·I = 0; for each core Σ N·I − Y·e = 0.
+/// Constant-impedance loads are stamped as admittances; the others are left to Newton's method.
+/// The matrix is kept sparse (<see cref="SystemMatrix"/>). Every element stamps entries (i, j) and
+/// (j, i) together, so the pattern is symmetric, which the brush update relies on (a dangling load's
+/// node held at its other end is the exception; the update's residual check refuses what it misses).
+/// Once assembled it does not change: its matrix is frozen, and a system with a load dropped is a
+/// new one (<see cref="Without"/>, <see cref="Holding"/>); a network of the same shape is stamped
+/// into the caller's own matrix (<see cref="StampInto"/>).
+/// </summary>
+internal sealed class MnaSystem
+{
+    private readonly Complex[] b;
+    private readonly Dictionary<int, int> nodeColumn;
+    private readonly SolveGroup group;
+    private readonly CaseSpec spec;
+
+    private MnaSystem(SolveGroup group, CaseSpec spec, Dictionary<int, int> nodeColumn, IReadOnlyDictionary<int, int> sectionColumn,
+        IReadOnlyDictionary<int, int> supplyColumn, IReadOnlyDictionary<int, int> coreColumn, int faultColumn, IReadOnlyList<Element> unknowns)
+    {
+        (this.group, this.spec, this.nodeColumn) = (group, spec, nodeColumn);
+        (SectionColumn, SupplyColumn, CoreColumn, FaultColumn, Unknowns) = (sectionColumn, supplyColumn, coreColumn, faultColumn, unknowns);
+        Size = unknowns.Count;
+        A = new SystemMatrix(Size);
+        b = new Complex[Size];
+    }
+
+    private MnaSystem(MnaSystem other, SystemMatrix a, ImmutableArray<NonlinearLoad> nonlinear)
+    {
+        (group, spec, nodeColumn, b) = (other.group, other.spec, other.nodeColumn, other.b);
+        (SectionColumn, SupplyColumn, CoreColumn, FaultColumn, Unknowns, Size) = (other.SectionColumn, other.SupplyColumn, other.CoreColumn, other.FaultColumn, other.Unknowns, other.Size);
+        (LinearLoads, HasSource) = (other.LinearLoads, other.HasSource);
+        A = a;
+        NonlinearLoads = nonlinear;
+    }
+
+    public int Size { get; }
+
+    /// <summary>The matrix, frozen: stamp a <see cref="SystemMatrix.Clone"/>.</summary>
+    public SystemMatrix A { get; }
+
+    public ReadOnlySpan<Complex> B => b;
+
+    /// <summary>The unknowns; each equation belongs to the element of the unknown of its index.</summary>
+    public IReadOnlyList<Element> Unknowns { get; }
+
+    public IReadOnlyList<Element> Equations => Unknowns;
+
+    public IReadOnlyDictionary<int, int> NodeColumn => nodeColumn;
+
+    public IReadOnlyDictionary<int, int> SectionColumn { get; }
+
+    public IReadOnlyDictionary<int, int> SupplyColumn { get; }
+
+    public IReadOnlyDictionary<int, int> CoreColumn { get; }
+
+    public int FaultColumn { get; }
+
+    public ImmutableArray<NonlinearLoad> NonlinearLoads { get; private init; } = [];
+
+    public ImmutableArray<LinearLoad> LinearLoads { get; private init; } = [];
+
+    public bool HasSource { get; private init; }
+
+    public int Column(int node) => nodeColumn.TryGetValue(node, out var c) ? c : -1;
+
+    public static MnaSystem Assemble(Network network, SolveGroup group, int[] reference, CaseSpec spec)
+    {
+        var unknowns = new List<Element>();
+        var (nodes, sections, supplies, cores) = (new Dictionary<int, int>(), new Dictionary<int, int>(), new Dictionary<int, int>(), new Dictionary<int, int>());
+        foreach (var n in group.Nodes.Where(n => reference[n] != n))
+        {
+            nodes[n] = unknowns.Count;
+            unknowns.Add(new Element(ElementKind.Node, network.Nodes[n].Name, PointSpan(network, n)));
+        }
+        foreach (var k in group.Sections)
+        {
+            sections[k] = unknowns.Count;
+            unknowns.Add(new Element(ElementKind.Section, network.Sections[k].Name, network.Windings[network.Sections[k].Winding].Source.Line));
+        }
+        foreach (var s in group.Supplies)
+        {
+            supplies[s] = unknowns.Count;
+            unknowns.Add(new Element(ElementKind.Supply, network.Supplies[s].Name, network.Supplies[s].Source.Line));
+        }
+        var fault = -1;
+        if (group.HasFault)
+        {
+            fault = unknowns.Count;
+            unknowns.Add(new Element(ElementKind.Fault, spec.Fault!.Name, spec.Fault.Line));
+        }
+        foreach (var c in group.Cores)
+        {
+            cores[c] = unknowns.Count;
+            unknowns.Add(new Element(ElementKind.Core, network.Cores[c].Name, network.Cores[c].Source.Line));
+        }
+        var m = new MnaSystem(group, spec, nodes, sections, supplies, cores, fault, unknowns);
+        var (nonlinear, linear, hasSource) = m.Stamp(network, m.A, m.b);
+        m.A.Freeze();
+        return new MnaSystem(m, m.A, nonlinear) { LinearLoads = linear, HasSource = hasSource };
+    }
+
+    /// <summary>The same system without <paramref name="load"/> (one that draws nothing).</summary>
+    public MnaSystem Without(NonlinearLoad load) => new(this, A, NonlinearLoads.Remove(load));
+
+    /// <summary>
+    /// The same system without <paramref name="load"/>, its node <paramref name="end"/> held at the
+    /// voltage of <paramref name="other"/> (−1: the reference), for a load alone at that node.
+    /// </summary>
+    public MnaSystem Holding(NonlinearLoad load, int end, int other)
+    {
+        var a = A.Clone();
+        a[end, end] = 1;
+        if (other >= 0) a[end, other] = -1;
+        a.Freeze();
+        return new(this, a, NonlinearLoads.Remove(load));
+    }
+
+    /// <summary>
+    /// The numbers of a network of the same shape (a brush moved) stamped into <paramref name="a"/>
+    /// and <paramref name="rhs"/>, cleared first (a matrix of this one's entries keeps its places):
+    /// the unknowns, the equations and their names stay, so nothing but the numbers is made again.
+    /// </summary>
+    public void StampInto(Network network, SystemMatrix a, Complex[] rhs)
+    {
+        a.Clear();
+        Array.Clear(rhs);
+        Stamp(network, a, rhs);
+    }
+
+    private (ImmutableArray<NonlinearLoad>, ImmutableArray<LinearLoad>, bool) Stamp(Network network, SystemMatrix A, Complex[] B)
+    {
+        var nonlinear = ImmutableArray.CreateBuilder<NonlinearLoad>();
+        var linear = ImmutableArray.CreateBuilder<LinearLoad>();
+        var hasSource = false;
+        // Branch current leaving node a and entering node b.
+        void Branch(int column, int a, int b)
+        {
+            if (Column(a) is var ra and >= 0) A.Add(ra, column, 1);
+            if (Column(b) is var rb and >= 0) A.Add(rb, column, -1);
+        }
+        // Row gets +V_a − V_b.
+        void Across(int row, int a, int b)
+        {
+            if (Column(a) is var ca and >= 0) A.Add(row, ca, 1);
+            if (Column(b) is var cb and >= 0) A.Add(row, cb, -1);
+        }
+
+        foreach (var k in group.Sections)
+        {
+            var s = network.Sections[k];
+            var row = SectionColumn[k];
+            Branch(row, s.NodeA, s.NodeB);
+            Across(row, s.NodeA, s.NodeB);
+            var core = network.Cores[s.Core];
+            A.Add(row, CoreColumn[s.Core], -s.Turns);
+            A.Add(CoreColumn[s.Core], row, s.Turns);
+            var r = core.Sections.IndexOf(k);
+            for (var c = 0; c < core.Sections.Length; c++)
+                A.Add(row, SectionColumn[core.Sections[c]], -core.Impedance[r, c]);
+        }
+        foreach (var c in group.Cores)
+            A.Add(CoreColumn[c], CoreColumn[c], -network.Cores[c].Admittance);
+        // Limbs of one three-phase core share the return path (MagneticCircuit): −Yr·(e_a + e_b + e_c) in each limb's row.
+        foreach (var m in network.Couplings)
+            if (CoreColumn.ContainsKey(m.Limbs[0]))
+                foreach (var j in m.Limbs)
+                    foreach (var k in m.Limbs) A.Add(CoreColumn[j], CoreColumn[k], -m.ReturnAdmittance);
+        foreach (var i in group.Supplies)
+        {
+            var s = network.Supplies[i];
+            var row = SupplyColumn[i];
+            // The supply's current leaves its positive terminal into the network.
+            Branch(row, s.NodeQ, s.NodeP);
+            Across(row, s.NodeP, s.NodeQ);
+            A.Add(row, row, s.Impedance);
+            B[row] = s.Voltage;
+            hasSource |= s.Voltage != Complex.Zero;
+        }
+        if (FaultColumn >= 0)
+        {
+            var (a, b) = (network.Node(spec.Fault!.A.Name), network.Node(spec.Fault.B.Name));
+            Branch(FaultColumn, a, b);
+            Across(FaultColumn, a, b);
+            A.Add(FaultColumn, FaultColumn, -spec.Fault.Impedance);
+        }
+        if (spec.WithoutLoads) return ([], [], hasSource);
+        foreach (var i in group.Loads)
+        {
+            var l = network.Loads[i];
+            var (ca, cb) = (Column(l.NodeA), Column(l.NodeB));
+            if (l.Source.Exponent == 2)
+            {
+                // Constant impedance: the S drawn at 1 V is |V|²·conj(Y), so Y = conj(S0)/V0².
+                var y = Complex.Conjugate(l.Source.S0) / (l.Source.V0 * l.Source.V0);
+                if (ca >= 0) { A.Add(ca, ca, y); if (cb >= 0) A.Add(ca, cb, -y); }
+                if (cb >= 0) { A.Add(cb, cb, y); if (ca >= 0) A.Add(cb, ca, -y); }
+                linear.Add(new LinearLoad(i, ca, cb));
+            }
+            else nonlinear.Add(new NonlinearLoad(i, ca, cb, l.Source.S0, l.Source.V0, l.Source.Exponent));
+        }
+        return (nonlinear.ToImmutable(), linear.ToImmutable(), hasSource);
+    }
+
+    /// <summary>Where a node is named; a node the file does not name (a phase's, a test's) is where the first element on it is written.</summary>
+    private static TextSpan PointSpan(Network network, int node) =>
+        network.Model.Symbols.Find(network.Nodes[node].Name)?.Span
+        ?? network.Sections.Where(s => s.NodeA == node || s.NodeB == node).Select(s => (TextSpan?)network.Windings[s.Winding].Source.Line).FirstOrDefault()
+        ?? network.Supplies.Where(s => s.NodeP == node || s.NodeQ == node).Select(s => (TextSpan?)s.Source.Line).FirstOrDefault()
+        ?? network.Loads.Where(l => l.NodeA == node || l.NodeB == node).Select(l => (TextSpan?)l.Source.Line).FirstOrDefault()
+        ?? default;
+}
+
+/// <summary>An independent part of the network: what is linked by wires or by a core is solved together.</summary>
+internal sealed record SolveGroup(List<int> Nodes, List<int> Sections, List<int> Supplies, List<int> Loads, List<int> Cores, bool HasFault)
+{
+    /// <summary>
+    /// Earth is the reference of every grounded part but carries no unknown and no KCL row, so it
+    /// links nothing: two grounded units stay two small systems instead of one large one.
+    /// </summary>
+    public static List<SolveGroup> Find(Network network, CaseSpec spec)
+    {
+        var nodeCount = network.Nodes.Length;
+        var earth = network.EarthNode;
+        var loads = spec.WithoutLoads ? [] : network.Loads.Where(l => l.NodeA != l.NodeB).ToList();
+        int faultA = -1, faultB = -1;
+        if (spec.Fault is { } f) (faultA, faultB) = (network.Node(f.A.Name), network.Node(f.B.Name));
+        var sets = Islands.Parts(network, !spec.WithoutLoads, faultA >= 0 ? [(faultA, faultB)] : []);
+        var groups = new Dictionary<int, SolveGroup>();
+        SolveGroup Of(int vertex)
+        {
+            var root = sets.Find(vertex);
+            if (!groups.TryGetValue(root, out var g)) groups[root] = g = new SolveGroup([], [], [], [], [], false);
+            return g;
+        }
+        for (var n = 0; n < nodeCount; n++)
+            if (n != earth) Of(n).Nodes.Add(n);
+        foreach (var s in network.Sections) Of(nodeCount + s.Core).Sections.Add(s.Index);
+        foreach (var s in network.Supplies) Of(Islands.Anchor(network, s.NodeP, s.NodeQ)).Supplies.Add(s.Index);
+        foreach (var l in loads) Of(Islands.Anchor(network, l.NodeA, l.NodeB)).Loads.Add(l.Index);
+        for (var c = 0; c < network.Cores.Length; c++)
+            if (network.Cores[c].Sections.Length > 0) Of(nodeCount + c).Cores.Add(c);
+        var result = groups.OrderBy(g => g.Key).Select(g => g.Value).ToList();
+        if (faultA >= 0 && Islands.Anchor(network, faultA, faultB) is var anchor and >= 0)
+        {
+            var index = result.IndexOf(groups[sets.Find(anchor)]);
+            result[index] = result[index] with { HasFault = true };
+        }
+        return result;
+    }
+}
