@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using System.Runtime.InteropServices;
 using WindingNotes.Text;
 
 namespace WindingNotes.Syntax;
@@ -67,14 +68,18 @@ internal sealed class StatementReader
     /// </summary>
     private Reading Statement(StatementForm form)
     {
+        // One list of elements and one of clauses a thread, reused: each head and clause then costs one array of its own size.
+        var elements = scratchElements ??= new List<ElementSyntax>(16);
+        var clauses = scratchClauses ??= new List<ClauseSyntax>(16);
+        elements.Clear();
+        clauses.Clear();
         Stop? stop = null;
-        var head = ImmutableArray.CreateBuilder<ElementSyntax>(form.Head.Length);
-        var clauses = ImmutableArray.CreateBuilder<ClauseSyntax>();
-        if (!Sequence(form.Head, head))
+        if (!Sequence(form.Head, elements))
         {
             stop = failure;
-            if (Current is null) return new Reading(new ClauseSyntax(null, null, head.DrainToImmutable()), [], stop);
+            if (Current is null) return new Reading(Clause(null, null, elements), [], stop);
         }
+        var head = Clause(null, null, elements);
         while (true)
         {
             if (Current is not { } keyword)
@@ -82,26 +87,32 @@ internal sealed class StatementReader
                 if (collect is not null) Unused(form, clauses);
                 break;
             }
-            var clause = keyword.Kind == TokenKind.Word ? form.FindClause(keyword.Text) : null;
-            if (clause is null)
+            var clauseForm = keyword.Kind == TokenKind.Word ? form.FindClause(keyword.Text) : null;
+            if (clauseForm is null)
             {
                 stop ??= new Stop(at, [.. form.Clauses.Select(c => $"'{c.Keyword}'"), "end of line"]);
                 at++;
                 continue;
             }
             at++;
-            var elements = ImmutableArray.CreateBuilder<ElementSyntax>(clause.Parts.Length);
-            var whole = Sequence(clause.Parts, elements);
-            clauses.Add(new ClauseSyntax(clause, keyword, elements.DrainToImmutable()));
+            elements.Clear();
+            var whole = Sequence(clauseForm.Parts, elements);
+            clauses.Add(Clause(clauseForm, keyword, elements));
             if (whole) continue;
             stop ??= failure;
             if (Current is null) break;
         }
-        return new Reading(new ClauseSyntax(null, null, head.DrainToImmutable()), clauses.DrainToImmutable(), stop);
+        return new Reading(head, ImmutableArray.Create(CollectionsMarshal.AsSpan(clauses)), stop);
     }
 
+    [ThreadStatic] private static List<ElementSyntax>? scratchElements;
+    [ThreadStatic] private static List<ClauseSyntax>? scratchClauses;
+
+    private static ClauseSyntax Clause(ClauseForm? form, Token? keyword, List<ElementSyntax> elements) =>
+        new(form, keyword, ImmutableArray.Create(CollectionsMarshal.AsSpan(elements)));
+
     /// <summary>The clauses not yet given and not excluded by a given one of their group, where the tokens end.</summary>
-    private void Unused(StatementForm form, ImmutableArray<ClauseSyntax>.Builder given)
+    private void Unused(StatementForm form, List<ClauseSyntax> given)
     {
         foreach (var c in form.Clauses)
             if (!given.Any(g => g.Form == c || (c.Group is not null && g.Form!.Group == c.Group)))
@@ -113,7 +124,7 @@ internal sealed class StatementReader
     /// <see cref="MissingSyntax"/> is added (what the partial statement shows) and the reader stands
     /// where it stopped, with <see cref="failure"/> saying what was expected.
     /// </summary>
-    private bool Sequence(Part[] parts, ImmutableArray<ElementSyntax>.Builder into)
+    private bool Sequence(Part[] parts, List<ElementSyntax> into)
     {
         foreach (var part in parts)
         {
@@ -126,7 +137,7 @@ internal sealed class StatementReader
         return true;
     }
 
-    private bool Parts(Part[] parts, ImmutableArray<ElementSyntax>.Builder into)
+    private bool Parts(Part[] parts, List<ElementSyntax> into)
     {
         foreach (var part in parts)
             if (!Part(part, into)) return false;
@@ -156,7 +167,12 @@ internal sealed class StatementReader
         return t;
     }
 
-    private Token? TakeSymbol(string symbol) => Take(t => t.Kind == TokenKind.Symbol && t.Text == symbol);
+    private Token? TakeSymbol(string symbol)
+    {
+        if (Current is not { Kind: TokenKind.Symbol } t || t.Text != symbol) return null;
+        at++;
+        return t;
+    }
 
     /// <summary>A part that does not fit: what was expected there. Always false.</summary>
     private bool Expected(string label)
@@ -165,7 +181,7 @@ internal sealed class StatementReader
         return false;
     }
 
-    private bool Part(Part part, ImmutableArray<ElementSyntax>.Builder into)
+    private bool Part(Part part, List<ElementSyntax> into)
     {
         switch (part)
         {
@@ -192,11 +208,11 @@ internal sealed class StatementReader
                 into.Add(value);
                 return true;
             case WordPart w:
-                if (Word(t => t.Text == w.Word, into)) return true;
+                if (Word(w.Word, null, into)) return true;
                 if (Current is null) collect?.Words.Add(w.Word);
                 return Expected($"'{w.Word}'");
             case ChoicePart c:
-                if (Word(t => Array.IndexOf(c.Words, t.Text) >= 0, into)) return true;
+                if (Word(null, c.Words, into)) return true;
                 if (Current is null) collect?.Words.AddRange(c.Words);
                 return Expected(c.Label);
             case OptionalPart o:
@@ -238,14 +254,16 @@ internal sealed class StatementReader
 
     private static bool IsFixedWord(Token t) => t.Kind is TokenKind.Word or TokenKind.Symbol;
 
-    private bool Word(Func<Token, bool> fits, ImmutableArray<ElementSyntax>.Builder into)
+    /// <summary>The fixed word <paramref name="word"/>, or one of <paramref name="words"/>.</summary>
+    private bool Word(string? word, string[]? words, List<ElementSyntax> into)
     {
-        if (Take(t => IsFixedWord(t) && fits(t)) is not { } word) return false;
-        into.Add(new WordSyntax(word));
+        if (Current is not { } t || !IsFixedWord(t) || (word is not null ? t.Text != word : Array.IndexOf(words!, t.Text) < 0)) return false;
+        at++;
+        into.Add(new WordSyntax(t));
         return true;
     }
 
-    private bool Name(NameRole role, ImmutableArray<ElementSyntax>.Builder into)
+    private bool Name(NameRole role, List<ElementSyntax> into)
     {
         if (Take(ValueParser.IsName) is not { } name)
         {
