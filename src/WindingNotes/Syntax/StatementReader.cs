@@ -37,15 +37,16 @@ internal sealed class ExpectedNext
 /// </summary>
 internal sealed class StatementReader
 {
+    private readonly StatementForm form;
     private readonly Token[] tokens;
     private readonly ExpectedNext? collect;
     private int at;
     private Stop? failure;
 
-    private StatementReader(Token[] tokens, ExpectedNext? collect) => (this.tokens, this.collect, at) = (tokens, collect, 1);
+    private StatementReader(StatementForm form, Token[] tokens, ExpectedNext? collect) => (this.form, this.tokens, this.collect, at) = (form, tokens, collect, 1);
 
     /// <summary>The statement of <paramref name="tokens"/> (significant tokens, the keyword first).</summary>
-    public static Reading Read(StatementForm form, Token[] tokens) => new StatementReader(tokens, null).Statement(form);
+    public static Reading Read(StatementForm form, Token[] tokens) => new StatementReader(form, tokens, null).Statement(form);
 
     /// <summary>
     /// What may come after <paramref name="tokens"/> (the significant tokens of a line before the
@@ -56,7 +57,7 @@ internal sealed class StatementReader
     {
         if (tokens.Count == 0) return new ExpectedNext { Statements = true };
         if (tokens[0].Kind != TokenKind.Word || !Grammar.ByKeyword.TryGetValue(tokens[0].Text, out var form)) return null;
-        var reader = new StatementReader([.. tokens], new ExpectedNext());
+        var reader = new StatementReader(form, [.. tokens], new ExpectedNext());
         reader.Statement(form);
         return reader.collect;
     }
@@ -364,7 +365,8 @@ internal sealed class StatementReader
         if ((t.Kind == TokenKind.Word && !Grammar.Keywords.Contains(t.Text)) || (t.IsWord("turns") && Next is not { Kind: TokenKind.Number }))
         {
             // 'turns' last before the cursor may yet be the clause, if a number follows: its value may come.
-            if (Next is null && t.IsWord("turns") && collect is not null) collect.ValueNames = true;
+            if (Next is null && collect is not null && t.IsWord("turns") && form.FindClause("turns") is { } turns && !scratchClauses!.Exists(c => c.Form == turns))
+                collect.ValueNames = true;
             unit = t;
             at++;
             return true;

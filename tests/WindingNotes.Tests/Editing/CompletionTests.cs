@@ -50,5 +50,6 @@ public class CompletionTests
     [InlineData("open-parenthesis", "core K2 rating (0.5 kVA $0")]
     [InlineData("after-mistake", "winding LV on K1 turns 24 24 from X1 to X2 $0")]
     [InlineData("turns-unit-or-clause", "winding LV on K1 rated 120 turns $0")]
+    [InlineData("turns-unit", "tap T30 on HV at 30 turns $0")]
     public void Completes(string name, string line) => Snapshot.Match(Check(line), $"Data/editing/completion/{name}.txt");
 }
