@@ -1,6 +1,5 @@
 using System.Collections.Immutable;
 using System.Runtime.InteropServices;
-using Pidgin;
 using WindingNotes.Text;
 
 namespace WindingNotes.Syntax;
@@ -65,46 +64,31 @@ public static class Parser
 
         if (TooComplex(significant, diagnostics) is { } refused) return new LineSyntax(index, span, all, null, refused);
 
-        // The direct reader takes a well-formed line; where it gives up, Pidgin reads it and words the error.
-        if (StatementReader.Read(form, significant) is not { } parsed)
-        {
-            var rest = significant.AsSpan(1);
-            var result = StatementParsers.ByKind[form.Kind].Parse(rest);
-            if (!result.Success)
-            {
-                var (partialHead, partialClauses) = StatementReader.ReadPartial(form, significant);
-                var partial = new StatementSyntax(form, keyword, partialHead, partialClauses);
-                var error = ReportParseError(diagnostics, result.Error!, rest, keyword, partial);
-                return new LineSyntax(index, span, all, null, error, partial);
-            }
-            parsed = result.Value;
-        }
-
-        var (head, clauses) = parsed;
+        var (head, clauses, stop) = StatementReader.Read(form, significant);
         var statement = new StatementSyntax(form, keyword, head, clauses);
+        if (stop is not null)
+            return new LineSyntax(index, span, all, null, ReportStop(diagnostics, stop, significant, statement), statement);
         CheckClauses(statement, diagnostics);
         return new LineSyntax(index, span, all, statement, null);
     }
 
-    private static Diagnostic ReportParseError(DiagnosticBag diagnostics, ParseError<Token> error, ReadOnlySpan<Token> tokens, Token keyword, StatementSyntax partial)
+    /// <summary>The error of a line that stops fitting its form: the token there (or the line's end) and what was expected.</summary>
+    private static Diagnostic ReportStop(DiagnosticBag diagnostics, Stop stop, Token[] tokens, StatementSyntax partial)
     {
         var fitting = StillNeeded(partial);
-        var expected = error.Expected
-            .Select(e => e.IsEof ? "end of line" : e.Label ?? string.Join(" ", e.Tokens.Select(t => $"'{t.Text}'")))
+        var expected = stop.Expected
             .Where(label => label.Length > 0)
             .Distinct()
             .OrderBy(label => fitting.Contains(label) ? 0 : 1)
             .ToList();
-        var offset = Math.Min(error.ErrorOffset, tokens.Length);
-        if (offset < tokens.Length)
+        if (stop.At < tokens.Length)
         {
-            var found = tokens[offset];
+            var found = tokens[stop.At];
             var words = expected.Where(e => e.StartsWith('\'')).Select(e => e.Trim('\''));
             var suggestion = found.Kind == TokenKind.Word ? Spelling.Nearest(found.Text, words) : null;
             return diagnostics.ReportUnexpected(found, expected, suggestion);
         }
-        var last = tokens.Length > 0 ? tokens[^1] : keyword;
-        return diagnostics.ReportUnexpectedEnd(last, expected);
+        return diagnostics.ReportUnexpectedEnd(tokens[^1], expected);
     }
 
     /// <summary>

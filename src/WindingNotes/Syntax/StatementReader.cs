@@ -1,67 +1,131 @@
 using System.Collections.Immutable;
+using System.Runtime.InteropServices;
 using WindingNotes.Text;
 
 namespace WindingNotes.Syntax;
 
+/// <summary>Where a line stops fitting its form (an index into its significant tokens, the keyword 0) and what was expected there, in the table's words.</summary>
+internal sealed record Stop(int At, IReadOnlyList<string> Expected);
+
 /// <summary>
-/// Reads a well-formed statement straight from the <see cref="Grammar"/> table, one token of
-/// look-ahead, no backtracking. The Pidgin parsers (<see cref="StatementParsers"/>) record at every
-/// step what each alternative expected, which only an error needs, and that is most of their time;
-/// this reader gives up (null) at the first token that does not fit, and the Pidgin parsers then
-/// read the line again and word the error. Where it succeeds it builds the very tree they build
-/// (a test compares the two over fuzzed documents), so the notation still has one grammar.
+/// What a statement's tokens say: the head and clauses read, and where the line stopped fitting
+/// its form (null when it is whole). A line that stops keeps a partial statement: the parts read
+/// up to the stop, a <see cref="MissingSyntax"/> there, and the clauses from the next clause keyword on.
+/// </summary>
+internal readonly record struct Reading(ClauseSyntax Head, ImmutableArray<ClauseSyntax> Clauses, Stop? Stop);
+
+/// <summary>What may come next at the end of an unfinished statement: what completion offers.</summary>
+internal sealed class ExpectedNext
+{
+    public bool Statements { get; init; }
+    public List<ClauseForm> Clauses { get; } = [];
+    public List<string> Words { get; } = [];
+    public List<NameRole> Names { get; } = [];
+    public bool ValueNames { get; set; }
+    public bool Units { get; set; }
+}
+
+/// <summary>
+/// The one reader of the <see cref="Grammar"/> table: one token of look-ahead, no backtracking
+/// (every clause starts with its own keyword, an optional part is decided by its first token).
+/// It reads a well-formed statement without recording anything on the way; where a part does not
+/// fit it records what the table expected there (the error's wording), marks the part missing and
+/// goes on from the next clause keyword (the partial statement). Where the tokens end (the cursor of
+/// an unfinished line), each place that finds no token says what it would have taken (completion).
+/// Errors inside a value are worded by <see cref="ValueParser"/> (Pidgin), the value grammar written
+/// as an operator table; the reader's own value reading builds the same tree without its cost.
 /// </summary>
 internal sealed class StatementReader
 {
+    private readonly StatementForm form;
     private readonly Token[] tokens;
+    private readonly ExpectedNext? collect;
     private int at;
+    private Stop? failure;
 
-    private StatementReader(Token[] tokens, int at) => (this.tokens, this.at) = (tokens, at);
+    private StatementReader(StatementForm form, Token[] tokens, ExpectedNext? collect) => (this.form, this.tokens, this.collect, at) = (form, tokens, collect, 1);
 
-    /// <summary>The head and clauses of <paramref name="tokens"/> (significant tokens, the keyword first), or null.</summary>
-    public static (ClauseSyntax Head, ImmutableArray<ClauseSyntax> Clauses)? Read(StatementForm form, Token[] tokens)
+    /// <summary>The statement of <paramref name="tokens"/> (significant tokens, the keyword first).</summary>
+    public static Reading Read(StatementForm form, Token[] tokens) => new StatementReader(form, tokens, null).Statement(form);
+
+    /// <summary>
+    /// What may come after <paramref name="tokens"/> (the significant tokens of a line before the
+    /// cursor): statement keywords on an empty line, nothing after an unknown statement keyword.
+    /// A mistake earlier on the line is read past as the partial statement is, from the next clause keyword.
+    /// </summary>
+    public static ExpectedNext? ExpectedAfter(IReadOnlyList<Token> tokens)
     {
-        var reader = new StatementReader(tokens, 1);
-        var head = ImmutableArray.CreateBuilder<ElementSyntax>();
-        if (!reader.Parts(form.Head, head)) return null;
-        var clauses = ImmutableArray.CreateBuilder<ClauseSyntax>();
-        while (reader.Current is { } keyword)
-        {
-            var clause = keyword.Kind == TokenKind.Word ? form.FindClause(keyword.Text) : null;
-            if (clause is null) return null;
-            reader.at++;
-            var elements = ImmutableArray.CreateBuilder<ElementSyntax>(clause.Parts.Length);
-            if (!reader.Parts(clause.Parts, elements)) return null;
-            clauses.Add(new ClauseSyntax(clause, keyword, elements.DrainToImmutable()));
-        }
-        return (new ClauseSyntax(null, null, head.DrainToImmutable()), clauses.DrainToImmutable());
+        if (tokens.Count == 0) return new ExpectedNext { Statements = true };
+        if (tokens[0].Kind != TokenKind.Word || !Grammar.ByKeyword.TryGetValue(tokens[0].Text, out var form)) return null;
+        var reader = new StatementReader(form, [.. tokens], new ExpectedNext());
+        reader.Statement(form);
+        return reader.collect;
     }
 
     /// <summary>
-    /// What a line that does not parse still says: the parts read up to the first that does not
-    /// fit, a <see cref="MissingSyntax"/> there, and then, from the next keyword of one of the form's
-    /// clauses on, each clause read the same way; tokens that begin no clause are passed over. The
-    /// binder declares the names of the result and binds nothing of it.
+    /// The head, then clauses until the end. After a part that does not fit (the first is the
+    /// stop), reading goes on from the next clause keyword; tokens that begin no clause are passed
+    /// over. Where the tokens end inside a part, nothing more is read (nor offered).
     /// </summary>
-    public static (ClauseSyntax Head, ImmutableArray<ClauseSyntax> Clauses) ReadPartial(StatementForm form, Token[] tokens)
+    private Reading Statement(StatementForm form)
     {
-        var reader = new StatementReader(tokens, 1);
-        var head = ImmutableArray.CreateBuilder<ElementSyntax>();
-        reader.Recovering(form.Head, head);
-        var clauses = ImmutableArray.CreateBuilder<ClauseSyntax>();
-        while (reader.Current is { } keyword)
+        // One list of elements and one of clauses a thread, reused: each head and clause then costs one array of its own size.
+        var elements = scratchElements ??= new List<ElementSyntax>(16);
+        var clauses = scratchClauses ??= new List<ClauseSyntax>(16);
+        elements.Clear();
+        clauses.Clear();
+        Stop? stop = null;
+        if (!Sequence(form.Head, elements))
         {
-            reader.at++;
-            if (keyword.Kind != TokenKind.Word || form.FindClause(keyword.Text) is not { } clause) continue;
-            var elements = ImmutableArray.CreateBuilder<ElementSyntax>(clause.Parts.Length);
-            reader.Recovering(clause.Parts, elements);
-            clauses.Add(new ClauseSyntax(clause, keyword, elements.DrainToImmutable()));
+            stop = failure;
+            if (Current is null) return new Reading(Clause(null, null, elements), [], stop);
         }
-        return (new ClauseSyntax(null, null, head.DrainToImmutable()), clauses.DrainToImmutable());
+        var head = Clause(null, null, elements);
+        while (true)
+        {
+            if (Current is not { } keyword)
+            {
+                if (collect is not null) Unused(form, clauses);
+                break;
+            }
+            var clauseForm = keyword.Kind == TokenKind.Word ? form.FindClause(keyword.Text) : null;
+            if (clauseForm is null)
+            {
+                stop ??= new Stop(at, [.. form.Clauses.Select(c => $"'{c.Keyword}'"), "end of line"]);
+                at++;
+                continue;
+            }
+            at++;
+            elements.Clear();
+            var whole = Sequence(clauseForm.Parts, elements);
+            clauses.Add(Clause(clauseForm, keyword, elements));
+            if (whole) continue;
+            stop ??= failure;
+            if (Current is null) break;
+        }
+        return new Reading(head, ImmutableArray.Create(CollectionsMarshal.AsSpan(clauses)), stop);
     }
 
-    /// <summary>The parts in order up to the first that does not fit, which is marked missing; the reader then stands where it stopped.</summary>
-    private void Recovering(Part[] parts, ImmutableArray<ElementSyntax>.Builder into)
+    [ThreadStatic] private static List<ElementSyntax>? scratchElements;
+    [ThreadStatic] private static List<ClauseSyntax>? scratchClauses;
+
+    private static ClauseSyntax Clause(ClauseForm? form, Token? keyword, List<ElementSyntax> elements) =>
+        new(form, keyword, ImmutableArray.Create(CollectionsMarshal.AsSpan(elements)));
+
+    /// <summary>The clauses not yet given and not excluded by a given one of their group, where the tokens end.</summary>
+    private void Unused(StatementForm form, List<ClauseSyntax> given)
+    {
+        foreach (var c in form.Clauses)
+            if (!given.Any(g => g.Form == c || (c.Group is not null && g.Form!.Group == c.Group)))
+                collect!.Clauses.Add(c);
+    }
+
+    /// <summary>
+    /// The parts of a head or a clause in order. At the first that does not fit, a
+    /// <see cref="MissingSyntax"/> is added (what the partial statement shows) and the reader stands
+    /// where it stopped, with <see cref="failure"/> saying what was expected.
+    /// </summary>
+    private bool Sequence(Part[] parts, List<ElementSyntax> into)
     {
         foreach (var part in parts)
         {
@@ -69,8 +133,16 @@ internal sealed class StatementReader
             var where = Current is { } t ? new TextSpan(t.Span.Start, 0) : new TextSpan(tokens[^1].Span.End, 0);
             var role = part switch { NamePart n => n.Role, NameListPart n => n.Role, _ => null };
             into.Add(new MissingSyntax(Label(part), where, role));
-            return;
+            return false;
         }
+        return true;
+    }
+
+    private bool Parts(Part[] parts, List<ElementSyntax> into)
+    {
+        foreach (var part in parts)
+            if (!Part(part, into)) return false;
+        return true;
     }
 
     /// <summary>How a part is named where it is missing, as the grammar table labels it.</summary>
@@ -96,16 +168,21 @@ internal sealed class StatementReader
         return t;
     }
 
-    private Token? TakeSymbol(string symbol) => Take(t => t.Kind == TokenKind.Symbol && t.Text == symbol);
-
-    private bool Parts(Part[] parts, ImmutableArray<ElementSyntax>.Builder into)
+    private Token? TakeSymbol(string symbol)
     {
-        foreach (var part in parts)
-            if (!Part(part, into)) return false;
-        return true;
+        if (Current is not { Kind: TokenKind.Symbol } t || t.Text != symbol) return null;
+        at++;
+        return t;
     }
 
-    private bool Part(Part part, ImmutableArray<ElementSyntax>.Builder into)
+    /// <summary>A part that does not fit: what was expected there. Always false.</summary>
+    private bool Expected(string label)
+    {
+        failure = new Stop(at, [label]);
+        return false;
+    }
+
+    private bool Part(Part part, List<ElementSyntax> into)
     {
         switch (part)
         {
@@ -115,20 +192,54 @@ internal sealed class StatementReader
                 if (!Name(n.Role, into)) return false;
                 while (Current is { } t && ValueParser.IsName(t))
                     if (!Name(n.Role, into)) return false;
+                if (Current is null) collect?.Names.Add(n.Role);
                 return true;
-            case ValuePart:
-                if (Current is not { } first || !ValueParser.CanStartValue(first) || Value() is not { } value) return false;
+            case ValuePart v:
+                var start = at;
+                if (Current is not { } first || !ValueParser.CanStartValue(first))
+                {
+                    if (Current is null && collect is not null) collect.ValueNames = true;
+                    return Expected(v.Label);
+                }
+                if (Value() is not { } value)
+                {
+                    failure = collect is null ? ValueParser.Explain(v.Label, tokens, start) ?? new Stop(at, [v.Label]) : new Stop(at, []);
+                    return false;
+                }
                 into.Add(value);
                 return true;
             case WordPart w:
-                return Word(t => t.Text == w.Word, into);
+                if (Word(w.Word, null, into)) return true;
+                if (Current is null) collect?.Words.Add(w.Word);
+                return Expected($"'{w.Word}'");
             case ChoicePart c:
-                return Word(t => Array.IndexOf(c.Words, t.Text) >= 0, into);
+                if (Word(null, c.Words, into)) return true;
+                if (Current is null) collect?.Words.AddRange(c.Words);
+                return Expected(c.Label);
             case OptionalPart o:
                 // Left out unless its first part can start here; once begun it must be whole.
-                return Current is not { } next || !CanStart(o.Parts[0], next) || Parts(o.Parts, into);
+                if (Current is not { } next)
+                {
+                    if (collect is not null) First(o.Parts[0]);
+                    return true;
+                }
+                return !CanStart(o.Parts[0], next) || Parts(o.Parts, into);
             default:
                 return false;
+        }
+    }
+
+    /// <summary>Where the tokens end before an optional part: what may start it.</summary>
+    private void First(Part part)
+    {
+        switch (part)
+        {
+            case NamePart n: collect!.Names.Add(n.Role); break;
+            case NameListPart n: collect!.Names.Add(n.Role); break;
+            case ValuePart: collect!.ValueNames = true; break;
+            case WordPart w: collect!.Words.Add(w.Word); break;
+            case ChoicePart c: collect!.Words.AddRange(c.Words); break;
+            case OptionalPart o: First(o.Parts[0]); break;
         }
     }
 
@@ -144,22 +255,30 @@ internal sealed class StatementReader
 
     private static bool IsFixedWord(Token t) => t.Kind is TokenKind.Word or TokenKind.Symbol;
 
-    private bool Word(Func<Token, bool> fits, ImmutableArray<ElementSyntax>.Builder into)
+    /// <summary>The fixed word <paramref name="word"/>, or one of <paramref name="words"/>.</summary>
+    private bool Word(string? word, string[]? words, List<ElementSyntax> into)
     {
-        if (Take(t => IsFixedWord(t) && fits(t)) is not { } word) return false;
-        into.Add(new WordSyntax(word));
+        if (Current is not { } t || !IsFixedWord(t) || (word is not null ? t.Text != word : Array.IndexOf(words!, t.Text) < 0)) return false;
+        at++;
+        into.Add(new WordSyntax(t));
         return true;
     }
 
-    private bool Name(NameRole role, ImmutableArray<ElementSyntax>.Builder into)
+    private bool Name(NameRole role, List<ElementSyntax> into)
     {
-        if (Take(ValueParser.IsName) is not { } name) return false;
+        if (Take(ValueParser.IsName) is not { } name)
+        {
+            if (Current is null) collect?.Names.Add(role);
+            return Expected(role.Label);
+        }
         if (!role.AllowsSection || TakeSymbol(":") is null)
         {
             into.Add(new NameSyntax(name, role));
             return true;
         }
-        if (Take(ValueParser.IsName) is not { } from || TakeSymbol("-") is null || Take(ValueParser.IsName) is not { } to) return false;
+        if (Take(ValueParser.IsName) is not { } from) return Expected("a terminal name");
+        if (TakeSymbol("-") is null) return Expected("'-'");
+        if (Take(ValueParser.IsName) is not { } to) return Expected("a terminal name");
         into.Add(new NameSyntax(name, role, from, to));
         return true;
     }
@@ -210,7 +329,12 @@ internal sealed class StatementReader
 
     private ExpressionSyntax? Atom()
     {
-        if (Current is not { } t || !ValueParser.CanStartValue(t)) return null;
+        if (Current is not { } t || !ValueParser.CanStartValue(t))
+        {
+            // Where the tokens end after an operator or an opening parenthesis, a let name may come.
+            if (Current is null && collect is not null) collect.ValueNames = true;
+            return null;
+        }
         at++;
         switch (t.Kind)
         {
@@ -233,9 +357,16 @@ internal sealed class StatementReader
     private bool Unit(out Token? unit)
     {
         unit = null;
-        if (Current is not { } t) return true;
+        if (Current is not { } t)
+        {
+            if (collect is not null) collect.Units = true;
+            return true;
+        }
         if ((t.Kind == TokenKind.Word && !Grammar.Keywords.Contains(t.Text)) || (t.IsWord("turns") && Next is not { Kind: TokenKind.Number }))
         {
+            // 'turns' last before the cursor may yet be the clause, if a number follows: its value may come.
+            if (Next is null && collect is not null && t.IsWord("turns") && form.FindClause("turns") is { } turns && !scratchClauses!.Exists(c => c.Form == turns))
+                collect.ValueNames = true;
             unit = t;
             at++;
             return true;

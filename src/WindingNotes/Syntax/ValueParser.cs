@@ -90,6 +90,19 @@ internal static class ValueParser
     public static Parser<Token, ValueSyntax> LabelledValue(string label) =>
         Lookahead(Parser<Token>.Token(CanStartValue)).Labelled(label).Then(Value);
 
+    /// <summary>
+    /// Why the value from <paramref name="start"/> does not read: where Pidgin stops in it and what it
+    /// expected there, in its labels (null if it reads, which the reader's agreement rules out).
+    /// </summary>
+    internal static Stop? Explain(string label, Token[] tokens, int start)
+    {
+        var result = LabelledValue(label).Parse(tokens.AsSpan(start));
+        if (result.Success) return null;
+        var error = result.Error!;
+        return new Stop(start + error.ErrorOffset,
+            [.. error.Expected.Select(e => e.IsEof ? "end of line" : e.Label ?? string.Join(" ", e.Tokens.Select(t => $"'{t.Text}'")))]);
+    }
+
     internal static bool CanStartValue(Token t) =>
         t.Kind is TokenKind.Number or TokenKind.Imaginary
         || (t.Kind == TokenKind.Symbol && t.Text is "(" or "-" or "+")

@@ -45,5 +45,11 @@ public class CompletionTests
     [InlineData("in-comment", "# a comment $0")]
     [InlineData("number-typed", "core K2 rating 5$0")]
     [InlineData("unknown-statement", "bogus $0")]
+    [InlineData("after-angle", "let vout = 208 V angle $0")]
+    [InlineData("after-sqrt", "let vout = sqrt $0")]
+    [InlineData("open-parenthesis", "core K2 rating (0.5 kVA $0")]
+    [InlineData("after-mistake", "winding LV on K1 turns 24 24 from X1 to X2 $0")]
+    [InlineData("turns-unit-or-clause", "winding LV on K1 rated 120 turns $0")]
+    [InlineData("turns-unit", "tap T30 on HV at 30 turns $0")]
     public void Completes(string name, string line) => Snapshot.Match(Check(line), $"Data/editing/completion/{name}.txt");
 }
