@@ -380,6 +380,19 @@ public class ThreePhaseTests
         Assert.Contains(above.Message, byPhase.Diagnostics.Where(d => d.Code == "caution-above-supply").Select(d => d.Message));
     }
 
+    [Fact]
+    public void A_three_phase_autotransformer_connection_is_cautioned_once_for_no_isolation()
+    {
+        // Tern Lake's three units in wye feed the delta load 'edger' from 'service' through their
+        // windings (no galvanic isolation): one caution for the one statement, named by it, where its
+        // phase-by-phase form, three loads on three lines, has one for each of them.
+        var e = Wn.Solved(Example("tern-lake-wye-boost"));
+        var isolation = e.Single("caution-no-isolation");
+        Assert.StartsWith("load 'edger' is connected to supply 'service' through the windings", isolation.Message);
+        var byPhase = Wn.Solved(File.ReadAllText(Path.Combine(Snapshot.TestsRoot(), "Data", "threephase", "tern-lake-wye-boost.wn")));
+        Assert.Equal(3, byPhase.Diagnostics.Count(d => d.Code == "caution-no-isolation"));
+    }
+
     // The examples, each held to the same network written phase by phase in the single-phase notation.
     // Statements of each form (three-phase against phase by phase): maple-ford 13 against 33, oak-hill
     // 15 against 45, rowan-mill 18 against 24, kestrel-point 18 against 51, tern-lake 13 against 31,
