@@ -537,6 +537,8 @@ internal sealed partial class BindRun
         var what = $"a bound on {measureClause.Keyword.Text}";
         var ratio = unit == "%";
         if (ConditionRange(conditionClause, v => Real(v, dimension, what, ratio: ratio), dimension, percentOfNear: !dimension.IsNone, ratio ? ["%"] : ["%", unit]) is not (var low, var high, var target)) return;
+        // A ratio bound written in per-unit ("below 1.6 pu") has its value shown in per-unit too.
+        if (ratio && UnitWord(conditionClause.Value(0)) == "pu") unit = "pu";
         var text = tree.Text[s.Span];
         expects.Add(new ExpectModel(s.Span, text, measure, targets.ToImmutable(), Enum.Parse<ConditionKind>(conditionClause.Keyword.Text, true), low, high, unit)
         {

@@ -451,7 +451,7 @@ internal sealed partial class BindRun
         var first = Value(condition.Value(0), "a bound on the impedance");
         if (first is null) return;
         var ohms = first.Value.Dimension.Fits(Dimension.Impedance) && !first.Value.IsBare;
-        var (dimension, unit) = ohms ? (Dimension.Impedance, "ohm") : (Dimension.None, "%");
+        var (dimension, unit) = ohms ? (Dimension.Impedance, "ohm") : (Dimension.None, UnitWord(condition.Value(0)) == "pu" ? "pu" : "%");
         var what = $"a bound on {measure.Keyword!.Text}";
         if (ConditionRange(condition, v => Real(v, dimension, what, ratio: !ohms), dimension, percentOfNear: ohms, ohms ? ["%", "ohm"] : ["%"]) is not (var low, var high, var target)) return;
         var kind = measure.Keyword!.Text == "positive-sequence" ? MeasureKind.PositiveSequence : MeasureKind.ZeroSequence;

@@ -122,10 +122,13 @@ public static class Connections
                 var island = sets.Find(fed >= 0 ? loadNodes[fed] : own);
                 var cores = (coresIn.GetValueOrDefault(island) ?? []).ToImmutableArray();
                 var common = loadNodes.Intersect(supplyNodes).ToImmutableArray();
+                bool InIsland(Section s) => sets.Find(s.NodeA != earth ? s.NodeA : s.NodeB) == island;
                 result.Add(new Connection(supply, load, common, cores)
                 {
                     Island = island,
-                    Series = [.. fedA.Series, .. fedB.Series],
+                    // The series winding of this island only: a load across two islands (a delta load on
+                    // single-phase units in grounded wye, each unit an island) is fed through the other's too.
+                    Series = [.. fedA.Series.Concat(fedB.Series).Where(i => InIsland(network.Sections[i]))],
                     FedFrom = fedA.Point == fedB.Point ? (supply.NodeP, supply.NodeQ) : (fedA.Point, fedB.Point),
                 });
             }

@@ -74,15 +74,18 @@ public sealed class RatingTally
             var current = carried.GetValueOrDefault(brush.Name);
             if (current > brush.CurrentLimit!.Value * (1 + 1e-9)) Found("brush-current-high", brush.Name, brush.NameSpan, brush.Name, current, brush.CurrentLimit.Value);
         }
+        var islands = c.Connections.GroupBy(x => x.Connection.Load.Index).ToDictionary(g => g.Key, g => g.Select(x => x.Connection.Island).Distinct().Count());
         foreach (var island in c.Connections.GroupBy(x => x.Connection.Island))
         {
             var cores = island.First().Connection.Cores.Select(i => network.Cores[i]).ToList();
             if (cores.Count == 0 || cores.Any(k => k.Source.Rating is null)) continue;
             var rating = cores.Sum(k => k.Source.Rating!.Value);
-            // A load fed from two supplies (two legs, two lines) is one load.
+            // A load fed from two supplies (two legs, two lines) is one load; one fed from several
+            // islands (a delta load on single-phase units in grounded wye) is shared among them equally,
+            // as its co-ratio is taken, so that an island needs what its own series windings carry.
             var loads = island.DistinctBy(x => x.Connection.Load.Index).ToList();
-            var needed = loads.Sum(x => x.TwoWindingRating);
-            var throughput = loads.Sum(x => x.Throughput);
+            var needed = loads.Sum(x => x.TwoWindingRating / islands[x.Connection.Load.Index]);
+            var throughput = loads.Sum(x => x.Throughput / islands[x.Connection.Load.Index]);
             if (needed > rating * (1 + 1e-9))
                 Found("connection-rating", string.Join(",", island.First().Connection.Cores), cores[0].Source.NameSpan, string.Join(", ", cores.Select(k => k.Name)), needed, rating,
                     $"{Numbers.Format(throughput, "VA")} throughput at a co-ratio of {Numbers.Fixed(needed / throughput)}");

@@ -71,8 +71,9 @@ public sealed record Totals(double CopperLoss, double CoreLoss, double? Efficien
 /// from. For a step-up or step-down connection with the common winding across the lower voltage
 /// that is S_load·(V_H − V_X)/V_H (R5); where the common winding is across the line of a buck, the
 /// series winding opposes, or the load spans two legs of a supply, the formula in voltages misstates
-/// it. Loads on one island share the rating of its series windings in proportion to their throughput.
-/// With no throughput (an output at 0 V) the co-ratio is 0/0: absent.
+/// it. Loads on one island share the rating of its series windings in proportion to their throughput;
+/// a load fed from several islands (single-phase units in grounded wye under a delta load) counts a
+/// like part of its throughput in each, and each island's series windings only. With no throughput (an output at 0 V) the co-ratio is 0/0: absent.
 /// </summary>
 public sealed record ConnectionResult(Connection Connection, double? CoRatio, double Throughput, double TwoWindingRating);
 
@@ -244,8 +245,11 @@ public static class Results
         var connections = Solve.Connections.Find(network).Where(c => !c.IsPhaseElement(network.Model)).ToList();
         var carried = connections.GroupBy(c => c.Island).ToDictionary(g => g.Key,
             g => g.SelectMany(c => c.Series).Distinct().Sum(s => solution.SectionVoltage(network.Sections[s]).Magnitude * solution.SectionCurrents[s].Magnitude));
+        // A load fed from several islands shares its throughput among them equally, so the co-ratio of
+        // each is its series windings' V·I over its part (three units in grounded wye under a delta load).
+        var islands = connections.GroupBy(c => c.Load.Index).ToDictionary(g => g.Key, g => g.Select(c => c.Island).Distinct().Count());
         var throughput = connections.DistinctBy(c => (c.Island, c.Load.Index)).GroupBy(c => c.Island)
-            .ToDictionary(g => g.Key, g => g.Sum(c => loads[c.Load.Index].Power.Magnitude));
+            .ToDictionary(g => g.Key, g => g.Sum(c => loads[c.Load.Index].Power.Magnitude / islands[c.Load.Index]));
         return [.. connections.Select(c =>
         {
             double? coRatio = throughput[c.Island] > 0 ? carried[c.Island] / throughput[c.Island] : null;

@@ -23,7 +23,9 @@ public static class SafetyCautions
         foreach (var c in connections)
         {
             var load = c.Load.Source;
-            if (warned.Add(load.Name)) diagnostics.ReportNoIsolation(load.NameSpan, load.Name, c.Supply.Name);
+            // One caution a statement: a three-phase load's phases share its line, and are named by it.
+            if (warned.Add($"isolation/{load.NameSpan.Start}"))
+                diagnostics.ReportNoIsolation(load.NameSpan, StatementName(model, load.Line, load.Name), StatementName(model, c.Supply.Source.Line, c.Supply.Name));
             foreach (var node in c.IsPhaseElement(model) ? [] : c.Common)
             {
                 var end = network.Node(load.A.Name) == node ? load.A : load.B;
@@ -52,6 +54,12 @@ public static class SafetyCautions
         foreach (var f in cases.Select(x => x.Fault).OfType<FaultResult>())
             diagnostics.ReportFaultDuty(f.Fault.NameSpan, f.Fault.Name, f.Current.Magnitude, f.Peak, f.WorstMultiple, f.WorstWinding);
     }
+
+    /// <summary>The name of the statement a supply or load is written in: a three-phase one's, for each of its phases.</summary>
+    private static string StatementName(Model.Model model, TextSpan line, string name) =>
+        model.ThreePhase.Loads.FirstOrDefault(l => l.Line.Start == line.Start)?.Name
+        ?? model.ThreePhase.Supplies.FirstOrDefault(s => s.Line.Start == line.Start)?.Name
+        ?? name;
 }
 
 /// <summary>

@@ -226,7 +226,7 @@ public static class SequenceImpedances
             var core = model.ThreePhase.Cores.First(c => c.Name == energised.Core);
             var test = units.FirstOrDefault(u => u.Core == core.Name)?.Tests.FirstOrDefault(t => t.Kind == kind && t.Energised == energised.Name && t.Shorted == shorted?.Name)
                 ?? Measure(model, core, kind, energised, shorted);
-            var value = e.Unit == "%" ? test?.PerUnit : test?.Impedance.Magnitude;
+            var value = e.Unit is "%" or "pu" ? test?.PerUnit : test?.Impedance.Magnitude;
             if (value is not { } v)
             {
                 var problem = test is not null ? $"the per-unit base of '{core.Name}' is unknown: give the core a 'rating' and '{energised.Name}' a 'rated' voltage, or check in ohm"

@@ -288,6 +288,23 @@ public class FaultStudyTests
     }
 
     [Fact]
+    public void A_ratio_check_shows_its_value_in_the_unit_its_bound_is_written_in()
+    {
+        var e = Wn.Eval(DeltaWye + "expect earth-fault-factor LG below 1.4 pu\nexpect earth-fault-factor LG below 140 %\n");
+        // By hand as in Delta_wye_faults_match_symmetrical_components: I0 = E/(Z1 + Z2 + Z0), the sound
+        // lines at Vb = V0 + a²V1 + a·V2, Vc = V0 + a·V1 + a²V2; the factor is max(|Vb|, |Vc|)/E.
+        var (z1, z0) = (Zs + Zt, Zt);
+        var i0 = E / (z1 + z1 + z0);
+        var (v1, v2, v0) = (E - z1 * i0, -z1 * i0, -z0 * i0);
+        var k = Math.Max((v0 + A * A * v1 + A * v2).Magnitude, (v0 + A * v1 + A * A * v2).Magnitude) / E;
+        Assert.All(e.Checks, c => Assert.Equal(k, c.Value!.Value, 6));
+        // A bound in pu shows the factor in pu; one in % shows it in %.
+        Assert.Equal(WindingNotes.Text.Numbers.Format(k, "pu"), WindingNotes.Report.TextReport.CheckValue(e.Checks[0]));
+        Assert.Equal(WindingNotes.Text.Numbers.Format(k * 100, "%"), WindingNotes.Report.TextReport.CheckValue(e.Checks[1]));
+        Assert.EndsWith(" pu", WindingNotes.Report.TextReport.CheckValue(e.Checks[0]));
+    }
+
+    [Fact]
     public void Hints_and_hovers_carry_the_bus_fault_results()
     {
         var e = Wn.Solved(DeltaWye + "fault-study equivalent-source currents maximum-and-minimum\n");

@@ -380,6 +380,54 @@ public class ThreePhaseTests
         Assert.Contains(above.Message, byPhase.Diagnostics.Where(d => d.Code == "caution-above-supply").Select(d => d.Message));
     }
 
+    [Fact]
+    public void A_three_phase_autotransformer_connection_is_cautioned_once_for_no_isolation()
+    {
+        // Tern Lake's three units in wye feed the delta load 'edger' from 'service' through their
+        // windings (no galvanic isolation): one caution for the one statement, named by it, where its
+        // phase-by-phase form, three loads on three lines, has one for each of them.
+        var e = Wn.Solved(Example("tern-lake-wye-boost"));
+        var isolation = e.Single("caution-no-isolation");
+        Assert.StartsWith("load 'edger' is connected to supply 'service' through the windings", isolation.Message);
+        var byPhase = Wn.Solved(File.ReadAllText(Path.Combine(Snapshot.TestsRoot(), "Data", "threephase", "tern-lake-wye-boost.wn")));
+        Assert.Equal(3, byPhase.Diagnostics.Count(d => d.Code == "caution-no-isolation"));
+    }
+
+    [Fact]
+    public void Units_in_grounded_wye_written_phase_by_phase_each_need_their_own_series_winding_VA()
+    {
+        // Tern Lake phase by phase: three 277 x 27.7 V, 1.5 kVA units, each grounded at N and so each
+        // its own island, under a 40 kVA delta load. Each unit's two-winding rating is its series
+        // winding's V·I: ideally V_S = V_out/11 per phase (27.7 of 277 + 27.7 turns) = 482.2/√3/11 =
+        // 25.31 V and the line current 40 kVA/(√3·482.2 V) = 47.89 A, 1.212 kVA, within the 1.5 kVA
+        // (the solved 1.187 kVA is 2.1 % less: the series section carries part of the 2.5 % leakage
+        // drop, so within 3 %). Adding the three units' series windings and
+        // setting them against one core's rating (3.56 kVA against 1.5 kVA) was a false warning.
+        var path = Path.Combine(Snapshot.TestsRoot(), "Data", "threephase", "tern-lake-wye-boost.wn");
+        var e = Wn.Solved(File.ReadAllText(path));
+        var c = e.Normal!;
+        var output = c.Load("edger_ab").Voltage.Magnitude;
+        Wn.Near(482.2, output, 1e-3, "output line to line");
+        var sa = c.Sections.Single(x => x.Winding.Name == "S_a");
+        var carried = sa.Voltage.Magnitude * sa.Current.Magnitude;
+        Wn.Near(output / Math.Sqrt(3) / 11 * (40e3 / (Math.Sqrt(3) * output)), carried, 0.03, "series winding V·I by hand");
+        // Each load is fed by two units and shares its 13.33 kVA between them, so a unit's part of
+        // the throughput is 40/3 kVA and its co-ratio V_S·I/(40 kVA/3), about 0.09 (not 0.1335).
+        Assert.All(c.Connections, a => Wn.Near(carried / (40e3 / 3), a.CoRatio!.Value, 1e-6, "co-ratio"));
+        Assert.DoesNotContain(e.Diagnostics, d => d.Code == "connection-rating");
+
+        // At 60 kVA each unit's series winding carries about 1.5 x 1.19 = 1.8 kVA, over its 1.5 kVA:
+        // the warning still fires, once for each unit, with that unit's own V·I.
+        var over = Wn.Solved(File.ReadAllText(path).Replace("apparent 40 kVA / 3", "apparent 60 kVA / 3"));
+        var warnings = over.Diagnostics.Where(d => d.Code == "connection-rating").ToList();
+        Assert.Equal(3, warnings.Count);
+        var sa60 = over.Normal!.Sections.Single(x => x.Winding.Name == "S_a");
+        var needed = sa60.Voltage.Magnitude * sa60.Current.Magnitude;
+        Assert.InRange(needed, 1.7e3, 1.9e3);
+        Assert.Contains($"needs a two-winding rating of {WindingNotes.Text.Numbers.Format(needed, "VA")}", warnings[0].Message);
+        Assert.Contains("core 'B_a' is rated 1.500 kVA", warnings[0].Message);
+    }
+
     // The examples, each held to the same network written phase by phase in the single-phase notation.
     // Statements of each form (three-phase against phase by phase): maple-ford 13 against 33, oak-hill
     // 15 against 45, rowan-mill 18 against 24, kestrel-point 18 against 51, tern-lake 13 against 31,
