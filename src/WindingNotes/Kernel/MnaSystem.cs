@@ -262,26 +262,25 @@ internal sealed record SolveGroup(List<int> Nodes, List<int> Sections, List<int>
         int faultA = -1, faultB = -1;
         if (spec.Fault is { } f) (faultA, faultB) = (network.Node(f.A.Name), network.Node(f.B.Name));
         var sets = Islands.Parts(network, !spec.WithoutLoads, faultA >= 0 ? [(faultA, faultB)] : []);
+        // A fault's case is its part alone (NetworkSolver), so only that part is gathered: a file of
+        // many units then costs each fault lists the size of its unit, not lists of the whole file.
+        var faulted = faultA >= 0 && Islands.Anchor(network, faultA, faultB) is var anchor and >= 0 ? sets.Find(anchor) : -1;
         var groups = new Dictionary<int, SolveGroup>();
-        SolveGroup Of(int vertex)
+        SolveGroup? Of(int vertex)
         {
             var root = sets.Find(vertex);
+            if (faulted >= 0 && root != faulted) return null;
             if (!groups.TryGetValue(root, out var g)) groups[root] = g = new SolveGroup([], [], [], [], [], false);
             return g;
         }
         for (var n = 0; n < nodeCount; n++)
-            if (n != earth) Of(n).Nodes.Add(n);
-        foreach (var s in network.Sections) Of(nodeCount + s.Core).Sections.Add(s.Index);
-        foreach (var s in network.Supplies) Of(Islands.Anchor(network, s.NodeP, s.NodeQ)).Supplies.Add(s.Index);
-        foreach (var l in loads) Of(Islands.Anchor(network, l.NodeA, l.NodeB)).Loads.Add(l.Index);
+            if (n != earth) Of(n)?.Nodes.Add(n);
+        foreach (var s in network.Sections) Of(nodeCount + s.Core)?.Sections.Add(s.Index);
+        foreach (var s in network.Supplies) Of(Islands.Anchor(network, s.NodeP, s.NodeQ))?.Supplies.Add(s.Index);
+        foreach (var l in loads) Of(Islands.Anchor(network, l.NodeA, l.NodeB))?.Loads.Add(l.Index);
         for (var c = 0; c < network.Cores.Length; c++)
-            if (network.Cores[c].Sections.Length > 0) Of(nodeCount + c).Cores.Add(c);
-        var result = groups.OrderBy(g => g.Key).Select(g => g.Value).ToList();
-        if (faultA >= 0 && Islands.Anchor(network, faultA, faultB) is var anchor and >= 0)
-        {
-            var index = result.IndexOf(groups[sets.Find(anchor)]);
-            result[index] = result[index] with { HasFault = true };
-        }
-        return result;
+            if (network.Cores[c].Sections.Length > 0) Of(nodeCount + c)?.Cores.Add(c);
+        if (faulted >= 0) return [groups[faulted] with { HasFault = true }];
+        return groups.OrderBy(g => g.Key).Select(g => g.Value).ToList();
     }
 }

@@ -61,15 +61,15 @@ public static class Faults
     /// the impedance that draws their pre-fault power at their pre-fault voltage (common practice),
     /// so the faulted network is linear and its loop impedance exact. Null when it does not solve.
     /// </summary>
-    internal static CaseResult? Solve(Network network, FaultModel fault, Solution main, Solution? noLoad, ImmutableArray<Diagnostic>.Builder diagnostics, CancellationToken cancel)
+    /// <param name="loaded">The network with its loads as their pre-fault impedance (<see cref="AsLoaded"/>), made once for all the faults of a point; made here when null.</param>
+    internal static CaseResult? Solve(Network network, FaultModel fault, Solution main, Solution? noLoad, ImmutableArray<Diagnostic>.Builder diagnostics, CancellationToken cancel, Network? loaded = null)
     {
         var (a, b) = (network.Node(fault.A.Name), network.Node(fault.B.Name));
         var spec = CaseSpec.ForFault(fault);
         if (MethodOf(network.Model) == FaultMethod.AsLoaded)
         {
-            var loads = network.Loads.Select(l => FaultStudy.AsImpedance(l, main)).ToImmutableArray();
             // The case keeps the network as written: its loads are what the file says, their stand-ins the solver's business.
-            var solved = NetworkSolver.Solve(network with { Loads = loads }, spec, cancel) with { Network = network };
+            var solved = NetworkSolver.Solve(loaded ?? AsLoaded(network, main), spec, cancel) with { Network = network };
             // A load the fault shorts has no voltage: that is the fault, not something to warn about.
             diagnostics.AddRange(solved.Diagnostics.Where(d => d.Code != "load-without-voltage"));
             if (!solved.Solved) return null;
@@ -91,6 +91,10 @@ public static class Faults
             Fault = Compute(source, c * before) with { Method = FaultMethod.EquivalentSource, VoltageFactor = c, Nominal = before.Magnitude },
         };
     }
+
+    /// <summary>The network with its constant-power and constant-current loads as the impedance that draws their power in <paramref name="main"/>.</summary>
+    internal static Network AsLoaded(Network network, Solution main) =>
+        network with { Loads = [.. network.Loads.Select(l => FaultStudy.AsImpedance(l, main))] };
 
     /// <summary>
     /// By Thévenin, the loop impedance (the network seen from the fault plus the fault's own) is the

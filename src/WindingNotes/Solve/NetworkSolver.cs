@@ -48,7 +48,7 @@ public static class NetworkSolver
         var sections = groups.SelectMany(g => g.Sections).ToHashSet();
         var supplies = groups.SelectMany(g => g.Supplies).ToHashSet();
         var loads = groups.SelectMany(g => g.Loads).ToHashSet();
-        var points = network.Model.Points.Select(p => p.Name).Where(p => nodes.Contains(network.Node(p))).ToHashSet(StringComparer.Ordinal);
+        var points = nodes.SelectMany(n => network.Nodes[n].Points).ToHashSet(StringComparer.Ordinal);
         foreach (var k in sections) points.UnionWith([network.Sections[k].FromPoint, network.Sections[k].ToPoint]);
         foreach (var i in supplies) points.UnionWith([network.Supplies[i].Source.Positive.Name, network.Supplies[i].Source.Negative.Name]);
         foreach (var i in loads) points.UnionWith([network.Loads[i].Source.A.Name, network.Loads[i].Source.B.Name]);

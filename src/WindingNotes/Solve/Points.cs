@@ -55,9 +55,13 @@ public static class Points
         // Without loads the case itself is the no-load condition.
         var noLoadResult = network.Loads.IsEmpty ? result : noLoad is null ? null : Results.Compute(noLoad, null);
         var faults = ImmutableArray.CreateBuilder<CaseResult>();
-        if (withFaults)
+        if (withFaults && !network.Model.Faults.IsEmpty)
+        {
+            // One network with the loads as their pre-fault impedance serves every fault of the point.
+            var loaded = Faults.MethodOf(network.Model) == FaultMethod.AsLoaded ? Faults.AsLoaded(network, main) : null;
             foreach (var fault in network.Model.Faults)
-                if (Faults.Solve(network, fault, main, noLoad, diagnostics, cancel) is { } solved) faults.Add(solved);
+                if (Faults.Solve(network, fault, main, noLoad, diagnostics, cancel, loaded) is { } solved) faults.Add(solved);
+        }
         return new PointResult(result, noLoadResult, faults.ToImmutable(), diagnostics.ToImmutable());
     }
 }

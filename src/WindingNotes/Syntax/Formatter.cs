@@ -29,6 +29,9 @@ public static class Formatter
                 { Statement: null, Error: null } when !line.Tokens.Any(t => t.Kind == TokenKind.Continuation) => (line.Comment?.Text.TrimEnd() ?? "") + newline,
                 _ => AsWritten(line),
             };
+            // A blank line after a line kept with a lone CR keeps its spaces: without them that CR and
+            // the blank line's LF would read as one CRLF, and the line, with every line after it, would move up.
+            if (text.StartsWith('\n') && o.Length > 0 && o[^1] == '\r') text = AsWritten(line);
             o.Append(text);
             // The last line gets a line break unless it ends in one, or in a continuation kept as
             // written, which would take the break and move what is said of the file's end to a new line.

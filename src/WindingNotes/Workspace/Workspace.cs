@@ -8,10 +8,20 @@ public sealed record Document(string Uri, string Path, int Version, string Text)
 /// <summary>
 /// The open documents and their evaluations, cached by version. Both front ends call this: the
 /// CLI for files on disk, the language server for what the editor holds. An evaluation that a newer
-/// version has overtaken is cancelled; the latest version wins.
+/// version has overtaken is cancelled; the latest version wins. Evaluations are kept for the
+/// documents used last, up to <paramref name="keptText"/> characters of their texts together; an
+/// older one is dropped and evaluated again when next asked for, so the memory of many large open
+/// documents stays bounded (an evaluation holds about fifty times its text: tokens, tree, model, results).
 /// </summary>
-public sealed class DocumentWorkspace
+/// <param name="keptText">How many characters of text, over the documents used last, keep their evaluations; the one just evaluated always does.</param>
+public sealed class DocumentWorkspace(long keptText = DocumentWorkspace.DefaultKeptText)
 {
+    /// <summary>
+    /// Eight documents of a megabyte, or all of a few hundred of a thousand lines: a 1 MB document's
+    /// evaluation held about 52 MB (RESULTS.md), so this keeps about 420 MB of evaluations.
+    /// </summary>
+    public const long DefaultKeptText = 8_000_000;
+
     /// <summary>
     /// A version and its one evaluation, shared by every caller that asks for it (the publisher of
     /// diagnostics and a request for hints evaluate once between them). Its token is cancelled
@@ -25,11 +35,21 @@ public sealed class DocumentWorkspace
         private (Evaluation, int)? earlier = previous?.LastComplete;
 
         /// <summary>The last earlier version that was solved, shown while this one is not.</summary>
-        private readonly SolvedVersion? lastSolved = previous?.LatestSolved;
-        private readonly TaskCompletionSource<Evaluation> done = new(TaskCreationOptions.RunContinuationsAsynchronously);
-        private int started;
+        private SolvedVersion? lastSolved = previous?.LatestSolved;
+
+        /// <summary>One evaluation of this version; <see cref="Drop"/> puts a fresh one in its place.</summary>
+        private sealed class Run
+        {
+            public readonly TaskCompletionSource<Evaluation> Done = new(TaskCreationOptions.RunContinuationsAsynchronously);
+            public int Started;
+        }
+
+        private Run run = new();
 
         public Document Document { get; } = document;
+
+        /// <summary>When the document was last asked for, by the workspace's count of requests.</summary>
+        public long LastUsed;
 
         /// <summary>
         /// The first caller evaluates on its own thread; the others wait for it, each as long as its
@@ -37,37 +57,78 @@ public sealed class DocumentWorkspace
         /// </summary>
         public Evaluation Evaluate(CancellationToken cancel)
         {
-            if (Interlocked.Exchange(ref started, 1) == 0)
+            var r = Volatile.Read(ref run);
+            if (Interlocked.Exchange(ref r.Started, 1) == 0)
             {
                 try
                 {
                     var evaluation = Evaluator.Evaluate(Document.Text, Document.Path, stale.Token);
-                    done.SetResult(evaluation.Solved ? evaluation : evaluation with { LastSolved = lastSolved });
+                    r.Done.SetResult(evaluation.Solved ? evaluation : evaluation with { LastSolved = lastSolved });
                     earlier = null;
                 }
                 catch (Exception e)
                 {
-                    done.SetException(e);
+                    r.Done.SetException(e);
                 }
             }
-            var task = done.Task;
+            var task = r.Done.Task;
             if (!task.IsCompleted) task.WaitAsync(cancel).GetAwaiter().GetResult();
             return task.GetAwaiter().GetResult();
         }
 
+        /// <summary>Whether this version's evaluation has finished and is kept.</summary>
+        public bool Holds => Volatile.Read(ref run).Done.Task.IsCompletedSuccessfully;
+
+        /// <summary>
+        /// Forgets this version's finished evaluation, and the earlier versions' kept beside it; the
+        /// next caller evaluates again. An evaluation still running is left to finish.
+        /// </summary>
+        public void Drop()
+        {
+            var r = Volatile.Read(ref run);
+            if (!r.Done.Task.IsCompletedSuccessfully) return;
+            Interlocked.CompareExchange(ref run, new Run(), r);
+            (earlier, lastSolved) = (null, null);
+        }
+
         /// <summary>This version's evaluation when it has finished, else the last finished one of an earlier version.</summary>
         public (Evaluation Evaluation, int Version)? LastComplete =>
-            done.Task.IsCompletedSuccessfully ? (done.Task.Result, Document.Version) : earlier;
+            Volatile.Read(ref run).Done.Task is { IsCompletedSuccessfully: true } t ? (t.Result, Document.Version) : earlier;
 
         /// <summary>This version where it was solved, else the one before it that was: one evaluation is kept, never a chain.</summary>
         public SolvedVersion? LatestSolved =>
-            done.Task.IsCompletedSuccessfully && done.Task.Result.Solved ? new SolvedVersion(Document.Version, done.Task.Result) : lastSolved;
+            Volatile.Read(ref run).Done.Task is { IsCompletedSuccessfully: true } t && t.Result.Solved ? new SolvedVersion(Document.Version, t.Result) : lastSolved;
 
         // Never disposed: a token source without timers holds nothing, and disposing it would race with Cancel.
         public void Overtake() => stale.Cancel();
     }
 
     private readonly ConcurrentDictionary<string, Entry> entries = new();
+    private readonly Lock trimming = new();
+    private long uses;
+
+    /// <summary>Marks the entry used, evaluates it (or waits for its evaluation), then drops the evaluations past the budget.</summary>
+    private Evaluation Use(Entry entry, CancellationToken cancel)
+    {
+        entry.LastUsed = Interlocked.Increment(ref uses);
+        var evaluation = entry.Evaluate(cancel);
+        Trim(entry);
+        return evaluation;
+    }
+
+    /// <summary>Keeps the evaluations of the documents used last, up to the budget of text; <paramref name="keep"/>'s always.</summary>
+    private void Trim(Entry keep)
+    {
+        lock (trimming)
+        {
+            long text = 0;
+            foreach (var entry in entries.Values.Where(e => e.Holds).OrderByDescending(e => e.LastUsed))
+            {
+                text += entry.Document.Text.Length;
+                if (text > keptText && entry != keep) entry.Drop();
+            }
+        }
+    }
 
     public IEnumerable<Document> Documents => entries.Values.Select(e => e.Document);
 
@@ -101,7 +162,7 @@ public sealed class DocumentWorkspace
     public Evaluation? Evaluate(string uri, CancellationToken cancel = default)
     {
         cancel.ThrowIfCancellationRequested();
-        return entries.TryGetValue(uri, out var entry) ? entry.Evaluate(cancel) : null;
+        return entries.TryGetValue(uri, out var entry) ? Use(entry, cancel) : null;
     }
 
     /// <summary>
@@ -120,6 +181,6 @@ public sealed class DocumentWorkspace
     public Evaluation? Evaluate(string uri, int version, CancellationToken cancel = default)
     {
         cancel.ThrowIfCancellationRequested();
-        return entries.TryGetValue(uri, out var entry) && entry.Document.Version == version ? entry.Evaluate(cancel) : null;
+        return entries.TryGetValue(uri, out var entry) && entry.Document.Version == version ? Use(entry, cancel) : null;
     }
 }

@@ -25,6 +25,12 @@ public class FormatPropertyTests(ITestOutputHelper output)
             var input = FuzzInputs.Make(seed, huge: false);
             if (FormatProperty.Problem(input.Text) is { } problem) failures.Add((seed, $"seed {seed} ({input.BaseName}: {input.Recipe}):\n{problem}"));
         });
+        // WN_FUZZ_OUT=DIR keeps every failing input there exactly, as format-N.wn, to work through.
+        if (Environment.GetEnvironmentVariable("WN_FUZZ_OUT") is { Length: > 0 } folder)
+        {
+            Directory.CreateDirectory(folder);
+            foreach (var (seed, _) in failures) File.WriteAllText(Path.Combine(folder, $"format-{seed}.wn"), FuzzInputs.Make(seed, huge: false).Text);
+        }
         output.WriteLine($"{count} inputs from seed {first}, {failures.Count} failed");
         foreach (var kind in failures.GroupBy(f => f.Report.Split('\n')[1]).OrderByDescending(g => g.Count()))
             output.WriteLine($"  {kind.Count(),6} x {kind.Key} (first: seed {kind.Min(f => f.Seed)})");

@@ -56,6 +56,9 @@ public class FormatterMeaningTests
     // Each line break stays as written: a lone CR is not turned into CRLF beside a continuation.
     [InlineData("ground  N \\\r  \r\nground M\r\n", "ground  N \\\r  \r\nground M\r\n")]
     [InlineData("winding W on K \\\rturns 200  from A to B\r\nground N\r\n", "winding W on K \\\r    turns 200 from A to B\r\nground N\r\n")]
+    // A blank line after a line kept with a lone CR keeps its spaces: without them CR and LF would be one break (fuzzer seeds 1,034,510 and 1,124,320).
+    [InlineData("core ( broken\r \nground M\n", "core ( broken\r \nground M\n")]
+    [InlineData("core ( broken\r \n\nground  M\n", "core ( broken\r \n\nground M\n")]
     // A line kept as written that ends the file in a continuation gets no line break: the continuation would take it.
     [InlineData("winding W on K turns 9 \\", "winding W on K turns 9 \\")]
     public void Keeps_meaning_and_lines(string input, string expected)
