@@ -108,6 +108,7 @@ internal sealed partial class BindRun
             Resistance = NonNegative(resistance?.Value(0), Dimension.Impedance, $"the resistance of {name.Text}"),
             ResistanceTemperature = Real(resistance?.Value(1), Dimension.TemperatureDim, "the measuring temperature", positive: true),
             Conductor = Conductor(s.Clause("conductor"), name.Text),
+            PeakWithstand = Real(s.Value("peak-withstand"), Dimension.CurrentDim, $"the peak withstand of {name.Text}", positive: true),
         };
         if (core is not null && BindThreePhaseWinding(s, winding, core)) return;
         if (core is null || ends is null || winding.From.Name.Length == 0 || winding.To.Name.Length == 0) return;
@@ -504,6 +505,13 @@ internal sealed partial class BindRun
         var (inFault, minimum) = inCase;
         var targets = ImmutableArray.CreateBuilder<NodeRef>();
         var names = measureClause.Names.ToList();
+        if (measure == MeasureKind.PeakDuty)
+        {
+            if (PeakDutyWinding(names.FirstOrDefault()) is not { } winding) return;
+            targets.Add(new NodeRef(inFault!, names[1].Name.Span));
+            targets.Add(winding);
+            names.Clear();
+        }
         for (var i = 0; i < names.Count; i++)
         {
             if (IsFaultMeasure(measure))

@@ -70,10 +70,11 @@ public static class FaultDutyReport
             Numbers.Format(sc.Thermal, "A"), $"{Numbers.Plain(sc.Study.Duration)} s", sc.EarthFaultFactor is { } k ? Numbers.Fixed(k) : "—",
         ]]);
         o.Append('\n');
-        MarkdownReport.Table(o, 1, ["winding", "current", "× rated", "peak (k·√2)", "temperature after", "limit", "category", "allowed", "duty"], sc.Duties.Select(d => new[]
+        MarkdownReport.Table(o, 1, ["winding", "current", "× rated", "peak (k·√2)", "peak withstand", "temperature after", "limit", "category", "allowed", "duty"], sc.Duties.Select(d => new[]
         {
             d.Winding.Name, Numbers.Format(d.Current, "A"), d.Multiple is { } m ? Numbers.Plain(m) : "unrated",
             $"{Numbers.Format(d.Peak, "A")} ({Numbers.Fixed(d.AsymmetryFactor)})",
+            d.PeakWithstand is { } pw ? $"{Numbers.Format(pw, "A")} ({Numbers.Format(d.PeakDuty!.Value * 100, "%")})" : "not given",
             d.Temperature is { } t ? double.IsFinite(t) ? Numbers.Format(t - 273.15, "degC") : "no finite end" : "no conductor given",
             d.TemperatureLimit is { } l ? Numbers.Format(l - 273.15, "degC") : "—",
             d.Category ?? "—", d.AllowedSeconds is { } s ? $"{Numbers.Plain(s)} s" : "—",
@@ -119,11 +120,12 @@ public static class FaultDutyReport
             JsonReport.Number(w, "i", d.Current);
             if (d.Multiple is { } m) JsonReport.Number(w, "multiple", m);
             JsonReport.Number(w, "peak", d.Peak);
+            if (d.PeakWithstand is { } pw) JsonReport.Number(w, "peakWithstand", pw);
             if (d.Temperature is { } t && double.IsFinite(t)) JsonReport.Number(w, "temperature", t - 273.15);
             if (d.TemperatureLimit is { } l) JsonReport.Number(w, "temperatureLimit", l - 273.15);
             if (d.Category is { } c) w.WriteString("category", c);
             if (d.AllowedSeconds is { } s) JsonReport.Number(w, "allowed", s);
-            w.WriteBoolean("withstands", !d.ThermalExceeded && !d.CategoryExceeded(sc.Study.Duration));
+            w.WriteBoolean("withstands", !Exceeds(sc, d));
             w.WriteEndObject();
         }
         w.WriteEndObject();
@@ -134,6 +136,7 @@ public static class FaultDutyReport
     public static string Duty(ShortCircuitResult sc, WindingDuty d)
     {
         var parts = new List<string> { $"{Numbers.Format(d.Current, "A")}{(d.Multiple is { } m ? $" ({Numbers.Plain(m)} × rated)" : "")}, peak {Numbers.Format(d.Peak, "A")} (k·√2 {Numbers.Fixed(d.AsymmetryFactor)})" };
+        if (d.PeakWithstand is { } pw) parts.Add($"peak withstand {Numbers.Format(pw, "A")} ({Numbers.Format(d.PeakDuty!.Value * 100, "%")} of it)");
         if (d.Temperature is { } t)
             parts.Add($"{(double.IsFinite(t) ? Numbers.Format(t - 273.15, "degC") : "no finite temperature")} after {Numbers.Plain(sc.Study.Duration)} s (limit {Numbers.Format(d.TemperatureLimit!.Value - 273.15, "degC")})");
         if (d.Category is { } c) parts.Add($"category {c}: {Numbers.Plain(d.AllowedSeconds!.Value)} s allowed");
@@ -141,8 +144,10 @@ public static class FaultDutyReport
         return string.Join(", ", parts);
     }
 
+    private static bool Exceeds(ShortCircuitResult sc, WindingDuty d) => d.PeakExceeded || d.ThermalExceeded || d.CategoryExceeded(sc.Study.Duration);
+
     private static string Verdict(ShortCircuitResult sc, WindingDuty d) =>
-        d.ThermalExceeded || d.CategoryExceeded(sc.Study.Duration) ? "exceeds" : d.Temperature is null && d.Category is null ? "not judged" : "withstands";
+        Exceeds(sc, d) ? "exceeds" : d.Temperature is null && d.Category is null && d.PeakWithstand is null ? "not judged" : "withstands";
 
     private static string TimeConstant(ShortCircuitResult sc) => double.IsFinite(sc.DcTimeConstant) ? Numbers.Format(sc.DcTimeConstant * 1000, "ms") : "infinite";
 

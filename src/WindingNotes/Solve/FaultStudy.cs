@@ -33,6 +33,14 @@ public sealed record WindingDuty(WindingNet Winding, string Section, double Curr
     /// <summary>The largest multiple of rated current a category I unit is built for.</summary>
     public double? MaxMultiple { get; init; }
 
+    /// <summary>The peak the winding withstands as its line gives it ('peak-withstand'), A.</summary>
+    public double? PeakWithstand { get; init; }
+
+    /// <summary>The peak over the peak withstand; null where the winding gives none.</summary>
+    public double? PeakDuty => PeakWithstand is { } w ? Peak / w : null;
+
+    public bool PeakExceeded => PeakDuty is { } d && d > 1 + 1e-9;
+
     public bool ThermalExceeded => Temperature is { } t && TemperatureLimit is { } l && t > l;
 
     public bool CategoryExceeded(double duration) =>
@@ -431,7 +439,10 @@ public static class FaultStudy
             var worst = group.MaxBy(s => s.Current.Magnitude)!;
             var w = worst.Winding;
             var i = worst.Current.Magnitude;
-            var duty = new WindingDuty(w, worst.Section.Name, i, w.RatedCurrent is { } r && r > 0 ? i / r : null, asym, asym * i);
+            var duty = new WindingDuty(w, worst.Section.Name, i, w.RatedCurrent is { } r && r > 0 ? i / r : null, asym, asym * i)
+            {
+                PeakWithstand = w.Source.PeakWithstand,
+            };
             if (w.Source.Conductor is { } conductor)
             {
                 var density = i / conductor.Area;
@@ -491,6 +502,7 @@ public static class FaultStudy
         if (!sc.Minimum || !sc.Study.Maximum) diagnostics.ReportBusFaultDuty(sc, worst);
         foreach (var d in sc.Duties)
         {
+            if (d.PeakExceeded) diagnostics.ReportPeakAboveWithstand(sc, d);
             if (d.ThermalExceeded) diagnostics.ReportWindingHotAfterFault(sc, d);
             if (d.CategoryExceeded(sc.Study.Duration)) diagnostics.ReportThroughFaultCategory(sc, d);
         }

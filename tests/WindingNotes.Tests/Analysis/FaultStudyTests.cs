@@ -370,4 +370,60 @@ public class FaultStudyTests
         Assert.Null(maximum.EndTemperature);
         Assert.Contains("resistances given with a temperature at 80.00 degC", WindingNotes.Report.FaultDutyReport.Method(minimum));
     }
+
+    [Fact]
+    public void A_winding_peak_is_compared_with_its_peak_withstand_and_gated()
+    {
+        // IEC 60076-5 (formula from memory, R25): k = 1 + e^(−(φ + π/2)/(X/R))·sin φ, φ = atan(X/R), the
+        // winding's peak k·√2 times its symmetrical current. By hand, LV_a carries I = E/|Zs + Zt| (above),
+        // about 34.8 kA at X/R about 8.1: k·√2 about 2.39, a peak of about 83 kA, above a withstand of 80 kA.
+        // HV_a carries the delta's phase current, 415/√3 over 11 kV of it: about 1.8 kA peak, below 10 kA.
+        var text = DeltaWye
+            .Replace("delta H1 H2 H3\n", "delta H1 H2 H3 peak-withstand 10 kA\n")
+            .Replace("neutral X0\n", "neutral X0 peak-withstand 80 kA\n") + """
+            expect peak-duty LV F3 below 100 %
+            expect peak-duty HV F3 below 100 %
+            expect peak-duty LV_b F3 between 50 % and 200 %
+
+            """;
+        var e = Wn.Eval(text);
+        var z1 = Zs + Zt;
+        var xr = z1.Imaginary / z1.Real;
+        var phi = Math.Atan(xr);
+        var factor = (1 + Math.Exp(-(phi + Math.PI / 2) / xr) * Math.Sin(phi)) * Math.Sqrt(2);
+        var lv = Bus(e, "F3").Duties.Single(d => d.Winding.Name == "LV_a");
+        Assert.Equal(80e3, lv.PeakWithstand);
+        Wn.Near(factor * E / z1.Magnitude, lv.Peak, 1e-7, "LV_a peak");
+        Assert.True(lv.PeakExceeded);
+        var hv = Bus(e, "F3").Duties.Single(d => d.Winding.Name == "HV_a");
+        Wn.Near(factor * E / z1.Magnitude * (415 / Math.Sqrt(3)) / 11000, hv.Peak, 1e-7, "HV_a peak");
+        Assert.False(hv.PeakExceeded);
+
+        // The warning at the winding's line says it is a fault duty.
+        var warning = e.Diagnostics.First(d => d.Code == "fault-duty-high" && d.Message.Contains("peak withstand"));
+        Assert.StartsWith("winding LV", DeltaWye.Split('\n')[e.Text.GetPosition(warning.Span.Start).Line]);
+        Assert.StartsWith("fault duty: in bus fault 'F3' (maximum) winding 'LV_a' must withstand a peak of", warning.Message);
+        Assert.DoesNotContain(e.Diagnostics, d => d.Code == "fault-duty-high" && d.Message.Contains("'HV_a'"));
+
+        // The checks: the largest phase of a three-phase winding, or one phase by its name.
+        var checks = e.Checks;
+        Assert.False(checks[0].Passed);
+        Wn.Near(factor * E / z1.Magnitude / 80e3, checks[0].Value!.Value, 1e-7, "peak-duty LV");
+        Assert.True(checks[1].Passed);
+        Assert.True(checks[2].Passed);
+
+        // The duty table of each report carries the withstand.
+        Assert.Contains("| peak withstand |", WindingNotes.Report.MarkdownReport.Write(e));
+        Assert.Contains("\"peakWithstand\": 80000", WindingNotes.Report.JsonReport.Write(e));
+        Assert.Contains("peak withstand 80.00 kA", WindingNotes.Report.TextReport.Write(e));
+    }
+
+    [Fact]
+    public void Peak_duty_of_a_winding_without_a_peak_withstand_is_an_error_at_its_name()
+    {
+        var e = Wn.Eval(DeltaWye + "expect peak-duty LV F3 below 100 %\n");
+        var error = e.Single("out-of-bounds");
+        Assert.Equal("LV", e.TextAt(error.Span));
+        Assert.Contains("'peak-withstand'", error.Message);
+    }
 }
