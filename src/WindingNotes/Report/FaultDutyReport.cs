@@ -70,7 +70,7 @@ public static class FaultDutyReport
             Numbers.Format(sc.Thermal, "A"), $"{Numbers.Plain(sc.Study.Duration)} s", sc.EarthFaultFactor is { } k ? Numbers.Fixed(k) : "—",
         ]]);
         o.Append('\n');
-        MarkdownReport.Table(o, 1, ["winding", "current", "× rated", "peak (k·√2)", "peak withstand", "temperature after", "limit", "category", "allowed", "duty"], sc.Duties.Select(d => new[]
+        MarkdownReport.Table(o, 1, ["winding", "current", "× rated", "peak (k·√2)", "peak withstand", "temperature after", "limit", "category", "allowed", "frequent faults", "duty"], sc.Duties.Select(d => new[]
         {
             d.Winding.Name, Numbers.Format(d.Current, "A"), d.Multiple is { } m ? Numbers.Plain(m) : "unrated",
             $"{Numbers.Format(d.Peak, "A")} ({Numbers.Fixed(d.AsymmetryFactor)})",
@@ -78,6 +78,7 @@ public static class FaultDutyReport
             d.Temperature is { } t ? double.IsFinite(t) ? Numbers.Format(t - 273.15, "degC") : "no finite end" : "no conductor given",
             d.TemperatureLimit is { } l ? Numbers.Format(l - 273.15, "degC") : "—",
             d.Category ?? "—", d.AllowedSeconds is { } s ? $"{Numbers.Plain(s)} s" : "—",
+            d.FrequentSeconds is { } fs ? $"{Numbers.Plain(fs)} s" : "—",
             Verdict(sc, d),
         }));
     }
@@ -125,6 +126,8 @@ public static class FaultDutyReport
             if (d.TemperatureLimit is { } l) JsonReport.Number(w, "temperatureLimit", l - 273.15);
             if (d.Category is { } c) w.WriteString("category", c);
             if (d.AllowedSeconds is { } s) JsonReport.Number(w, "allowed", s);
+            if (d.FrequentSeconds is { } fs) JsonReport.Number(w, "allowedFrequent", fs);
+            if (d.LargestMultiple is { } lm) JsonReport.Number(w, "largestMultiple", lm);
             w.WriteBoolean("withstands", !Exceeds(sc, d));
             w.WriteEndObject();
         }
@@ -139,12 +142,14 @@ public static class FaultDutyReport
         if (d.PeakWithstand is { } pw) parts.Add($"peak withstand {Numbers.Format(pw, "A")} ({Numbers.Format(d.PeakDuty!.Value * 100, "%")} of it)");
         if (d.Temperature is { } t)
             parts.Add($"{(double.IsFinite(t) ? Numbers.Format(t - 273.15, "degC") : "no finite temperature")} after {Numbers.Plain(sc.Study.Duration)} s (limit {Numbers.Format(d.TemperatureLimit!.Value - 273.15, "degC")})");
-        if (d.Category is { } c) parts.Add($"category {c}: {Numbers.Plain(d.AllowedSeconds!.Value)} s allowed");
+        if (d.Category is { } c)
+            parts.Add($"category {c}: {Numbers.Plain(d.AllowedSeconds!.Value)} s allowed"
+                + (d.FrequentSeconds is { } fs && d.LargestMultiple is { } lm ? $", {Numbers.Plain(fs)} s for frequent faults (largest multiple {Numbers.Plain(lm)})" : ""));
         parts.Add(Verdict(sc, d));
         return string.Join(", ", parts);
     }
 
-    private static bool Exceeds(ShortCircuitResult sc, WindingDuty d) => d.PeakExceeded || d.ThermalExceeded || d.CategoryExceeded(sc.Study.Duration);
+    private static bool Exceeds(ShortCircuitResult sc, WindingDuty d) => d.PeakExceeded || d.ThermalExceeded || d.CategoryExceeded(sc.Study.Duration) || d.FrequentExceeded(sc.Study.Duration);
 
     private static string Verdict(ShortCircuitResult sc, WindingDuty d) =>
         Exceeds(sc, d) ? "exceeds" : d.Temperature is null && d.Category is null && d.PeakWithstand is null ? "not judged" : "withstands";

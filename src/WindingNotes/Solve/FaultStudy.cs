@@ -33,6 +33,18 @@ public sealed record WindingDuty(WindingNet Winding, string Section, double Curr
     /// <summary>The largest multiple of rated current a category I unit is built for.</summary>
     public double? MaxMultiple { get; init; }
 
+    /// <summary>
+    /// The seconds the category's frequent-fault curve allows at this multiple (IEEE C57.109): category I's
+    /// one curve, categories II and III their own; null for category IV or where the largest fault is unknown.
+    /// </summary>
+    public double? FrequentSeconds { get; init; }
+
+    /// <summary>The largest through-fault multiple the frequent-fault curve of category II or III is drawn from.</summary>
+    public double? LargestMultiple { get; init; }
+
+    /// <summary>Past the frequent-fault curve but within the infrequent one (which says more where both are passed).</summary>
+    public bool FrequentExceeded(double duration) => FrequentSeconds is { } s && duration > s * (1 + 1e-9) && !CategoryExceeded(duration);
+
     /// <summary>The peak the winding withstands as its line gives it ('peak-withstand'), A.</summary>
     public double? PeakWithstand { get; init; }
 
@@ -173,13 +185,88 @@ public static class FaultStudy
                     EndTemperature = hot == network ? null : study.EndTemperature,
                 };
                 sc = Finish(network, sc, result, model.Frequency, vpre, scale);
-                ReportDuty(sc, diagnostics);
                 // The case keeps the network as written (its fault branches and hot resistances are the solver's business),
                 // so what reads it beside the normal case (the phasor diagram's voltage levels) finds the same nodes.
                 cases.Add(result with { ShortCircuit = sc, Solution = result.Solution.Compact() with { Network = network } });
             }
         }
-        return cases.ToImmutable();
+        var studied = Frequent(network, cases.ToImmutable());
+        foreach (var c in studied) ReportDuty(c.ShortCircuit!, diagnostics);
+        return studied;
+    }
+
+    /// <summary>
+    /// The frequent-fault limits of IEEE C57.109 (from memory): the largest through-fault multiple of a
+    /// category II winding is 1/Zt, its unit's own impedance (<see cref="ImpedanceMultiple"/>); of a
+    /// category III winding 1/(Zt + Zs), the system's impedance included, which is the largest multiple
+    /// the file's maximum-current studies drive through it (no larger than 1/Zt): a file that faults no
+    /// terminal of the unit understates it, which shortens the time allowed (it errs safe).
+    /// </summary>
+    private static ImmutableArray<CaseResult> Frequent(Network network, ImmutableArray<CaseResult> cases)
+    {
+        var studied = new Dictionary<string, double>();
+        foreach (var d in cases.Where(c => !c.ShortCircuit!.Minimum).SelectMany(c => c.ShortCircuit!.Duties))
+            if (d.Multiple is { } m) studied[d.Winding.Name] = Math.Max(m, studied.GetValueOrDefault(d.Winding.Name));
+        return [.. cases.Select(c => c with
+        {
+            ShortCircuit = c.ShortCircuit! with
+            {
+                Duties = [.. c.ShortCircuit.Duties.Select(d =>
+                {
+                    if (d.Category is not { } category || d.Multiple is not { } m) return d;
+                    if (category == "I") return d with { FrequentSeconds = d.AllowedSeconds };
+                    var own = ImpedanceMultiple(network, d.Winding);
+                    double? largest = category switch
+                    {
+                        "II" => own,
+                        "III" => studied.TryGetValue(d.Winding.Name, out var s) ? own is { } o ? Math.Min(s, o) : s : own,
+                        _ => null,
+                    };
+                    return largest is { } l ? d with { LargestMultiple = l, FrequentSeconds = FrequentSeconds(category, m, l) } : d;
+                })],
+            },
+        })];
+    }
+
+    /// <summary>
+    /// The frequent-fault curve of categories II and III (IEEE C57.109, from memory): I²t = K with K set by
+    /// the largest through-fault multiple at 2 s, from 70 % (II) or 50 % (III) of that multiple up; below it
+    /// the thermal curve I²t = 1250 (multiples of rated current, seconds), which also bounds it where the
+    /// largest multiple passes 25. At or above the largest multiple (a voltage factor c above 1 can reach
+    /// past it) the curve's end, 2 s.
+    /// </summary>
+    public static double FrequentSeconds(string category, double multiple, double largest)
+    {
+        var from = category == "II" ? 0.7 : 0.5;
+        var thermal = 1250 / (multiple * multiple);
+        if (multiple >= largest) return Math.Min(2, thermal);
+        return multiple >= from * largest ? Math.Min(2 * largest * largest / (multiple * multiple), thermal) : thermal;
+    }
+
+    /// <summary>
+    /// The largest multiple of rated current a winding carries in a fault at its unit's terminals on an
+    /// infinite bus, 1/Zt: of the impedance lines that name the whole winding, the one of least impedance.
+    /// A line gives Z in ohms referred to its first winding (per unit times V1²/S); referred to this
+    /// winding by the rated voltages, I = Vw/|Zw| = V1²/(|Z|·Vw). Null without such a line or the ratings.
+    /// </summary>
+    public static double? ImpedanceMultiple(Network network, WindingNet w)
+    {
+        if (w.RatedVoltage is not { } vw || w.RatedCurrent is not { } ir || ir <= 0) return null;
+        double? best = null;
+        foreach (var line in network.Model.Impedances.Where(z => (z.First.Winding == w.Name && z.First.From is null) || (z.Second.Winding == w.Name && z.Second.From is null)))
+        {
+            if (network.Windings.FirstOrDefault(x => x.Name == line.First.Winding) is not { RatedVoltage: { } v1 } first) continue;
+            var ohms = line.Value.Magnitude;
+            if (line.PerUnit)
+            {
+                if ((line.Base ?? network.Cores[first.Core].Source.Rating) is not { } s || s <= 0) continue;
+                ohms *= v1 * v1 / s;
+            }
+            if (ohms <= 0) continue;
+            var m = v1 * v1 / (ohms * vw) / ir;
+            best = Math.Max(best ?? 0, m);
+        }
+        return best;
     }
 
     private static IEnumerable<bool> Extremes(FaultStudyModel study)
@@ -255,11 +342,12 @@ public static class FaultStudy
 
     /// <summary>
     /// The time a category allows at a multiple M of rated current for an infrequent fault (from
-    /// memory): category I t = 1250/M² s (I²t = 1250 in multiples of rated current, IEEE C57.12.00 and
-    /// the thermal curve of C57.109); categories II to IV 2 s at the current the impedances allow.
+    /// memory): categories I to III t = 1250/M² s (I²t = 1250 in multiples of rated current, IEEE
+    /// C57.12.00 and the thermal curve of C57.109, which is the infrequent-fault curve of II and III);
+    /// category IV 2 s at the current the impedances allow.
     /// </summary>
     public static double AllowedSeconds(string category, double multiple) =>
-        category == "I" ? 1250 / (multiple * multiple) : 2;
+        category != "IV" ? 1250 / (multiple * multiple) : 2;
 
     /// <summary>The largest symmetrical multiple a category I unit is built for, by kVA (IEEE C57.12.00, from memory): 40, 35 or 25.</summary>
     public static double CategoryOneMultiple(double kva, bool threePhase) =>
@@ -505,6 +593,7 @@ public static class FaultStudy
             if (d.PeakExceeded) diagnostics.ReportPeakAboveWithstand(sc, d);
             if (d.ThermalExceeded) diagnostics.ReportWindingHotAfterFault(sc, d);
             if (d.CategoryExceeded(sc.Study.Duration)) diagnostics.ReportThroughFaultCategory(sc, d);
+            if (d.FrequentExceeded(sc.Study.Duration)) diagnostics.ReportFrequentFaultCurve(sc, d);
         }
     }
 }

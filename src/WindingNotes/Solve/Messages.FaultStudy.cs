@@ -37,6 +37,11 @@ public static partial class SolveMessages
                 + $"(k·√2 {Numbers.Fixed(d.AsymmetryFactor)} times {Numbers.Format(d.Current, "A")}), above its peak withstand of {Numbers.Format(d.PeakWithstand!.Value, "A")}: "
                 + "the short-circuit forces may deform or displace it (IEC 60076-5 dynamic ability)");
 
+        public Diagnostic ReportFrequentFaultCurve(ShortCircuitResult sc, WindingDuty d) =>
+            bag.Warning("fault-duty-high", d.Winding.Source.NameSpan,
+                $"in bus fault '{sc.Fault.Name}' ({sc.Extreme}): winding '{d.Winding.Name}' carries {Numbers.Plain(d.Multiple!.Value)} times its rated current for {Numbers.Plain(sc.Study.Duration)} s; "
+                + $"where faults are frequent, a category {d.Category} unit is allowed {Numbers.Plain(d.FrequentSeconds!.Value)} s at that current (IEEE C57.109 frequent-fault curve)");
+
         public Diagnostic ReportThroughFaultCategory(ShortCircuitResult sc, WindingDuty d) =>
             bag.Warning("fault-duty-high", d.Winding.Source.NameSpan,
                 $"in bus fault '{sc.Fault.Name}' ({sc.Extreme}): winding '{d.Winding.Name}' carries {Numbers.Plain(d.Multiple!.Value)} times its rated current for {Numbers.Plain(sc.Study.Duration)} s; a category {d.Category} unit "

@@ -307,13 +307,17 @@ public class FaultStudyTests
     public void A_winding_past_its_limits_is_warned_at_its_line()
     {
         // 95 mm² of copper for 2087 A rated is 22 A/mm²; at 16.6 times that (a bolted three-phase fault)
-        // the average temperature runs away: above 250 °C. A 1500 kVA three-phase unit is category II: 2 s.
+        // the average temperature runs away: above 250 °C. A 1500 kVA three-phase unit is category II: at its
+        // largest fault (1/Zt, reached here) the frequent-fault curve allows 2 s, the infrequent one 1250/M² s
+        // (IEEE C57.109, from memory; frequent_fault_curves below derives them).
         var text = DeltaWye.Replace("neutral X0\n", "neutral X0 conductor copper 95 mm2 mean-turn 1.2 m\n") + "fault-study equivalent-source duration 3 s\n";
         var e = Wn.Eval(text);
         var duty = Bus(e, "F3").Duties.Single(d => d.Winding.Name == "LV_a");
         Assert.True(duty.ThermalExceeded);
         Assert.Equal("II", duty.Category);
-        Assert.True(duty.CategoryExceeded(3));
+        Assert.False(duty.CategoryExceeded(3));
+        Assert.True(duty.FrequentExceeded(3));
+        Assert.True(duty.CategoryExceeded(5));
         var warnings = e.Diagnostics.Where(d => d.Code == "fault-duty-high" && d.Message.Contains("'LV_a'")).ToList();
         Assert.NotEmpty(warnings);
         var line = e.Text.GetPosition(warnings[0].Span.Start).Line;
@@ -425,5 +429,45 @@ public class FaultStudyTests
         var error = e.Single("out-of-bounds");
         Assert.Equal("LV", e.TextAt(error.Span));
         Assert.Contains("'peak-withstand'", error.Message);
+    }
+
+    [Fact]
+    public void Frequent_fault_curves_of_categories_II_and_III()
+    {
+        // IEEE C57.109 (from memory: verify any figure used), R41. Categories II and III: frequent faults
+        // follow I²t = K with K = 2·Mmax² (the largest through-fault multiple at 2 s), from 70 % (II) or
+        // 50 % (III) of Mmax up; below, and for infrequent faults, the thermal curve I²t = 1250.
+        // Zt = 6 %: Mmax = 1/0.06 = 16.667, K = 555.6.
+        var largest = 1 / 0.06;
+        Assert.Equal(2 * largest * largest / 196, FaultStudy.FrequentSeconds("II", 14, largest), 9);   // 14 ≥ 11.67: 2.834 s
+        Assert.Equal(2.834, FaultStudy.FrequentSeconds("II", 14, largest), 3);
+        Assert.Equal(12.5, FaultStudy.FrequentSeconds("II", 10, largest), 9);                           // 10 < 11.67: 1250/100
+        Assert.Equal(5.556, FaultStudy.FrequentSeconds("III", 10, largest), 3);                         // 10 ≥ 8.33: 555.6/100
+        Assert.Equal(2, FaultStudy.FrequentSeconds("II", 17, largest), 9);                              // past Mmax: the curve's end
+        Assert.Equal(1250.0 / 196, FaultStudy.AllowedSeconds("II", 14), 9);
+        Assert.Equal(2, FaultStudy.AllowedSeconds("IV", 14), 9);
+        // Zt = 3 %: Mmax 33.3 passes 25, and the thermal curve bounds the frequent one: at 30, 1250/900 s.
+        Assert.Equal(1250.0 / 900, FaultStudy.FrequentSeconds("II", 30, 1 / 0.03), 9);
+
+        // The bank of DeltaWye is category II (1500 kVA three-phase). Its 6 % on 500 kVA a limb is
+        // 0.06·11 000²/500 000 = 14.52 Ω referred to HV_a; LV_a (239.6 V, 2086.8 A rated) then carries at most
+        // 11 000²/(14.52·239.6)/2086.8 = 1/0.06 times rated. A line-to-line fault drives √3·E/|2·Z1| through LV_b.
+        var e = Wn.Solved(DeltaWye + "fault-study equivalent-source duration 2.5 s\n");
+        var rated = 500e3 / (415 / Math.Sqrt(3));
+        var lv = Bus(e, "LL").Duties.Single(d => d.Winding.Name == "LV_b");
+        var m = Math.Sqrt(3) * E / (2 * (Zs + Zt)).Magnitude / rated;
+        Assert.Equal(m, lv.Multiple!.Value, 6);
+        Assert.Equal(largest, lv.LargestMultiple!.Value, 9);
+        Assert.True(m > 0.7 * largest && m < largest);
+        Assert.Equal(2 * largest * largest / (m * m), lv.FrequentSeconds!.Value, 6);
+        Assert.Equal(1250 / (m * m), lv.AllowedSeconds!.Value, 6);
+        Assert.False(lv.FrequentExceeded(2.5));
+        Assert.True(lv.FrequentExceeded(3));
+        Assert.Contains("s for frequent faults (largest multiple 16.67)", WindingNotes.Report.TextReport.Write(e));
+        Assert.Contains("\"allowedFrequent\"", WindingNotes.Report.JsonReport.Write(e));
+
+        // Longer than the curve allows: a fault-duty warning at the winding's line that names the curve.
+        var slow = Wn.Eval(DeltaWye + "fault-study equivalent-source duration 3 s\n");
+        Assert.Contains(slow.Diagnostics, d => d.Code == "fault-duty-high" && d.Message.Contains("'LV_b'") && d.Message.Contains("frequent-fault curve"));
     }
 }
