@@ -61,7 +61,7 @@ A bare program name is looked up on `exec-path' and then in
     "fault-duty-high" "regulator-current-high" "constant-load" "cycle-scale"
     "upgraded" "non-upgraded" "difference-equation" "exponential"
     "normal-cyclic" "long-time-emergency" "short-time-emergency"
-    "equivalent-source" "as-loaded" "at-fault" "meshed" "maximum" "minimum" "maximum-and-minimum" "three-phase"
+    "equivalent-source" "as-loaded" "at-fault" "meshed" "equivalent-frequency" "maximum" "minimum" "maximum-and-minimum" "three-phase"
     "line-to-ground" "line-to-line" "double-line-to-ground")
   "Words chosen from a fixed set inside a clause.")
 

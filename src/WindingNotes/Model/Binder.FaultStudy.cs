@@ -25,6 +25,7 @@ internal sealed partial class BindRun
             Minimum = currents != "maximum",
             Line = s.Span,
             Meshed = s.Clause("peak-method")?.Word(_ => true)?.Text == "meshed",
+            EquivalentFrequency = s.Clause("peak-method")?.Word(_ => true)?.Text == "equivalent-frequency",
         };
         if (s.Value("voltage-tolerance") is { } tolSyntax && Real(tolSyntax, Dimension.None, "the voltage tolerance", ratio: true) is { } tol)
         {

@@ -28,7 +28,12 @@ public static class FaultDutyReport
         return "network as loaded: supplies as written" + (loads.Count == 0 ? "" : $", {string.Join(", ", loads)} as {(loads.Count == 1 ? "its" : "their")} pre-fault impedance");
     }
 
-    public static string Kappa(ShortCircuitResult sc) => sc.Study.Meshed
+    public static string Kappa(ShortCircuitResult sc) =>
+        sc.EquivalentRX is { } rxc
+        ? $"κ {Numbers.Fixed(sc.Kappa)} by the equivalent frequency (IEC 60909-0 method C): R/X {Numbers.Fixed(rxc)} = Rc/Xc × fc/f of the short-circuit impedance at fc = {Numbers.Format(sc.EquivalentFrequency, "Hz")} ({Numbers.Format(sc.EquivalentImpedance!.Value.Magnitude, "ohm")}); by the ratio at the fault {Numbers.Fixed(sc.KappaAtFault)}, R/X {Numbers.Fixed(sc.RX)}"
+        : sc.KappaExempt
+        ? $"κ {Numbers.Fixed(sc.Kappa)} for a meshed network by the ratio R/X at the fault (IEC 60909-0 method B) without the factor 1.15, as R/X is below 0.3 in every branch; R/X {Numbers.Fixed(sc.RX)} of the short-circuit impedance at the fault (positive sequence, {Numbers.Format(sc.Z1.Magnitude, "ohm")})"
+        : sc.Study.Meshed
         ? $"κ {Numbers.Fixed(sc.Kappa)} for a meshed network (IEC 60909-0 method B: 1.15 × {Numbers.Fixed(sc.KappaAtFault)} at most {(sc.Nominal > 1000 ? "2.0" : "1.8")}) from R/X {Numbers.Fixed(sc.RX)} of the short-circuit impedance at the fault (positive sequence, {Numbers.Format(sc.Z1.Magnitude, "ohm")})"
         : $"κ {Numbers.Fixed(sc.Kappa)} by the ratio R/X at the fault (IEC 60909-0 method B), R/X {Numbers.Fixed(sc.RX)} of the short-circuit impedance there (positive sequence, {Numbers.Format(sc.Z1.Magnitude, "ohm")})";
 
@@ -106,7 +111,8 @@ public static class FaultDutyReport
         SequenceJson(w, "vSequence", sc.Voltages);
         JsonReport.Number(w, "ik", sc.Initial);
         JsonReport.Number(w, "kappa", sc.Kappa);
-        w.WriteString("kappaMethod", sc.Study.Meshed ? "meshed" : "at-fault");
+        w.WriteString("kappaMethod", sc.EquivalentRX is not null ? "equivalent-frequency" : sc.KappaExempt ? "meshed-exempt" : sc.Study.Meshed ? "meshed" : "at-fault");
+        if (sc.EquivalentRX is { } rxc) JsonReport.Number(w, "rxEquivalent", rxc);
         if (sc.EndTemperature is { } end) JsonReport.Number(w, "endTemperature", end - 273.15);
         if (double.IsFinite(sc.RX)) JsonReport.Number(w, "rx", sc.RX);
         JsonReport.Number(w, "ip", sc.Peak);

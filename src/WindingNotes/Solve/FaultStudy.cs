@@ -65,8 +65,19 @@ public sealed record ShortCircuitResult(BusFaultModel Fault, FaultStudyModel Stu
     /// <summary>Minimum currents with the conductors at the end temperature: that temperature, K.</summary>
     public double? EndTemperature { get; init; }
 
-    /// <summary>κ before the factor 1.15 of a meshed network (IEC 60909-0 method B); equal to κ otherwise.</summary>
+    /// <summary>κ by the ratio R/X at the fault (IEC 60909-0 method B) before any factor 1.15; equal to κ with 'at-fault'.</summary>
     public double KappaAtFault { get; init; }
+
+    /// <summary>A meshed network whose every branch has R/X below 0.3: κ takes no factor 1.15.</summary>
+    public bool KappaExempt { get; init; }
+
+    /// <summary>Method C: the loop's impedance at the equivalent frequency, ohm, and that frequency, Hz.</summary>
+    public Complex? EquivalentImpedance { get; init; }
+
+    public double EquivalentFrequency { get; init; }
+
+    /// <summary>Method C: R/X = (Rc/Xc)·(fc/f).</summary>
+    public double? EquivalentRX { get; init; }
 
     /// <summary>The voltage factor c of the equivalent source; 1 as loaded.</summary>
     public double VoltageFactor { get; init; } = 1;
@@ -184,6 +195,7 @@ public static class FaultStudy
                     Nominal = nominal, NominalFrom = from, PreFault = [.. vpre.Select(v => v * scale)],
                     EndTemperature = hot == network ? null : study.EndTemperature,
                 };
+                if (study.EquivalentFrequency) sc = Equivalent(hot, sc, fault, bus, earth, minimum, c, scale, cancel);
                 sc = Finish(network, sc, result, model.Frequency, vpre, scale);
                 // The case keeps the network as written (its fault branches and hot resistances are the solver's business),
                 // so what reads it beside the normal case (the phasor diagram's voltage levels) finds the same nodes.
@@ -267,6 +279,52 @@ public static class FaultStudy
             best = Math.Max(best ?? 0, m);
         }
         return best;
+    }
+
+    /// <summary>
+    /// Method C of IEC 60909-0 (from memory): the loop's impedance Zc = Rc + jXc at the equivalent
+    /// frequency fc (20 Hz for a 50 Hz system, 24 Hz for 60 Hz, that is 0.4·f), by the same solver on
+    /// the network built at fc (reactances follow the frequency, resistances stay); R/X = (Rc/Xc)·(fc/f).
+    /// </summary>
+    private static ShortCircuitResult Equivalent(Network network, ShortCircuitResult sc, BusFaultModel fault, int[] bus, int earth, bool minimum, double c, double scale,
+        CancellationToken cancel)
+    {
+        var model = network.Model;
+        var fc = model.Frequency * 0.4;
+        var atFc = NetworkBuilder.Build(model with { RatedFrequency = model.RatedFrequency, Frequency = fc });
+        var pre = NetworkSolver.Solve(atFc, CaseSpec.NoLoad, cancel);
+        if (!pre.Solved || !pre.HasVectors) return sc;
+        // Its messages are the main solve's over again: kept apart.
+        var quiet = new DiagnosticBag();
+        var bolted = Solve(atFc, pre, fault with { Kind = BusFaultKind.ThreePhase, Impedance = 0 }, bus, earth, minimum, c, scale, quiet, cancel);
+        if (bolted?.ShortCircuit is not { } b || b.Z1.Imaginary <= 0) return sc;
+        return sc with { EquivalentImpedance = b.Z1, EquivalentFrequency = fc, EquivalentRX = b.Z1.Real / b.Z1.Imaginary * (fc / model.Frequency) };
+    }
+
+    /// <summary>
+    /// Whether every branch has R/X below 0.3, so a meshed network's κ needs no factor 1.15 (IEC 60909-0,
+    /// from memory). The branches: each supply's internal impedance; each 'impedance' line, by its own
+    /// R/X where neither winding states a resistance or conductor (else the branch's ratio is the
+    /// windings' resistance against the line's reactance, which is not read here: not exempt, which errs
+    /// high); as loaded, each load by its pre-fault P/Q.
+    /// </summary>
+    public static bool MeshedExempt(Network network)
+    {
+        const double limit = 0.3;
+        var model = network.Model;
+        foreach (var s in network.Supplies)
+            if (s.Impedance != Complex.Zero && !(s.Impedance.Imaginary > 0 && s.Impedance.Real / s.Impedance.Imaginary < limit)) return false;
+        bool States(string winding) => model.Windings.FirstOrDefault(w => w.Name == winding) is { } w && (w.Resistance is not null || w.Conductor is not null);
+        foreach (var z in model.Impedances)
+        {
+            if (States(z.First.Winding) || States(z.Second.Winding)) return false;
+            double? rx = z.Value.Imaginary != 0 ? z.Value.Real / z.Value.Imaginary : z.XR is { } xr && xr > 0 ? 1 / xr : null;
+            if (rx is not { } r || r < 0 || r >= limit) return false;
+        }
+        if (model.FaultStudy.Method == FaultMethod.AsLoaded)
+            foreach (var l in network.Loads)
+                if (!(l.Source.S0.Imaginary > 0 && l.Source.S0.Real / l.Source.S0.Imaginary < limit)) return false;
+        return true;
     }
 
     private static IEnumerable<bool> Extremes(FaultStudyModel study)
@@ -512,7 +570,8 @@ public static class FaultStudy
         var rx = sc.RX;
         var xr = rx > 0 ? 1 / rx : double.PositiveInfinity;
         var atFault = Kappa(rx);
-        var kappa = sc.Study.Meshed ? MeshedKappa(atFault, sc.Nominal) : atFault;
+        var exempt = sc.Study.Meshed && MeshedExempt(network);
+        var kappa = sc.EquivalentRX is { } rxc ? Kappa(rxc) : sc.Study.Meshed && !exempt ? MeshedKappa(atFault, sc.Nominal) : atFault;
         var m = ThermalM(kappa, frequency, sc.Study.Duration);
         double? earthFactor = null;
         if (sc.Fault.ToEarth)
@@ -559,6 +618,7 @@ public static class FaultStudy
             Initial = initial,
             Kappa = kappa,
             KappaAtFault = atFault,
+            KappaExempt = exempt,
             Peak = kappa * Math.Sqrt(2) * initial,
             Peak60076 = asym * initial,
             ThermalFactorM = m,

@@ -339,11 +339,23 @@ public class FaultStudyTests
         var atFault = Bus(Wn.Solved(DeltaWye), "F3");
         Assert.Equal(kb, atFault.Kappa, 9);
         Assert.Contains("by the ratio R/X at the fault (IEC 60909-0 method B)", WindingNotes.Report.FaultDutyReport.Kappa(atFault));
-        var meshed = Bus(Wn.Solved(DeltaWye + "fault-study equivalent-source peak-method meshed\n"), "F3");
-        Assert.Equal(kb, meshed.KappaAtFault, 9);
-        Assert.True(1.15 * kb > 1.8);
+        // Every branch of DeltaWye has R/X below 0.3 (the bank 1/8, the source 1/10): the standard leaves the
+        // factor 1.15 out (IEC 60909-0, from memory), so meshed gives κb.
+        var exempt = Bus(Wn.Solved(DeltaWye + "fault-study equivalent-source peak-method meshed\n"), "F3");
+        Assert.True(exempt.KappaExempt);
+        Assert.Equal(kb, exempt.Kappa, 9);
+        Assert.Contains("without the factor 1.15, as R/X is below 0.3 in every branch", WindingNotes.Report.FaultDutyReport.Kappa(exempt));
+        // The source at X/R 2 (R/X 0.5) is a branch at 0.3 or above: the factor applies. By hand, Zs' = 0.00068890 Ω
+        // at X/R 2, z1' = Zs' + Zt (R/X about 0.156), κb' about 1.634 and 1.15·κb' = 1.88, capped at 1.8.
+        var zs2 = Polar(Zs.Magnitude, 2);
+        var z2 = zs2 + Zt;
+        var kb2 = 1.02 + 0.98 * Math.Exp(-3 * z2.Real / z2.Imaginary);
+        var meshed = Bus(Wn.Solved(DeltaWye.Replace("fault-level 250 MVA xr 10", "fault-level 250 MVA xr 2") + "fault-study equivalent-source peak-method meshed\n"), "F3");
+        Assert.False(meshed.KappaExempt);
+        Assert.Equal(kb2, meshed.KappaAtFault, 9);
+        Assert.True(1.15 * kb2 > 1.8);
         Assert.Equal(1.8, meshed.Kappa);
-        Wn.Near(1.8 * Math.Sqrt(2) * E / z1.Magnitude, meshed.Peak, 1e-9, "ip = κ·√2·I″k");
+        Wn.Near(1.8 * Math.Sqrt(2) * E / z2.Magnitude, meshed.Peak, 1e-9, "ip = κ·√2·I″k");
         Assert.Contains("for a meshed network (IEC 60909-0 method B: 1.15", WindingNotes.Report.FaultDutyReport.Kappa(meshed));
     }
 
@@ -469,5 +481,49 @@ public class FaultStudyTests
         // Longer than the curve allows: a fault-duty warning at the winding's line that names the curve.
         var slow = Wn.Eval(DeltaWye + "fault-study equivalent-source duration 3 s\n");
         Assert.Contains(slow.Diagnostics, d => d.Code == "fault-duty-high" && d.Message.Contains("'LV_b'") && d.Message.Contains("frequent-fault curve"));
+    }
+
+    [Fact]
+    public void Kappa_by_the_equivalent_frequency_solves_the_loop_at_20_Hz()
+    {
+        // IEC 60909-0 method C (from memory): Zc = Rc + jXc of the loop at fc = 20 Hz (50 Hz system),
+        // R/X = (Rc/Xc)·(fc/f), κ = 1.02 + 0.98·e^(−3R/X). A second bank in parallel at X/R 2 makes the
+        // loop's ratio differ from the ratio at the fault (one series loop would give the same). By hand,
+        // per phase on the 415 V side, reactances at fc are 0.4 times: Zc = Zs(fc) + Za(fc)∥Zb(fc).
+        const string second = """
+            core T2 construction bank rating 1500 kVA
+            winding HV2 on T2 rated 11 kV delta G1 G2 G3
+            winding LV2 on T2 rated 415 V wye Y1 Y2 Y3 neutral Y0
+            impedance HV2 LV2 6 % xr 2
+            join H1 G1
+            join H2 G2
+            join H3 G3
+            join X1 Y1
+            join X2 Y2
+            join X3 Y3
+            join X0 Y0
+
+            """;
+        var e = Wn.Solved(DeltaWye + second + "fault-study equivalent-source peak-method equivalent-frequency\n");
+        var zb = Polar(Zt.Magnitude, 2);
+        static Complex At(Complex z, double ratio) => new(z.Real, z.Imaginary * ratio);
+        static Complex Parallel(Complex a, Complex b) => a * b / (a + b);
+        var z50 = Zs + Parallel(Zt, zb);
+        var zc = At(Zs, 0.4) + Parallel(At(Zt, 0.4), At(zb, 0.4));
+        var rxc = zc.Real / zc.Imaginary * 0.4;
+        var f3 = Bus(e, "F3");
+        Assert.Equal(20, f3.EquivalentFrequency, 9);
+        Close(zc, f3.EquivalentImpedance!.Value, 1e-7, "Zc at 20 Hz");
+        Assert.Equal(rxc, f3.EquivalentRX!.Value, 9);
+        Assert.Equal(1.02 + 0.98 * Math.Exp(-3 * rxc), f3.Kappa, 9);
+        Assert.Equal(1.02 + 0.98 * Math.Exp(-3 * z50.Real / z50.Imaginary), f3.KappaAtFault, 9);
+        Assert.NotEqual(Math.Round(f3.Kappa, 4), Math.Round(f3.KappaAtFault, 4));
+        Wn.Near(f3.Kappa * Math.Sqrt(2) * E / z50.Magnitude, f3.Peak, 1e-7, "ip = κ·√2·I″k");
+        Assert.Contains("by the equivalent frequency (IEC 60909-0 method C)", WindingNotes.Report.FaultDutyReport.Kappa(f3));
+        Assert.Contains("\"kappaMethod\": \"equivalent-frequency\"", WindingNotes.Report.JsonReport.Write(e));
+        // A 60 Hz system: fc = 24 Hz.
+        var sixty = Bus(Wn.Solved((DeltaWye + second).Replace("frequency 50 Hz", "frequency 60 Hz") + "fault-study equivalent-source peak-method equivalent-frequency\n"), "F3");
+        Assert.Equal(24, sixty.EquivalentFrequency, 9);
+        Assert.Equal(rxc, sixty.EquivalentRX!.Value, 9);
     }
 }
