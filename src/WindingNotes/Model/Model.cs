@@ -92,6 +92,9 @@ public sealed record SupplyModel(string Name, TextSpan NameSpan, TextSpan Line, 
     public double? FaultPower { get; init; }
 
     public double? XR { get; init; }
+
+    /// <summary>The internal impedance at the minimum fault level ('minimum-fault-level'), at the frequency as written; for minimum short-circuit currents.</summary>
+    public Complex? MinimumImpedance { get; init; }
 }
 
 public enum LoadBehaviour { ConstantPower, ConstantCurrent, ConstantImpedance }

@@ -17,6 +17,7 @@ public static class FaultDutyReport
     public static string Method(ShortCircuitResult sc) => sc.Study.Method == FaultMethod.AsLoaded
         ? "network as loaded: supplies as written, constant-power and constant-current loads as their pre-fault impedance"
         : $"equivalent voltage source at the fault (IEC 60909-0), c = {Numbers.Fixed(sc.VoltageFactor, 3)} ({(sc.Minimum ? "cmin" : "cmax")}) on Un = {Numbers.Format(sc.Nominal, "V")} from {sc.NominalFrom}, loads left out"
+          + (sc.WeakestSources.IsEmpty ? "" : $", {string.Join(", ", sc.WeakestSources.Select(s => $"'{s}'"))} at {(sc.WeakestSources.Length == 1 ? "its" : "their")} minimum fault level")
           + (sc.EndTemperature is { } end ? $", resistances given with a temperature at {Numbers.Format(end - 273.15, "degC")}" : "");
 
     /// <summary>How a two-node fault was solved, and which loads were taken as their pre-fault impedance.</summary>

@@ -65,6 +65,9 @@ public sealed record ShortCircuitResult(BusFaultModel Fault, FaultStudyModel Stu
     /// <summary>Minimum currents with the conductors at the end temperature: that temperature, K.</summary>
     public double? EndTemperature { get; init; }
 
+    /// <summary>Minimum currents: the supplies taken at their minimum fault level.</summary>
+    public ImmutableArray<string> WeakestSources { get; init; } = [];
+
     /// <summary>κ by the ratio R/X at the fault (IEC 60909-0 method B) before any factor 1.15; equal to κ with 'at-fault'.</summary>
     public double KappaAtFault { get; init; }
 
@@ -185,15 +188,19 @@ public static class FaultStudy
             {
                 var c = study.Method == FaultMethod.AsLoaded ? 1 : VoltageFactor(nominal, minimum, study.LowVoltageTolerance);
                 var scale = study.Method == FaultMethod.AsLoaded ? 1 : c * nominal / Math.Sqrt(3) / phaseVolts;
-                // Minimum currents with the conductors hot: resistances given with a temperature (stated at one,
-                // or from a conductor at 20 °C) corrected to the end temperature (IEC 60909-0, from memory).
-                var hot = minimum && study.EndTemperature is { } end ? hotNetwork ??= NetworkBuilder.Build(model with { Temperature = end }) : network;
+                // Minimum currents on the network at its weakest (IEC 60909-0, from memory): each supply at its
+                // 'minimum-fault-level', and the conductors hot: resistances given with a temperature (stated at
+                // one, or from a conductor at 20 °C) corrected to the end temperature.
+                var hot = minimum && (study.EndTemperature is not null || model.Supplies.Any(s => s.MinimumImpedance is not null))
+                    ? hotNetwork ??= NetworkBuilder.Build(Weakest(model))
+                    : network;
                 var result = Solve(hot, pre, fault, bus, earth, minimum, c, scale, diagnostics, cancel);
                 if (result is null) continue;
                 var sc = result.ShortCircuit! with
                 {
                     Nominal = nominal, NominalFrom = from, PreFault = [.. vpre.Select(v => v * scale)],
                     EndTemperature = hot == network ? null : study.EndTemperature,
+                    WeakestSources = hot == network ? [] : [.. model.Supplies.Where(s => s.MinimumImpedance is not null).Select(s => model.ThreePhase.Supplies.FirstOrDefault(t => Phases.All(t.Name).Contains(s.Name))?.Name ?? s.Name).Distinct()],
                 };
                 if (study.EquivalentFrequency) sc = Equivalent(hot, sc, fault, bus, earth, minimum, c, scale, cancel);
                 sc = Finish(network, sc, result, model.Frequency, vpre, scale);
@@ -326,6 +333,13 @@ public static class FaultStudy
                 if (!(l.Source.S0.Imaginary > 0 && l.Source.S0.Real / l.Source.S0.Imaginary < limit)) return false;
         return true;
     }
+
+    /// <summary>The model at its weakest: supplies at their minimum fault level, the temperature at the end of the fault.</summary>
+    private static Model.Model Weakest(Model.Model model) => model with
+    {
+        Supplies = [.. model.Supplies.Select(s => s.MinimumImpedance is { } z ? s with { Impedance = z, FaultCurrent = null, FaultPower = null } : s)],
+        Temperature = model.FaultStudy.EndTemperature ?? model.Temperature,
+    };
 
     private static IEnumerable<bool> Extremes(FaultStudyModel study)
     {

@@ -526,4 +526,32 @@ public class FaultStudyTests
         Assert.Equal(24, sixty.EquivalentFrequency, 9);
         Assert.Equal(rxc, sixty.EquivalentRX!.Value, 9);
     }
+
+    [Fact]
+    public void Minimum_currents_take_each_supply_at_its_minimum_fault_level()
+    {
+        // IEC 60909-0 (from memory): minimum currents with the network at its weakest. By hand, the grid at
+        // 150 MVA is 11²/150 Ω at X/R 10, referred to 415 V by (415/11 000)²; I″k min = cmin·Un/√3 / |Zs,min + Zt|
+        // with cmin 0.90 (R36, from memory); the maximum keeps 250 MVA and cmax 1.10.
+        var text = DeltaWye.Replace("fault-level 250 MVA xr 10", "fault-level 250 MVA xr 10 minimum-fault-level 150 MVA")
+            + "fault-study equivalent-source currents maximum-and-minimum\n";
+        var e = Wn.Solved(text);
+        var zsMin = Polar(11.0 * 11 / 150 * Math.Pow(415.0 / 11000, 2), 10);
+        var maximum = Bus(e, "F3");
+        var minimum = Bus(e, "F3", minimum: true);
+        Wn.Near(E / (Zs + Zt).Magnitude, maximum.Initial, 1e-7, "I″k max");
+        Close(zsMin + Zt, minimum.Z1, 1e-7, "Z1 at the minimum fault level");
+        Wn.Near(0.90 * 415 / Math.Sqrt(3) / (zsMin + Zt).Magnitude, minimum.Initial, 1e-7, "I″k min");
+        Assert.Contains("'grid' at its minimum fault level", WindingNotes.Report.FaultDutyReport.Method(minimum));
+        Assert.DoesNotContain("minimum fault level", WindingNotes.Report.FaultDutyReport.Method(maximum));
+
+        // A single-phase supply: |Z| = V/I at the supply's X/R: 240 V at 5 kA, X/R 4.
+        var single = Wn.Eval("supply mains A B 240 V fault-level 10 kA xr 4 minimum-fault-level 5 kA\nground B\n");
+        Close(Polar(240.0 / 5000, 4), single.Model.Supplies.Single().MinimumImpedance!.Value, 1e-12, "single-phase minimum");
+
+        // A minimum above the fault level is no minimum: one error at its value.
+        var wrong = Wn.Eval(DeltaWye.Replace("fault-level 250 MVA xr 10", "fault-level 250 MVA xr 10 minimum-fault-level 300 MVA"));
+        var error = wrong.Single("out-of-bounds");
+        Assert.Equal("300 MVA", wrong.TextAt(error.Span));
+    }
 }
