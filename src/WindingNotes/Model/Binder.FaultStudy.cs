@@ -26,6 +26,7 @@ internal sealed partial class BindRun
             Line = s.Span,
             Meshed = s.Clause("peak-method")?.Word(_ => true)?.Text == "meshed",
             EquivalentFrequency = s.Clause("peak-method")?.Word(_ => true)?.Text == "equivalent-frequency",
+            TransformerCorrection = s.Clause("transformer-correction") is not null,
         };
         if (s.Value("voltage-tolerance") is { } tolSyntax && Real(tolSyntax, Dimension.None, "the voltage tolerance", ratio: true) is { } tol)
         {
@@ -54,6 +55,8 @@ internal sealed partial class BindRun
         }
         if (method == FaultMethod.AsLoaded && s.Clause("voltage-tolerance") is { } c)
             diagnostics.ReportOutOfBounds(c.Span, "the voltage tolerance", "given with the equivalent source only: the network as loaded has no voltage factor");
+        else if (method == FaultMethod.AsLoaded && s.Clause("transformer-correction") is { } k)
+            diagnostics.ReportOutOfBounds(k.Span, "the transformer correction", "given with the equivalent source only: the network as loaded is as written");
         else if (s.Clause("end-temperature") is { } e && !study.Minimum)
             diagnostics.ReportOutOfBounds(e.Span, "the end temperature", "given with minimum currents only ('currents minimum' or 'maximum-and-minimum')");
         faultStudy = study;

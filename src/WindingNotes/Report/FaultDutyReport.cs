@@ -17,6 +17,7 @@ public static class FaultDutyReport
     public static string Method(ShortCircuitResult sc) => sc.Study.Method == FaultMethod.AsLoaded
         ? "network as loaded: supplies as written, constant-power and constant-current loads as their pre-fault impedance"
         : $"equivalent voltage source at the fault (IEC 60909-0), c = {Numbers.Fixed(sc.VoltageFactor, 3)} ({(sc.Minimum ? "cmin" : "cmax")}) on Un = {Numbers.Format(sc.Nominal, "V")} from {sc.NominalFrom}, loads left out"
+          + (sc.TransformerCorrections.IsEmpty ? "" : $", network transformers times K_T = 0.95·cmax/(1 + 0.6·xT): {string.Join(", ", sc.TransformerCorrections.Select(k => $"{k.Line} {Numbers.Fixed(k.Factor)}"))}")
           + (sc.WeakestSources.IsEmpty ? "" : $", {string.Join(", ", sc.WeakestSources.Select(s => $"'{s}'"))} at {(sc.WeakestSources.Length == 1 ? "its" : "their")} minimum fault level")
           + (sc.EndTemperature is { } end ? $", resistances given with a temperature at {Numbers.Format(end - 273.15, "degC")}" : "");
 
@@ -114,6 +115,12 @@ public static class FaultDutyReport
         JsonReport.Number(w, "kappa", sc.Kappa);
         w.WriteString("kappaMethod", sc.EquivalentRX is not null ? "equivalent-frequency" : sc.KappaExempt ? "meshed-exempt" : sc.Study.Meshed ? "meshed" : "at-fault");
         if (sc.EquivalentRX is { } rxc) JsonReport.Number(w, "rxEquivalent", rxc);
+        if (!sc.TransformerCorrections.IsEmpty)
+        {
+            w.WriteStartObject("transformerCorrection");
+            foreach (var (line, factor) in sc.TransformerCorrections) JsonReport.Number(w, line, factor);
+            w.WriteEndObject();
+        }
         if (sc.EndTemperature is { } end) JsonReport.Number(w, "endTemperature", end - 273.15);
         if (double.IsFinite(sc.RX)) JsonReport.Number(w, "rx", sc.RX);
         JsonReport.Number(w, "ip", sc.Peak);

@@ -65,6 +65,9 @@ public sealed record ShortCircuitResult(BusFaultModel Fault, FaultStudyModel Stu
     /// <summary>Minimum currents with the conductors at the end temperature: that temperature, K.</summary>
     public double? EndTemperature { get; init; }
 
+    /// <summary>The impedance lines corrected by K_T (IEC 60909-0 network transformers), by their windings, with K_T.</summary>
+    public ImmutableArray<(string Line, double Factor)> TransformerCorrections { get; init; } = [];
+
     /// <summary>Minimum currents: the supplies taken at their minimum fault level.</summary>
     public ImmutableArray<string> WeakestSources { get; init; } = [];
 
@@ -155,6 +158,10 @@ public static class FaultStudy
         var cases = ImmutableArray.CreateBuilder<CaseResult>();
         Solution? noLoad = null;
         Network? hotNetwork = null;
+        // K_T on the network transformers (equivalent source only): the study's networks are built from the corrected model.
+        var corrections = study.TransformerCorrection && study.Method == FaultMethod.EquivalentSource ? Corrections(model) : [];
+        var corrected = corrections.IsEmpty ? model : Corrected(model, corrections);
+        var strongNetwork = corrections.IsEmpty ? network : NetworkBuilder.Build(corrected);
         foreach (var fault in model.BusFaults)
         {
             cancel.ThrowIfCancellationRequested();
@@ -191,16 +198,16 @@ public static class FaultStudy
                 // Minimum currents on the network at its weakest (IEC 60909-0, from memory): each supply at its
                 // 'minimum-fault-level', and the conductors hot: resistances given with a temperature (stated at
                 // one, or from a conductor at 20 °C) corrected to the end temperature.
-                var hot = minimum && (study.EndTemperature is not null || model.Supplies.Any(s => s.MinimumImpedance is not null))
-                    ? hotNetwork ??= NetworkBuilder.Build(Weakest(model))
-                    : network;
+                var weakest = minimum && (study.EndTemperature is not null || model.Supplies.Any(s => s.MinimumImpedance is not null));
+                var hot = weakest ? hotNetwork ??= NetworkBuilder.Build(Weakest(corrected)) : strongNetwork;
                 var result = Solve(hot, pre, fault, bus, earth, minimum, c, scale, diagnostics, cancel);
                 if (result is null) continue;
                 var sc = result.ShortCircuit! with
                 {
                     Nominal = nominal, NominalFrom = from, PreFault = [.. vpre.Select(v => v * scale)],
-                    EndTemperature = hot == network ? null : study.EndTemperature,
-                    WeakestSources = hot == network ? [] : [.. model.Supplies.Where(s => s.MinimumImpedance is not null).Select(s => model.ThreePhase.Supplies.FirstOrDefault(t => Phases.All(t.Name).Contains(s.Name))?.Name ?? s.Name).Distinct()],
+                    TransformerCorrections = [.. corrections.GroupBy(k => k.Line).Select(g => (g.Key, g.First().Factor))],
+                    EndTemperature = weakest ? study.EndTemperature : null,
+                    WeakestSources = !weakest ? [] : [.. model.Supplies.Where(s => s.MinimumImpedance is not null).Select(s => model.ThreePhase.Supplies.FirstOrDefault(t => Phases.All(t.Name).Contains(s.Name))?.Name ?? s.Name).Distinct()],
                 };
                 if (study.EquivalentFrequency) sc = Equivalent(hot, sc, fault, bus, earth, minimum, c, scale, cancel);
                 sc = Finish(network, sc, result, model.Frequency, vpre, scale);
@@ -333,6 +340,50 @@ public static class FaultStudy
                 if (!(l.Source.S0.Imaginary > 0 && l.Source.S0.Real / l.Source.S0.Imaginary < limit)) return false;
         return true;
     }
+
+    /// <summary>
+    /// K_T = 0.95·cmax/(1 + 0.6·xT) of IEC 60909-0 (from memory) for each impedance line between two whole
+    /// windings: every unit here joins two networks (no generator's unit transformer is modelled), so each
+    /// is a network transformer, and a three-winding unit's pairs each take their own (K_TAB, K_TAC, K_TBC).
+    /// xT is the line's reactance per unit on its own base (per unit as given, or ohms over V1²/S); a bare
+    /// magnitude counts whole as reactance. cmax is that of the lower of the two windings' nominal
+    /// line-to-line voltages. The factor scales the line as given (R and X); resistances stated on the
+    /// windings are not scaled. Lines without a base (ohms on a core with no rating) are left as written.
+    /// </summary>
+    public static ImmutableArray<(ImpedanceModel Impedance, string Line, double Factor)> Corrections(Model.Model model)
+    {
+        var result = ImmutableArray.CreateBuilder<(ImpedanceModel, string, double)>();
+        foreach (var z in model.Impedances.Where(z => z.First.From is null && z.Second.From is null))
+        {
+            var first = model.Windings.FirstOrDefault(w => w.Name == z.First.Winding);
+            var second = model.Windings.FirstOrDefault(w => w.Name == z.Second.Winding);
+            if (first?.Rated is not { } v1 || second?.Rated is not { } v2) continue;
+            var magnitude = z.Value.Magnitude;
+            var x = z.Value.Imaginary != 0 ? z.Value.Imaginary : z.XR is { } xr ? magnitude * xr / Math.Sqrt(1 + xr * xr) : magnitude;
+            if (!z.PerUnit)
+            {
+                if ((z.Base ?? model.Cores.FirstOrDefault(k => k.Name == first.Core)?.Rating) is not { } s || s <= 0) continue;
+                x /= v1 * v1 / s;
+            }
+            var nominal = Math.Min(LineVoltage(model, first.Name, v1), LineVoltage(model, second.Name, v2));
+            var factor = 0.95 * VoltageFactor(nominal, minimum: false, model.FaultStudy.LowVoltageTolerance) / (1 + 0.6 * x);
+            result.Add((z, $"{Unphased(model, z.First.Winding)} {Unphased(model, z.Second.Winding)}", factor));
+        }
+        return result.ToImmutable();
+    }
+
+    private static Model.Model Corrected(Model.Model model, ImmutableArray<(ImpedanceModel Impedance, string Line, double Factor)> corrections) => model with
+    {
+        Impedances = [.. model.Impedances.Select(z => corrections.FirstOrDefault(k => ReferenceEquals(k.Impedance, z)) is { Impedance: not null } k ? z with { Value = z.Value * k.Factor } : z)],
+    };
+
+    /// <summary>A winding's nominal line-to-line voltage: a wye, zigzag or series phase's rated voltage times √3.</summary>
+    private static double LineVoltage(Model.Model model, string winding, double rated) =>
+        model.ThreePhase.Windings.FirstOrDefault(t => t.PhaseWindings.Contains(winding)) is { } t && t.Connection != PhaseConnection.Delta && t.Connection != PhaseConnection.Ends
+            ? rated * Math.Sqrt(3) : rated;
+
+    private static string Unphased(Model.Model model, string winding) =>
+        model.ThreePhase.Windings.FirstOrDefault(t => t.PhaseWindings.Contains(winding))?.Name ?? winding;
 
     /// <summary>The model at its weakest: supplies at their minimum fault level, the temperature at the end of the fault.</summary>
     private static Model.Model Weakest(Model.Model model) => model with

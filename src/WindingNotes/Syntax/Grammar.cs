@@ -352,6 +352,7 @@ public static class Grammar
                 Clause("peak-method", "how κ of the peak is found: the ratio R/X at the fault (unless said), that times 1.15 for a meshed network, or the ratio of the loop solved at an equivalent frequency",
                     new ChoicePart("'at-fault', 'meshed' or 'equivalent-frequency'", "at-fault", "meshed", "equivalent-frequency")),
                 Clause("end-temperature", "for minimum currents: the conductors' temperature at the end of the fault, to which resistances given with a temperature are corrected", Value),
+                Clause("transformer-correction", "with the equivalent source: each impedance line between two windings times K_T = 0.95·cmax/(1 + 0.6·xT) (IEC 60909-0 network transformers)"),
             ],
             "fault-study equivalent-source currents maximum-and-minimum duration 2 s",
             "how bus faults are studied: the equivalent voltage source at the fault (IEC 60909-0) or the network as loaded"),

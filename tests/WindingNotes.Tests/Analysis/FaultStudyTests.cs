@@ -554,4 +554,25 @@ public class FaultStudyTests
         var error = wrong.Single("out-of-bounds");
         Assert.Equal("300 MVA", wrong.TextAt(error.Span));
     }
+
+    [Fact]
+    public void Transformer_correction_multiplies_the_unit_impedance_by_K_T()
+    {
+        // IEC 60909-0 network transformers (from memory): Z_TK = K_T·Z_T, K_T = 0.95·cmax/(1 + 0.6·xT). By hand,
+        // xT = 6 %·8/√65 = 0.059537 (the line's reactance per unit), cmax 1.10 for the 415 V side (R36), so
+        // K_T = 1.045/1.035722 = 1.008958; I″k = E/|Zs + K_T·Zt|, maximum and minimum alike.
+        var xt = 0.06 * 8 / Math.Sqrt(65);
+        var kt = 0.95 * 1.10 / (1 + 0.6 * xt);
+        Assert.Equal(1.008958, kt, 6);
+        var e = Wn.Solved(DeltaWye + "fault-study equivalent-source currents maximum-and-minimum transformer-correction\n");
+        var maximum = Bus(e, "F3");
+        Close(Zs + kt * Zt, maximum.Z1, 1e-7, "Z1 with K_T");
+        Wn.Near(E / (Zs + kt * Zt).Magnitude, maximum.Initial, 1e-7, "I″k max with K_T");
+        Wn.Near(0.90 * 415 / Math.Sqrt(3) / (Zs + kt * Zt).Magnitude, Bus(e, "F3", minimum: true).Initial, 1e-7, "I″k min with K_T");
+        Assert.Equal(kt, maximum.TransformerCorrections.Single().Factor, 9);
+        Assert.Contains("network transformers times K_T = 0.95·cmax/(1 + 0.6·xT): HV LV 1.009", WindingNotes.Report.FaultDutyReport.Method(maximum));
+        // As loaded there is no equivalent source to correct: an error at the clause.
+        var wrong = Wn.Eval(DeltaWye + "fault-study as-loaded transformer-correction\n");
+        Assert.Equal("transformer-correction", wrong.TextAt(wrong.Single("out-of-bounds").Span));
+    }
 }
