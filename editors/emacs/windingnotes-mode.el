@@ -47,7 +47,7 @@ A bare program name is looked up on `exec-path' and then in
     "bandwidth" "pt-ratio" "compensation" "line-current" "ct" "position" "clear-of-limits"
     "equals" "currents" "voltage-tolerance" "duration" "initial-temperature" "peak-method" "end-temperature" "earth-impedance"
     "nominal" "fault-current" "peak-current" "thermal-current" "earth-fault-factor" "in"
-    "positive-sequence" "class" "winding-rise" "equivalent-aging")
+    "positive-sequence" "class" "winding-rise" "equivalent-aging" "peak-withstand" "peak-duty" "minimum-fault-level" "transformer-correction")
   "Words that start a clause or join its parts.")
 
 (defconst windingnotes-option-keywords
@@ -61,7 +61,7 @@ A bare program name is looked up on `exec-path' and then in
     "fault-duty-high" "regulator-current-high" "constant-load" "cycle-scale"
     "upgraded" "non-upgraded" "difference-equation" "exponential"
     "normal-cyclic" "long-time-emergency" "short-time-emergency"
-    "equivalent-source" "as-loaded" "at-fault" "meshed" "maximum" "minimum" "maximum-and-minimum" "three-phase"
+    "equivalent-source" "as-loaded" "at-fault" "meshed" "equivalent-frequency" "maximum" "minimum" "maximum-and-minimum" "three-phase"
     "line-to-ground" "line-to-line" "double-line-to-ground")
   "Words chosen from a fixed set inside a clause.")
 

@@ -25,6 +25,8 @@ internal sealed partial class BindRun
             Minimum = currents != "maximum",
             Line = s.Span,
             Meshed = s.Clause("peak-method")?.Word(_ => true)?.Text == "meshed",
+            EquivalentFrequency = s.Clause("peak-method")?.Word(_ => true)?.Text == "equivalent-frequency",
+            TransformerCorrection = s.Clause("transformer-correction") is not null,
         };
         if (s.Value("voltage-tolerance") is { } tolSyntax && Real(tolSyntax, Dimension.None, "the voltage tolerance", ratio: true) is { } tol)
         {
@@ -53,6 +55,8 @@ internal sealed partial class BindRun
         }
         if (method == FaultMethod.AsLoaded && s.Clause("voltage-tolerance") is { } c)
             diagnostics.ReportOutOfBounds(c.Span, "the voltage tolerance", "given with the equivalent source only: the network as loaded has no voltage factor");
+        else if (method == FaultMethod.AsLoaded && s.Clause("transformer-correction") is { } k)
+            diagnostics.ReportOutOfBounds(k.Span, "the transformer correction", "given with the equivalent source only: the network as loaded is as written");
         else if (s.Clause("end-temperature") is { } e && !study.Minimum)
             diagnostics.ReportOutOfBounds(e.Span, "the end temperature", "given with minimum currents only ('currents minimum' or 'maximum-and-minimum')");
         faultStudy = study;
@@ -86,7 +90,7 @@ internal sealed partial class BindRun
         busFaults.Add(new BusFaultModel(name.Text, name.Name.Span, s.Span, [.. lines!], kind, z.Value, ze.Value) { Nominal = nominal });
     }
 
-    private static bool IsFaultMeasure(MeasureKind m) => m is MeasureKind.FaultCurrent or MeasureKind.PeakCurrent or MeasureKind.ThermalCurrent or MeasureKind.EarthFaultFactor;
+    private static bool IsFaultMeasure(MeasureKind m) => m is MeasureKind.FaultCurrent or MeasureKind.PeakCurrent or MeasureKind.ThermalCurrent or MeasureKind.EarthFaultFactor or MeasureKind.PeakDuty;
 
     /// <summary>
     /// The fault case an expect is evaluated in: the fault a fault measure names, or the one its 'in'
@@ -96,12 +100,14 @@ internal sealed partial class BindRun
     {
         var clause = IsFaultMeasure(kind) ? measure : s.Clause("in");
         if (clause is null) return (null, false);
-        if (Resolve(clause.Name(0), "a fault", SymbolKind.Fault) is not { } fault) return null;
+        // 'peak-duty' names its winding first, then the fault.
+        var faultName = clause.Name(kind == MeasureKind.PeakDuty && clause == measure ? 1 : 0);
+        if (Resolve(faultName, "a fault", SymbolKind.Fault) is not { } fault) return null;
         var minimum = clause.Word(w => w == "minimum") is not null;
         var isBusFault = declaredBusFaults.Contains(fault.Name);
         if (IsFaultMeasure(kind) && !isBusFault)
         {
-            diagnostics.ReportOutOfBounds(clause.Name(0)!.Span, $"the fault of '{measure.Keyword!.Text}'", "a bus fault ('bus-fault'); a two-node fault has its current in its own case");
+            diagnostics.ReportOutOfBounds(faultName!.Span, $"the fault of '{measure.Keyword!.Text}'", "a bus fault ('bus-fault'); a two-node fault has its current in its own case");
             return null;
         }
         if (clause.Word(w => w is "minimum" or "maximum") is { } word && !isBusFault)
@@ -110,5 +116,21 @@ internal sealed partial class BindRun
             return null;
         }
         return (fault.Name, minimum);
+    }
+
+    /// <summary>
+    /// The winding of a 'peak-duty' check: a winding, or a three-phase winding (its phases' largest),
+    /// whose line states its 'peak-withstand'. Null after a diagnostic.
+    /// </summary>
+    private NodeRef? PeakDutyWinding(NameSyntax? name)
+    {
+        if (Resolve(name, "a winding", SymbolKind.Winding) is not { } winding) return null;
+        var line = tree.Statements.FirstOrDefault(x => x.Kind == StatementKind.Winding && x.Head.Name(0)?.Text == winding.Name);
+        if (line is not null && line.Clause("peak-withstand") is null)
+        {
+            diagnostics.ReportOutOfBounds(name!.Name.Span, "the winding of 'peak-duty'", $"one whose line gives its 'peak-withstand': '{winding.Name}' gives none");
+            return null;
+        }
+        return new NodeRef(winding.Name, name!.Name.Span);
     }
 }

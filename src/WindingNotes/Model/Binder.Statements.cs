@@ -108,6 +108,7 @@ internal sealed partial class BindRun
             Resistance = NonNegative(resistance?.Value(0), Dimension.Impedance, $"the resistance of {name.Text}"),
             ResistanceTemperature = Real(resistance?.Value(1), Dimension.TemperatureDim, "the measuring temperature", positive: true),
             Conductor = Conductor(s.Clause("conductor"), name.Text),
+            PeakWithstand = Real(s.Value("peak-withstand"), Dimension.CurrentDim, $"the peak withstand of {name.Text}", positive: true),
         };
         if (core is not null && BindThreePhaseWinding(s, winding, core)) return;
         if (core is null || ends is null || winding.From.Name.Length == 0 || winding.To.Name.Length == 0) return;
@@ -293,13 +294,44 @@ internal sealed partial class BindRun
         if (impedance is not null && level is not null)
             diagnostics.ReportExclusiveClauses(s.Clause("fault-level")!.Keyword!, s.Clause("impedance")!.Keyword!);
         if (plus is null || minus is null || voltage is null) return;
+        var xr = Real(s.Value("xr"), Dimension.None, "the X/R ratio", positive: true);
+        var volts = voltage.Value.Magnitude;
+        var strongest = impedance?.Magnitude ?? (faultCurrent is { } i ? volts / i : faultPower is { } p ? volts * volts / p : 0);
         supplies.Add(new SupplyModel(name.Text, name.Name.Span, s.Span, plus, minus, voltage.Value)
         {
             Impedance = impedance,
             FaultCurrent = faultCurrent,
             FaultPower = faultPower,
-            XR = Real(s.Value("xr"), Dimension.None, "the X/R ratio", positive: true),
+            XR = xr,
+            MinimumImpedance = MinimumImpedance(s, name.Text, volts, single: true, xr, strongest),
         });
+    }
+
+    /// <summary>
+    /// The source impedance at 'minimum-fault-level' (a current or an apparent power; |Z| = V/I or V²/S
+    /// for a single-phase supply of V, V/(√3·I) or V²/S by the line-to-line voltage V of a three-phase
+    /// one), split by the supply's X/R (pure reactance without one, as for the fault level). It must
+    /// give no more current than the fault level: |Z| at least <paramref name="strongest"/>, ohm.
+    /// </summary>
+    private System.Numerics.Complex? MinimumImpedance(StatementSyntax s, string name, double volts, bool single, double? xr, double strongest)
+    {
+        var syntax = s.Value("minimum-fault-level");
+        if (Value(syntax, $"the minimum fault level of {name}") is not { } l) return null;
+        double magnitude;
+        if (l.Dimension.Fits(Dimension.CurrentDim) && l.IsReal && l.Real > 0) magnitude = single ? volts / l.Real : volts / (Math.Sqrt(3) * l.Real);
+        else if (l.Dimension.Fits(Dimension.ApparentPower) && l.IsReal && l.Real > 0) magnitude = volts * volts / l.Real;
+        else
+        {
+            diagnostics.ReportWrongDimension(syntax!.Span, "a positive current or apparent power", l.Dimension);
+            return null;
+        }
+        if (magnitude < strongest * (1 - 1e-9))
+        {
+            diagnostics.ReportOutOfBounds(syntax!.Span, "the minimum fault level", "at most the fault level (the source at its weakest)");
+            return null;
+        }
+        var unit = xr is { } ratio ? new System.Numerics.Complex(1, ratio) / Math.Sqrt(1 + ratio * ratio) : System.Numerics.Complex.ImaginaryOne;
+        return magnitude * unit;
     }
 
     /// <summary>
@@ -502,6 +534,13 @@ internal sealed partial class BindRun
         var targets = ImmutableArray.CreateBuilder<NodeRef>();
         var phaseTargets = ImmutableArray<string>.Empty;
         var names = measureClause.Names.ToList();
+        if (measure == MeasureKind.PeakDuty)
+        {
+            if (PeakDutyWinding(names.FirstOrDefault()) is not { } winding) return;
+            targets.Add(new NodeRef(inFault!, names[1].Name.Span));
+            targets.Add(winding);
+            names.Clear();
+        }
         for (var i = 0; i < names.Count; i++)
         {
             if (IsFaultMeasure(measure))

@@ -357,13 +357,15 @@ internal sealed partial class BindRun
                 return;
             }
         }
+        // The minimum keeps the source's earthing: Zn = (Z0 − Z1)/3 as at the fault level.
+        var z1Minimum = MinimumImpedance(s, name.Text, vll, single: false, xr, z1.Magnitude);
         var acb = s.Clause("sequence")?.Word(w => w == "acb") is not null;
         var star = MadePoint(name.Text + "_n", name);
         var phases = Phases.All(name.Text);
         for (var k = 0; k < 3; k++)
         {
             var shift = Phasor.Pow(Phases.A, acb ? k : -k);
-            supplies.Add(new SupplyModel(phases[k], name.Name.Span, s.Span, lines[k]!, star, v / Math.Sqrt(3) * shift) { Impedance = z1 });
+            supplies.Add(new SupplyModel(phases[k], name.Name.Span, s.Span, lines[k]!, star, v / Math.Sqrt(3) * shift) { Impedance = z1, MinimumImpedance = z1Minimum });
         }
         var zn = (z0 - z1) / 3;
         if (zn == Phasor.Zero) grounds.Add(star);

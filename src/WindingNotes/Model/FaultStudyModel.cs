@@ -47,6 +47,12 @@ public sealed record FaultStudyModel(FaultMethod Method, bool Maximum, bool Mini
     /// <summary>κ by the ratio R/X at the fault times 1.15, as IEC 60909-0 asks for a meshed network.</summary>
     public bool Meshed { get; init; }
 
+    /// <summary>κ by the equivalent frequency (IEC 60909-0 method C): R/X of the loop solved at 20 Hz (50 Hz systems) or 24 Hz (60 Hz).</summary>
+    public bool EquivalentFrequency { get; init; }
+
+    /// <summary>Network transformers' impedances times K_T (IEC 60909-0) in the equivalent-source study.</summary>
+    public bool TransformerCorrection { get; init; }
+
     /// <summary>For minimum currents: the conductors' temperature at the end of the fault, K (IEC 60909-0); null keeps the reference temperature.</summary>
     public double? EndTemperature { get; init; }
 

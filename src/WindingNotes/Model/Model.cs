@@ -49,6 +49,9 @@ public sealed record WindingModel(string Name, TextSpan NameSpan, TextSpan Line,
     public double? ResistanceTemperature { get; init; }
 
     public ConductorModel? Conductor { get; init; }
+
+    /// <summary>The peak through-fault current the winding withstands, A (its dynamic ability).</summary>
+    public double? PeakWithstand { get; init; }
 }
 
 public enum TapUnit { Turns, Fraction, Volts }
@@ -89,6 +92,9 @@ public sealed record SupplyModel(string Name, TextSpan NameSpan, TextSpan Line, 
     public double? FaultPower { get; init; }
 
     public double? XR { get; init; }
+
+    /// <summary>The internal impedance at the minimum fault level ('minimum-fault-level'), at the frequency as written; for minimum short-circuit currents.</summary>
+    public Complex? MinimumImpedance { get; init; }
 }
 
 public enum LoadBehaviour { ConstantPower, ConstantCurrent, ConstantImpedance }
@@ -106,7 +112,7 @@ public sealed record FaultModel(string Name, TextSpan NameSpan, TextSpan Line, N
 
 public sealed record SweepModel(Symbol Target, TextSpan Line, Quantity From, Quantity To, Quantity? Step, int? Points);
 
-public enum MeasureKind { Voltage, Current, Loading, Flux, Power, Efficiency, Regulation, VectorGroup, HotSpot, TopOil, LossOfLife, Position, EquivalentAging, Capability, FaultCurrent, PeakCurrent, ThermalCurrent, EarthFaultFactor, PositiveSequence, ZeroSequence }
+public enum MeasureKind { Voltage, Current, Loading, Flux, Power, Efficiency, Regulation, VectorGroup, HotSpot, TopOil, LossOfLife, Position, EquivalentAging, Capability, FaultCurrent, PeakCurrent, ThermalCurrent, EarthFaultFactor, PositiveSequence, ZeroSequence, PeakDuty }
 
 public enum ConditionKind { Between, Below, Above, Near }
 

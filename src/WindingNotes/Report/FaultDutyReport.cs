@@ -17,6 +17,8 @@ public static class FaultDutyReport
     public static string Method(ShortCircuitResult sc) => sc.Study.Method == FaultMethod.AsLoaded
         ? "network as loaded: supplies as written, constant-power and constant-current loads as their pre-fault impedance"
         : $"equivalent voltage source at the fault (IEC 60909-0), c = {Numbers.Fixed(sc.VoltageFactor, 3)} ({(sc.Minimum ? "cmin" : "cmax")}) on Un = {Numbers.Format(sc.Nominal, "V")} from {sc.NominalFrom}, loads left out"
+          + (sc.TransformerCorrections.IsEmpty ? "" : $", network transformers times K_T = 0.95·cmax/(1 + 0.6·xT): {string.Join(", ", sc.TransformerCorrections.Select(k => $"{k.Line} {Numbers.Fixed(k.Factor)}"))}")
+          + (sc.WeakestSources.IsEmpty ? "" : $", {string.Join(", ", sc.WeakestSources.Select(s => $"'{s}'"))} at {(sc.WeakestSources.Length == 1 ? "its" : "their")} minimum fault level")
           + (sc.EndTemperature is { } end ? $", resistances given with a temperature at {Numbers.Format(end - 273.15, "degC")}" : "");
 
     /// <summary>How a two-node fault was solved, and which loads were taken as their pre-fault impedance.</summary>
@@ -28,7 +30,12 @@ public static class FaultDutyReport
         return "network as loaded: supplies as written" + (loads.Count == 0 ? "" : $", {string.Join(", ", loads)} as {(loads.Count == 1 ? "its" : "their")} pre-fault impedance");
     }
 
-    public static string Kappa(ShortCircuitResult sc) => sc.Study.Meshed
+    public static string Kappa(ShortCircuitResult sc) =>
+        sc.EquivalentRX is { } rxc
+        ? $"κ {Numbers.Fixed(sc.Kappa)} by the equivalent frequency (IEC 60909-0 method C): R/X {Numbers.Fixed(rxc)} = Rc/Xc × fc/f of the short-circuit impedance at fc = {Numbers.Format(sc.EquivalentFrequency, "Hz")} ({Numbers.Format(sc.EquivalentImpedance!.Value.Magnitude, "ohm")}); by the ratio at the fault {Numbers.Fixed(sc.KappaAtFault)}, R/X {Numbers.Fixed(sc.RX)}"
+        : sc.KappaExempt
+        ? $"κ {Numbers.Fixed(sc.Kappa)} for a meshed network by the ratio R/X at the fault (IEC 60909-0 method B) without the factor 1.15, as R/X is below 0.3 in every branch; R/X {Numbers.Fixed(sc.RX)} of the short-circuit impedance at the fault (positive sequence, {Numbers.Format(sc.Z1.Magnitude, "ohm")})"
+        : sc.Study.Meshed
         ? $"κ {Numbers.Fixed(sc.Kappa)} for a meshed network (IEC 60909-0 method B: 1.15 × {Numbers.Fixed(sc.KappaAtFault)} at most {(sc.Nominal > 1000 ? "2.0" : "1.8")}) from R/X {Numbers.Fixed(sc.RX)} of the short-circuit impedance at the fault (positive sequence, {Numbers.Format(sc.Z1.Magnitude, "ohm")})"
         : $"κ {Numbers.Fixed(sc.Kappa)} by the ratio R/X at the fault (IEC 60909-0 method B), R/X {Numbers.Fixed(sc.RX)} of the short-circuit impedance there (positive sequence, {Numbers.Format(sc.Z1.Magnitude, "ohm")})";
 
@@ -70,13 +77,15 @@ public static class FaultDutyReport
             Numbers.Format(sc.Thermal, "A"), $"{Numbers.Plain(sc.Study.Duration)} s", sc.EarthFaultFactor is { } k ? Numbers.Fixed(k) : "—",
         ]]);
         o.Append('\n');
-        MarkdownReport.Table(o, 1, ["winding", "current", "× rated", "peak (k·√2)", "temperature after", "limit", "category", "allowed", "duty"], sc.Duties.Select(d => new[]
+        MarkdownReport.Table(o, 1, ["winding", "current", "× rated", "peak (k·√2)", "peak withstand", "temperature after", "limit", "category", "allowed", "frequent faults", "duty"], sc.Duties.Select(d => new[]
         {
             d.Winding.Name, Numbers.Format(d.Current, "A"), d.Multiple is { } m ? Numbers.Plain(m) : "unrated",
             $"{Numbers.Format(d.Peak, "A")} ({Numbers.Fixed(d.AsymmetryFactor)})",
+            d.PeakWithstand is { } pw ? $"{Numbers.Format(pw, "A")} ({Numbers.Format(d.PeakDuty!.Value * 100, "%")})" : "not given",
             d.Temperature is { } t ? double.IsFinite(t) ? Numbers.Format(t - 273.15, "degC") : "no finite end" : "no conductor given",
             d.TemperatureLimit is { } l ? Numbers.Format(l - 273.15, "degC") : "—",
             d.Category ?? "—", d.AllowedSeconds is { } s ? $"{Numbers.Plain(s)} s" : "—",
+            d.FrequentSeconds is { } fs ? $"{Numbers.Plain(fs)} s" : "—",
             Verdict(sc, d),
         }));
     }
@@ -104,7 +113,14 @@ public static class FaultDutyReport
         SequenceJson(w, "vSequence", sc.Voltages);
         JsonReport.Number(w, "ik", sc.Initial);
         JsonReport.Number(w, "kappa", sc.Kappa);
-        w.WriteString("kappaMethod", sc.Study.Meshed ? "meshed" : "at-fault");
+        w.WriteString("kappaMethod", sc.EquivalentRX is not null ? "equivalent-frequency" : sc.KappaExempt ? "meshed-exempt" : sc.Study.Meshed ? "meshed" : "at-fault");
+        if (sc.EquivalentRX is { } rxc) JsonReport.Number(w, "rxEquivalent", rxc);
+        if (!sc.TransformerCorrections.IsEmpty)
+        {
+            w.WriteStartObject("transformerCorrection");
+            foreach (var (line, factor) in sc.TransformerCorrections) JsonReport.Number(w, line, factor);
+            w.WriteEndObject();
+        }
         if (sc.EndTemperature is { } end) JsonReport.Number(w, "endTemperature", end - 273.15);
         if (double.IsFinite(sc.RX)) JsonReport.Number(w, "rx", sc.RX);
         JsonReport.Number(w, "ip", sc.Peak);
@@ -119,11 +135,14 @@ public static class FaultDutyReport
             JsonReport.Number(w, "i", d.Current);
             if (d.Multiple is { } m) JsonReport.Number(w, "multiple", m);
             JsonReport.Number(w, "peak", d.Peak);
+            if (d.PeakWithstand is { } pw) JsonReport.Number(w, "peakWithstand", pw);
             if (d.Temperature is { } t && double.IsFinite(t)) JsonReport.Number(w, "temperature", t - 273.15);
             if (d.TemperatureLimit is { } l) JsonReport.Number(w, "temperatureLimit", l - 273.15);
             if (d.Category is { } c) w.WriteString("category", c);
             if (d.AllowedSeconds is { } s) JsonReport.Number(w, "allowed", s);
-            w.WriteBoolean("withstands", !d.ThermalExceeded && !d.CategoryExceeded(sc.Study.Duration));
+            if (d.FrequentSeconds is { } fs) JsonReport.Number(w, "allowedFrequent", fs);
+            if (d.LargestMultiple is { } lm) JsonReport.Number(w, "largestMultiple", lm);
+            w.WriteBoolean("withstands", !Exceeds(sc, d));
             w.WriteEndObject();
         }
         w.WriteEndObject();
@@ -134,15 +153,20 @@ public static class FaultDutyReport
     public static string Duty(ShortCircuitResult sc, WindingDuty d)
     {
         var parts = new List<string> { $"{Numbers.Format(d.Current, "A")}{(d.Multiple is { } m ? $" ({Numbers.Plain(m)} × rated)" : "")}, peak {Numbers.Format(d.Peak, "A")} (k·√2 {Numbers.Fixed(d.AsymmetryFactor)})" };
+        if (d.PeakWithstand is { } pw) parts.Add($"peak withstand {Numbers.Format(pw, "A")} ({Numbers.Format(d.PeakDuty!.Value * 100, "%")} of it)");
         if (d.Temperature is { } t)
             parts.Add($"{(double.IsFinite(t) ? Numbers.Format(t - 273.15, "degC") : "no finite temperature")} after {Numbers.Plain(sc.Study.Duration)} s (limit {Numbers.Format(d.TemperatureLimit!.Value - 273.15, "degC")})");
-        if (d.Category is { } c) parts.Add($"category {c}: {Numbers.Plain(d.AllowedSeconds!.Value)} s allowed");
+        if (d.Category is { } c)
+            parts.Add($"category {c}: {Numbers.Plain(d.AllowedSeconds!.Value)} s allowed"
+                + (d.FrequentSeconds is { } fs && d.LargestMultiple is { } lm ? $", {Numbers.Plain(fs)} s for frequent faults (largest multiple {Numbers.Plain(lm)})" : ""));
         parts.Add(Verdict(sc, d));
         return string.Join(", ", parts);
     }
 
+    private static bool Exceeds(ShortCircuitResult sc, WindingDuty d) => d.PeakExceeded || d.ThermalExceeded || d.CategoryExceeded(sc.Study.Duration) || d.FrequentExceeded(sc.Study.Duration);
+
     private static string Verdict(ShortCircuitResult sc, WindingDuty d) =>
-        d.ThermalExceeded || d.CategoryExceeded(sc.Study.Duration) ? "exceeds" : d.Temperature is null && d.Category is null ? "not judged" : "withstands";
+        Exceeds(sc, d) ? "exceeds" : d.Temperature is null && d.Category is null && d.PeakWithstand is null ? "not judged" : "withstands";
 
     private static string TimeConstant(ShortCircuitResult sc) => double.IsFinite(sc.DcTimeConstant) ? Numbers.Format(sc.DcTimeConstant * 1000, "ms") : "infinite";
 

@@ -46,6 +46,15 @@ public static class ResultValues
             var name = c.GetProperty("name").GetString()!;
             foreach (var group in c.EnumerateObject())
             {
+                if (group.Name == "busFault")
+                {
+                    // A bus fault's study: its currents, and each line's and winding's duty by name.
+                    foreach (var p in group.Value.EnumerateObject())
+                        if (p.Name is "lines" or "duties")
+                            foreach (var e in p.Value.EnumerateObject()) Walk(values, name, $"bus fault {(p.Name == "lines" ? "line" : "winding")} {e.Name}", "", e.Value);
+                        else Walk(values, name, "bus fault", p.Name, p.Value);
+                    continue;
+                }
                 if (!Groups.TryGetValue(group.Name, out var kind)) continue;
                 if (group.Name == "totals")
                 {

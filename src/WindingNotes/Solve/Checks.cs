@@ -141,7 +141,7 @@ public static class Checks
                 if (result.TapPositions.FirstOrDefault(p => p.Changer.Name == t[0].Name) is { } tap) return tap.Position;
                 problem = $"the position of '{t[0].Name}' is not known in this case";
                 return null;
-            case MeasureKind.FaultCurrent or MeasureKind.PeakCurrent or MeasureKind.ThermalCurrent or MeasureKind.EarthFaultFactor:
+            case MeasureKind.FaultCurrent or MeasureKind.PeakCurrent or MeasureKind.ThermalCurrent or MeasureKind.EarthFaultFactor or MeasureKind.PeakDuty:
                 return FaultChecks.Measure(expect, result, out problem);
             case MeasureKind.Efficiency:
                 if (result.Totals.Efficiency is { } efficiency) return efficiency;

@@ -53,6 +53,14 @@ public static class FaultChecks
             case MeasureKind.FaultCurrent: return sc.Initial;
             case MeasureKind.PeakCurrent: return sc.Peak;
             case MeasureKind.ThermalCurrent: return sc.Thermal;
+            case MeasureKind.PeakDuty:
+                // A three-phase winding's phases (HV_a of HV): the largest duty among them.
+                var name = e.Targets[1].Name;
+                var phases = result.Solution.Network.Model.ThreePhase.Windings.FirstOrDefault(w => w.Name == name)?.PhaseWindings.ToHashSet() ?? [name];
+                var duties = sc.Duties.Where(d => phases.Contains(d.Winding.Name) && d.PeakDuty is not null).ToList();
+                if (duties.Count > 0) return duties.Max(d => d.PeakDuty!.Value);
+                problem = $"winding '{name}' carries no current in bus fault '{sc.Fault.Name}' or gives no peak withstand";
+                return null;
             default:
                 if (sc.EarthFaultFactor is { } k) return k;
                 problem = $"a {BusFaultModel.Word(sc.Fault.Kind)} fault does not go to earth: the earth-fault factor is of line-to-ground and double-line-to-ground faults";

@@ -34,6 +34,26 @@ public sealed record WindingDuty(WindingNet Winding, string Section, double Curr
     /// <summary>The largest multiple of rated current a category I unit is built for.</summary>
     public double? MaxMultiple { get; init; }
 
+    /// <summary>
+    /// The seconds the category's frequent-fault curve allows at this multiple (IEEE C57.109): category I's
+    /// one curve, categories II and III their own; null for category IV or where the largest fault is unknown.
+    /// </summary>
+    public double? FrequentSeconds { get; init; }
+
+    /// <summary>The largest through-fault multiple the frequent-fault curve of category II or III is drawn from.</summary>
+    public double? LargestMultiple { get; init; }
+
+    /// <summary>Past the frequent-fault curve but within the infrequent one (which says more where both are passed).</summary>
+    public bool FrequentExceeded(double duration) => FrequentSeconds is { } s && duration > s * (1 + 1e-9) && !CategoryExceeded(duration);
+
+    /// <summary>The peak the winding withstands as its line gives it ('peak-withstand'), A.</summary>
+    public double? PeakWithstand { get; init; }
+
+    /// <summary>The peak over the peak withstand; null where the winding gives none.</summary>
+    public double? PeakDuty => PeakWithstand is { } w ? Peak / w : null;
+
+    public bool PeakExceeded => PeakDuty is { } d && d > 1 + 1e-9;
+
     public bool ThermalExceeded => Temperature is { } t && TemperatureLimit is { } l && t > l;
 
     public bool CategoryExceeded(double duration) =>
@@ -46,8 +66,25 @@ public sealed record ShortCircuitResult(BusFaultModel Fault, FaultStudyModel Stu
     /// <summary>Minimum currents with the conductors at the end temperature: that temperature, K.</summary>
     public double? EndTemperature { get; init; }
 
-    /// <summary>κ before the factor 1.15 of a meshed network (IEC 60909-0 method B); equal to κ otherwise.</summary>
+    /// <summary>The impedance lines corrected by K_T (IEC 60909-0 network transformers), by their windings, with K_T.</summary>
+    public ImmutableArray<(string Line, double Factor)> TransformerCorrections { get; init; } = [];
+
+    /// <summary>Minimum currents: the supplies taken at their minimum fault level.</summary>
+    public ImmutableArray<string> WeakestSources { get; init; } = [];
+
+    /// <summary>κ by the ratio R/X at the fault (IEC 60909-0 method B) before any factor 1.15; equal to κ with 'at-fault'.</summary>
     public double KappaAtFault { get; init; }
+
+    /// <summary>A meshed network whose every branch has R/X below 0.3: κ takes no factor 1.15.</summary>
+    public bool KappaExempt { get; init; }
+
+    /// <summary>Method C: the loop's impedance at the equivalent frequency, ohm, and that frequency, Hz.</summary>
+    public Complex? EquivalentImpedance { get; init; }
+
+    public double EquivalentFrequency { get; init; }
+
+    /// <summary>Method C: R/X = (Rc/Xc)·(fc/f).</summary>
+    public double? EquivalentRX { get; init; }
 
     /// <summary>The voltage factor c of the equivalent source; 1 as loaded.</summary>
     public double VoltageFactor { get; init; } = 1;
@@ -122,6 +159,10 @@ public static class FaultStudy
         var cases = ImmutableArray.CreateBuilder<CaseResult>();
         Solution? noLoad = null;
         Network? hotNetwork = null;
+        // K_T on the network transformers (equivalent source only): the study's networks are built from the corrected model.
+        var corrections = study.TransformerCorrection && study.Method == FaultMethod.EquivalentSource ? Corrections(model) : [];
+        var corrected = corrections.IsEmpty ? model : Corrected(model, corrections);
+        var strongNetwork = corrections.IsEmpty ? network : NetworkBuilder.Build(corrected);
         foreach (var fault in model.BusFaults)
         {
             cancel.ThrowIfCancellationRequested();
@@ -155,25 +196,202 @@ public static class FaultStudy
             {
                 var c = study.Method == FaultMethod.AsLoaded ? 1 : VoltageFactor(nominal, minimum, study.LowVoltageTolerance);
                 var scale = study.Method == FaultMethod.AsLoaded ? 1 : c * nominal / Math.Sqrt(3) / phaseVolts;
-                // Minimum currents with the conductors hot: resistances given with a temperature (stated at one,
-                // or from a conductor at 20 °C) corrected to the end temperature (IEC 60909-0, from memory).
-                var hot = minimum && study.EndTemperature is { } end ? hotNetwork ??= NetworkBuilder.Build(model with { Temperature = end }) : network;
+                // Minimum currents on the network at its weakest (IEC 60909-0, from memory): each supply at its
+                // 'minimum-fault-level', and the conductors hot: resistances given with a temperature (stated at
+                // one, or from a conductor at 20 °C) corrected to the end temperature.
+                var weakest = minimum && (study.EndTemperature is not null || model.Supplies.Any(s => s.MinimumImpedance is not null));
+                var hot = weakest ? hotNetwork ??= NetworkBuilder.Build(Weakest(corrected)) : strongNetwork;
                 var result = Solve(hot, pre, fault, bus, earth, minimum, c, scale, diagnostics, cancel);
                 if (result is null) continue;
                 var sc = result.ShortCircuit! with
                 {
                     Nominal = nominal, NominalFrom = from, PreFault = [.. vpre.Select(v => v * scale)],
-                    EndTemperature = hot == network ? null : study.EndTemperature,
+                    TransformerCorrections = [.. corrections.GroupBy(k => k.Line).Select(g => (g.Key, g.First().Factor))],
+                    EndTemperature = weakest ? study.EndTemperature : null,
+                    WeakestSources = !weakest ? [] : [.. model.Supplies.Where(s => s.MinimumImpedance is not null).Select(s => model.ThreePhase.Supplies.FirstOrDefault(t => Phases.All(t.Name).Contains(s.Name))?.Name ?? s.Name).Distinct()],
                 };
+                if (study.EquivalentFrequency) sc = Equivalent(hot, sc, fault, bus, earth, minimum, c, scale, cancel);
                 sc = Finish(network, sc, result, model.Frequency, vpre, scale);
-                ReportDuty(sc, diagnostics);
                 // The case keeps the network as written (its fault branches and hot resistances are the solver's business),
                 // so what reads it beside the normal case (the phasor diagram's voltage levels) finds the same nodes.
                 cases.Add(result with { ShortCircuit = sc, Solution = result.Solution.Compact() with { Network = network } });
             }
         }
-        return cases.ToImmutable();
+        var studied = Frequent(network, cases.ToImmutable());
+        foreach (var c in studied) ReportDuty(c.ShortCircuit!, diagnostics);
+        return studied;
     }
+
+    /// <summary>
+    /// The frequent-fault limits of IEEE C57.109 (from memory): the largest through-fault multiple of a
+    /// category II winding is 1/Zt, its unit's own impedance (<see cref="ImpedanceMultiple"/>); of a
+    /// category III winding 1/(Zt + Zs), the system's impedance included, which is the largest multiple
+    /// the file's maximum-current studies drive through it (no larger than 1/Zt): a file that faults no
+    /// terminal of the unit understates it, which shortens the time allowed (it errs safe).
+    /// </summary>
+    private static ImmutableArray<CaseResult> Frequent(Network network, ImmutableArray<CaseResult> cases)
+    {
+        var studied = new Dictionary<string, double>();
+        foreach (var d in cases.Where(c => !c.ShortCircuit!.Minimum).SelectMany(c => c.ShortCircuit!.Duties))
+            if (d.Multiple is { } m) studied[d.Winding.Name] = Math.Max(m, studied.GetValueOrDefault(d.Winding.Name));
+        return [.. cases.Select(c => c with
+        {
+            ShortCircuit = c.ShortCircuit! with
+            {
+                Duties = [.. c.ShortCircuit.Duties.Select(d =>
+                {
+                    if (d.Category is not { } category || d.Multiple is not { } m) return d;
+                    if (category == "I") return d with { FrequentSeconds = d.AllowedSeconds };
+                    var own = ImpedanceMultiple(network, d.Winding);
+                    double? largest = category switch
+                    {
+                        "II" => own,
+                        "III" => studied.TryGetValue(d.Winding.Name, out var s) ? own is { } o ? Math.Min(s, o) : s : own,
+                        _ => null,
+                    };
+                    return largest is { } l ? d with { LargestMultiple = l, FrequentSeconds = FrequentSeconds(category, m, l) } : d;
+                })],
+            },
+        })];
+    }
+
+    /// <summary>
+    /// The frequent-fault curve of categories II and III (IEEE C57.109, from memory): I²t = K with K set by
+    /// the largest through-fault multiple at 2 s, from 70 % (II) or 50 % (III) of that multiple up; below it
+    /// the thermal curve I²t = 1250 (multiples of rated current, seconds), which also bounds it where the
+    /// largest multiple passes 25. At or above the largest multiple (a voltage factor c above 1 can reach
+    /// past it) the curve's end, 2 s.
+    /// </summary>
+    public static double FrequentSeconds(string category, double multiple, double largest)
+    {
+        var from = category == "II" ? 0.7 : 0.5;
+        var thermal = 1250 / (multiple * multiple);
+        if (multiple >= largest) return Math.Min(2, thermal);
+        return multiple >= from * largest ? Math.Min(2 * largest * largest / (multiple * multiple), thermal) : thermal;
+    }
+
+    /// <summary>
+    /// The largest multiple of rated current a winding carries in a fault at its unit's terminals on an
+    /// infinite bus, 1/Zt: of the impedance lines that name the whole winding, the one of least impedance.
+    /// A line gives Z in ohms referred to its first winding (per unit times V1²/S); referred to this
+    /// winding by the rated voltages, I = Vw/|Zw| = V1²/(|Z|·Vw). Null without such a line or the ratings.
+    /// </summary>
+    public static double? ImpedanceMultiple(Network network, WindingNet w)
+    {
+        if (w.RatedVoltage is not { } vw || w.RatedCurrent is not { } ir || ir <= 0) return null;
+        double? best = null;
+        foreach (var line in network.Model.Impedances.Where(z => (z.First.Winding == w.Name && z.First.From is null) || (z.Second.Winding == w.Name && z.Second.From is null)))
+        {
+            if (network.Windings.FirstOrDefault(x => x.Name == line.First.Winding) is not { RatedVoltage: { } v1 } first) continue;
+            var ohms = line.Value.Magnitude;
+            if (line.PerUnit)
+            {
+                if ((line.Base ?? network.Cores[first.Core].Source.Rating) is not { } s || s <= 0) continue;
+                ohms *= v1 * v1 / s;
+            }
+            if (ohms <= 0) continue;
+            var m = v1 * v1 / (ohms * vw) / ir;
+            best = Math.Max(best ?? 0, m);
+        }
+        return best;
+    }
+
+    /// <summary>
+    /// Method C of IEC 60909-0 (from memory): the loop's impedance Zc = Rc + jXc at the equivalent
+    /// frequency fc (20 Hz for a 50 Hz system, 24 Hz for 60 Hz, that is 0.4·f), by the same solver on
+    /// the network built at fc (reactances follow the frequency, resistances stay); R/X = (Rc/Xc)·(fc/f).
+    /// </summary>
+    private static ShortCircuitResult Equivalent(Network network, ShortCircuitResult sc, BusFaultModel fault, int[] bus, int earth, bool minimum, double c, double scale,
+        CancellationToken cancel)
+    {
+        var model = network.Model;
+        var fc = model.Frequency * 0.4;
+        var atFc = NetworkBuilder.Build(model with { RatedFrequency = model.RatedFrequency, Frequency = fc });
+        var pre = NetworkSolver.Solve(atFc, CaseSpec.NoLoad, cancel);
+        if (!pre.Solved || !pre.HasVectors) return sc;
+        // Its messages are the main solve's over again: kept apart.
+        var quiet = new DiagnosticBag();
+        var bolted = Solve(atFc, pre, fault with { Kind = BusFaultKind.ThreePhase, Impedance = 0 }, bus, earth, minimum, c, scale, quiet, cancel);
+        if (bolted?.ShortCircuit is not { } b || b.Z1.Imaginary <= 0) return sc;
+        return sc with { EquivalentImpedance = b.Z1, EquivalentFrequency = fc, EquivalentRX = b.Z1.Real / b.Z1.Imaginary * (fc / model.Frequency) };
+    }
+
+    /// <summary>
+    /// Whether every branch has R/X below 0.3, so a meshed network's κ needs no factor 1.15 (IEC 60909-0,
+    /// from memory). The branches: each supply's internal impedance; each 'impedance' line, by its own
+    /// R/X where neither winding states a resistance or conductor (else the branch's ratio is the
+    /// windings' resistance against the line's reactance, which is not read here: not exempt, which errs
+    /// high); as loaded, each load by its pre-fault P/Q.
+    /// </summary>
+    public static bool MeshedExempt(Network network)
+    {
+        const double limit = 0.3;
+        var model = network.Model;
+        foreach (var s in network.Supplies)
+            if (s.Impedance != Complex.Zero && !(s.Impedance.Imaginary > 0 && s.Impedance.Real / s.Impedance.Imaginary < limit)) return false;
+        bool States(string winding) => model.Windings.FirstOrDefault(w => w.Name == winding) is { } w && (w.Resistance is not null || w.Conductor is not null);
+        foreach (var z in model.Impedances)
+        {
+            if (States(z.First.Winding) || States(z.Second.Winding)) return false;
+            double? rx = z.Value.Imaginary != 0 ? z.Value.Real / z.Value.Imaginary : z.XR is { } xr && xr > 0 ? 1 / xr : null;
+            if (rx is not { } r || r < 0 || r >= limit) return false;
+        }
+        if (model.FaultStudy.Method == FaultMethod.AsLoaded)
+            foreach (var l in network.Loads)
+                if (!(l.Source.S0.Imaginary > 0 && l.Source.S0.Real / l.Source.S0.Imaginary < limit)) return false;
+        return true;
+    }
+
+    /// <summary>
+    /// K_T = 0.95·cmax/(1 + 0.6·xT) of IEC 60909-0 (from memory) for each impedance line between two whole
+    /// windings: every unit here joins two networks (no generator's unit transformer is modelled), so each
+    /// is a network transformer, and a three-winding unit's pairs each take their own (K_TAB, K_TAC, K_TBC).
+    /// xT is the line's reactance per unit on its own base (per unit as given, or ohms over V1²/S); a bare
+    /// magnitude counts whole as reactance. cmax is that of the lower of the two windings' nominal
+    /// line-to-line voltages. The factor scales the line as given (R and X); resistances stated on the
+    /// windings are not scaled. Lines without a base (ohms on a core with no rating) are left as written.
+    /// </summary>
+    public static ImmutableArray<(ImpedanceModel Impedance, string Line, double Factor)> Corrections(Model.Model model)
+    {
+        var result = ImmutableArray.CreateBuilder<(ImpedanceModel, string, double)>();
+        foreach (var z in model.Impedances.Where(z => z.First.From is null && z.Second.From is null))
+        {
+            var first = model.Windings.FirstOrDefault(w => w.Name == z.First.Winding);
+            var second = model.Windings.FirstOrDefault(w => w.Name == z.Second.Winding);
+            if (first?.Rated is not { } v1 || second?.Rated is not { } v2) continue;
+            var magnitude = z.Value.Magnitude;
+            var x = z.Value.Imaginary != 0 ? z.Value.Imaginary : z.XR is { } xr ? magnitude * xr / Math.Sqrt(1 + xr * xr) : magnitude;
+            if (!z.PerUnit)
+            {
+                if ((z.Base ?? model.Cores.FirstOrDefault(k => k.Name == first.Core)?.Rating) is not { } s || s <= 0) continue;
+                x /= v1 * v1 / s;
+            }
+            var nominal = Math.Min(LineVoltage(model, first.Name, v1), LineVoltage(model, second.Name, v2));
+            var factor = 0.95 * VoltageFactor(nominal, minimum: false, model.FaultStudy.LowVoltageTolerance) / (1 + 0.6 * x);
+            result.Add((z, $"{Unphased(model, z.First.Winding)} {Unphased(model, z.Second.Winding)}", factor));
+        }
+        return result.ToImmutable();
+    }
+
+    private static Model.Model Corrected(Model.Model model, ImmutableArray<(ImpedanceModel Impedance, string Line, double Factor)> corrections) => model with
+    {
+        Impedances = [.. model.Impedances.Select(z => corrections.FirstOrDefault(k => ReferenceEquals(k.Impedance, z)) is { Impedance: not null } k ? z with { Value = z.Value * k.Factor } : z)],
+    };
+
+    /// <summary>A winding's nominal line-to-line voltage: a wye, zigzag or series phase's rated voltage times √3.</summary>
+    private static double LineVoltage(Model.Model model, string winding, double rated) =>
+        model.ThreePhase.Windings.FirstOrDefault(t => t.PhaseWindings.Contains(winding)) is { } t && t.Connection != PhaseConnection.Delta && t.Connection != PhaseConnection.Ends
+            ? rated * Math.Sqrt(3) : rated;
+
+    private static string Unphased(Model.Model model, string winding) =>
+        model.ThreePhase.Windings.FirstOrDefault(t => t.PhaseWindings.Contains(winding))?.Name ?? winding;
+
+    /// <summary>The model at its weakest: supplies at their minimum fault level, the temperature at the end of the fault.</summary>
+    private static Model.Model Weakest(Model.Model model) => model with
+    {
+        Supplies = [.. model.Supplies.Select(s => s.MinimumImpedance is { } z ? s with { Impedance = z, FaultCurrent = null, FaultPower = null } : s)],
+        Temperature = model.FaultStudy.EndTemperature ?? model.Temperature,
+    };
 
     private static IEnumerable<bool> Extremes(FaultStudyModel study)
     {
@@ -248,11 +466,12 @@ public static class FaultStudy
 
     /// <summary>
     /// The time a category allows at a multiple M of rated current for an infrequent fault (from
-    /// memory): category I t = 1250/M² s (I²t = 1250 in multiples of rated current, IEEE C57.12.00 and
-    /// the thermal curve of C57.109); categories II to IV 2 s at the current the impedances allow.
+    /// memory): categories I to III t = 1250/M² s (I²t = 1250 in multiples of rated current, IEEE
+    /// C57.12.00 and the thermal curve of C57.109, which is the infrequent-fault curve of II and III);
+    /// category IV 2 s at the current the impedances allow.
     /// </summary>
     public static double AllowedSeconds(string category, double multiple) =>
-        category == "I" ? 1250 / (multiple * multiple) : 2;
+        category != "IV" ? 1250 / (multiple * multiple) : 2;
 
     /// <summary>The largest symmetrical multiple a category I unit is built for, by kVA (IEEE C57.12.00, from memory): 40, 35 or 25.</summary>
     public static double CategoryOneMultiple(double kva, bool threePhase) =>
@@ -417,7 +636,8 @@ public static class FaultStudy
         var rx = sc.RX;
         var xr = rx > 0 ? 1 / rx : double.PositiveInfinity;
         var atFault = Kappa(rx);
-        var kappa = sc.Study.Meshed ? MeshedKappa(atFault, sc.Nominal) : atFault;
+        var exempt = sc.Study.Meshed && MeshedExempt(network);
+        var kappa = sc.EquivalentRX is { } rxc ? Kappa(rxc) : sc.Study.Meshed && !exempt ? MeshedKappa(atFault, sc.Nominal) : atFault;
         var m = ThermalM(kappa, frequency, sc.Study.Duration);
         double? earthFactor = null;
         if (sc.Fault.ToEarth)
@@ -432,7 +652,10 @@ public static class FaultStudy
             var worst = group.MaxBy(s => s.Current.Magnitude)!;
             var w = worst.Winding;
             var i = worst.Current.Magnitude;
-            var duty = new WindingDuty(w, worst.Section.Name, i, w.RatedCurrent is { } r && r > 0 ? i / r : null, asym, asym * i);
+            var duty = new WindingDuty(w, worst.Section.Name, i, w.RatedCurrent is { } r && r > 0 ? i / r : null, asym, asym * i)
+            {
+                PeakWithstand = w.Source.PeakWithstand,
+            };
             if (w.Source.Conductor is { } conductor)
             {
                 var density = i / conductor.Area;
@@ -461,6 +684,7 @@ public static class FaultStudy
             Initial = initial,
             Kappa = kappa,
             KappaAtFault = atFault,
+            KappaExempt = exempt,
             Peak = kappa * Math.Sqrt(2) * initial,
             Peak60076 = asym * initial,
             ThermalFactorM = m,
@@ -492,8 +716,10 @@ public static class FaultStudy
         if (!sc.Minimum || !sc.Study.Maximum) diagnostics.ReportBusFaultDuty(sc, worst);
         foreach (var d in sc.Duties)
         {
+            if (d.PeakExceeded) diagnostics.ReportPeakAboveWithstand(sc, d);
             if (d.ThermalExceeded) diagnostics.ReportWindingHotAfterFault(sc, d);
             if (d.CategoryExceeded(sc.Study.Duration)) diagnostics.ReportThroughFaultCategory(sc, d);
+            if (d.FrequentExceeded(sc.Study.Duration)) diagnostics.ReportFrequentFaultCurve(sc, d);
         }
     }
 }

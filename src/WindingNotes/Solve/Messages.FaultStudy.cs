@@ -31,6 +31,17 @@ public static partial class SolveMessages
                 + (double.IsFinite(d.Temperature!.Value) ? $"reaches an average of {Numbers.Format(d.Temperature.Value - 273.15, "degC")}" : "has no finite end temperature")
                 + $", above the {Numbers.Format(d.TemperatureLimit!.Value - 273.15, "degC")} allowed for {(d.Material == ConductorMaterial.Copper ? "copper" : "aluminium")} (IEC 60076-5)");
 
+        public Diagnostic ReportPeakAboveWithstand(ShortCircuitResult sc, WindingDuty d) =>
+            bag.Warning("fault-duty-high", d.Winding.Source.NameSpan,
+                $"fault duty: in bus fault '{sc.Fault.Name}' ({sc.Extreme}) winding '{d.Winding.Name}' must withstand a peak of {Numbers.Format(d.Peak, "A")} "
+                + $"(k·√2 {Numbers.Fixed(d.AsymmetryFactor)} times {Numbers.Format(d.Current, "A")}), above its peak withstand of {Numbers.Format(d.PeakWithstand!.Value, "A")}: "
+                + "the short-circuit forces may deform or displace it (IEC 60076-5 dynamic ability)");
+
+        public Diagnostic ReportFrequentFaultCurve(ShortCircuitResult sc, WindingDuty d) =>
+            bag.Warning("fault-duty-high", d.Winding.Source.NameSpan,
+                $"in bus fault '{sc.Fault.Name}' ({sc.Extreme}): winding '{d.Winding.Name}' carries {Numbers.Plain(d.Multiple!.Value)} times its rated current for {Numbers.Plain(sc.Study.Duration)} s; "
+                + $"where faults are frequent, a category {d.Category} unit is allowed {Numbers.Plain(d.FrequentSeconds!.Value)} s at that current (IEEE C57.109 frequent-fault curve)");
+
         public Diagnostic ReportThroughFaultCategory(ShortCircuitResult sc, WindingDuty d) =>
             bag.Warning("fault-duty-high", d.Winding.Source.NameSpan,
                 $"in bus fault '{sc.Fault.Name}' ({sc.Extreme}): winding '{d.Winding.Name}' carries {Numbers.Plain(d.Multiple!.Value)} times its rated current for {Numbers.Plain(sc.Study.Duration)} s; a category {d.Category} unit "

@@ -215,4 +215,17 @@ public class ResultDiffTests
         Snapshot.Match(DiffReport.Text(diff), "Data/diffs/alder-bigger-planer.txt");
         Snapshot.Match(DiffReport.Markdown(diff), "Data/diffs/alder-bigger-planer.md");
     }
+
+    [Fact]
+    public void A_bus_fault_study_is_compared_by_its_currents_and_each_winding_duty()
+    {
+        // The grid weaker at its minimum (200 MVA to 150 MVA) lowers the minimum studies' I″k only; a lower
+        // peak withstand moves the windings' withstand and the peak-duty checks.
+        var quarry = File.ReadAllText(Command.Example("quarry-lane-fault-duty.wn"));
+        var weaker = Diff(quarry, quarry.Replace("minimum-fault-level 200 MVA", "minimum-fault-level 150 MVA"));
+        Assert.Contains(weaker.Values, v => v.Case == "bus-fault F3 minimum" && v.Label == "bus fault ik" && v.New < v.Old);
+        Assert.DoesNotContain(weaker.Values, v => v.Case == "bus-fault F3 maximum" && v.Label == "bus fault ik");
+        var withstand = Diff(quarry, quarry.Replace("peak-withstand 120 kA", "peak-withstand 110 kA"));
+        Assert.Contains(withstand.Values, v => v.Label == "bus fault winding LV_a peakWithstand" && v.New == 110e3);
+    }
 }
