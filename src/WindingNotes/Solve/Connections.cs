@@ -22,11 +22,11 @@ public sealed record Connection(SupplyNet Supply, LoadNet Load, ImmutableArray<i
 
     public (int A, int B) FedFrom { get; init; }
     /// <summary>
-    /// Whether the supply or the load is a phase of a three-phase statement: the co-ratio, the
-    /// two-winding rating and the common terminal compare one phase element's voltage with another's,
-    /// which a three-phase connection (line-to-line output from line-to-neutral phases) does not
-    /// allow; the lack of isolation holds all the same, and so does the output against the voltage
-    /// between the supply points it is fed from.
+    /// Whether the supply or the load is a phase of a three-phase statement: its common terminal is
+    /// not cautioned by the phase element's ends (a line-to-line output from line-to-neutral phases
+    /// shares no terminal of one phase element with another); the lack of isolation holds all the
+    /// same, and so do the output against the voltage between the supply points it is fed from and
+    /// the co-ratio and two-winding rating, taken from the series windings' own V·I.
     /// </summary>
     public bool IsPhaseElement(Model.Model model) =>
         model.ThreePhase.IsSupplyOrLoad(Supply.Source.Line) || model.ThreePhase.IsSupplyOrLoad(Load.Source.Line);

@@ -242,7 +242,10 @@ public static class Results
     private static ImmutableArray<ConnectionResult> ConnectionsOf(Network network, Solution solution, ImmutableArray<LoadResult> loads)
     {
         if (solution.Case.WithoutLoads || solution.Case.Fault is not null) return [];
-        var connections = Solve.Connections.Find(network).Where(c => !c.IsPhaseElement(network.Model)).ToList();
+        // Phase elements too: the co-ratio and the rating needed are taken from the series windings' own
+        // V·I, never from one phase element's voltage against another's, so a three-phase statement
+        // gets the figures of the same network written phase by phase.
+        var connections = Solve.Connections.Find(network).ToList();
         var carried = connections.GroupBy(c => c.Island).ToDictionary(g => g.Key,
             g => g.SelectMany(c => c.Series).Distinct().Sum(s => solution.SectionVoltage(network.Sections[s]).Magnitude * solution.SectionCurrents[s].Magnitude));
         // A load fed from several islands shares its throughput among them equally, so the co-ratio of

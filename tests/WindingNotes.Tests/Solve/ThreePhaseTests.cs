@@ -428,6 +428,53 @@ public class ThreePhaseTests
         Assert.Contains("core 'B_a' is rated 1.500 kVA", warnings[0].Message);
     }
 
+    [Fact]
+    public void A_wye_boost_written_three_phase_gets_the_connection_rating_of_its_phase_by_phase_form()
+    {
+        // Tern Lake in three-phase form: 'core B construction bank rating 4.5 kVA' is three 1.5 kVA
+        // units, each grounded at N and so each its own island, as in the phase-by-phase twin. Each
+        // unit's two-winding rating is its own series winding's V·I (about 1.19 kVA by hand: see
+        // Units_in_grounded_wye_written_phase_by_phase_each_need_their_own_series_winding_VA), and
+        // each delta phase of the 40 kVA load shares its 13.33 kVA between the two units feeding it,
+        // so a co-ratio of V_S·I/(40 kVA/3), about 0.089: the same network, so the same figures.
+        var example = File.ReadAllText(Path.Combine(Snapshot.RepositoryRoot, "examples", "tern-lake-wye-boost.wn"));
+        var twin = File.ReadAllText(Path.Combine(Snapshot.TestsRoot(), "Data", "threephase", "tern-lake-wye-boost.wn"));
+        var (threePhase, byPhase) = (Wn.Solved(example), Wn.Solved(twin));
+        var (a, b) = (threePhase.Normal!, byPhase.Normal!);
+        static string Key(CaseResult c, ConnectionResult x) =>
+            $"{x.Connection.Load.Name} from {x.Connection.Supply.Name} on {string.Join(",", x.Connection.Cores.Select(i => c.Solution.Network.Cores[i].Name))}";
+        Assert.Equal(b.Connections.Select(x => Key(b, x)), a.Connections.Select(x => Key(a, x)));
+        foreach (var (x, y) in a.Connections.Zip(b.Connections))
+        {
+            Wn.Near(y.CoRatio!.Value, x.CoRatio!.Value, 1e-9, "co-ratio");
+            Wn.Near(y.TwoWindingRating, x.TwoWindingRating, 1e-9, "two-winding rating");
+        }
+        foreach (var unit in new[] { "a", "b", "c" })
+        {
+            var (sa, sb) = (a.Sections.Single(x => x.Winding.Name == $"S_{unit}"), b.Sections.Single(x => x.Winding.Name == $"S_{unit}"));
+            var carried = sa.Voltage.Magnitude * sa.Current.Magnitude;
+            Wn.Near(sb.Voltage.Magnitude * sb.Current.Magnitude, carried, 1e-9, $"unit {unit}: series winding V·I");
+            // The unit's part of the throughput is 40 kVA/3: its co-ratio is its own V·I over that.
+            var fed = a.Connections.First(x => x.Connection.Cores.Any(i => a.Solution.Network.Cores[i].Name == $"B_{unit}"));
+            Wn.Near(carried / (40e3 / 3), fed.CoRatio!.Value, 1e-9, $"unit {unit}: co-ratio");
+        }
+        Assert.DoesNotContain(threePhase.Diagnostics, d => d.Code == "connection-rating");
+
+        // At 60 kVA each unit's series winding carries about 1.76 kVA, over its 1.5 kVA: warned once
+        // for each unit, as the twin is, word for word (a unit under an unbalanced load is named alone).
+        var over = Wn.Solved(example.Replace("apparent 40 kVA pf", "apparent 60 kVA pf"));
+        var overTwin = Wn.Solved(twin.Replace("apparent 40 kVA / 3", "apparent 60 kVA / 3"));
+        var warnings = over.Diagnostics.Where(d => d.Code == "connection-rating").ToList();
+        Assert.Equal(3, warnings.Count);
+        Assert.Equal(overTwin.Diagnostics.Where(d => d.Code == "connection-rating").Select(d => d.Message), warnings.Select(d => d.Message));
+        var s60 = over.Normal!.Sections.Single(x => x.Winding.Name == "S_a");
+        var needed = s60.Voltage.Magnitude * s60.Current.Magnitude;
+        Assert.InRange(needed, 1.7e3, 1.9e3);
+        Assert.Contains($"needs a two-winding rating of {WindingNotes.Text.Numbers.Format(needed, "VA")}", warnings[0].Message);
+        Assert.Contains("core 'B_a' is rated 1.500 kVA", warnings[0].Message);
+        Assert.Contains("core 'B_c' is rated 1.500 kVA", warnings[2].Message);
+    }
+
     // The examples, each held to the same network written phase by phase in the single-phase notation.
     // Statements of each form (three-phase against phase by phase): maple-ford 13 against 33, oak-hill
     // 15 against 45, rowan-mill 18 against 24, kestrel-point 18 against 51, tern-lake 13 against 31,
