@@ -96,7 +96,8 @@ internal sealed partial class BindRun
             else if (statement.Kind is StatementKind.Supply or StatementKind.Load or StatementKind.Fault) BindDiscarded(statement);
         }
         if (!statements.Concat(broken).Any(s => s.Kind == StatementKind.Frequency) && statements.Count > 0)
-            diagnostics.ReportNoFrequency(tree.Lines[0].Span);
+            // At the first line that says something (a file may begin with blank or comment lines).
+            diagnostics.ReportNoFrequency((tree.Lines.FirstOrDefault(l => l.Statement is not null || l.Error is not null) ?? tree.Lines[0]).Span);
         CheckLonelyNodes();
         CheckZigzagMagnetising();
         foreach (var name in laterUses)

@@ -36,7 +36,8 @@ public class QuickFixTests
 
     [Fact]
     public void A_file_without_frequency_gets_one_below_its_heading_comments() =>
-        Snapshot.Match(Fixes("# heading\n\ncore K1 rating 1 kVA\n", Line(0)), "Data/editing/fixes/no-frequency.txt");
+        // The note stands at the first line that says something (line 2), the fix inserts above it.
+        Snapshot.Match(Fixes("# heading\n\ncore K1 rating 1 kVA\n", Line(2)), "Data/editing/fixes/no-frequency.txt");
 
     [Fact]
     public void A_mistyped_statement_and_unit_are_fixed() =>
