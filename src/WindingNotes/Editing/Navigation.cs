@@ -38,6 +38,10 @@ public static class Navigation
         if (newName == symbol.Name) return new RenameResult([]);
         if (symbol.Derived) return new RenameResult([], $"'{symbol.Name}' is a phase element of '{symbol.Owner}': rename '{symbol.Owner}'");
         if (!IsName(newName)) return new RenameResult([], $"'{newName}' is not a name: a letter or '_', then letters, digits or '_', and no keyword");
+        // A name spelt as a unit (V, kVA, ohm) reads as that unit after a number, so a line that
+        // writes the old name where a unit may stand would change its meaning.
+        if (Units.Find(newName) is not null)
+            return new RenameResult([], $"'{newName}' is a unit symbol: after a number it reads as the unit, not as a name");
         if (evaluation.Model.Symbols.Find(newName) is { } taken)
             return new RenameResult([], $"'{newName}' is already {taken.Describe()}");
         // A use of the new name that binds to nothing yet would bind to the renamed symbol.
