@@ -501,6 +501,57 @@ public class FaultStudyTests
     }
 
     [Fact]
+    public void Category_IV_has_one_curve_for_all_faults_from_half_its_largest_multiple()
+    {
+        // IEEE C57.109 (from memory: verify any figure used), R41. Category IV (above 30 000 kVA three-phase)
+        // has one curve for frequent and infrequent faults: I²t = K with K = 2·Mmax² from 50 % of Mmax up,
+        // Mmax = 1/(Zt + Zs) as for category III (the file's largest maximum-study multiple, at most 1/Zt);
+        // below 50 %, the thermal curve I²t = 1250.
+        Assert.Equal(2 * 100.0 / 36, FaultStudy.FrequentSeconds("IV", 6, 10), 9);   // 6 ≥ 5: K/M² = 200/36
+        Assert.Equal(1250.0 / 16, FaultStudy.FrequentSeconds("IV", 4, 10), 9);      // 4 < 5: 1250/16
+        const string unit = """
+            frequency 50 Hz
+            core T1 construction bank rating 45 MVA
+            winding HV on T1 rated 33 kV delta H1 H2 H3
+            winding LV on T1 rated 11 kV wye X1 X2 X3 neutral X0
+            impedance HV LV 10 % xr 20
+            three-phase-supply grid H1 H2 H3 33 kV fault-level 750 MVA xr 10
+            ground X0
+            bus-fault F3 X1 X2 X3 three-phase
+            bus-fault LL X1 X2 X3 line-to-line
+            fault-study equivalent-source
+
+            """;
+        // By hand, per phase on the 11 kV side: Zt = 0.10·11²/45 = 0.26889 Ω at X/R 20; Zs = 11²/750 =
+        // 0.16133 Ω at X/R 10 (33 kV referred by (11/33)²); E = 1.10·11 kV/√3 (cmax above 1 kV). LV rated
+        // 45 MVA/(√3·11 kV) = 2361.9 A. F3 drives E/|Zs + Zt| = 6985 V/0.43010 Ω = 16.24 kA, 6.877 times rated, below 1/Zt = 10:
+        // that is Mmax. LL drives √3·E/|2·(Zs + Zt)| through LV_b, √3/2 of it, so 2·Mmax²/M² = 8/3 s.
+        var e = Wn.Solved(unit);
+        var zt = Polar(0.10 * 11 * 11 / 45, 20);
+        var zs = Polar(11.0 * 11 / 750, 10);
+        var e1 = 1.10 * 11000 / Math.Sqrt(3);
+        var rated = 45e6 / (Math.Sqrt(3) * 11000);
+        var largest = e1 / (zs + zt).Magnitude / rated;
+        Assert.True(largest < 10);
+        var f3 = Bus(e, "F3").Duties.Single(d => d.Winding.Name == "LV_a");
+        Assert.Equal("IV", f3.Category);
+        Assert.Equal(largest, f3.Multiple!.Value, 6);
+        Assert.Equal(largest, f3.LargestMultiple!.Value, 6);
+        Assert.Equal(2, f3.FrequentSeconds!.Value, 6);
+        var ll = Bus(e, "LL").Duties.Single(d => d.Winding.Name == "LV_b");
+        Assert.Equal(Math.Sqrt(3) / 2 * largest, ll.Multiple!.Value, 6);
+        Assert.Equal(largest, ll.LargestMultiple!.Value, 6);
+        Assert.Equal(8.0 / 3, ll.FrequentSeconds!.Value, 6);
+        Assert.Equal(8.0 / 3, ll.AllowedSeconds!.Value, 6);   // one curve for all faults
+        Assert.Contains("category IV: 2.667 s allowed, 2.667 s for frequent faults", WindingNotes.Report.TextReport.Write(e));
+
+        // Longer than the curve: the category's warning at the winding's line, at 8/3 s.
+        var slow = Wn.Eval(unit.Replace("fault-study equivalent-source", "fault-study equivalent-source duration 2.5 s"));
+        Assert.Contains(slow.Diagnostics, d => d.Code == "fault-duty-high" && d.Message.Contains("bus fault 'F3'") && d.Message.Contains("category IV unit is allowed 2 s"));
+        Assert.DoesNotContain(slow.Diagnostics, d => d.Code == "fault-duty-high" && d.Message.Contains("bus fault 'LL'"));
+    }
+
+    [Fact]
     public void Kappa_by_the_equivalent_frequency_solves_the_loop_at_20_Hz()
     {
         // IEC 60909-0 method C (from memory): Zc = Rc + jXc of the loop at fc = 20 Hz (50 Hz system),
