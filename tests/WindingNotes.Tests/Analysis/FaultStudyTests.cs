@@ -321,6 +321,40 @@ public class FaultStudyTests
     }
 
     [Fact]
+    public void A_bus_fault_hover_gives_each_winding_s_peak_withstand_and_frequent_fault_time_and_its_hint_the_worst_peak_duty()
+    {
+        var e = Wn.Solved(DeltaWye
+            .Replace("delta H1 H2 H3\n", "delta H1 H2 H3 peak-withstand 10 kA\n")
+            .Replace("neutral X0\n", "neutral X0 peak-withstand 80 kA\n") + "fault-study equivalent-source currents maximum-and-minimum\n");
+        var lines = DeltaWye.Split('\n').ToList();
+        string Hover(string fault) => WindingNotes.Editing.Hovers.At(e, new WindingNotes.Text.Position(lines.FindIndex(l => l.StartsWith($"bus-fault {fault} ")), 10))!.Markdown;
+        // F3: LV_a's peak is factor·E/|Zs + Zt| (IEC 60076-5 k·√2, R25, as in the peak-withstand test above), over 80 kA.
+        var z1 = Zs + Zt;
+        var xr = z1.Imaginary / z1.Real;
+        var phi = Math.Atan(xr);
+        var factor = (1 + Math.Exp(-(phi + Math.PI / 2) / xr) * Math.Sin(phi)) * Math.Sqrt(2);
+        var duty = factor * E / z1.Magnitude / 80e3;
+        var f3 = Hover("F3");
+        Assert.Contains($"maximum: LV_a {WindingNotes.Text.Numbers.Format(E / z1.Magnitude, "A")}", f3);
+        Assert.Contains($"peak withstand 80.00 kA ({WindingNotes.Text.Numbers.Format(duty * 100, "%")} of it)", f3);
+        Assert.Contains("maximum: fault duty: not withstood by LV_a (peak", f3);
+        // LL: LV_b carries M = √3·E/|2·Z1| over its rated current; category II's frequent-fault curve allows
+        // 2·Mmax²/M² with Mmax = 1/0.06 (IEEE C57.109 from memory, derived in Frequent_fault_curves_… below).
+        var m = Math.Sqrt(3) * E / (2 * z1).Magnitude / (500e3 / (415 / Math.Sqrt(3)));
+        var ll = Hover("LL");
+        Assert.Contains($"maximum: LV_b {WindingNotes.Text.Numbers.Format(Math.Sqrt(3) * E / (2 * z1).Magnitude, "A")}", ll);
+        Assert.Contains($"{WindingNotes.Text.Numbers.Plain(2 / (0.06 * 0.06 * m * m))} s for frequent faults (largest multiple 16.67)", ll);
+
+        // The hint at the line: the worst winding's peak over its withstand in each study; cmin is 0.90/1.10 of cmax.
+        var hint = WindingNotes.Editing.InlayHints.For(e).Single(h => h.Position.Line == lines.FindIndex(l => l.StartsWith("bus-fault F3 "))).Label;
+        Assert.Contains($", peak duty LV_a {WindingNotes.Text.Numbers.Format(duty * 100, "%")} (maximum)", hint);
+        Assert.Contains($", peak duty LV_a {WindingNotes.Text.Numbers.Format(duty * 0.90 / 1.10 * 100, "%")} (minimum)", hint);
+        // No winding gives a peak withstand: no peak duty.
+        var plain = Wn.Solved(DeltaWye + "fault-study equivalent-source\n");
+        Assert.DoesNotContain("peak duty", WindingNotes.Editing.InlayHints.For(plain).Single(h => h.Position.Line == lines.FindIndex(l => l.StartsWith("bus-fault F3 "))).Label);
+    }
+
+    [Fact]
     public void A_winding_past_its_limits_is_warned_at_its_line()
     {
         // 95 mm² of copper for 2087 A rated is 22 A/mm²; at 16.6 times that (a bolted three-phase fault)
