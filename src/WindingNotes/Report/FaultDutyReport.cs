@@ -53,6 +53,7 @@ public static class FaultDutyReport
         line("Ith", $"{Numbers.Format(sc.Thermal, "A")} over {Numbers.Plain(sc.Study.Duration)} s (m {Numbers.Fixed(sc.ThermalFactorM)}, n 1), DC time constant {TimeConstant(sc)}");
         if (sc.EarthFaultFactor is { } k) line("earth-fault factor", Numbers.Fixed(k));
         foreach (var d in sc.Duties) line(d.Winding.Name, Duty(sc, d));
+        line("fault duty", SignOff(sc));
     }
 
     public static void Markdown(StringBuilder o, ShortCircuitResult sc)
@@ -88,6 +89,7 @@ public static class FaultDutyReport
             d.FrequentSeconds is { } fs ? $"{Numbers.Plain(fs)} s" : "—",
             Verdict(sc, d),
         }));
+        o.Append('\n').Append($"Fault duty in bus fault {sc.Fault.Name} ({sc.Extreme}): {SignOff(sc)}.\n");
     }
 
     public static void Json(Utf8JsonWriter w, ShortCircuitResult sc)
@@ -161,6 +163,43 @@ public static class FaultDutyReport
                 + (d.FrequentSeconds is { } fs && d.LargestMultiple is { } lm ? $", {Numbers.Plain(fs)} s for frequent faults (largest multiple {Numbers.Plain(lm)})" : ""));
         parts.Add(Verdict(sc, d));
         return string.Join(", ", parts);
+    }
+
+    /// <summary>
+    /// The line a reviewer signs against under the duty table: whether every winding withstands the fault
+    /// on every limit judged (temperature, peak against its peak withstand, infrequent- and frequent-fault
+    /// time), naming the windings that do not and why, and the limits not judged for want of data.
+    /// </summary>
+    public static string SignOff(ShortCircuitResult sc)
+    {
+        var duration = sc.Study.Duration;
+        var failed = sc.Duties.Where(d => Exceeds(sc, d)).Select(d =>
+        {
+            var why = new List<string>();
+            if (d.ThermalExceeded) why.Add("temperature above its limit");
+            if (d.PeakExceeded) why.Add($"peak {Numbers.Format(d.PeakDuty!.Value * 100, "%")} of its peak withstand");
+            if (d.CategoryExceeded(duration)) why.Add($"longer than category {d.Category} allows");
+            if (d.FrequentExceeded(duration)) why.Add("longer than the frequent-fault curve allows");
+            return $"{d.Winding.Name} ({string.Join(", ", why)})";
+        }).ToList();
+        string Names(Func<WindingDuty, bool> missing) => string.Join(", ", sc.Duties.Where(missing).Select(d => d.Winding.Name));
+        var unjudged = new List<string>();
+        void Unjudged(string limit, string reason, Func<WindingDuty, bool> missing)
+        {
+            var names = Names(missing);
+            if (names.Length > 0) unjudged.Add($"{limit} of {names} ({reason})");
+        }
+        Unjudged("temperature", "no conductor given", d => d.Temperature is null);
+        Unjudged("peak", "no peak withstand given", d => d.PeakWithstand is null);
+        Unjudged("category time", "no rating", d => d.Category is null);
+        Unjudged("frequent-fault time", "largest through-fault multiple unknown", d => d.Category is not null && d.FrequentSeconds is null);
+        var judged = failed.Count > 0
+            ? $"not withstood by {string.Join(", ", failed)}"
+            : sc.Duties.IsEmpty ? "no winding carries the fault"
+            : sc.Duties.All(d => Verdict(sc, d) == "not judged") ? "not judged for any winding"
+            : unjudged.Count == 0 ? "every winding withstands it on every limit: temperature, peak against its peak withstand, infrequent- and frequent-fault time"
+            : "every winding withstands it on every limit judged";
+        return unjudged.Count == 0 || sc.Duties.IsEmpty ? judged : $"{judged}; not judged: {string.Join("; ", unjudged)}";
     }
 
     private static bool Exceeds(ShortCircuitResult sc, WindingDuty d) => d.PeakExceeded || d.ThermalExceeded || d.CategoryExceeded(sc.Study.Duration) || d.FrequentExceeded(sc.Study.Duration);

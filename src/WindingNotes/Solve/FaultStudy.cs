@@ -36,7 +36,7 @@ public sealed record WindingDuty(WindingNet Winding, string Section, double Curr
 
     /// <summary>
     /// The seconds the category's frequent-fault curve allows at this multiple (IEEE C57.109): category I's
-    /// one curve, categories II and III their own; null for category IV or where the largest fault is unknown.
+    /// one curve, categories II and III their own, category IV its one curve; null where the largest fault is unknown.
     /// </summary>
     public double? FrequentSeconds { get; init; }
 
@@ -227,7 +227,8 @@ public static class FaultStudy
     /// category II winding is 1/Zt, its unit's own impedance (<see cref="ImpedanceMultiple"/>); of a
     /// category III winding 1/(Zt + Zs), the system's impedance included, which is the largest multiple
     /// the file's maximum-current studies drive through it (no larger than 1/Zt): a file that faults no
-    /// terminal of the unit understates it, which shortens the time allowed (it errs safe).
+    /// terminal of the unit understates it, which shortens the time allowed (it errs safe). Category IV
+    /// takes its largest multiple as category III does, and its one curve for all faults.
     /// </summary>
     private static ImmutableArray<CaseResult> Frequent(Network network, ImmutableArray<CaseResult> cases)
     {
@@ -246,18 +247,20 @@ public static class FaultStudy
                     double? largest = category switch
                     {
                         "II" => own,
-                        "III" => studied.TryGetValue(d.Winding.Name, out var s) ? own is { } o ? Math.Min(s, o) : s : own,
-                        _ => null,
+                        _ => studied.TryGetValue(d.Winding.Name, out var s) ? own is { } o ? Math.Min(s, o) : s : own,
                     };
-                    return largest is { } l ? d with { LargestMultiple = l, FrequentSeconds = FrequentSeconds(category, m, l) } : d;
+                    if (largest is not { } l) return d;
+                    var frequent = FrequentSeconds(category, m, l);
+                    // Category IV has one curve for frequent and infrequent faults alike (as category I).
+                    return d with { LargestMultiple = l, FrequentSeconds = frequent, AllowedSeconds = category == "IV" ? frequent : d.AllowedSeconds };
                 })],
             },
         })];
     }
 
     /// <summary>
-    /// The frequent-fault curve of categories II and III (IEEE C57.109, from memory): I²t = K with K set by
-    /// the largest through-fault multiple at 2 s, from 70 % (II) or 50 % (III) of that multiple up; below it
+    /// The frequent-fault curve of categories II, III and IV (IEEE C57.109, from memory): I²t = K with K set by
+    /// the largest through-fault multiple at 2 s, from 70 % (II) or 50 % (III and IV) of that multiple up; below it
     /// the thermal curve I²t = 1250 (multiples of rated current, seconds), which also bounds it where the
     /// largest multiple passes 25. At or above the largest multiple (a voltage factor c above 1 can reach
     /// past it) the curve's end, 2 s.
@@ -468,7 +471,8 @@ public static class FaultStudy
     /// The time a category allows at a multiple M of rated current for an infrequent fault (from
     /// memory): categories I to III t = 1250/M² s (I²t = 1250 in multiples of rated current, IEEE
     /// C57.12.00 and the thermal curve of C57.109, which is the infrequent-fault curve of II and III);
-    /// category IV 2 s at the current the impedances allow.
+    /// category IV 2 s at the current the impedances allow, until its one curve (the frequent-fault curve,
+    /// <see cref="FrequentSeconds"/>) replaces it once the largest through-fault multiple is known.
     /// </summary>
     public static double AllowedSeconds(string category, double multiple) =>
         category != "IV" ? 1250 / (multiple * multiple) : 2;

@@ -321,6 +321,40 @@ public class FaultStudyTests
     }
 
     [Fact]
+    public void A_bus_fault_hover_gives_each_winding_s_peak_withstand_and_frequent_fault_time_and_its_hint_the_worst_peak_duty()
+    {
+        var e = Wn.Solved(DeltaWye
+            .Replace("delta H1 H2 H3\n", "delta H1 H2 H3 peak-withstand 10 kA\n")
+            .Replace("neutral X0\n", "neutral X0 peak-withstand 80 kA\n") + "fault-study equivalent-source currents maximum-and-minimum\n");
+        var lines = DeltaWye.Split('\n').ToList();
+        string Hover(string fault) => WindingNotes.Editing.Hovers.At(e, new WindingNotes.Text.Position(lines.FindIndex(l => l.StartsWith($"bus-fault {fault} ")), 10))!.Markdown;
+        // F3: LV_a's peak is factor·E/|Zs + Zt| (IEC 60076-5 k·√2, R25, as in the peak-withstand test above), over 80 kA.
+        var z1 = Zs + Zt;
+        var xr = z1.Imaginary / z1.Real;
+        var phi = Math.Atan(xr);
+        var factor = (1 + Math.Exp(-(phi + Math.PI / 2) / xr) * Math.Sin(phi)) * Math.Sqrt(2);
+        var duty = factor * E / z1.Magnitude / 80e3;
+        var f3 = Hover("F3");
+        Assert.Contains($"maximum: LV_a {WindingNotes.Text.Numbers.Format(E / z1.Magnitude, "A")}", f3);
+        Assert.Contains($"peak withstand 80.00 kA ({WindingNotes.Text.Numbers.Format(duty * 100, "%")} of it)", f3);
+        Assert.Contains("maximum: fault duty: not withstood by LV_a (peak", f3);
+        // LL: LV_b carries M = √3·E/|2·Z1| over its rated current; category II's frequent-fault curve allows
+        // 2·Mmax²/M² with Mmax = 1/0.06 (IEEE C57.109 from memory, derived in Frequent_fault_curves_… below).
+        var m = Math.Sqrt(3) * E / (2 * z1).Magnitude / (500e3 / (415 / Math.Sqrt(3)));
+        var ll = Hover("LL");
+        Assert.Contains($"maximum: LV_b {WindingNotes.Text.Numbers.Format(Math.Sqrt(3) * E / (2 * z1).Magnitude, "A")}", ll);
+        Assert.Contains($"{WindingNotes.Text.Numbers.Plain(2 / (0.06 * 0.06 * m * m))} s for frequent faults (largest multiple 16.67)", ll);
+
+        // The hint at the line: the worst winding's peak over its withstand in each study; cmin is 0.90/1.10 of cmax.
+        var hint = WindingNotes.Editing.InlayHints.For(e).Single(h => h.Position.Line == lines.FindIndex(l => l.StartsWith("bus-fault F3 "))).Label;
+        Assert.Contains($", peak duty LV_a {WindingNotes.Text.Numbers.Format(duty * 100, "%")} (maximum)", hint);
+        Assert.Contains($", peak duty LV_a {WindingNotes.Text.Numbers.Format(duty * 0.90 / 1.10 * 100, "%")} (minimum)", hint);
+        // No winding gives a peak withstand: no peak duty.
+        var plain = Wn.Solved(DeltaWye + "fault-study equivalent-source\n");
+        Assert.DoesNotContain("peak duty", WindingNotes.Editing.InlayHints.For(plain).Single(h => h.Position.Line == lines.FindIndex(l => l.StartsWith("bus-fault F3 "))).Label);
+    }
+
+    [Fact]
     public void A_winding_past_its_limits_is_warned_at_its_line()
     {
         // 95 mm² of copper for 2087 A rated is 22 A/mm²; at 16.6 times that (a bolted three-phase fault)
@@ -452,6 +486,38 @@ public class FaultStudyTests
     }
 
     [Fact]
+    public void The_duty_table_closes_with_a_line_to_sign_naming_the_windings_that_do_not_withstand_the_fault()
+    {
+        // LV_a to LV_c carry E/|Zs + Zt| in F3, a peak of factor·E/|Zs + Zt| (as above) over 80 kA: about 104 %.
+        var e = Wn.Eval(DeltaWye
+            .Replace("delta H1 H2 H3\n", "delta H1 H2 H3 peak-withstand 10 kA\n")
+            .Replace("neutral X0\n", "neutral X0 peak-withstand 80 kA\n"));
+        var z1 = Zs + Zt;
+        var xr = z1.Imaginary / z1.Real;
+        var phi = Math.Atan(xr);
+        var factor = (1 + Math.Exp(-(phi + Math.PI / 2) / xr) * Math.Sin(phi)) * Math.Sqrt(2);
+        var duty = WindingNotes.Text.Numbers.Format(factor * E / z1.Magnitude / 80e3 * 100, "%");
+        var failed = $"not withstood by LV_a (peak {duty} of its peak withstand), LV_b (peak {duty} of its peak withstand), LV_c (peak {duty} of its peak withstand)";
+        var unjudged = "not judged: temperature of HV_a, HV_b, HV_c, LV_a, LV_b, LV_c (no conductor given)";
+        var f3 = WindingNotes.Report.FaultDutyReport.SignOff(Bus(e, "F3"));
+        Assert.Equal($"{failed}; {unjudged}", f3);
+        Assert.Contains($"Fault duty in bus fault F3 (maximum): {failed}; {unjudged}.\n", WindingNotes.Report.MarkdownReport.Write(e));
+        Assert.Contains($"fault duty", WindingNotes.Report.TextReport.Write(e));
+        Assert.Contains(failed, WindingNotes.Report.TextReport.Write(e));
+
+        // Every limit given and held: a conductor of 25 mm² (HV) and 1200 mm² (LV) copper keeps each
+        // temperature within 250 °C (J about 30 A/mm² for 2 s: J²t about 1700, far below 106 000), the
+        // peaks within 10 kA and 120 kA, and category II's times hold at 2 s (above).
+        var held = Wn.Eval(DeltaWye
+            .Replace("rated 11 kV delta H1 H2 H3\n", "rated 11 kV conductor copper 25 mm2 delta H1 H2 H3 peak-withstand 10 kA\n")
+            .Replace("rated 415 V wye X1 X2 X3 neutral X0\n", "rated 415 V conductor copper 1200 mm2 wye X1 X2 X3 neutral X0 peak-withstand 120 kA\n"));
+        foreach (var c in held.Cases.Where(c => c.ShortCircuit is not null))
+            Assert.Equal("every winding withstands it on every limit: temperature, peak against its peak withstand, infrequent- and frequent-fault time",
+                WindingNotes.Report.FaultDutyReport.SignOff(c.ShortCircuit!));
+        Assert.DoesNotContain(held.Diagnostics, d => d.Code == "fault-duty-high");
+    }
+
+    [Fact]
     public void Peak_duty_of_a_winding_without_a_peak_withstand_is_an_error_at_its_name()
     {
         var e = Wn.Eval(DeltaWye + "expect peak-duty LV F3 below 100 %\n");
@@ -498,6 +564,57 @@ public class FaultStudyTests
         // Longer than the curve allows: a fault-duty warning at the winding's line that names the curve.
         var slow = Wn.Eval(DeltaWye + "fault-study equivalent-source duration 3 s\n");
         Assert.Contains(slow.Diagnostics, d => d.Code == "fault-duty-high" && d.Message.Contains("'LV_b'") && d.Message.Contains("frequent-fault curve"));
+    }
+
+    [Fact]
+    public void Category_IV_has_one_curve_for_all_faults_from_half_its_largest_multiple()
+    {
+        // IEEE C57.109 (from memory: verify any figure used), R41. Category IV (above 30 000 kVA three-phase)
+        // has one curve for frequent and infrequent faults: I²t = K with K = 2·Mmax² from 50 % of Mmax up,
+        // Mmax = 1/(Zt + Zs) as for category III (the file's largest maximum-study multiple, at most 1/Zt);
+        // below 50 %, the thermal curve I²t = 1250.
+        Assert.Equal(2 * 100.0 / 36, FaultStudy.FrequentSeconds("IV", 6, 10), 9);   // 6 ≥ 5: K/M² = 200/36
+        Assert.Equal(1250.0 / 16, FaultStudy.FrequentSeconds("IV", 4, 10), 9);      // 4 < 5: 1250/16
+        const string unit = """
+            frequency 50 Hz
+            core T1 construction bank rating 45 MVA
+            winding HV on T1 rated 33 kV delta H1 H2 H3
+            winding LV on T1 rated 11 kV wye X1 X2 X3 neutral X0
+            impedance HV LV 10 % xr 20
+            three-phase-supply grid H1 H2 H3 33 kV fault-level 750 MVA xr 10
+            ground X0
+            bus-fault F3 X1 X2 X3 three-phase
+            bus-fault LL X1 X2 X3 line-to-line
+            fault-study equivalent-source
+
+            """;
+        // By hand, per phase on the 11 kV side: Zt = 0.10·11²/45 = 0.26889 Ω at X/R 20; Zs = 11²/750 =
+        // 0.16133 Ω at X/R 10 (33 kV referred by (11/33)²); E = 1.10·11 kV/√3 (cmax above 1 kV). LV rated
+        // 45 MVA/(√3·11 kV) = 2361.9 A. F3 drives E/|Zs + Zt| = 6985 V/0.43010 Ω = 16.24 kA, 6.877 times rated, below 1/Zt = 10:
+        // that is Mmax. LL drives √3·E/|2·(Zs + Zt)| through LV_b, √3/2 of it, so 2·Mmax²/M² = 8/3 s.
+        var e = Wn.Solved(unit);
+        var zt = Polar(0.10 * 11 * 11 / 45, 20);
+        var zs = Polar(11.0 * 11 / 750, 10);
+        var e1 = 1.10 * 11000 / Math.Sqrt(3);
+        var rated = 45e6 / (Math.Sqrt(3) * 11000);
+        var largest = e1 / (zs + zt).Magnitude / rated;
+        Assert.True(largest < 10);
+        var f3 = Bus(e, "F3").Duties.Single(d => d.Winding.Name == "LV_a");
+        Assert.Equal("IV", f3.Category);
+        Assert.Equal(largest, f3.Multiple!.Value, 6);
+        Assert.Equal(largest, f3.LargestMultiple!.Value, 6);
+        Assert.Equal(2, f3.FrequentSeconds!.Value, 6);
+        var ll = Bus(e, "LL").Duties.Single(d => d.Winding.Name == "LV_b");
+        Assert.Equal(Math.Sqrt(3) / 2 * largest, ll.Multiple!.Value, 6);
+        Assert.Equal(largest, ll.LargestMultiple!.Value, 6);
+        Assert.Equal(8.0 / 3, ll.FrequentSeconds!.Value, 6);
+        Assert.Equal(8.0 / 3, ll.AllowedSeconds!.Value, 6);   // one curve for all faults
+        Assert.Contains("category IV: 2.667 s allowed, 2.667 s for frequent faults", WindingNotes.Report.TextReport.Write(e));
+
+        // Longer than the curve: the category's warning at the winding's line, at 8/3 s.
+        var slow = Wn.Eval(unit.Replace("fault-study equivalent-source", "fault-study equivalent-source duration 2.5 s"));
+        Assert.Contains(slow.Diagnostics, d => d.Code == "fault-duty-high" && d.Message.Contains("bus fault 'F3'") && d.Message.Contains("category IV unit is allowed 2 s"));
+        Assert.DoesNotContain(slow.Diagnostics, d => d.Code == "fault-duty-high" && d.Message.Contains("bus fault 'LL'"));
     }
 
     [Fact]
