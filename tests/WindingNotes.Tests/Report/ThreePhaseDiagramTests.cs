@@ -16,15 +16,7 @@ public class ThreePhaseDiagramTests
 {
     private static readonly XNamespace SvgNs = "http://www.w3.org/2000/svg";
 
-    private static string Unit(string hv, string lv) => $"""
-        frequency 50 Hz
-        core T1 construction bank rating 300 kVA
-        winding HV on T1 rated 11 kV resistance 2 ohm {hv}
-        winding LV on T1 rated 415 V resistance 0.003 ohm {lv}
-        no-load T1 current 1.5 % loss 900 W at HV 11 kV
-        three-phase-supply grid H1 H2 H3 11 kV fault-level 250 MVA
-
-        """;
+    private static string Unit(string hv, string lv) => ThreePhaseTests.Unit(hv, lv);
 
     private static List<string> Texts(string svg) =>
         [.. XDocument.Parse(svg).Root!.Descendants(SvgNs + "text").Select(t => t.Value)];
@@ -126,26 +118,7 @@ public class ThreePhaseDiagramTests
     [Fact]
     public void Paralleled_units_and_a_grounding_zigzag_stand_side_by_side_on_their_buses_each_drawn_once()
     {
-        var text = """
-            frequency 60 Hz
-            core TA construction bank rating 1500 kVA
-            winding HA on TA rated 13.8 kV delta H1 H2 H3
-            winding LA on TA rated 480 V wye X1 X2 X3 neutral X0
-            impedance HA LA 5.75 % xr 6
-            core TB construction bank rating 1500 kVA
-            winding HB on TB rated 13.8 kV delta G1 G2 G3
-            winding LB on TB rated 492 V wye Y1 Y2 Y3 neutral Y0
-            impedance HB LB 6 % xr 6
-            join H1 G1
-            join H2 G2
-            join H3 G3
-            join X1 Y1
-            join X2 Y2
-            join X3 Y3
-            join X0 Y0
-            three-phase-supply utility H1 H2 H3 13.8 kV
-            ground X0
-            three-phase-load plant X1 X2 X3 wye X0 impedance 0.2 ohm pf 0.9
+        var text = ParallelUnitTests.Pair("492 V", "6 %") + """
             core TG construction three-limb rating 150 kVA zero-sequence 40 %
             winding Z on TG rated 480 V zigzag Z1 Z2 Z3 neutral N
             join Z1 X1

@@ -7,7 +7,7 @@ namespace WindingNotes.Tests.Solve;
 /// <summary>Paralleled three-phase units: the current circulating between them and how they share the load.</summary>
 public class ParallelUnitTests
 {
-    private static string Pair(string lvB, string zB) => $"""
+    internal static string Pair(string lvB, string zB) => $"""
         frequency 60 Hz
         core TA construction bank rating 1500 kVA
         winding HA on TA rated 13.8 kV delta H1 H2 H3

@@ -42,7 +42,7 @@ public class ThreePhaseTests
         Assert.Equal(0.1 / 2.9, unbalanced.Unbalance!.Value, 12);
     }
 
-    private static string Unit(string hv, string lv) => $"""
+    internal static string Unit(string hv, string lv) => $"""
         frequency 50 Hz
         core T1 construction bank rating 300 kVA
         winding HV on T1 rated 11 kV resistance 2 ohm {hv}
