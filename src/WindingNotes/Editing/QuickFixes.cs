@@ -43,8 +43,8 @@ public static class QuickFixes
     /// <summary>Puts the frequency before the first statement, below the comments that head the file.</summary>
     private static QuickFix Frequency(Evaluation evaluation, Diagnostic d, string value, string title, bool preferred)
     {
-        var first = evaluation.Syntax.Lines.FirstOrDefault(l => l.Statement is not null || l.Error is not null);
-        var at = new Position(first is null ? 0 : evaluation.Text.GetPosition(first.Span.Start).Line, 0);
+        // The note stands at the first line that says something: the frequency goes above it.
+        var at = new Position(evaluation.Text.GetPosition(d.Span.Start).Line, 0);
         return new QuickFix(title, d, [new TextEdit(new TextRange(at, at), $"frequency {value}{Newline(evaluation)}")], preferred);
     }
 
