@@ -122,8 +122,8 @@ public static class Hovers
             case SymbolKind.TapChanger:
                 if (normal?.TapPositions.FirstOrDefault(t => t.Changer.Name == symbol.Name) is { } changer)
                 {
-                    lines.Add(TextReport.TapText(changer));
-                    if (changer.Regulation is { } r) lines.Add(TextReport.RegulationText(r));
+                    lines.Add(ResultTable.TapText(changer));
+                    if (changer.Regulation is { } r) lines.Add(ResultTable.RegulationText(r));
                 }
                 break;
             case SymbolKind.Fault:

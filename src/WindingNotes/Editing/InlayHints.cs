@@ -71,7 +71,7 @@ public static class InlayHints
             StatementKind.Tap or StatementKind.Brush => Tap(evaluation.Normal, index.AtPoint[name].ToList(), name) ?? PhaseTaps(evaluation, name),
             StatementKind.Thermal => ThermalHint(evaluation.Thermal, name),
             StatementKind.Capability => CapabilityHint(evaluation.Thermal, s),
-            StatementKind.TapChanger => evaluation.Normal?.TapPositions.FirstOrDefault(t => t.Changer.Name == name) is { } tap ? Report.TextReport.TapText(tap) : null,
+            StatementKind.TapChanger => evaluation.Normal?.TapPositions.FirstOrDefault(t => t.Changer.Name == name) is { } tap ? ResultTable.TapText(tap) : null,
             StatementKind.Find => evaluation.Normal is not null && evaluation.Model.Find is { } find && evaluation.Model.Lets.TryGetValue(find.Let, out var found)
                 ? $"{find.Let} = {SolveFor.Text(found)}" : null,
             _ => null,

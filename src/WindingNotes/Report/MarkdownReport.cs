@@ -76,28 +76,8 @@ public static class MarkdownReport
 
     private static void WriteCase(StringBuilder o, CaseResult c)
     {
-        o.Append("\n### Case ").Append(c.Case.Name).Append("\n\n");
-        WriteGroup(o, ResultTable.Named("nodes"), c);
-        o.Append('\n');
-        WriteGroup(o, ResultTable.Named("sections"), c);
-        var split = c.Sections.GroupBy(s => s.Winding.Name).Where(g => g.Count() > 1 && g.Sum(s => s.Loss) > 0).ToList();
-        if (split.Count > 0)
-        {
-            o.Append('\n');
-            Table(o, 1, ["winding", "loss"], split.Select(g => new[] { g.Key, V(g.Sum(s => s.Loss), "W") }));
-        }
-        if (!c.Taps.IsEmpty)
-        {
-            o.Append('\n');
-            WriteGroup(o, ResultTable.Named("taps"), c);
-        }
-        if (!c.TapPositions.IsEmpty)
-        {
-            o.Append('\n');
-            var regulators = c.TapPositions.Any(t => t.Regulation is not null);
-            Table(o, 1, ["tap changer", "setting", .. If(regulators, "regulation")], c.TapPositions.Select(t => (string[])
-                [t.Changer.Name, TextReport.TapText(t), .. If(regulators, t.Regulation is { } r ? TextReport.RegulationText(r) : "")]));
-        }
+        o.Append("\n### Case ").Append(c.Case.Name).Append('\n');
+        foreach (var key in (string[])["nodes", "sections", "windings", "taps", "tapChangers"]) WriteGroup(o, ResultTable.Named(key), c);
         if (!c.Cores.IsEmpty)
         {
             var noLoad = c.Cores.Any(k => k.NoLoadCurrent is not null);
@@ -109,7 +89,6 @@ public static class MarkdownReport
                 .. If(noLoad, k.NoLoadCurrent is { } i0 ? $"{V(i0.Magnitude, "A")} in {k.NoLoadWinding!.Name}" : ""),
             ]));
         }
-        o.Append('\n');
         WriteGroup(o, ResultTable.Named("supplies"), c);
         if (c.Fault is { } fault)
         {
@@ -129,11 +108,7 @@ public static class MarkdownReport
             WriteBands(o, c);
             return;
         }
-        if (!c.Loads.IsEmpty)
-        {
-            o.Append('\n');
-            WriteGroup(o, ResultTable.Named("loads"), c);
-        }
+        WriteGroup(o, ResultTable.Named("loads"), c);
         o.Append('\n');
         var t = c.Totals;
         // The load of highest efficiency, where the case has both copper and core loss.
@@ -146,13 +121,16 @@ public static class MarkdownReport
         WriteBands(o, c);
     }
 
-    /// <summary>A group of the results table as a table: the elements' names, then its columns (a phasor's angle beside it where the column has one).</summary>
+    /// <summary>A group of the results table as a table after a blank line: the elements' names, then its columns (a phasor's angle beside it where the column has one); nothing where it lists no element.</summary>
     private static void WriteGroup(StringBuilder o, ResultGroup group, CaseResult c)
     {
+        var items = group.When(c) ? group.Items(c).Where(e => group.Listed(e.Item)).ToList() : [];
+        if (items.Count == 0) return;
         var columns = group.Columns.Where(k => k.When(c)).ToList();
+        o.Append('\n');
         Table(o, 1 + columns.TakeWhile(k => k.IsName).Count(),
             [group.Element, .. columns.SelectMany(k => k.Angle is { } angle ? [k.Header, angle] : new[] { k.Header })],
-            group.Items(c).Select(e => (string[])[e.Name ?? "", .. columns.SelectMany(k => Cells(group.Shown(k, e.Item), k.Angle is not null))]));
+            items.Select(e => (string[])[e.Name ?? "", .. columns.SelectMany(k => Cells(group.Shown(k, e.Item), k.Angle is not null))]));
     }
 
     /// <summary>A column's cells: empty where the element has no value; a phasor's magnitude, and its angle where the column shows it.</summary>

@@ -13,10 +13,13 @@ public sealed record ResultValue(string Case, string Element, string Field, stri
 {
     public string Label => $"{Element} {FieldLabel(Field)}".Trim();
 
-    /// <summary>"current angle", "voltage", "copper loss": a field as a person says it, its label in the results table.</summary>
+    /// <summary>"current angle", "voltage", "copper loss", "regulation range": a field as a person says it, its label in the results table (a field of an object after the object's).</summary>
     public static string FieldLabel(string field)
     {
         var parts = field.Split('.');
+        if (parts.Length > 1 && Solve.ResultTable.Case.SelectMany(g => g.Fields).FirstOrDefault(f => f.Kind == Solve.ResultKind.Object && f.Key == parts[0]) is { } whole
+            && whole.Nested.FirstOrDefault(f => f.Key == parts[1]) is { } part)
+            return $"{whole.Label} {part.Label}";
         var label = Solve.ResultTable.FieldNamed(parts[0])?.Label ?? parts[0];
         return parts.Length > 1 && parts[^1] == "deg" ? label + " angle" : label;
     }
@@ -31,11 +34,12 @@ public static class ResultValues
     /// <summary>How the element of a band's end begins: "band of node X1 voltage:".</summary>
     public const string BandOf = "band of ";
 
-    private static readonly ImmutableDictionary<string, string> Groups = new Dictionary<string, string>
-    {
-        ["nodes"] = "node", ["sections"] = "section", ["windings"] = "winding", ["cores"] = "core", ["supplies"] = "supply",
-        ["loads"] = "load", ["faults"] = "fault", ["totals"] = "", ["bands"] = BandOf.Trim(),
-    }.ToImmutableDictionary();
+    /// <summary>What an element of each group of the report is called: every group of the results table, so a new group is compared without more, and the bands.</summary>
+    private static readonly ImmutableDictionary<string, string> Groups =
+        Solve.ResultTable.Case.Select(g => KeyValuePair.Create(g.Key, g.Element)).Append(KeyValuePair.Create("bands", BandOf.Trim())).ToImmutableDictionary();
+
+    /// <summary>The groups that are one object (<c>totals</c>), not elements by name.</summary>
+    private static readonly ImmutableHashSet<string> Single = [.. Solve.ResultTable.Case.Where(g => g.Single is not null).Select(g => g.Key)];
 
     public static ImmutableArray<ResultValue> Of(Evaluation evaluation)
     {
@@ -56,9 +60,9 @@ public static class ResultValues
                     continue;
                 }
                 if (!Groups.TryGetValue(group.Name, out var kind)) continue;
-                if (group.Name == "totals")
+                if (Single.Contains(group.Name))
                 {
-                    Walk(values, name, "totals", "", group.Value);
+                    Walk(values, name, group.Name, "", group.Value);
                     continue;
                 }
                 foreach (var element in group.Value.EnumerateObject())
@@ -106,7 +110,7 @@ public static class ResultValues
     {
         var parts = path.Split('.');
         if (parts.Length < 2) return path;
-        if (parts[0] == "totals") return ResultValue.FieldLabel(string.Join('.', parts[1..]));
+        if (Single.Contains(parts[0])) return ResultValue.FieldLabel(string.Join('.', parts[1..]));
         var kind = Groups.TryGetValue(parts[0], out var k) ? k : parts[0];
         return parts.Length < 3 ? $"{kind} {parts[1]}" : $"{kind} {parts[1]} {ResultValue.FieldLabel(string.Join('.', parts[2..]))}";
     }

@@ -1,6 +1,6 @@
+using System.Numerics;
 using System.Text;
 using WindingNotes.Solve;
-using WindingNotes.Text;
 
 namespace WindingNotes.Report;
 
@@ -35,46 +35,33 @@ public static class SweepTables
         }
     }
 
-    /// <summary>The tables of a sweep, for the text and Markdown reports alike.</summary>
+    /// <summary>The tables of a sweep, for the text and Markdown reports alike: each group's <see cref="ResultGroup.Sweep"/> of the results table.</summary>
     public static IEnumerable<Table> Tables(IReadOnlyList<CaseResult> points)
     {
         if (points.Count == 0) yield break;
         var axes = points[0].Case.Sweep.Select(v => v.Name).ToList();
-        var (column, note) = SectionColumns(points);
-        var tables = new List<Table?>
-        {
-            Build("Nodes, voltage", axes, points, c => c.Points.Select(p => (p.Point, TextReport.Value(p.Voltage.Magnitude, "V")))),
-            Build($"Sections, current{note}", axes, points, c => c.Sections.Select(s => (column(s), TextReport.Value(s.Current.Magnitude, "A")))),
-        };
-        if (points.Any(c => c.Sections.Any(s => s.Loading is not null)))
-            tables.Add(Build($"Sections, loading{note}", axes, points, c => c.Sections.Where(s => s.Loading is not null).Select(s => (column(s), TextReport.Percent(s.Loading!.Value)))));
-        if (points.Any(c => !c.Taps.IsEmpty))
-            tables.Add(Build("Taps, current out of the winding", axes, points, c => c.Taps.Select(t => (t.Point, TextReport.Value(t.Current.Magnitude, "A")))));
-        if (points.Any(c => !c.TapPositions.IsEmpty))
-            tables.Add(Build("Tap changers, position", axes, points, c => c.TapPositions.Select(t => (t.Changer.Name, t.State is TapState.AtLimit or TapState.Hunting or TapState.Backwards ? $"{t.Position} ({t.StateText})" : $"{t.Position}"))));
-        if (points.Any(c => c.Cores.Any(k => k.Flux is not null)))
-            tables.Add(Build("Cores, peak flux", axes, points, c => c.Cores.Where(k => k.Flux is not null).Select(k => (k.Core.Name, TextReport.Value(k.Flux!.Value, "T")))));
-        tables.Add(Build("Supplies, current and power", axes, points, c => c.Supplies.SelectMany(s => new[]
-        {
-            ($"{s.Supply.Name} I", TextReport.Value(s.Current.Magnitude, "A")),
-            ($"{s.Supply.Name} P", TextReport.Value(s.Power.Real, "W")),
-        })));
-        if (points.Any(c => !c.Loads.IsEmpty))
-            tables.Add(Build("Loads, voltage, current, power, regulation", axes, points, c => c.Loads.SelectMany(l => new[]
+        var (sectionColumn, note) = SectionColumns(points);
+        foreach (var group in ResultTable.Case)
+            foreach (var sweep in group.Sweep)
             {
-                ($"{l.Load.Name} V", TextReport.Value(l.Voltage.Magnitude, "V")),
-                ($"{l.Load.Name} I", TextReport.Value(l.Current.Magnitude, "A")),
-                ($"{l.Load.Name} P", TextReport.Value(l.Power.Real, "W")),
-                ($"{l.Load.Name} reg", l.Regulation is { } r ? TextReport.Percent(r) : "-"),
-            })));
-        tables.Add(Build("Totals", axes, points, c => new[]
-        {
-            ("copper loss", TextReport.Value(c.Totals.CopperLoss, "W")),
-            ("core loss", c.Totals.CoreLossKnown ? TextReport.Value(c.Totals.CoreLoss, "W") : "-"),
-            ("efficiency", c.Totals.Efficiency is { } e ? TextReport.Percent(e) : "-"),
-        }));
-        foreach (var t in tables.OfType<Table>()) yield return t;
+                // A section's column is named by SectionColumns, the table's title noting it where a brush renames sections.
+                IEnumerable<(string, string)> Cells(CaseResult c) => group.When(c) ? group.Items(c).SelectMany(e => sweep.Columns.SelectMany(k =>
+                    Cell(group.Shown(k, e.Item), sweep.Columns.Length) is { } text ? [(Header(e.Item is SectionResult s ? sectionColumn(s) : e.Name, k.Header), text)] : Array.Empty<(string, string)>())) : [];
+                if (Build(sweep.Title + (group.Key == "sections" ? note : ""), axes, points, Cells) is { } table) yield return table;
+            }
     }
+
+    /// <summary>"mains I": the element's name and the column's header, or either alone.</summary>
+    private static string Header(string? name, string header) => name is null ? header : header.Length == 0 ? name : $"{name} {header}";
+
+    /// <summary>A value as a sweep table shows it: a phasor's magnitude; where it is missing, "-" in a table of several columns, else no cell.</summary>
+    private static string? Cell((object? Value, string Unit) shown, int columns) => shown.Value switch
+    {
+        null => columns > 1 ? "-" : null,
+        Complex v => TextReport.Value(v.Magnitude, shown.Unit),
+        double x => TextReport.Value(x, shown.Unit),
+        var other => other.ToString(),
+    };
 
     /// <summary>
     /// Column names for sections. Where a brush passes a fixed tap, a winding's sections change names

@@ -46,20 +46,7 @@ public static class TextReport
     private static void WriteCase(StringBuilder o, CaseResult c)
     {
         o.Append("\nCase ").Append(c.Case.Name).Append('\n');
-        WriteGroup(o, ResultTable.Named("nodes"), c);
-        WriteGroup(o, ResultTable.Named("sections"), c);
-        var split = c.Sections.GroupBy(s => s.Winding.Name).Where(g => g.Count() > 1 && g.Sum(s => s.Loss) > 0).ToList();
-        if (split.Count > 0)
-        {
-            Heading(o, "Windings");
-            foreach (var winding in split) Line(o, winding.Key, $"loss {Numbers.Format(winding.Sum(s => s.Loss), "W")}");
-        }
-        if (!c.Taps.IsEmpty) WriteGroup(o, ResultTable.Named("taps"), c);
-        if (!c.TapPositions.IsEmpty)
-        {
-            Heading(o, "Tap changers");
-            foreach (var t in c.TapPositions) Line(o, t.Changer.Name, TapText(t) + (t.Regulation is { } r ? $"; {RegulationText(r)}" : ""));
-        }
+        foreach (var key in (string[])["nodes", "sections", "windings", "taps", "tapChangers"]) WriteGroup(o, ResultTable.Named(key), c);
         if (!c.Cores.IsEmpty)
         {
             Heading(o, "Cores");
@@ -75,7 +62,7 @@ public static class TextReport
             }
         }
         WriteGroup(o, ResultTable.Named("supplies"), c);
-        if (!c.Loads.IsEmpty && c.Case.Fault is null) WriteGroup(o, ResultTable.Named("loads"), c);
+        WriteGroup(o, ResultTable.Named("loads"), c);
         if (c.Fault is { } fault)
         {
             Heading(o, "Fault");
@@ -104,12 +91,14 @@ public static class TextReport
         WriteBands(o, c);
     }
 
-    /// <summary>A group of the results table: its heading, then a line an element of its columns' phrases.</summary>
+    /// <summary>A group of the results table: its heading, then a line an element listed of its columns' phrases; nothing where it lists none.</summary>
     private static void WriteGroup(StringBuilder o, ResultGroup group, CaseResult c)
     {
+        var items = group.When(c) ? group.Items(c).Where(e => group.Listed(e.Item)).ToList() : [];
+        if (items.Count == 0) return;
         Heading(o, group.Heading);
         var columns = group.Columns.Where(k => k.When(c)).ToList();
-        foreach (var (name, item) in group.Items(c))
+        foreach (var (name, item) in items)
         {
             var text = new StringBuilder();
             foreach (var column in columns)
@@ -202,17 +191,6 @@ public static class TextReport
     };
 
     /// <summary>"228.1 V angle -0.04 deg": the notation's own polar form, so a reader can paste it back.</summary>
-    /// <summary>"position +8 of -16 to +16, in band, relay 119.1 V".</summary>
-    public static string TapText(TapPosition t) =>
-        $"position {Signed(t.Position)} of {Signed(t.Changer.Low)} to {Signed(t.Changer.High)}, {t.StateText}" + (t.Relay is { } r ? $", relay {Numbers.Format(r, "V")}" : "");
-
-    /// <summary>A step-voltage regulator's range of regulation and its series winding's current against its rating at that range.</summary>
-    public static string RegulationText(RegulatorRating r) =>
-        $"range of regulation ±{Numbers.Format(r.Range * 100, "%")}, series winding {r.Series} {Numbers.Format(r.Current, "A")}"
-        + (r.CurrentRating is { } a ? $" of {Numbers.Format(a, "A")} ({Numbers.Format(r.Multiplier * 100, "%")} of rated current)" : $", its rated current not known ({Numbers.Format(r.Multiplier * 100, "%")} of it allowed)");
-
-    private static string Signed(int k) => k > 0 ? $"+{k}" : $"{k}";
-
     public static string Phasor(Complex v, string unit) =>
         $"{Numbers.Format(v.Magnitude, unit)} angle {Degrees(v):F2} deg".Replace("angle -0.00", "angle 0.00");
 

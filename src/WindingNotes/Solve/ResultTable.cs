@@ -1,6 +1,7 @@
 using System.Collections.Immutable;
 using System.Numerics;
 using WindingNotes.Model;
+using WindingNotes.Text;
 
 namespace WindingNotes.Solve;
 
@@ -94,11 +95,17 @@ public sealed record ResultGroup(string Key, string Description, ImmutableArray<
     /// <summary>The text report's heading of the group.</summary>
     public string Heading { get; init; } = "";
 
-    /// <summary>The Markdown header of its elements' names ("section").</summary>
+    /// <summary>What an element of it is called ("section"): the Markdown header of the names, and the diff's word for the element.</summary>
     public string Element { get; init; } = "";
 
     /// <summary>What the text and Markdown reports show of each element; empty where they write the group by hand.</summary>
     public ImmutableArray<ResultColumn> Columns { get; init; } = [];
+
+    /// <summary>Which elements the text and Markdown reports list (a winding only where taps split it); a group listing none is left out.</summary>
+    public Func<object, bool> Listed { get; init; } = _ => true;
+
+    /// <summary>The group's tables of the sweep points, in the order the reports show them.</summary>
+    public ImmutableArray<SweepTable> Sweep { get; init; } = [];
 
     /// <summary>A column's value of an element, and its unit.</summary>
     public (object? Value, string Unit) Shown(ResultColumn column, object item)
@@ -111,6 +118,14 @@ public sealed record ResultGroup(string Key, string Description, ImmutableArray<
     public IEnumerable<(string? Name, object Item)> Items(CaseResult c) =>
         Single is { } single ? [(null, single(c))] : Elements!(c).Select(e => ((string?)e.Name, e.Item));
 }
+
+/// <summary>
+/// A table of the sweep points: its title, and the columns each element gives it (a row a point), each
+/// headed by the element's name and the column's <see cref="ResultColumn.Header"/> ("mains I"), or by
+/// either alone. Where an element has no value, a table of one column leaves the element out and a
+/// table of several shows "-".
+/// </summary>
+public sealed record SweepTable(string Title, ImmutableArray<ResultColumn> Columns);
 
 /// <summary>
 /// The results of a case as data, in the order of the JSON report: every group and field once, with
@@ -159,7 +174,7 @@ public static class ResultTable
         Group("nodes", "every connection point in the order the file first names it: its voltage against the reference",
             c => c.Points.Select(p => (p.Point, (object)p.Voltage)),
             Phasor<Complex>("v", "V", v => v, band: true, required: true) with { Label = "voltage" })
-            with { Heading = "Nodes", Element = "node", Columns = [Show("v", "voltage", "{}", angle: "angle")] },
+            with { Heading = "Nodes", Element = "node", Columns = [Show("v", "voltage", "{}", angle: "angle")], Sweep = [new("Nodes, voltage", [Show("v", "", "{}")])] },
 
         Group("sections", "by section name: the winding's name when it has no tap or brush, else 'WINDING:A-B'",
             c => c.Sections.Select(s => (s.Section.Name, (object)s)),
@@ -188,12 +203,19 @@ public static class ResultTable
                     Column<SectionResult>("current density", ", {}", "A/mm2", s => s.CurrentDensity / 1e6) with { When = c => c.Sections.Any(s => s.CurrentDensity is not null) },
                     Column<SectionResult>("loss", ", loss {}", "W", s => s.Loss > 0 ? s.Loss : null),
                 ],
+                Sweep = [new("Sections, current", [Show("i", "", "{}")]), new("Sections, loading", [Show("loading", "", "{}")])],
             },
 
         // A winding split by taps or a brush: its copper loss is the sum of its sections'.
         Group("windings", "by winding name: its copper loss, W, the sum over its sections",
-            c => c.Sections.GroupBy(s => s.Winding.Name).Select(w => (w.Key, (object)w.Sum(s => s.Loss))),
-            Number<double>("loss", "W", loss => loss, required: true)),
+            c => c.Sections.GroupBy(s => s.Winding.Name).Select(w => (w.Key, (object)w)),
+            Number<IGrouping<string, SectionResult>>("loss", "W", w => w.Sum(s => s.Loss), required: true))
+            with
+            {
+                // The text and Markdown reports list a winding's loss only where it is more than one section's.
+                Heading = "Windings", Element = "winding", Listed = w => w is IGrouping<string, SectionResult> g && g.Count() > 1 && g.Sum(s => s.Loss) > 0,
+                Columns = [Show("loss", "loss", "loss {}")],
+            },
 
         Group("taps", "by tap or brush name, in source order: the current the winding gives out at that point into what it feeds (at a centre tap, the neutral or return current; at a brush, the current the brush carries)",
             c => c.Taps.Select(t => (t.Point, (object)t)),
@@ -203,6 +225,7 @@ public static class ResultTable
             {
                 OmitWhenEmpty = true, Heading = "Taps, current out of the winding", Element = "tap",
                 Columns = [Show("winding", "winding", "on {}") with { IsName = true }, Show("i", "current out", ": {}", angle: "angle")],
+                Sweep = [new("Taps, current out of the winding", [Show("i", "", "{}")])],
             },
 
         Group("tapChangers", "by tap changer name, in source order: the position stated or settled on",
@@ -219,19 +242,30 @@ public static class ResultTable
                     Word<RegulatorRating>("series", r => r.Series, "the series winding, the one the tap changer is on", required: true),
                     Word<RegulatorRating>("shunt", r => r.Shunt, "the shunt winding, the other winding on its core", required: true),
                     Number<RegulatorRating>("range", "%", r => r.Range, "range of regulation, a fraction of the shunt winding's voltage: the largest position it can reach times the turns a step moves, over the shunt winding's turns", required: true),
-                    Number<RegulatorRating>("currentMultiplier", "", r => r.Multiplier, "the current the series winding may carry at this range over its rated current (1 at ±10 %, up to 1.6 at ±5 %)", required: true),
-                    Number<RegulatorRating>("currentRating", "A", r => r.CurrentRating, "rated current times the multiplier, A; absent where the series winding's rated current is not known"),
+                    Number<RegulatorRating>("currentMultiplier", "", r => r.Multiplier, "the current the series winding may carry at this range over its rated current (1 at ±10 %, up to 1.6 at ±5 %)", required: true) with { Label = "current multiplier" },
+                    Number<RegulatorRating>("currentRating", "A", r => r.CurrentRating, "rated current times the multiplier, A; absent where the series winding's rated current is not known") with { Label = "current rating" },
                     Number<RegulatorRating>("current", "A", r => r.Current, "the largest current in the series winding's sections in this case, A", required: true),
                 ],
             })
-            with { OmitWhenEmpty = true },
+            with
+            {
+                OmitWhenEmpty = true, Heading = "Tap changers", Element = "tap changer",
+                Columns =
+                [
+                    Column<TapPosition>("setting", "{}", "", TapText),
+                    Column<TapPosition>("regulation", "; {}", "", t => t.Regulation is { } r ? RegulationText(r) : null) with { When = c => c.TapPositions.Any(t => t.Regulation is not null) },
+                ],
+                // A position the control did not settle on in its band says why.
+                Sweep = [new("Tap changers, position", [Column<TapPosition>("", "{}", "", t => t.State is TapState.AtLimit or TapState.Hunting or TapState.Backwards ? $"{t.Position} ({t.StateText})" : $"{t.Position}")])],
+            },
 
         Group("cores", "",
             c => c.Cores.Select(k => (k.Core.Name, (object)k)),
             Phasor<CoreResult>("voltsPerTurn", "V", k => k.VoltsPerTurn, "where every winding on the core gives its turns", band: true) with { Label = "volts per turn" },
             Number<CoreResult>("flux", "T", k => k.Flux, "peak flux density, T, where the core gives its area", band: true) with { Label = "peak flux" },
             Number<CoreResult>("loss", "W", k => k.LossKnown ? k.Loss : null, "core loss, W; absent without an open-circuit ('no-load') test", band: true),
-            Phasor<CoreResult>("noLoadCurrent", "A", k => k.NoLoadCurrent, "the magnetising current the no-load test's winding draws at this volts per turn, where the core has a no-load test") with { Label = "no-load current" }),
+            Phasor<CoreResult>("noLoadCurrent", "A", k => k.NoLoadCurrent, "the magnetising current the no-load test's winding draws at this volts per turn, where the core has a no-load test") with { Label = "no-load current" })
+            with { Element = "core", Sweep = [new("Cores, peak flux", [Show("flux", "", "{}")])] },
 
         Group("supplies", "",
             c => c.Supplies.Select(s => (s.Supply.Name, (object)s)),
@@ -243,6 +277,7 @@ public static class ResultTable
             with
             {
                 Heading = "Supplies", Element = "supply",
+                Sweep = [new("Supplies, current and power", [Show("i", "I", "{}"), Show("p", "P", "{}")])],
                 Columns =
                 [
                     Column<SupplyResult>("voltage", "{}", "V", s => s.Voltage.Magnitude),
@@ -262,7 +297,7 @@ public static class ResultTable
                 with { Choices = FaultMethods },
             Number<FaultResult>("c", "", f => f.VoltageFactor, "the equivalent source's voltage factor, on the voltage across the fault at no load"),
             Field<FaultResult>("loadsAsImpedance", ResultKind.Names, "", f => f.LoadsAsImpedance.IsEmpty ? null : f.LoadsAsImpedance.Select(l => l.Name), "as loaded: the constant-power and constant-current loads taken as their pre-fault impedance"))
-            with { When = c => c.Fault is not null },
+            with { When = c => c.Fault is not null, Element = "fault" },
 
         Group("loads", "",
             c => c.Loads.Select(l => (l.Load.Name, (object)new LoadRow(l, c.Connections.FirstOrDefault(x => x.Connection.Load == l.Load)))),
@@ -276,6 +311,7 @@ public static class ResultTable
             with
             {
                 When = Loaded, Heading = "Loads", Element = "load",
+                Sweep = [new("Loads, voltage, current, power, regulation", [Show("v", "V", "{}"), Show("i", "I", "{}"), Show("p", "P", "{}"), Show("regulation", "reg", "{}")])],
                 Columns =
                 [
                     Show("v", "voltage", "{}", angle: "angle"), Show("i", "current", ", {}"),
@@ -300,7 +336,10 @@ public static class ResultTable
             Number<Totals>("maxEfficiencyFraction", "%", t => t.MaxEfficiencyFraction, "that load as a fraction of this case's load") with { Label = "maximum-efficiency fraction" },
             Number<Totals>("maxEfficiency", "%", t => t.MaxEfficiency, "the efficiency at that load, at this case's power factor", band: true) with { Label = "maximum efficiency" },
         ])
-        { When = Loaded, Single = c => c.Totals },
+        {
+            When = Loaded, Single = c => c.Totals,
+            Sweep = [new("Totals", [Show("copperLoss", "copper loss", "{}"), Show("coreLoss", "core loss", "{}"), Show("efficiency", "efficiency", "{}")])],
+        },
     ];
 
     /// <summary>A field of a value by its key, in any group (the first; such fields of one key share their unit and label).</summary>
@@ -315,6 +354,17 @@ public static class ResultTable
 
     /// <summary>The group of the table with this key.</summary>
     public static ResultGroup Named(string key) => Case.First(g => g.Key == key);
+
+    /// <summary>"position +8 of -16 to +16, in band, relay 119.1 V".</summary>
+    public static string TapText(TapPosition t) =>
+        $"position {Signed(t.Position)} of {Signed(t.Changer.Low)} to {Signed(t.Changer.High)}, {t.StateText}" + (t.Relay is { } r ? $", relay {Numbers.Format(r, "V")}" : "");
+
+    /// <summary>A step-voltage regulator's range of regulation and its series winding's current against its rating at that range.</summary>
+    public static string RegulationText(RegulatorRating r) =>
+        $"range of regulation ±{Numbers.Format(r.Range * 100, "%")}, series winding {r.Series} {Numbers.Format(r.Current, "A")}"
+        + (r.CurrentRating is { } a ? $" of {Numbers.Format(a, "A")} ({Numbers.Format(r.Multiplier * 100, "%")} of rated current)" : $", its rated current not known ({Numbers.Format(r.Multiplier * 100, "%")} of it allowed)");
+
+    private static string Signed(int k) => k > 0 ? $"+{k}" : $"{k}";
 
     /// <summary>A load with the autotransformer connection it is fed through, if any.</summary>
     public sealed record LoadRow(LoadResult Load, ConnectionResult? Connection);
