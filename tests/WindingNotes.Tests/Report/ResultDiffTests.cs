@@ -195,6 +195,24 @@ public class ResultDiffTests
     }
 
     [Fact]
+    public void Every_group_of_the_results_table_is_compared_taps_and_tap_changers_too()
+    {
+        // The group list is the results table's: a tap changer's position is compared, by its label in the table.
+        var birch = File.ReadAllText(Command.Example("birch-hollow-type-b-regulator.wn"));
+        // A relay target 3 V lower is 60 V lower on the 2.4 kV bus (pt-ratio 20), 2.5 %: four steps
+        // of 0.625 % lower than position +5 give or take the bandwidth.
+        var diff = Diff(birch, birch.Replace("target 120 V", "target 117 V"));
+        var position = Assert.Single(diff.Values, v => v.Case == "normal" && v.Label == "tap changer REG position");
+        Assert.True(position.New < position.Old, $"{position.Old} -> {position.New}");
+        // The supply's voltage and the pumps' power are held, so the series winding's current barely moves; its label is the object's and the field's.
+        Assert.Equal("regulation current", ResultValue.FieldLabel("regulation.current"));
+        Assert.Contains(diff.Sweeps, s => s.Label == "tap changer REG position");
+        Assert.Contains("  tap changer REG\n    position: ", DiffReport.Text(diff));
+        foreach (var group in WindingNotes.Solve.ResultTable.Case.Where(g => g.Single is null))
+            Assert.StartsWith(group.Element + " X ", ResultValues.Readable($"{group.Key}.X.{group.Fields[0].Key}"));
+    }
+
+    [Fact]
     public void A_band_is_compared_by_its_ends()
     {
         var willow = File.ReadAllText(Command.Example("willow-bend-tolerance-band.wn"));
