@@ -17,12 +17,15 @@ public sealed record ResultValue(string Case, string Element, string Field, stri
     public static string FieldLabel(string field)
     {
         var parts = field.Split('.');
-        if (parts.Length > 1 && Solve.ResultTable.Case.SelectMany(g => g.Fields).FirstOrDefault(f => f.Kind == Solve.ResultKind.Object && f.Key == parts[0]) is { } whole
-            && whole.Nested.FirstOrDefault(f => f.Key == parts[1]) is { } part)
+        if (parts.Length > 1 && Objects.TryGetValue(parts[0], out var whole) && whole.Nested.FirstOrDefault(f => f.Key == parts[1]) is { } part)
             return $"{whole.Label} {part.Label}";
         var label = Solve.ResultTable.FieldNamed(parts[0])?.Label ?? parts[0];
         return parts.Length > 1 && parts[^1] == "deg" ? label + " angle" : label;
     }
+
+    /// <summary>The fields of the results table that are objects of fields (a regulator's <c>regulation</c>), by key.</summary>
+    private static readonly ImmutableDictionary<string, Solve.ResultField> Objects =
+        Solve.ResultTable.Case.SelectMany(g => g.Fields).Where(f => f.Kind == Solve.ResultKind.Object).DistinctBy(f => f.Key).ToImmutableDictionary(f => f.Key);
 }
 
 /// <summary>
