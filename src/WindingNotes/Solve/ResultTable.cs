@@ -51,7 +51,8 @@ public sealed record ResultField(string Key, ResultKind Kind, string Unit, strin
 /// header, its phrase in the text line (<c>{}</c> the value; the phrase carries its own separator,
 /// and is left out where the element has no value), the unit the value is read in, and the value:
 /// a field of the group (<see cref="Field"/>) or one of its own (<see cref="Read"/>), for what
-/// only a person reads (a supply's voltage, a power factor with its sense).
+/// only a person reads (a supply's voltage, a power factor with its sense, a tap changer's setting
+/// joining its position, range, state and relay voltage in one phrase).
 /// </summary>
 public sealed record ResultColumn(string Header, string Text)
 {
