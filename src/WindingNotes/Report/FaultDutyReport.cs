@@ -1,6 +1,5 @@
 using System.Numerics;
 using System.Text;
-using System.Text.Json;
 using WindingNotes.Model;
 using WindingNotes.Solve;
 using WindingNotes.Text;
@@ -92,65 +91,6 @@ public static class FaultDutyReport
         o.Append('\n').Append($"Fault duty in bus fault {sc.Fault.Name} ({sc.Extreme}): {SignOff(sc)}.\n");
     }
 
-    public static void Json(Utf8JsonWriter w, ShortCircuitResult sc)
-    {
-        w.WriteStartObject("busFault");
-        w.WriteString("fault", sc.Fault.Name);
-        w.WriteString("kind", BusFaultModel.Word(sc.Fault.Kind));
-        w.WriteString("study", sc.Extreme);
-        w.WriteString("method", sc.Study.Method == FaultMethod.AsLoaded ? "as-loaded" : "equivalent-source");
-        JsonReport.Number(w, "c", sc.VoltageFactor);
-        JsonReport.Number(w, "nominal", sc.Nominal);
-        w.WriteStartObject("lines");
-        for (var p = 0; p < 3; p++)
-        {
-            w.WriteStartObject(sc.Fault.Lines[p].Name);
-            JsonReport.Phasor(w, "i", sc.LineCurrents[p]);
-            JsonReport.Phasor(w, "v", sc.LineVoltages[p]);
-            w.WriteEndObject();
-        }
-        w.WriteEndObject();
-        JsonReport.Phasor(w, "earth", sc.EarthCurrent);
-        SequenceJson(w, "iSequence", sc.Currents);
-        SequenceJson(w, "vSequence", sc.Voltages);
-        JsonReport.Number(w, "ik", sc.Initial);
-        JsonReport.Number(w, "kappa", sc.Kappa);
-        w.WriteString("kappaMethod", sc.EquivalentRX is not null ? "equivalent-frequency" : sc.KappaExempt ? "meshed-exempt" : sc.Study.Meshed ? "meshed" : "at-fault");
-        if (sc.EquivalentRX is { } rxc) JsonReport.Number(w, "rxEquivalent", rxc);
-        if (!sc.TransformerCorrections.IsEmpty)
-        {
-            w.WriteStartObject("transformerCorrection");
-            foreach (var (line, factor) in sc.TransformerCorrections) JsonReport.Number(w, line, factor);
-            w.WriteEndObject();
-        }
-        if (sc.EndTemperature is { } end) JsonReport.Number(w, "endTemperature", end - 273.15);
-        if (double.IsFinite(sc.RX)) JsonReport.Number(w, "rx", sc.RX);
-        JsonReport.Number(w, "ip", sc.Peak);
-        JsonReport.Number(w, "ith", sc.Thermal);
-        JsonReport.Number(w, "duration", sc.Study.Duration);
-        if (double.IsFinite(sc.DcTimeConstant)) JsonReport.Number(w, "dcTimeConstant", sc.DcTimeConstant);
-        if (sc.EarthFaultFactor is { } k) JsonReport.Number(w, "earthFaultFactor", k);
-        w.WriteStartObject("duties");
-        foreach (var d in sc.Duties)
-        {
-            w.WriteStartObject(d.Winding.Name);
-            JsonReport.Number(w, "i", d.Current);
-            if (d.Multiple is { } m) JsonReport.Number(w, "multiple", m);
-            JsonReport.Number(w, "peak", d.Peak);
-            if (d.PeakWithstand is { } pw) JsonReport.Number(w, "peakWithstand", pw);
-            if (d.Temperature is { } t && double.IsFinite(t)) JsonReport.Number(w, "temperature", t - 273.15);
-            if (d.TemperatureLimit is { } l) JsonReport.Number(w, "temperatureLimit", l - 273.15);
-            if (d.Category is { } c) w.WriteString("category", c);
-            if (d.AllowedSeconds is { } s) JsonReport.Number(w, "allowed", s);
-            if (d.FrequentSeconds is { } fs) JsonReport.Number(w, "allowedFrequent", fs);
-            if (d.LargestMultiple is { } lm) JsonReport.Number(w, "largestMultiple", lm);
-            w.WriteBoolean("withstands", !Exceeds(sc, d));
-            w.WriteEndObject();
-        }
-        w.WriteEndObject();
-        w.WriteEndObject();
-    }
-
     /// <summary>One winding's duty as a sentence.</summary>
     public static string Duty(ShortCircuitResult sc, WindingDuty d)
     {
@@ -202,7 +142,7 @@ public static class FaultDutyReport
         return unjudged.Count == 0 || sc.Duties.IsEmpty ? judged : $"{judged}; not judged: {string.Join("; ", unjudged)}";
     }
 
-    private static bool Exceeds(ShortCircuitResult sc, WindingDuty d) => d.PeakExceeded || d.ThermalExceeded || d.CategoryExceeded(sc.Study.Duration) || d.FrequentExceeded(sc.Study.Duration);
+    private static bool Exceeds(ShortCircuitResult sc, WindingDuty d) => sc.Exceeds(d);
 
     private static string Verdict(ShortCircuitResult sc, WindingDuty d) =>
         Exceeds(sc, d) ? "exceeds" : d.Temperature is null && d.Category is null && d.PeakWithstand is null ? "not judged" : "withstands";
@@ -213,13 +153,4 @@ public static class FaultDutyReport
         $"zero {TextReport.Phasor(s.Zero, unit)}, positive {TextReport.Phasor(s.Positive, unit)}, negative {TextReport.Phasor(s.Negative, unit)}";
 
     private static string Deg(Complex v) => $"{TextReport.Degrees(v):F2}°".Replace("-0.00°", "0.00°");
-
-    private static void SequenceJson(Utf8JsonWriter w, string name, Sequence s)
-    {
-        w.WriteStartObject(name);
-        JsonReport.Phasor(w, "zero", s.Zero);
-        JsonReport.Phasor(w, "positive", s.Positive);
-        JsonReport.Phasor(w, "negative", s.Negative);
-        w.WriteEndObject();
-    }
 }

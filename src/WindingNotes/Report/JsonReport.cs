@@ -32,9 +32,8 @@ public static class JsonReport
             w.WriteStartArray("cases");
             foreach (var c in evaluation.Cases) WriteCase(w, evaluation, c);
             w.WriteEndArray();
-            ThermalReport.Json(w, evaluation.Thermal);
-            ThreePhaseReport.SequenceJson(w, evaluation.SequenceImpedances);
-            ThreePhaseReport.ParallelJson(w, evaluation.Parallel);
+            var study = new StudyResult(evaluation.Cases, evaluation.Checks) { Thermal = evaluation.Thermal, SequenceImpedances = evaluation.SequenceImpedances, Parallel = evaluation.Parallel };
+            WriteFields(w, StudyResultTable.Study, study);
             if (evaluation.Checks.Any(c => !c.Evaluated))
             {
                 w.WriteStartArray("notEvaluated");
@@ -95,22 +94,7 @@ public static class JsonReport
             foreach (var v in c.Case.Sweep) Number(w, v.Name, v.Value);
             w.WriteEndObject();
         }
-        foreach (var group in ResultTable.Case) WriteGroup(w, group, c);
-        if (c.Fault is not null)
-        {
-            WriteBands(w, c);
-            w.WriteEndObject();
-            return;
-        }
-        if (c.ShortCircuit is { } sc)
-        {
-            FaultDutyReport.Json(w, sc);
-            WriteBands(w, c);
-            w.WriteEndObject();
-            return;
-        }
-        ThreePhaseReport.Json(w, c);
-
+        foreach (var group in ResultTable.Case.Concat(StudyResultTable.CaseParts)) WriteGroup(w, group, c);
         if (c.Case == CaseSpec.Normal)
         {
             w.WriteStartArray("checks");
@@ -178,23 +162,55 @@ public static class JsonReport
                 if (f.Kind == ResultKind.NumberOrNull) w.WriteNull(f.Key);
                 continue;
             }
-            switch (f.Kind)
-            {
-                case ResultKind.Number or ResultKind.NumberOrNull: Number(w, f.Key, (double)value); break;
-                case ResultKind.Phasor: Phasor(w, f.Key, (Complex)value); break;
-                case ResultKind.Integer: w.WriteNumber(f.Key, (int)value); break;
-                case ResultKind.Word or ResultKind.Choice: w.WriteString(f.Key, (string)value); break;
-                case ResultKind.Names:
-                    w.WriteStartArray(f.Key);
-                    foreach (var n in (IEnumerable<string>)value) w.WriteStringValue(n);
-                    w.WriteEndArray();
-                    break;
-                case ResultKind.Object:
-                    w.WriteStartObject(f.Key);
-                    WriteFields(w, f.Nested, value);
-                    w.WriteEndObject();
-                    break;
-            }
+            w.WritePropertyName(f.Key);
+            WriteValue(w, f, value);
+        }
+    }
+
+    /// <summary>A value as its field's kind says.</summary>
+    private static void WriteValue(Utf8JsonWriter w, ResultField f, object value)
+    {
+        switch (f.Kind)
+        {
+            case ResultKind.Number or ResultKind.NumberOrNull: w.WriteRawValue(Numbers.Json((double)value)); break;
+            case ResultKind.Phasor: PhasorValue(w, (Complex)value); break;
+            case ResultKind.Integer: w.WriteNumberValue((int)value); break;
+            case ResultKind.Word or ResultKind.Choice: w.WriteStringValue((string)value); break;
+            case ResultKind.Boolean: w.WriteBooleanValue((bool)value); break;
+            case ResultKind.Names:
+                w.WriteStartArray();
+                foreach (var n in (IEnumerable<string>)value) w.WriteStringValue(n);
+                w.WriteEndArray();
+                break;
+            case ResultKind.Sequence:
+                var s = (Sequence)value;
+                w.WriteStartObject();
+                Phasor(w, "zero", s.Zero);
+                Phasor(w, "positive", s.Positive);
+                Phasor(w, "negative", s.Negative);
+                w.WriteEndObject();
+                break;
+            case ResultKind.Object:
+                w.WriteStartObject();
+                WriteFields(w, f.Nested, value);
+                w.WriteEndObject();
+                break;
+            case ResultKind.Map:
+                w.WriteStartObject();
+                foreach (var (name, element) in (IEnumerable<(string, object)>)value)
+                {
+                    if (f.Item!.Read(element) is not { } v) continue;
+                    w.WritePropertyName(name);
+                    WriteValue(w, f.Item, v);
+                }
+                w.WriteEndObject();
+                break;
+            case ResultKind.List:
+                w.WriteStartArray();
+                foreach (var element in (IEnumerable<object>)value)
+                    if (f.Item!.Read(element) is { } v) WriteValue(w, f.Item, v);
+                w.WriteEndArray();
+                break;
         }
     }
 
@@ -221,7 +237,13 @@ public static class JsonReport
 
     internal static void Phasor(Utf8JsonWriter w, string name, Complex v)
     {
-        w.WriteStartObject(name);
+        w.WritePropertyName(name);
+        PhasorValue(w, v);
+    }
+
+    private static void PhasorValue(Utf8JsonWriter w, Complex v)
+    {
+        w.WriteStartObject();
         Number(w, "rms", v.Magnitude);
         var degrees = TextReport.Degrees(v);
         Number(w, "deg", Math.Abs(degrees) < 1e-9 ? 0 : degrees);

@@ -1,6 +1,5 @@
 using System.Globalization;
 using System.Text;
-using System.Text.Json;
 using WindingNotes.Model;
 using WindingNotes.Solve;
 using WindingNotes.Text;
@@ -22,13 +21,6 @@ public static class ThermalReport
     private static string C(double celsius) => Numbers.Format(celsius, "degC");
 
     private static string Load(ThermalResult r, double value) => r.LoadUnit == "pu" ? Numbers.Fixed(value) + " pu" : Numbers.Format(value, r.LoadUnit);
-
-    /// <summary>The samples on the hour, 0 h to 24 h.</summary>
-    private static IEnumerable<int> Hourly(ThermalResult r)
-    {
-        var dt = r.Times.Length > 1 ? r.Times[1] : 86400;
-        return Enumerable.Range(0, 25).Select(h => (int)Math.Round(h * 3600 / dt)).Where(k => k < r.Times.Length).Distinct();
-    }
 
     /// <summary>The bulk temperature the unit follows: its top oil, or a dry-type unit's average winding temperature.</summary>
     private static string Bulk(ThermalUnitResult u) => u.Unit.Dry ? "winding average" : "top oil";
@@ -68,7 +60,7 @@ public static class ThermalReport
             foreach (var c in r.Capabilities.Where(c => c.Capability.Core == u.Unit.Core)) o.Append("    capability ").Append(Capability(r, c)).Append('\n');
         }
         o.Append("  hour by hour: time, load and ambient up to it").Append(string.Concat(r.Units.Select(u => $"; {u.Unit.Core} {Bulk(u)}, hot-spot"))).Append('\n');
-        foreach (var k in Hourly(r))
+        foreach (var k in r.Hourly())
         {
             o.Append("    ").Append(r.Clock(r.Times[k])).Append("  ").Append(Load(r, r.Load[k])).Append("  ").Append(C(r.Ambient[k]));
             foreach (var u in r.Units) o.Append("  ").Append(C(u.TopOil[k])).Append("  ").Append(C(u.HotSpot[k]));
@@ -99,92 +91,7 @@ public static class ThermalReport
         })));
         o.Append('\n');
         string[] header = ["time", "load up to it", "ambient up to it", .. r.Units.SelectMany(u => new[] { $"{u.Unit.Core} {Bulk(u)}", $"{u.Unit.Core} hot-spot" })];
-        MarkdownReport.Table(o, 1, header, Hourly(r).Select(k => new[] { r.Clock(r.Times[k]), Load(r, r.Load[k]), C(r.Ambient[k]) }
+        MarkdownReport.Table(o, 1, header, r.Hourly().Select(k => new[] { r.Clock(r.Times[k]), Load(r, r.Load[k]), C(r.Ambient[k]) }
             .Concat(r.Units.SelectMany(u => new[] { C(u.TopOil[k]), C(u.HotSpot[k]) })).ToArray()));
-    }
-
-    public static void Json(Utf8JsonWriter w, ThermalResult? r)
-    {
-        if (r is null) return;
-        w.WriteStartObject("thermal");
-        w.WriteString("method", r.Cycle.Method == ThermalMethod.DifferenceEquation ? "difference-equation" : "exponential");
-        JsonReport.Number(w, "step", r.Cycle.Step);
-        w.WriteNumber("days", r.Days);
-        w.WriteString("loadUnit", r.LoadUnit);
-        w.WriteStartObject("units");
-        foreach (var u in r.Units)
-        {
-            w.WriteStartObject(u.Unit.Core);
-            w.WriteString("cooling", u.Unit.Cooling.ToString());
-            if (u.Unit.InsulationClass is { } insulation) JsonReport.Number(w, "insulationClass", insulation);
-            else w.WriteBoolean("upgradedPaper", u.Unit.Upgraded);
-            JsonReport.Number(w, "ageingReference", ThermalEquations.AgeingReference(u.Unit));
-            JsonReport.Number(w, "lossRatio", u.LossRatio);
-            JsonReport.Number(w, "peakHotSpot", u.PeakHotSpot);
-            JsonReport.Number(w, "peakHotSpotTime", u.PeakHotSpotTime);
-            w.WriteString("hottestWinding", u.HottestWinding);
-            JsonReport.Number(w, u.Unit.Dry ? "peakWindingAverage" : "peakTopOil", u.PeakTopOil);
-            JsonReport.Number(w, u.Unit.Dry ? "peakWindingAverageTime" : "peakTopOilTime", u.PeakTopOilTime);
-            JsonReport.Number(w, "lossOfLife", u.LossOfLife);
-            JsonReport.Number(w, "meanAgeing", u.MeanAgeing);
-            JsonReport.Number(w, "peakAgeing", u.PeakAgeing);
-            if (u.EquivalentAging is { } feqa) JsonReport.Number(w, "equivalentAging", feqa);
-            if (u.PeakAgingFactor is { } faa) JsonReport.Number(w, "peakAgingFactor", faa);
-            var capabilities = r.Capabilities.Where(c => c.Capability.Core == u.Unit.Core).ToList();
-            if (capabilities.Count > 0)
-            {
-                w.WriteStartObject("capability");
-                foreach (var c in capabilities)
-                {
-                    w.WriteStartObject(c.Capability.KindWord);
-                    if (c.Value is { } v)
-                    {
-                        JsonReport.Number(w, "value", v);
-                        w.WriteBoolean("atLeast", c.Beyond);
-                        w.WriteString("binding", c.Binding);
-                        JsonReport.Number(w, "atBinding", c.AtBinding);
-                        JsonReport.Number(w, "hotSpotLimit", c.HotSpotLimit);
-                        if (c.TopOilLimit is { } o) JsonReport.Number(w, "topOilLimit", o);
-                        if (c.LossOfLifeLimit is { } l) JsonReport.Number(w, "lossOfLifeLimit", l);
-                    }
-                    else w.WriteString("problem", c.Problem);
-                    w.WriteEndObject();
-                }
-                w.WriteEndObject();
-            }
-            w.WriteStartObject("windings");
-            foreach (var h in u.Windings)
-            {
-                w.WriteStartObject(h.Winding);
-                JsonReport.Number(w, "peakLoad", h.PeakLoad);
-                JsonReport.Number(w, "peakLoadTime", h.PeakLoadTime);
-                JsonReport.Number(w, "peakHotSpot", h.PeakHotSpot);
-                JsonReport.Number(w, "peakHotSpotTime", h.PeakHotSpotTime);
-                w.WriteEndObject();
-            }
-            w.WriteEndObject();
-            w.WriteEndObject();
-        }
-        w.WriteEndObject();
-        w.WriteStartArray("hourly");
-        foreach (var k in Hourly(r))
-        {
-            w.WriteStartObject();
-            JsonReport.Number(w, "time", r.Times[k]);
-            JsonReport.Number(w, "load", r.Load[k]);
-            JsonReport.Number(w, "ambient", r.Ambient[k]);
-            w.WriteStartObject("units");
-            foreach (var u in r.Units)
-            {
-                w.WriteStartObject(u.Unit.Core);
-                JsonReport.Number(w, u.Unit.Dry ? "windingAverage" : "topOil", u.TopOil[k]);
-                JsonReport.Number(w, "hotSpot", u.HotSpot[k]);
-                w.WriteEndObject();
-            }
-            w.WriteEndObject();
-            w.WriteEndObject();
-        }
-        w.WriteEndArray();
-        w.WriteEndObject();
     }
 }

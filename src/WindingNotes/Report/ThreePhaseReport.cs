@@ -1,6 +1,5 @@
 using System.Numerics;
 using System.Text;
-using System.Text.Json;
 using WindingNotes.Model;
 using WindingNotes.Solve;
 using WindingNotes.Text;
@@ -65,68 +64,6 @@ internal static class ThreePhaseReport
             ]));
     }
 
-    public static void Json(Utf8JsonWriter w, CaseResult c)
-    {
-        var three = c.ThreePhase;
-        if (three.Sets.IsEmpty && three.VectorGroups.IsEmpty) return;
-        w.WriteStartObject("threePhase");
-        w.WriteStartObject("vectorGroups");
-        foreach (var g in three.VectorGroups)
-        {
-            w.WriteStartObject(g.Core);
-            if (g.Symbol is { } symbol) w.WriteString("symbol", symbol);
-            if (g.Problem is { } problem) w.WriteString("problem", problem);
-            w.WriteStartObject("windings");
-            foreach (var x in g.Windings)
-            {
-                w.WriteStartObject(x.Winding);
-                w.WriteString("letters", x.Letters);
-                if (x.Clock is { } clock) w.WriteNumber("clock", clock);
-                w.WriteEndObject();
-            }
-            w.WriteEndObject();
-            w.WriteEndObject();
-        }
-        w.WriteEndObject();
-        w.WriteStartObject("sets");
-        foreach (var s in three.Sets)
-        {
-            w.WriteStartObject(s.Name);
-            w.WriteString("kind", s.Kind);
-            Phasors(w, "v", s.Voltages);
-            Phasors(w, "vLineToLine", s.LineToLine);
-            Phasors(w, "iPhase", s.PhaseCurrents);
-            Phasors(w, "iLine", s.LineCurrents);
-            if (s.NeutralCurrent is { } n) JsonReport.Phasor(w, "iNeutral", n);
-            JsonReport.Number(w, "p", s.Power.Real);
-            JsonReport.Number(w, "q", s.Power.Imaginary);
-            JsonReport.Number(w, "s", s.Power.Magnitude);
-            JsonReport.Number(w, "pf", s.PowerFactor);
-            Sequence(w, "vSequence", s.VoltageSequence);
-            Sequence(w, "iSequence", s.CurrentSequence);
-            if (s.Unbalance is { } vuf) JsonReport.Number(w, "unbalance", vuf);
-            w.WriteEndObject();
-        }
-        w.WriteEndObject();
-        w.WriteEndObject();
-    }
-
-    private static void Phasors(Utf8JsonWriter w, string name, IEnumerable<Complex> values)
-    {
-        w.WriteStartObject(name);
-        foreach (var (v, k) in values.Select((v, k) => (v, k))) JsonReport.Phasor(w, name.StartsWith("vLine") ? LinePairs[k] : Phases.Letters[k], v);
-        w.WriteEndObject();
-    }
-
-    private static void Sequence(Utf8JsonWriter w, string name, Sequence s)
-    {
-        w.WriteStartObject(name);
-        JsonReport.Phasor(w, "zero", s.Zero);
-        JsonReport.Phasor(w, "positive", s.Positive);
-        JsonReport.Phasor(w, "negative", s.Negative);
-        w.WriteEndObject();
-    }
-
     private static string Test(SequenceTest t) =>
         $"{(t.Kind == SequenceKind.Positive ? "positive" : "zero")} sequence, {t.Energised} energised, " +
         (t.Shorted is { } x ? $"{x} short-circuited" : t.Magnetising ? "the others open (magnetising)" : "the others open");
@@ -164,35 +101,6 @@ internal static class ThreePhaseReport
         })));
     }
 
-    public static void SequenceJson(Utf8JsonWriter w, IReadOnlyList<UnitSequenceImpedances> units)
-    {
-        if (units.Count == 0) return;
-        w.WriteStartObject("sequenceImpedances");
-        foreach (var u in units)
-        {
-            w.WriteStartArray(u.Core);
-            foreach (var t in u.Tests)
-            {
-                w.WriteStartObject();
-                w.WriteString("sequence", t.Kind == SequenceKind.Positive ? "positive" : "zero");
-                w.WriteString("energised", t.Energised);
-                if (t.Shorted is { } x) w.WriteString("shortCircuited", x);
-                JsonReport.Number(w, "r", t.Impedance.Real);
-                JsonReport.Number(w, "x", t.Impedance.Imaginary);
-                JsonReport.Number(w, "z", t.Impedance.Magnitude);
-                if (t.PerUnit is { } pu)
-                {
-                    JsonReport.Number(w, "perUnit", pu);
-                    JsonReport.Number(w, "baseVoltage", t.BaseVoltage!.Value);
-                    JsonReport.Number(w, "basePower", t.BasePower!.Value);
-                }
-                w.WriteEndObject();
-            }
-            w.WriteEndArray();
-        }
-        w.WriteEndObject();
-    }
-
     private static string Circulating(CirculatingCurrent c) =>
         $"{c.Winding} {Numbers.Format(c.Current, "A")}" + (c.OfRated is { } r ? $" ({TextReport.Percent(r)} of rated)" : "");
 
@@ -219,34 +127,5 @@ internal static class ThreePhaseReport
             MarkdownReport.Code(u.Core), string.Join(", ", u.Circulating.Select(Circulating)),
             Numbers.Format(u.Apparent, "VA"), TextReport.Percent(u.Share), u.Loading is { } l ? TextReport.Percent(l) : "",
         })));
-    }
-
-    public static void ParallelJson(Utf8JsonWriter w, IReadOnlyList<ParallelGroup> groups)
-    {
-        if (groups.Count == 0) return;
-        w.WriteStartArray("parallel");
-        foreach (var g in groups)
-        {
-            w.WriteStartObject();
-            foreach (var u in g.Units)
-            {
-                w.WriteStartObject(u.Core);
-                JsonReport.Number(w, "s", u.Apparent);
-                JsonReport.Number(w, "share", u.Share);
-                if (u.Loading is { } l) JsonReport.Number(w, "loading", l);
-                w.WriteStartObject("circulating");
-                foreach (var c in u.Circulating)
-                {
-                    w.WriteStartObject(c.Winding);
-                    JsonReport.Number(w, "i", c.Current);
-                    if (c.OfRated is { } r) JsonReport.Number(w, "ofRated", r);
-                    w.WriteEndObject();
-                }
-                w.WriteEndObject();
-                w.WriteEndObject();
-            }
-            w.WriteEndObject();
-        }
-        w.WriteEndArray();
     }
 }

@@ -136,6 +136,9 @@ public sealed record ShortCircuitResult(BusFaultModel Fault, FaultStudyModel Stu
     public string Extreme => Study.Method == FaultMethod.AsLoaded ? "as loaded" : Minimum ? "minimum" : "maximum";
 
     public double RX => Z1.Imaginary > 0 ? Z1.Real / Z1.Imaginary : double.PositiveInfinity;
+
+    /// <summary>Whether a winding's duty passes a limit judged: its peak withstand, its temperature, or its category's infrequent- or frequent-fault time.</summary>
+    public bool Exceeds(WindingDuty d) => d.PeakExceeded || d.ThermalExceeded || d.CategoryExceeded(Study.Duration) || d.FrequentExceeded(Study.Duration);
 }
 
 /// <summary>

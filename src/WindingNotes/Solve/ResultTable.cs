@@ -23,6 +23,14 @@ public enum ResultKind
     Names,
     /// <summary>An object of the fields of <see cref="ResultField.Nested"/>.</summary>
     Object,
+    /// <summary>true or false.</summary>
+    Boolean,
+    /// <summary>Symmetrical components {zero, positive, negative}, each a phasor (a <see cref="Solve.Sequence"/>).</summary>
+    Sequence,
+    /// <summary>An object of elements by name (what <see cref="ResultField.Read"/> gives: name and element pairs), each as <see cref="ResultField.Item"/> says.</summary>
+    Map,
+    /// <summary>An array of the elements <see cref="ResultField.Read"/> gives, each as <see cref="ResultField.Item"/> says.</summary>
+    List,
 }
 
 /// <summary>
@@ -44,6 +52,14 @@ public sealed record ResultField(string Key, ResultKind Kind, string Unit, strin
 
     /// <summary>The fields of an <see cref="ResultKind.Object"/>, read from what <see cref="Read"/> gives.</summary>
     public ImmutableArray<ResultField> Nested { get; init; } = [];
+
+    /// <summary>Each element of a <see cref="ResultKind.Map"/> or <see cref="ResultKind.List"/>, read from the element (its key unused). A map's <see cref="Choices"/> are the names it may have, where they are fixed.</summary>
+    public ResultField? Item { get; init; }
+
+    /// <summary>An integer's bounds, for the schema.</summary>
+    public int? Minimum { get; init; }
+
+    public int? Maximum { get; init; }
 }
 
 /// <summary>
@@ -135,8 +151,9 @@ public sealed record SweepTable(string Title, ImmutableArray<ResultColumn> Colum
 /// part of grammar/results.schema.json, the diff's words and units, and the text and Markdown lines of
 /// the groups with columns are written from this one table, so they cannot drift apart (as
 /// <c>Syntax/Grammar</c> is for statements). It is in Solve because bands are kept while solving. A
-/// case's name, its sweep values, a bus fault's study, the three-phase sets, the checks and the bands
-/// are written beside it by the report (DEVELOPERS.md, "Adding a result").
+/// bus fault's study and the three-phase sets are in <see cref="StudyResultTable"/>, in the same
+/// records; a case's name, its sweep values, the checks and the bands are written beside it by the
+/// report (DEVELOPERS.md, "Adding a result").
 /// </summary>
 public static class ResultTable
 {

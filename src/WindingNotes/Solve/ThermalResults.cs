@@ -70,6 +70,13 @@ public sealed record ThermalResult(LoadCycleModel Cycle, ImmutableArray<double> 
     /// <summary>The unit of the cycle's load: pu without 'of', else the let's SI unit.</summary>
     public string LoadUnit { get; init; } = "pu";
 
+    /// <summary>The samples on the hour, 0 h to 24 h.</summary>
+    public IEnumerable<int> Hourly()
+    {
+        var dt = Times.Length > 1 ? Times[1] : 86400;
+        return Enumerable.Range(0, 25).Select(h => (int)Math.Round(h * 3600 / dt)).Where(k => k < Times.Length).Distinct();
+    }
+
     public static string Hours(double h) => Text.Numbers.Fixed(h) + " h";
 
     internal static string Invariant(double x) => x.ToString(CultureInfo.InvariantCulture);

@@ -57,8 +57,8 @@ public class ResultsSchemaTests
         // Solve/ResultTable.cs as ResultsSchema writes it; UPDATE_EXPECTED=1 rewrites those groups.
         var path = Path.Combine(Snapshot.RepositoryRoot, "grammar", "results.schema.json");
         var file = File.ReadAllText(path);
-        if (Snapshot.Updating) File.WriteAllText(path, ResultsSchema.WithCase(file));
-        Assert.Equal(ResultsSchema.WithCase(file), File.ReadAllText(path));
+        if (Snapshot.Updating) File.WriteAllText(path, ResultsSchema.Written(file));
+        Assert.Equal(ResultsSchema.Written(file), File.ReadAllText(path));
     }
 
     [Fact]
@@ -68,7 +68,17 @@ public class ResultsSchemaTests
         var start = file.IndexOf("        \"taps\": {", StringComparison.Ordinal);
         var end = file.IndexOf("        \"tapChangers\": {", StringComparison.Ordinal);
         var without = file[..start] + file[end..];
-        Assert.Equal(ResultsSchema.WithCase(file), ResultsSchema.WithCase(without));
+        Assert.Equal(ResultsSchema.Written(file), ResultsSchema.Written(without));
+    }
+
+    [Fact]
+    public void A_section_of_the_study_the_schema_lacks_is_written_after_the_one_before_it()
+    {
+        var file = File.ReadAllText(Path.Combine(Snapshot.RepositoryRoot, "grammar", "results.schema.json"));
+        var start = file.IndexOf("    \"sequenceImpedances\": {", StringComparison.Ordinal);
+        var end = file.IndexOf("    \"parallel\": {", StringComparison.Ordinal);
+        Assert.True(start > 0 && end > start);
+        Assert.Equal(ResultsSchema.Written(file), ResultsSchema.Written(file[..start] + file[end..]));
     }
 
     [Fact]
