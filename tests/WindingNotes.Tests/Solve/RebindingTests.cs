@@ -2,6 +2,7 @@ using WindingNotes.Kernel;
 using WindingNotes.Model;
 using WindingNotes.Solve;
 using WindingNotes.Syntax;
+using WindingNotes.Tests.Support;
 using WindingNotes.Text;
 using Xunit;
 
@@ -109,6 +110,32 @@ public class RebindingTests
         Assert.Null(Binder.Rebind(model, Value("rh", -10, Dimension.Impedance)));
         // The document as written with no sweep or tolerance keeps nothing to bind again.
         Assert.Null(Binder.Bind(Parser.Parse(BrushSweepTests.TwentySections(sweep: ""))).Reach);
+    }
+
+    /// <summary>Every example with a sweep or a tolerance: each point and sample bound again (where it can be) is the full bind at its values.</summary>
+    [Fact]
+    public void Every_example_point_bound_again_equals_the_full_bind()
+    {
+        var examples = Directory.GetFiles(Path.Combine(Snapshot.RepositoryRoot, "examples"), "*.wn").Order(StringComparer.Ordinal).ToList();
+        var rebound = 0;
+        foreach (var path in examples)
+        {
+            var syntax = Parser.Parse(File.ReadAllText(path).Replace("\r\n", "\n"));
+            var model = Binder.Bind(syntax);
+            if (model.HasErrors || model.Reach is null) continue;
+            var axes = Sweeps.Plan(model, new DiagnosticBag());
+            var samples = Tolerances.Plan(model, new DiagnosticBag());
+            var points = Enumerable.Range(0, (int)Math.Min(Sweeps.Count(axes), 50)).Select(k => Sweeps.Point(axes, k).Overrides)
+                .Concat(samples.Take(50).Select(s => new BindOverrides { Deviations = s.Deviations }));
+            foreach (var overrides in points)
+            {
+                var at = overrides with { RatedFrequency = model.Frequency };
+                if (Binder.Rebind(model, at) is not { } again) continue;
+                AssertSameModel(Binder.Bind(syntax, at), again.Model, $"{Path.GetFileName(path)}");
+                rebound++;
+            }
+        }
+        Assert.True(rebound > 0);
     }
 
     private static BindOverrides Value(string name, double value, Dimension dimension) =>
