@@ -10,6 +10,18 @@ public static class Binder
     /// <param name="cancel">Checked at every statement: a file of many thousand lines binds for a while.</param>
     public static Model Bind(SyntaxTree tree, BindOverrides? overrides = null, CancellationToken cancel = default) =>
         new BindRun(tree, overrides ?? BindOverrides.None, cancel).Run();
+
+    /// <summary>
+    /// <paramref name="nominal"/> (the document as written, bound) at the values <paramref name="overrides"/>
+    /// gives, binding again only the statements they reach (<see cref="Model.Reach"/>): the model
+    /// <see cref="Bind"/> would give, with what it reached. Null where that cannot be done alone (a
+    /// statement of another kind, one that gives a message): the caller binds in full.
+    /// </summary>
+    internal static (Model Model, bool LoadsOnly)? Rebind(Model nominal, BindOverrides overrides)
+    {
+        if (nominal.Reach?.Of(overrides) is not { } reached) return null;
+        return new BindRun(nominal, overrides).Replay(nominal, reached.Statements) is { } model ? (model, reached.LoadsOnly) : null;
+    }
 }
 
 /// <summary>
@@ -22,7 +34,7 @@ internal sealed partial class BindRun
     private readonly BindOverrides overrides;
     private readonly CancellationToken cancel;
     private readonly DiagnosticBag diagnostics = new();
-    private readonly SymbolTable symbols = new();
+    private readonly SymbolTable symbols;
     private readonly Dictionary<string, Quantity> lets = new(StringComparer.Ordinal);
     private readonly Dictionary<Symbol, HashSet<int>> nodeUses = [];
     private readonly ValueEvaluator evaluator;
@@ -47,9 +59,111 @@ internal sealed partial class BindRun
         this.tree = tree;
         this.overrides = overrides;
         this.cancel = cancel;
+        symbols = new();
         evaluator = new ValueEvaluator(diagnostics, ResolveValueName, IsLet, overrides.Deviations);
         model = new Model(tree, symbols, []);
+        // What each value reaches is recorded for the document as written, which points start from.
+        if (overrides.Values.IsEmpty && overrides.Deviations.IsEmpty) reach = new Reach();
     }
+
+    /// <summary>A run that binds statements of <paramref name="nominal"/> again at other values, with its names and lets.</summary>
+    internal BindRun(Model nominal, BindOverrides overrides)
+    {
+        tree = nominal.Syntax;
+        this.overrides = overrides;
+        symbols = nominal.Symbols.Sharing();
+        evaluator = new ValueEvaluator(diagnostics, ResolveValueName, IsLet, overrides.Deviations);
+        model = nominal;
+        foreach (var (name, value) in nominal.Lets) lets[name] = value;
+        boundLets.UnionWith(nominal.Lets.Keys);
+    }
+
+    private readonly Reach? reach;
+
+    /// <summary>
+    /// The statements <paramref name="reached"/> bound again, in source order, each statement's records
+    /// put in place of those it made in <paramref name="nominal"/>; null where one gives a message
+    /// or a different number of records.
+    /// </summary>
+    internal Model? Replay(Model nominal, IReadOnlyList<Reach.Made> reached)
+    {
+        foreach (var m in reached)
+        {
+            tainted = false;
+            var again = m.Statement.Kind switch
+            {
+                StatementKind.Let => Let(m),
+                StatementKind.Load => Again(loads, nominal.Loads, m),
+                StatementKind.Supply => Again(supplies, nominal.Supplies, m),
+                StatementKind.Winding => Again(windings, nominal.Windings, m),
+                StatementKind.Tap or StatementKind.Brush => Again(taps, nominal.Taps, m),
+                StatementKind.Impedance => Again(impedances, nominal.Impedances, m),
+                StatementKind.Fault => Again(faults, nominal.Faults, m),
+                _ => false,
+            };
+            if (!again || diagnostics.Count > 0 || tainted) return null;
+        }
+        return nominal with
+        {
+            Loads = Replaced(loads, nominal.Loads),
+            Supplies = Replaced(supplies, nominal.Supplies),
+            Windings = Replaced(windings, nominal.Windings),
+            Taps = Replaced(taps, nominal.Taps),
+            Impedances = Replaced(impedances, nominal.Impedances),
+            Faults = Replaced(faults, nominal.Faults),
+            Lets = lets.Count == nominal.Lets.Count && lets.All(l => nominal.Lets.TryGetValue(l.Key, out var v) && v.Equals(l.Value)) ? nominal.Lets : lets.ToImmutableDictionary(),
+            Reach = nominal.Reach,
+        };
+
+        bool Let(Reach.Made m)
+        {
+            BindLet(m.Statement);
+            return true;
+        }
+
+        // The list as written, then the statement's records made after it and moved into their place.
+        bool Again<T>(ImmutableArray<T>.Builder list, ImmutableArray<T> written, Reach.Made m)
+        {
+            if (list.Count == 0) list.AddRange(written);
+            var before = list.Count;
+            Bind(m.Statement);
+            if (list.Count - before != m.Count) return false;
+            for (var i = 0; i < m.Count; i++) list[m.Start + i] = list[before + i];
+            list.Count = before;
+            return true;
+        }
+
+        static ImmutableArray<T> Replaced<T>(ImmutableArray<T>.Builder list, ImmutableArray<T> written) => list.Count == 0 ? written : list.ToImmutable();
+    }
+
+    /// <summary>Binds a statement, recording what it reads and makes for <see cref="Reach"/>.</summary>
+    private void Recorded(StatementSyntax statement, Action bind)
+    {
+        if (reach is null)
+        {
+            bind();
+            return;
+        }
+        var (start, said, sites) = (Made(statement.Kind), diagnostics.Count, evaluator.Tolerances.Count);
+        reach.Begin(statement);
+        tainted = false;
+        bind();
+        for (var i = sites; i < evaluator.Tolerances.Count; i++) reach.Site(evaluator.Tolerances[i].Span.Start);
+        var name = statement.Kind is StatementKind.Let or StatementKind.Tap or StatementKind.Brush ? statement.Head.Name(0)?.Text : null;
+        reach.End(statement, name, start, Made(statement.Kind) - start, diagnostics.Count == said && !tainted);
+    }
+
+    /// <summary>How many records the list a statement of <paramref name="kind"/> adds to holds.</summary>
+    private int Made(StatementKind kind) => kind switch
+    {
+        StatementKind.Load => loads.Count,
+        StatementKind.Supply => supplies.Count,
+        StatementKind.Winding => windings.Count,
+        StatementKind.Tap or StatementKind.Brush => taps.Count,
+        StatementKind.Impedance => impedances.Count,
+        StatementKind.Fault => faults.Count,
+        _ => 0,
+    };
 
     public Model Run()
     {
@@ -87,12 +201,12 @@ internal sealed partial class BindRun
         {
             cancel.ThrowIfCancellationRequested();
             if (rejected.Contains(statement)) Value(statement.Head.Value(), $"let {statement.Head.Name(0)!.Text}");
-            else BindLet(statement);
+            else Recorded(statement, () => BindLet(statement));
         }
         foreach (var statement in statements.Where(s => s.Kind != StatementKind.Let))
         {
             cancel.ThrowIfCancellationRequested();
-            if (!rejected.Contains(statement)) BindWhole(statement);
+            if (!rejected.Contains(statement)) Recorded(statement, () => BindWhole(statement));
             else if (statement.Kind is StatementKind.Supply or StatementKind.Load or StatementKind.Fault) BindDiscarded(statement);
         }
         if (!statements.Concat(broken).Any(s => s.Kind == StatementKind.Frequency) && statements.Count > 0)
@@ -134,6 +248,9 @@ internal sealed partial class BindRun
             ThreePhase = ThreePhaseResult(),
             Thermal = ThermalResult(),
             Diagnostics = [.. tree.Diagnostics, .. diagnostics],
+            // Three-phase statements make their phase elements from what other lines declared: bound in full.
+            // Kept only where there are points to bind: sweeps or toleranced values.
+            Reach = (sweeps.Count > 0 || evaluator.Tolerances.Count > 0) && phaseCores.Count == 0 && threePhaseWindings.Count == 0 && phaseSupplies.Count == 0 && phaseLoads.Count == 0 ? reach : null,
         };
     }
 
@@ -434,6 +551,7 @@ internal sealed partial class BindRun
             return null;
         }
         symbols.Reference(token.Span, symbol);
+        reach?.Reads(token.Text);
         if (overrides.Values.TryGetValue(token.Text, out var replaced)) return replaced;
         if (lets.TryGetValue(token.Text, out var value)) return value;
         // A let that failed was reported at its own line; one not bound yet comes later in the file.

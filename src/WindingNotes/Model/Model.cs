@@ -212,6 +212,9 @@ public sealed record Model(SyntaxTree Syntax, SymbolTable Symbols, ImmutableArra
     public ImmutableArray<Symbol> Points { get; init; } = [];
 
     public bool HasErrors => Diagnostics.Any(d => d.IsError);
+
+    /// <summary>What each let, toleranced value and tap position reaches, for the document as written; null where points are bound in full.</summary>
+    internal Reach? Reach { get; init; }
 }
 
 /// <summary>Values that replace what the document says: a sweep point, a tolerance corner.</summary>

@@ -36,8 +36,18 @@ public sealed record SymbolReference(TextSpan Span, Symbol Symbol, bool IsDefini
 /// <summary>Every name and every place it occurs: hover, definition, references and rename read this.</summary>
 public sealed class SymbolTable
 {
-    private readonly Dictionary<string, Symbol> byName = new(StringComparer.Ordinal);
+    private readonly Dictionary<string, Symbol> byName;
     private readonly List<SymbolReference> references = [];
+
+    /// <summary>False for a table that shares another's names to bind statements again: their occurrences are the other's already.</summary>
+    private readonly bool records = true;
+
+    public SymbolTable() => byName = new(StringComparer.Ordinal);
+
+    private SymbolTable(Dictionary<string, Symbol> byName) => (this.byName, records) = (byName, false);
+
+    /// <summary>A table with these names that records no occurrence (<see cref="Binder.Rebind"/>).</summary>
+    internal SymbolTable Sharing() => new(byName);
 
     public IEnumerable<Symbol> Symbols => byName.Values;
 
@@ -65,7 +75,7 @@ public sealed class SymbolTable
 
     internal void Reference(TextSpan span, Symbol symbol)
     {
-        if (span != symbol.Span) references.Add(new SymbolReference(span, symbol, false));
+        if (records && span != symbol.Span) references.Add(new SymbolReference(span, symbol, false));
     }
 
     private readonly HashSet<(TextSpan Span, string Owner)> phaseUses = [];

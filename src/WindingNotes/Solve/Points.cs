@@ -25,9 +25,15 @@ public static class Points
     public static PointResult Solve(SyntaxTree syntax, BindOverrides overrides, CaseSpec spec, bool withFaults, CancellationToken cancel)
     {
         var model = Binder.Bind(syntax, overrides);
+        if (overrides.RatedFrequency is { } rated) model = model with { RatedFrequency = rated };
+        return Solve(model, spec, withFaults, cancel);
+    }
+
+    /// <summary>The point of a model bound at its values (the rated frequency as written set): built and solved.</summary>
+    public static PointResult Solve(Model.Model model, CaseSpec spec, bool withFaults, CancellationToken cancel)
+    {
         // As for the document itself: a point whose model did not bind completely is not solved.
         if (model.HasErrors || model.Supplies.IsEmpty) return new PointResult(null, null, [], model.Diagnostics);
-        if (overrides.RatedFrequency is { } rated) model = model with { RatedFrequency = rated };
         var network = NetworkBuilder.Build(model);
         if (network.Diagnostics.Any(d => d.IsError)) return new PointResult(null, null, [], [.. model.Diagnostics, .. network.Diagnostics]);
         var solved = Solve(network, spec, withFaults, cancel);

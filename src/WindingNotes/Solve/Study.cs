@@ -51,7 +51,7 @@ public static class Study
         if (samples.Length > 0 && points > 0 && !bandsAtPoints)
             diagnostics.ReportBandsNotSwept(model.Sweeps[0].Line, points, samples.Length, Sweeps.Budget);
 
-        var run = new PointRun(syntax, model.Frequency, new BrushSweep(syntax, model), taps, diagnostics, cancel, progress, samples.Length + points * (1 + (bandsAtPoints ? samples.Length : 0)));
+        var run = new PointRun(model.Frequency, new BrushSweep(syntax, model), new Rebinding(syntax, model), taps, diagnostics, cancel, progress, samples.Length + points * (1 + (bandsAtPoints ? samples.Length : 0)));
         var studied = model.Expects.Where(e => !ThermalStudy.IsThermal(e) && !SequenceImpedances.IsSequence(e)).ToImmutableArray();
         var checks = new CheckTally([.. studied.Where(e => !FaultChecks.InFault(e))]);
         var shortCircuits = FaultStudy.Run(network, normal.Solution, diagnostics, cancel);
@@ -180,7 +180,7 @@ public static class Study
     /// Solves points after the nominal one and keeps what they report that the nominal evaluation did
     /// not: each such message once, with the first point it came from and how many more.
     /// </summary>
-    private sealed class PointRun(SyntaxTree syntax, double ratedFrequency, BrushSweep brushes, TapPlan? taps, DiagnosticBag diagnostics, CancellationToken cancel, Action<StudyProgress>? progress, long total)
+    private sealed class PointRun(double ratedFrequency, BrushSweep brushes, Rebinding values, TapPlan? taps, DiagnosticBag diagnostics, CancellationToken cancel, Action<StudyProgress>? progress, long total)
     {
         private readonly HashSet<(string, TextSpan, string, string?)> known = [.. diagnostics.Select(d => (d.Code, d.Span, d.Message, d.Case))];
         private readonly Dictionary<(string, TextSpan), (Diagnostic First, string Where, int More)> fresh = [];
@@ -199,7 +199,7 @@ public static class Study
             var p = taps is not null ? taps.Solve(overrides, spec, withFaults, cancel)
                 : !withFaults && spec.IsSweepPoint && brushes.Covers(overrides)
                 ? brushes.Solve(overrides, spec, cancel)
-                : Points.Solve(syntax, overrides, spec, withFaults, cancel);
+                : values.Solve(overrides, spec, withFaults, cancel);
             var where = $"{(spec.IsSweepPoint ? $"at {spec.Where}" : "")} {sample}".Trim();
             foreach (var d in p.Diagnostics)
             {

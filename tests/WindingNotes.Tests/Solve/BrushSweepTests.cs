@@ -114,9 +114,9 @@ public class BrushSweepTests
         Assert.Equal(0, sweep.Moved);
     }
 
-    private static List<string> Describe(IEnumerable<Diagnostic> diagnostics) => [.. diagnostics.Select(d => $"{d.Code} {d.Span} {d.Message}")];
+    internal static List<string> Describe(IEnumerable<Diagnostic> diagnostics) => [.. diagnostics.Select(d => $"{d.Code} {d.Span} {d.Message}")];
 
-    private static void AssertSame(CaseResult expected, CaseResult actual, string where)
+    internal static void AssertSame(CaseResult expected, CaseResult actual, string where)
     {
         var want = CaseValues.Of(expected).ToList();
         var got = CaseValues.Of(actual).ToList();

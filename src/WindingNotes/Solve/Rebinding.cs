@@ -1,0 +1,89 @@
+using System.Collections.Immutable;
+using WindingNotes.Kernel;
+using WindingNotes.Model;
+using WindingNotes.Syntax;
+using WindingNotes.Text;
+
+namespace WindingNotes.Solve;
+
+/// <summary>
+/// Sweep points and tolerance samples that change lets and toleranced values, without binding the
+/// whole document: the statements the values reach are bound again (<see cref="Binder.Rebind"/>),
+/// the rest of the model is the document's as written. Where they reach only loads, the network is
+/// the one built for an earlier such point (the base) with the new loads, solved by updating the
+/// base's factors in the columns of the loads' nodes, loaded and without loads (as
+/// <see cref="LoadScaling"/> does for a load cycle); an update refused is a full solve. Anything
+/// else is built and solved in full. Whatever cannot be bound again alone is bound in full.
+/// </summary>
+internal sealed class Rebinding(SyntaxTree syntax, Model.Model nominal)
+{
+    private Base? current;
+
+    /// <summary>How many points were bound again statement by statement (for tests: the path is taken).</summary>
+    public int Rebound { get; private set; }
+
+    /// <summary>How many points were solved by updating a base's factors (for tests).</summary>
+    public int Updated => (current?.Updated ?? 0) + retired;
+
+    private int retired;
+
+    public PointResult Solve(BindOverrides overrides, CaseSpec spec, bool withFaults, CancellationToken cancel)
+    {
+        if (Binder.Rebind(nominal, overrides) is not var (model, loadsOnly)) return Points.Solve(syntax, overrides, spec, withFaults, cancel);
+        Rebound++;
+        if (overrides.RatedFrequency is { } rated) model = model with { RatedFrequency = rated };
+        if (loadsOnly && !withFaults && current is { } b)
+        {
+            var moved = b.With(model);
+            var point = Points.Solve(moved, spec, withFaults: false, c => b.Solve(moved, c, cancel), cancel);
+            return point with { Diagnostics = [.. b.Diagnostics, .. point.Diagnostics] };
+        }
+        var general = Points.Solve(model, spec, withFaults, cancel);
+        if (loadsOnly && !withFaults)
+        {
+            retired += current?.Updated ?? 0;
+            current = Base.Of(general);
+        }
+        return general;
+    }
+
+    /// <summary>A network solved the general way with no message from its solves, and its factors, loaded and without loads.</summary>
+    private sealed class Base(Network network, ImmutableArray<Diagnostic> diagnostics)
+    {
+        private readonly Dictionary<bool, KeptFactors> updates = [];
+        private readonly Dictionary<MnaSystem, int[]> loadColumns = [];
+
+        public int Updated { get; private set; }
+
+        /// <summary>The model's and the builder's messages, which every point on this base shares.</summary>
+        public ImmutableArray<Diagnostic> Diagnostics => diagnostics;
+
+        public static Base? Of(PointResult p)
+        {
+            if (p.Case is not { } c || !c.Solution.Diagnostics.IsEmpty || p.NoLoad is { } n && !n.Solution.Diagnostics.IsEmpty) return null;
+            if (c.Solution.Network.Loads.Length > 0 && p.NoLoad is null) return null;
+            return new Base(c.Solution.Network, p.Diagnostics);
+        }
+
+        /// <summary>The base's network with the loads of <paramref name="model"/>, which differs from the base's only in its loads and lets.</summary>
+        public Network With(Model.Model model) =>
+            network with { Model = model, Loads = [.. network.Loads.Select(l => l with { Source = model.Loads[l.Index] })] };
+
+        public Solution Solve(Network changed, CaseSpec spec, CancellationToken cancel)
+        {
+            cancel.ThrowIfCancellationRequested();
+            if (!updates.TryGetValue(spec.WithoutLoads, out var kept)) updates[spec.WithoutLoads] = kept = KeptFactors.Of(network, spec);
+            if (kept.Solve(changed, spec, Columns) is not { } x) return NetworkSolver.Solve(changed, spec, cancel);
+            Updated++;
+            return x;
+        }
+
+        /// <summary>The unknowns a load's admittance is stamped in: the voltages of its nodes.</summary>
+        private int[] Columns(MnaSystem m)
+        {
+            if (!loadColumns.TryGetValue(m, out var columns))
+                loadColumns[m] = columns = [.. m.LinearLoads.SelectMany(l => new[] { l.ColumnA, l.ColumnB }).Where(c => c >= 0).Distinct().Order()];
+            return columns;
+        }
+    }
+}

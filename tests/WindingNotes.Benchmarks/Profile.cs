@@ -1,0 +1,58 @@
+using System.Diagnostics;
+using WindingNotes.Kernel;
+using WindingNotes.Model;
+using WindingNotes.Solve;
+using WindingNotes.Syntax;
+
+namespace WindingNotes.Benchmarks;
+
+/// <summary>
+/// Where a tolerance sample's and a let sweep point's time goes, by stage (Stopwatch, best of five
+/// passes over the 1,000 samples or points, after one pass to warm up). Run:
+/// dotnet run -c Release --project tests/WindingNotes.Benchmarks -- profile
+/// </summary>
+public static class Profile
+{
+    public static void Run()
+    {
+        var syntax = Parser.Parse(Documents.TwentySectionsMonteCarlo());
+        var model = Binder.Bind(syntax);
+        var samples = Tolerances.Plan(model, new Text.DiagnosticBag());
+        var overrides = samples.Select(s => new BindOverrides { Deviations = s.Deviations, RatedFrequency = model.Frequency }).ToArray();
+        var models = overrides.Select(o => Binder.Rebind(model, o)!.Value.Model).ToArray();
+        var networks = models.Select(NetworkBuilder.Build).ToArray();
+        Console.WriteLine($"Monte Carlo, {samples.Length} samples of twelve values on twenty sections, µs a sample:");
+        Report("bind the document in full", () => { foreach (var o in overrides) Binder.Bind(syntax, o); });
+        Report("bind again what the values reach", () => { foreach (var o in overrides) Binder.Rebind(model, o); });
+        Report("build the network", () => { foreach (var m in models) NetworkBuilder.Build(m); });
+        Report("solve loaded, without loads, results", () => { foreach (var n in networks) Points.Solve(n, CaseSpec.Normal, withFaults: false, default); });
+        Report("the same with the fault", () => { foreach (var n in networks) Points.Solve(n, CaseSpec.Normal, withFaults: true, default); });
+        Report("one full solve of the loaded case alone", () => { foreach (var n in networks) NetworkSolver.Solve(n, CaseSpec.Normal); });
+
+        var letSyntax = Parser.Parse(Documents.TwentySectionsLoadSweep(1000));
+        var let = Binder.Bind(letSyntax);
+        var axes = Sweeps.Plan(let, new Text.DiagnosticBag());
+        var points = Enumerable.Range(0, 1000).Select(k => Sweeps.Point(axes, k)).Select(p => (p.Overrides with { RatedFrequency = let.Frequency }, CaseSpec.ForSweep(p.Labels))).ToArray();
+        Console.WriteLine("Let sweep of a load, 1,000 points on twenty sections, µs a point:");
+        Report("bind the document in full", () => { foreach (var (o, _) in points) Binder.Bind(letSyntax, o); });
+        Report("bind again what the value reaches", () => { foreach (var (o, _) in points) Binder.Rebind(let, o); });
+        Report("the point: bound again, updated, results (Rebinding)", () =>
+        {
+            var r = new Rebinding(letSyntax, let);
+            foreach (var (o, spec) in points) r.Solve(o, spec, withFaults: false, default);
+        });
+    }
+
+    private static void Report(string what, Action pass)
+    {
+        pass();
+        var best = double.MaxValue;
+        for (var i = 0; i < 5; i++)
+        {
+            var clock = Stopwatch.StartNew();
+            pass();
+            best = Math.Min(best, clock.Elapsed.TotalMilliseconds);
+        }
+        Console.WriteLine($"  {what}: {best:F1} µs");
+    }
+}

@@ -1,0 +1,167 @@
+using WindingNotes.Kernel;
+using WindingNotes.Model;
+using WindingNotes.Solve;
+using WindingNotes.Syntax;
+using WindingNotes.Tests.Support;
+using WindingNotes.Text;
+using Xunit;
+
+namespace WindingNotes.Tests.Solve;
+
+/// <summary>
+/// Points bound again statement by statement (<see cref="Binder.Rebind"/>) against the document
+/// bound in full at the same values: the same model, element by element; and the points solved
+/// through <see cref="Rebinding"/> (a let sweep of a load by updating a base's factors, tolerance
+/// samples and sweeps reaching supplies, windings, taps and leakage built and solved in full) equal
+/// to the general path in every number (1e-9 of each unit's largest value) and every message.
+/// </summary>
+public class RebindingTests
+{
+    /// <summary>The twenty sections with a let for the heater's impedance, swept.</summary>
+    private static readonly string LoadSweep = BrushSweepTests.TwentySections(
+        sweep: "sweep rh from 5 ohm to 50 ohm points 40", loads: "let rh = 20 ohm\nload heater BR A impedance rh");
+
+    /// <summary>Twelve values with a tolerance: a Monte Carlo over the leakage, resistances, taps, supply and loads.</summary>
+    private static string MonteCarlo()
+    {
+        var text = BrushSweepTests.TwentySections(sweep: "")
+            .Replace("impedance P W 4 % xr 3", "impedance P W 4 % +- 7.5 % xr 3")
+            .Replace("load heater BR A impedance 20 ohm", "load heater BR A impedance 20 ohm +- 10 %")
+            .Replace("load lamp P9 H2 impedance 200 ohm", "load lamp P9 H2 impedance 200 ohm +- 10 %")
+            .Replace("resistance 1.2 ohm", "resistance 1.2 ohm +- 5 %")
+            .Replace("resistance 0.3 ohm", "resistance 0.3 ohm +- 5 %")
+            .Replace("480 V fault-level 10 kA", "480 V +- 5 % fault-level 10 kA +- 20 %");
+        for (var i = 1; i <= 5; i++) text = text.Replace($"tap P{i} on P at {i * 26} turns", $"tap P{i} on P at {i * 26} turns +- 1 %");
+        return text + "fault F1 P9 H2\n";
+    }
+
+    public static TheoryData<string, string, bool> Sweeps_ => new()
+    {
+        { "a let that sets a load", LoadSweep, true },
+        { "a let read by another let, a constant-power load", BrushSweepTests.TwentySections(
+            sweep: "sweep kw from 0.5 kW to 3 kW points 30", loads: "let kw = 2 kW\nlet half = kw / 2\nload heater BR A power half pf 0.9 lagging"), false },
+        { "a let that sets the supply's voltage", BrushSweepTests.TwentySections(sweep: "sweep v from 400 V to 500 V points 25")
+            .Replace("supply mains H1 H2 480 V", "let v = 480 V\nsupply mains H1 H2 v"), false },
+        { "a let that sets a winding's resistance", BrushSweepTests.TwentySections(sweep: "sweep r from 0.1 ohm to 0.5 ohm points 25")
+            .Replace("resistance 0.3 ohm", "resistance r").Replace("frequency 60 Hz", "frequency 60 Hz\nlet r = 0.3 ohm"), false },
+        { "a let that sets a tap's position", BrushSweepTests.TwentySections(sweep: "sweep t from 262 turns to 284 turns points 12")
+            .Replace("tap P10 on P at 260 turns", "tap P10 on P at t").Replace("frequency 60 Hz", "frequency 60 Hz\nlet t = 260 turns"), false },
+    };
+
+    [Theory]
+    [MemberData(nameof(Sweeps_))]
+    public void Every_point_bound_again_equals_the_full_solve(string what, string text, bool updates)
+    {
+        var syntax = Parser.Parse(text);
+        var model = Binder.Bind(syntax);
+        Assert.False(model.HasErrors, $"{what}: {string.Join("; ", model.Diagnostics)}");
+        var axes = Sweeps.Plan(model, new DiagnosticBag());
+        var count = Sweeps.Count(axes);
+        Assert.True(count > 10, what);
+        var rebinding = new Rebinding(syntax, model);
+        for (long k = 0; k < count; k++)
+        {
+            var (overrides, labels) = Sweeps.Point(axes, k);
+            overrides = overrides with { RatedFrequency = model.Frequency };
+            var spec = CaseSpec.ForSweep(labels);
+            AssertSameModel(Binder.Bind(syntax, overrides), Binder.Rebind(model, overrides)?.Model, $"{what} at {spec.Where}");
+            AssertSamePoint(Points.Solve(syntax, overrides, spec, withFaults: false, default), rebinding.Solve(overrides, spec, withFaults: false, default), $"{what} at {spec.Where}");
+        }
+        Assert.Equal(count, rebinding.Rebound);
+        if (updates) Assert.True(rebinding.Updated >= count - 1, $"{what}: {rebinding.Updated} of {count} points updated");
+    }
+
+    [Fact]
+    public void Tolerance_samples_bound_again_equal_the_full_solve_with_their_faults()
+    {
+        var text = MonteCarlo();
+        var syntax = Parser.Parse(text);
+        var model = Binder.Bind(syntax);
+        Assert.False(model.HasErrors, string.Join("; ", model.Diagnostics));
+        var samples = Tolerances.Plan(model, new DiagnosticBag());
+        Assert.Equal(Tolerances.Samples, samples.Length);
+        var rebinding = new Rebinding(syntax, model);
+        // Every twentieth of the thousand samples: each moves all twelve values.
+        foreach (var sample in samples.Where((_, i) => i % 20 == 0))
+        {
+            var overrides = new BindOverrides { Deviations = sample.Deviations, RatedFrequency = model.Frequency };
+            AssertSameModel(Binder.Bind(syntax, overrides), Binder.Rebind(model, overrides)?.Model, sample.Where);
+            var full = Points.Solve(syntax, overrides, CaseSpec.Normal, withFaults: true, default);
+            var fast = rebinding.Solve(overrides, CaseSpec.Normal, withFaults: true, default);
+            AssertSamePoint(full, fast, sample.Where);
+            Assert.Equal(full.Faults.Length, fast.Faults.Length);
+            Assert.NotEmpty(full.Faults);
+            foreach (var (f, g) in full.Faults.Zip(fast.Faults)) BrushSweepTests.AssertSame(f, g, $"{sample.Where}, {f.Case.Name}");
+        }
+        Assert.Equal(samples.Length / 20, rebinding.Rebound);
+    }
+
+    [Fact]
+    public void A_let_that_reaches_a_check_or_a_message_is_bound_in_full()
+    {
+        // The let is read by an expect line: not a kind bound again alone.
+        var checkText = LoadSweep.Replace("sweep rh", "expect voltage BR A below rh * 12 A\nsweep rh");
+        var check = Binder.Bind(Parser.Parse(checkText));
+        Assert.False(check.HasErrors, string.Join("; ", check.Diagnostics));
+        Assert.Null(Binder.Rebind(check, Value("rh", 10, Dimension.Impedance)));
+        // A value that gives a message at the point (a load's negative resistance) is bound in full, and the message is the binder's.
+        var model = Binder.Bind(Parser.Parse(LoadSweep));
+        Assert.NotNull(Binder.Rebind(model, Value("rh", 10, Dimension.Impedance)));
+        Assert.Null(Binder.Rebind(model, Value("rh", -10, Dimension.Impedance)));
+        // The document as written with no sweep or tolerance keeps nothing to bind again.
+        Assert.Null(Binder.Bind(Parser.Parse(BrushSweepTests.TwentySections(sweep: ""))).Reach);
+    }
+
+    /// <summary>Every example with a sweep or a tolerance: each point and sample bound again (where it can be) is the full bind at its values.</summary>
+    [Fact]
+    public void Every_example_point_bound_again_equals_the_full_bind()
+    {
+        var examples = Directory.GetFiles(Path.Combine(Snapshot.RepositoryRoot, "examples"), "*.wn").Order(StringComparer.Ordinal).ToList();
+        var rebound = 0;
+        foreach (var path in examples)
+        {
+            var syntax = Parser.Parse(File.ReadAllText(path).Replace("\r\n", "\n"));
+            var model = Binder.Bind(syntax);
+            if (model.HasErrors || model.Reach is null) continue;
+            var axes = Sweeps.Plan(model, new DiagnosticBag());
+            var samples = Tolerances.Plan(model, new DiagnosticBag());
+            var points = Enumerable.Range(0, (int)Math.Min(Sweeps.Count(axes), 50)).Select(k => Sweeps.Point(axes, k).Overrides)
+                .Concat(samples.Take(50).Select(s => new BindOverrides { Deviations = s.Deviations }));
+            foreach (var overrides in points)
+            {
+                var at = overrides with { RatedFrequency = model.Frequency };
+                if (Binder.Rebind(model, at) is not { } again) continue;
+                AssertSameModel(Binder.Bind(syntax, at), again.Model, $"{Path.GetFileName(path)}");
+                rebound++;
+            }
+        }
+        Assert.True(rebound > 0);
+    }
+
+    private static BindOverrides Value(string name, double value, Dimension dimension) =>
+        new() { Values = System.Collections.Immutable.ImmutableDictionary<string, Quantity>.Empty.Add(name, new Quantity(value, dimension)) };
+
+    private static void AssertSameModel(WindingNotes.Model.Model full, WindingNotes.Model.Model? again, string where)
+    {
+        Assert.True(again is not null, $"{where}: not bound again");
+        Assert.Equal(full.Loads.ToList(), again!.Loads.ToList());
+        Assert.Equal(full.Supplies.ToList(), again.Supplies.ToList());
+        Assert.Equal(full.Windings.ToList(), again.Windings.ToList());
+        Assert.Equal(full.Taps.ToList(), again.Taps.ToList());
+        Assert.Equal(full.Impedances.ToList(), again.Impedances.ToList());
+        Assert.Equal(full.Faults.ToList(), again.Faults.ToList());
+        Assert.Equal(full.Cores.ToList(), again.Cores.ToList());
+        Assert.Equal(full.Lets.OrderBy(l => l.Key), again.Lets.OrderBy(l => l.Key));
+        Assert.Equal(BrushSweepTests.Describe(full.Diagnostics), BrushSweepTests.Describe(again.Diagnostics));
+    }
+
+    private static void AssertSamePoint(PointResult full, PointResult fast, string where)
+    {
+        Assert.Equal(BrushSweepTests.Describe(full.Diagnostics), BrushSweepTests.Describe(fast.Diagnostics));
+        Assert.Equal(full.Solved, fast.Solved);
+        if (!full.Solved) return;
+        BrushSweepTests.AssertSame(full.Case!, fast.Case!, where);
+        Assert.Equal(full.NoLoad is null, fast.NoLoad is null);
+        if (full.NoLoad is { } noLoad) BrushSweepTests.AssertSame(noLoad, fast.NoLoad!, where + " without loads");
+    }
+}
