@@ -47,7 +47,8 @@ A bare program name is looked up on `exec-path' and then in
     "bandwidth" "pt-ratio" "compensation" "line-current" "ct" "position" "clear-of-limits"
     "equals" "currents" "voltage-tolerance" "duration" "initial-temperature" "peak-method" "end-temperature" "earth-impedance"
     "nominal" "fault-current" "peak-current" "thermal-current" "earth-fault-factor" "in"
-    "positive-sequence" "class" "winding-rise" "equivalent-aging" "peak-withstand" "peak-duty" "minimum-fault-level" "transformer-correction")
+    "positive-sequence" "class" "winding-rise" "equivalent-aging" "peak-withstand" "peak-duty" "minimum-fault-level" "transformer-correction"
+    "time-rating")
   "Words that start a clause or join its parts.")
 
 (defconst windingnotes-option-keywords

@@ -30,9 +30,7 @@ internal sealed partial class BindRun
                 var joined = s.Head.Names.Select(n => Node(n, s)).OfType<NodeRef>().ToImmutableArray();
                 joins.Add(joined);
                 break;
-            case StatementKind.Ground:
-                if (Node(s.Head.Name(0), s) is { } g) grounds.Add(g);
-                break;
+            case StatementKind.Ground: BindGround(s); break;
             case StatementKind.Supply: BindSupply(s); break;
             case StatementKind.Load: BindLoad(s); break;
             case StatementKind.Fault: BindFault(s); break;
@@ -172,13 +170,14 @@ internal sealed partial class BindRun
         var at = s.Value("at");
         // A tap written without its position has none at any sweep point either.
         Quantity? Position() => at is not null && overrides.Values.TryGetValue(name.Text, out var moved) ? moved : Value(at, $"the position of {name.Text}");
-        if (winding is not null && BindThreePhaseTap(s, winding, name, isBrush, () => Position() is { } p ? TapPosition(p, at!, name.Text) : null)) return;
+        TapRange? Range() =>
+            s.Clause("range") is { } r && Value(r.Value(0), "the start of the range") is { } a && Value(r.Value(1), "the end of the range") is { } b
+            && TapPosition(a, r.Value(0)!, name.Text) is { } from && TapPosition(b, r.Value(1)!, name.Text) is { } to
+                ? new TapRange(from.Position, from.Unit, to.Position, to.Unit, r.Span) : null;
+        if (winding is not null && BindThreePhaseTap(s, winding, name, isBrush, () => Position() is { } p ? TapPosition(p, at!, name.Text) : null, Range)) return;
         var position = Position();
         if (winding is null || position is null || TapPosition(position.Value, at!, name.Text) is not { } place) return;
-        TapRange? range = null;
-        if (s.Clause("range") is { } r && Value(r.Value(0), "the start of the range") is { } a && Value(r.Value(1), "the end of the range") is { } b
-            && TapPosition(a, r.Value(0)!, name.Text) is { } from && TapPosition(b, r.Value(1)!, name.Text) is { } to)
-            range = new TapRange(from.Position, from.Unit, to.Position, to.Unit, r.Span);
+        var range = Range();
         taps.Add(new TapModel(name.Text, name.Name.Span, s.Span, winding.Name, place.Position, place.Unit, isBrush)
         {
             Range = range,
@@ -551,11 +550,11 @@ internal sealed partial class BindRun
             var isPoint = measure == MeasureKind.Voltage || i > 0;
             var symbol = isPoint ? Observed(names[i]) : Resolve(names[i], names[i].Role.Label, names[i].Role.Kinds);
             if (symbol is null) return;
-            if (isPoint && IsThreePhaseTap(symbol, names[i])) return;
+            if (isPoint && !(i > 0 && !phaseTargets.IsEmpty) && IsThreePhaseTap(symbol, names[i])) return;
             if (!isPoint && declaredThreePhase.Contains(symbol.Name))
             {
                 // A current or loading check of a whole three-phase element checks each of its phases.
-                if (names.Count == 1 && PhasesChecked(symbol, measure) is { IsEmpty: false } phases) phaseTargets = phases;
+                if ((names.Count == 1 || ThreePhaseSection(symbol, names)) && PhasesChecked(symbol, measure) is { IsEmpty: false } phases) phaseTargets = phases;
                 else
                 {
                     diagnostics.ReportNamePhase(names[i].Name, symbol.Name);

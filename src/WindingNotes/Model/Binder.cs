@@ -233,6 +233,7 @@ internal sealed partial class BindRun
             Impedances = impedances.ToImmutable(),
             Joins = joins.ToImmutable(),
             Grounds = grounds.ToImmutable(),
+            Groundings = groundings.ToImmutable(),
             Supplies = supplies.ToImmutable(),
             Loads = loads.ToImmutable(),
             Faults = faults.ToImmutable(),
@@ -277,6 +278,7 @@ internal sealed partial class BindRun
             foreach (var name in statement.AllNames) brokenWords.Add(name.Text);
         }
         DeclarePhases(statement);
+        DeclareGrounding(statement);
     }
 
     /// <summary>The winding the points a statement defines are on.</summary>

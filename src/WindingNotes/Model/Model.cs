@@ -93,6 +93,9 @@ public sealed record SupplyModel(string Name, TextSpan NameSpan, TextSpan Line, 
 
     public double? XR { get; init; }
 
+    /// <summary>A neutral-grounding impedance ('ground N impedance …'): a branch of no EMF to earth, never a source.</summary>
+    public bool Grounding { get; init; }
+
     /// <summary>The internal impedance at the minimum fault level ('minimum-fault-level'), at the frequency as written; for minimum short-circuit currents.</summary>
     public Complex? MinimumImpedance { get; init; }
 }
@@ -177,6 +180,9 @@ public sealed record Model(SyntaxTree Syntax, SymbolTable Symbols, ImmutableArra
     public ImmutableArray<ImpedanceModel> Impedances { get; init; } = [];
     public ImmutableArray<ImmutableArray<NodeRef>> Joins { get; init; } = [];
     public ImmutableArray<NodeRef> Grounds { get; init; } = [];
+
+    /// <summary>Nodes earthed through an impedance; each is also a supply of no EMF in <see cref="Supplies"/> (Grounding.cs).</summary>
+    public ImmutableArray<GroundingModel> Groundings { get; init; } = [];
     public ImmutableArray<SupplyModel> Supplies { get; init; } = [];
     public ImmutableArray<LoadModel> Loads { get; init; } = [];
     public ImmutableArray<FaultModel> Faults { get; init; } = [];

@@ -52,6 +52,7 @@ public static class FaultDutyReport
         line("Ith", $"{Numbers.Format(sc.Thermal, "A")} over {Numbers.Plain(sc.Study.Duration)} s (m {Numbers.Fixed(sc.ThermalFactorM)}, n 1), DC time constant {TimeConstant(sc)}");
         if (sc.EarthFaultFactor is { } k) line("earth-fault factor", Numbers.Fixed(k));
         foreach (var d in sc.Duties) line(d.Winding.Name, Duty(sc, d));
+        foreach (var g in sc.Groundings) line(g.Grounding.Element, Grounding(g));
         line("fault duty", SignOff(sc));
     }
 
@@ -88,6 +89,15 @@ public static class FaultDutyReport
             d.FrequentSeconds is { } fs ? $"{Numbers.Plain(fs)} s" : "—",
             Verdict(sc, d),
         }));
+        if (!sc.Groundings.IsEmpty)
+        {
+            o.Append('\n');
+            MarkdownReport.Table(o, 1, ["grounding impedance", "current", "voltage", "I²t", "rated", "duty"], sc.Groundings.Select(g => new[]
+            {
+                g.Grounding.Element, Numbers.Format(g.Current.Magnitude, "A"), Numbers.Format(g.Voltage.Magnitude, "V"), $"{Numbers.Plain(g.I2t)} A²s",
+                Rating(g), g.Exceeded ? "exceeds" : g.Judged ? "withstands" : "not judged",
+            }));
+        }
         o.Append('\n').Append($"Fault duty in bus fault {sc.Fault.Name} ({sc.Extreme}): {SignOff(sc)}.\n");
     }
 
@@ -99,11 +109,21 @@ public static class FaultDutyReport
         if (d.Temperature is { } t)
             parts.Add($"{(double.IsFinite(t) ? Numbers.Format(t - 273.15, "degC") : "no finite temperature")} after {Numbers.Plain(sc.Study.Duration)} s (limit {Numbers.Format(d.TemperatureLimit!.Value - 273.15, "degC")})");
         if (d.Category is { } c)
-            parts.Add($"category {c}: {Numbers.Plain(d.AllowedSeconds!.Value)} s allowed"
+            parts.Add(d.AllowedSeconds is not { } allowed ? $"category {c}: below the through-fault curves ({Numbers.Plain(FaultStudy.CurvesFrom)} × rated)" : $"category {c}: {Numbers.Plain(allowed)} s allowed"
                 + (d.FrequentSeconds is { } fs && d.LargestMultiple is { } lm ? $", {Numbers.Plain(fs)} s for frequent faults (largest multiple {Numbers.Plain(lm)})" : ""));
         parts.Add(Verdict(sc, d));
         return string.Join(", ", parts);
     }
+
+    /// <summary>A neutral-grounding impedance's duty as a sentence.</summary>
+    public static string Grounding(GroundingDuty g) =>
+        $"{TextReport.Phasor(g.Current, "A")} to earth, {TextReport.Phasor(g.Voltage, "V")} across it, I²t {Numbers.Plain(g.I2t)} A²s over {Numbers.Plain(g.Duration)} s; "
+        + (g.Judged ? $"{Rating(g)}: {(g.Exceeded ? "exceeds" : "withstands")}" : "no rated current given: not judged");
+
+    private static string Rating(GroundingDuty g) =>
+        g.Grounding.RatedCurrent is not { } r ? "not given"
+        : g.Grounding.TimeRating is { } t ? $"{Numbers.Format(r, "A")} for {Numbers.Plain(t)} s ({Numbers.Plain(g.RatedI2t!.Value)} A²s)"
+        : $"{Numbers.Format(r, "A")}";
 
     /// <summary>
     /// The line a reviewer signs against under the duty table: whether every winding withstands the fault
@@ -122,6 +142,7 @@ public static class FaultDutyReport
             if (d.FrequentExceeded(duration)) why.Add("longer than the frequent-fault curve allows");
             return $"{d.Winding.Name} ({string.Join(", ", why)})";
         }).ToList();
+        failed.AddRange(sc.Groundings.Where(g => g.Exceeded).Select(g => $"{g.Grounding.Element} ({(g.CurrentExceeded ? "current above its rating" : "I²t above its rating")})"));
         string Names(Func<WindingDuty, bool> missing) => string.Join(", ", sc.Duties.Where(missing).Select(d => d.Winding.Name));
         var unjudged = new List<string>();
         void Unjudged(string limit, string reason, Func<WindingDuty, bool> missing)
@@ -132,7 +153,8 @@ public static class FaultDutyReport
         Unjudged("temperature", "no conductor given", d => d.Temperature is null);
         Unjudged("peak", "no peak withstand given", d => d.PeakWithstand is null);
         Unjudged("category time", "no rating", d => d.Category is null);
-        Unjudged("frequent-fault time", "largest through-fault multiple unknown", d => d.Category is not null && d.FrequentSeconds is null);
+        Unjudged("category time", $"below the through-fault curves, which start at {Numbers.Plain(FaultStudy.CurvesFrom)} × rated", d => d.Category is not null && d.AllowedSeconds is null);
+        Unjudged("frequent-fault time", "largest through-fault multiple unknown", d => d.AllowedSeconds is not null && d.FrequentSeconds is null);
         var judged = failed.Count > 0
             ? $"not withstood by {string.Join(", ", failed)}"
             : sc.Duties.IsEmpty ? "no winding carries the fault"
@@ -145,7 +167,7 @@ public static class FaultDutyReport
     private static bool Exceeds(ShortCircuitResult sc, WindingDuty d) => sc.Exceeds(d);
 
     private static string Verdict(ShortCircuitResult sc, WindingDuty d) =>
-        Exceeds(sc, d) ? "exceeds" : d.Temperature is null && d.Category is null && d.PeakWithstand is null ? "not judged" : "withstands";
+        Exceeds(sc, d) ? "exceeds" : d.Temperature is null && d.AllowedSeconds is null && d.PeakWithstand is null ? "not judged" : "withstands";
 
     private static string TimeConstant(ShortCircuitResult sc) => double.IsFinite(sc.DcTimeConstant) ? Numbers.Format(sc.DcTimeConstant * 1000, "ms") : "infinite";
 

@@ -64,9 +64,12 @@ public static class Checks
         problem = null;
         double? worst = null;
         var worstExcess = double.NegativeInfinity;
-        foreach (var name in expect.Phases)
+        for (var k = 0; k < expect.Phases.Length; k++)
         {
-            if (MeasureOne(expect with { Targets = [expect.Targets[0] with { Name = name }], Phases = [] }, result, out problem) is not { } v)
+            var name = expect.Phases[k];
+            // A section of a whole three-phase winding between two of its three-phase taps: each phase's own taps.
+            var targets = expect.Targets.Select((t, i) => t with { Name = i == 0 ? name : Phases.Of(t.Name, k) }).ToImmutableArray();
+            if (MeasureOne(expect with { Targets = targets, Phases = [] }, result, out problem) is not { } v)
             {
                 phase = name;
                 return null;

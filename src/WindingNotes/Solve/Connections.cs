@@ -86,7 +86,8 @@ public static class Connections
             if (s.NodeA != earth && s.NodeB != earth) sets.Union(s.NodeA, s.NodeB);
         // By island, so that a file of many units pairs each load only with the supplies of its own unit.
         var suppliesIn = new Dictionary<int, SortedSet<int>>();
-        foreach (var supply in network.Supplies)
+        // A neutral-grounding impedance is no source: a load beside it is not fed through it.
+        foreach (var supply in network.Supplies.Where(s => !s.Source.Grounding))
             foreach (var p in new[] { supply.NodeP, supply.NodeQ }.Where(p => p != earth))
             {
                 if (!suppliesIn.TryGetValue(sets.Find(p), out var set)) suppliesIn[sets.Find(p)] = set = [];
@@ -99,7 +100,7 @@ public static class Connections
                 if (!coresIn.TryGetValue(sets.Find(n), out var set)) coresIn[sets.Find(n)] = set = [];
                 set.Add(s.Core);
             }
-        var supplyPoints = network.Supplies.SelectMany(s => new[] { s.NodeP, s.NodeQ }).ToHashSet();
+        var supplyPoints = network.Supplies.Where(s => !s.Source.Grounding).SelectMany(s => new[] { s.NodeP, s.NodeQ }).ToHashSet();
         var touching = network.Sections.SelectMany(s => new[] { (Node: s.NodeA, Section: s), (Node: s.NodeB, Section: s) }).ToLookup(x => x.Node, x => x.Section);
         var result = ImmutableArray.CreateBuilder<Connection>();
         foreach (var load in network.Loads)

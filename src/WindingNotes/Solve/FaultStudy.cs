@@ -125,6 +125,9 @@ public sealed record ShortCircuitResult(BusFaultModel Fault, FaultStudyModel Stu
 
     public double Thermal { get; init; }
 
+    /// <summary>Each neutral-grounding impedance's current, voltage and I²t in the fault (GroundingDuty.cs).</summary>
+    public ImmutableArray<GroundingDuty> Groundings { get; init; } = [];
+
     /// <summary>The DC component's time constant X/(ωR), s; +∞ for a loop without resistance.</summary>
     public double DcTimeConstant { get; init; }
 
@@ -245,7 +248,7 @@ public static class FaultStudy
                 Duties = [.. c.ShortCircuit.Duties.Select(d =>
                 {
                     if (d.Category is not { } category || d.Multiple is not { } m) return d;
-                    if (category == "I") return d with { FrequentSeconds = d.AllowedSeconds };
+                    if (category == "I" || m < CurvesFrom) return d with { FrequentSeconds = d.AllowedSeconds };
                     var own = ImpedanceMultiple(network, d.Winding);
                     double? largest = category switch
                     {
@@ -333,7 +336,8 @@ public static class FaultStudy
     {
         const double limit = 0.3;
         var model = network.Model;
-        foreach (var s in network.Supplies)
+        // A neutral-grounding impedance carries no positive-sequence current, which is what κ is of.
+        foreach (var s in network.Supplies.Where(s => !s.Source.Grounding))
             if (s.Impedance != Complex.Zero && !(s.Impedance.Imaginary > 0 && s.Impedance.Real / s.Impedance.Imaginary < limit)) return false;
         bool States(string winding) => model.Windings.FirstOrDefault(w => w.Name == winding) is { } w && (w.Resistance is not null || w.Conductor is not null);
         foreach (var z in model.Impedances)
@@ -477,8 +481,15 @@ public static class FaultStudy
     /// category IV 2 s at the current the impedances allow, until its one curve (the frequent-fault curve,
     /// <see cref="FrequentSeconds"/>) replaces it once the largest through-fault multiple is known.
     /// </summary>
-    public static double AllowedSeconds(string category, double multiple) =>
-        category != "IV" ? 1250 / (multiple * multiple) : 2;
+    public static double? AllowedSeconds(string category, double multiple) =>
+        multiple < CurvesFrom ? null : category != "IV" ? 1250 / (multiple * multiple) : 2;
+
+    /// <summary>
+    /// The multiple of rated current the through-fault curves of IEEE C57.109 start at, for every
+    /// category (from memory: the curves are drawn from 2 times rated current up). Below it they say
+    /// nothing: a winding that carries less has no time allowed, and its duty is not judged on them.
+    /// </summary>
+    public const double CurvesFrom = 2;
 
     /// <summary>The largest symmetrical multiple a category I unit is built for, by kVA (IEEE C57.12.00, from memory): 40, 35 or 25.</summary>
     public static double CategoryOneMultiple(double kva, bool threePhase) =>
@@ -699,6 +710,7 @@ public static class FaultStudy
             DcTimeConstant = rx > 0 && double.IsFinite(rx) ? 1 / (2 * Math.PI * frequency * rx) : double.PositiveInfinity,
             EarthFaultFactor = earthFactor,
             Duties = duties.ToImmutable(),
+            Groundings = GroundingDuty.Of(model, result, sc.Study.Duration),
         };
     }
 
@@ -728,5 +740,6 @@ public static class FaultStudy
             if (d.CategoryExceeded(sc.Study.Duration)) diagnostics.ReportThroughFaultCategory(sc, d);
             if (d.FrequentExceeded(sc.Study.Duration)) diagnostics.ReportFrequentFaultCurve(sc, d);
         }
+        foreach (var g in sc.Groundings.Where(g => g.Exceeded)) diagnostics.ReportGroundingDuty(sc, g);
     }
 }

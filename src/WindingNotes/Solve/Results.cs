@@ -193,7 +193,8 @@ public static class Results
             return new LoadResult(l, v, i, Clean(v * Complex.Conjugate(i)), regulation);
         }).ToImmutableArray();
 
-        var supplied = supplies.Sum(s => s.Power.Real);
+        // A neutral-grounding impedance's power is a loss of the network, not power supplied.
+        var supplied = supplies.Where(s => !s.Supply.Source.Grounding).Sum(s => s.Power.Real);
         var delivered = loads.Sum(l => l.Power.Real);
         // Without an open-circuit test a core's loss is unknown: an efficiency of copper loss alone would flatter.
         var coreLossKnown = cores.All(c => c.LossKnown);

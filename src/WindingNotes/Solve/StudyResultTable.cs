@@ -112,10 +112,18 @@ public static class StudyResultTable
                 Number<Duty>("temperature", "degC", d => d.Winding.Temperature is { } t ? Celsius(Finite(t)) : null, "average winding temperature after the duration, degC"),
                 Number<Duty>("temperatureLimit", "degC", d => Celsius(d.Winding.TemperatureLimit), "degC"),
                 Choice<Duty>("category", d => d.Winding.Category, ["I", "II", "III", "IV"]),
-                Number<Duty>("allowed", "s", d => d.Winding.AllowedSeconds, "seconds the through-fault category allows at this multiple"),
+                Number<Duty>("allowed", "s", d => d.Winding.AllowedSeconds, "seconds the through-fault category allows at this multiple; absent below 2 times rated current, where the curves start"),
                 Number<Duty>("allowedFrequent", "s", d => d.Winding.FrequentSeconds, "seconds the category's frequent-fault curve allows at this multiple (IEEE C57.109)"),
                 Number<Duty>("largestMultiple", "", d => d.Winding.LargestMultiple, "categories II and III: the largest through-fault multiple the frequent-fault curve is drawn from (1/Zt, or 1/(Zt + Zs) for III)"),
                 Boolean<Duty>("withstands", d => !d.Study.Exceeds(d.Winding), required: true)), required: true),
+            Map<ShortCircuitResult>("groundings", sc => sc.Groundings.IsEmpty ? null : sc.Groundings.Select(g => (g.Grounding.Element, (object)g)), Of(
+                Phasor<GroundingDuty>("i", "A", g => g.Current, "the current from the node to earth through it, A", required: true),
+                Phasor<GroundingDuty>("v", "V", g => g.Voltage, "the voltage across it: the node's voltage to earth, V", required: true),
+                Number<GroundingDuty>("i2t", "A²s", g => g.I2t, "the current squared times the fault's duration, A²s", required: true),
+                Number<GroundingDuty>("ratedCurrent", "A", g => g.Grounding.RatedCurrent, "its rated current as its line gives it, A"),
+                Number<GroundingDuty>("ratedI2t", "A²s", g => g.RatedI2t, "its rated current squared times its time rating, A²s"),
+                Boolean<GroundingDuty>("withstands", g => g.Judged ? !g.Exceeded : null, "with a rated current given: neither its current nor its I²t above its rating")),
+                "each neutral-grounding impedance ('ground N impedance …') by its element's name"),
         ])
         { When = c => c.ShortCircuit is not null, Single = c => c.ShortCircuit! },
 

@@ -181,8 +181,14 @@ public static class Grammar
             "no-load K1 current 1.8 % loss 11 W at HV 240 V", "the magnetising branch from an open-circuit test"),
         new(StatementKind.Join, "join", [new NameListPart(NodeRef)], [],
             "join H2 X1", "connect terminals into one node"),
-        new(StatementKind.Ground, "ground", [new NamePart(NodeRef)], [],
-            "ground N", "the reference node"),
+        new(StatementKind.Ground, "ground", [new NamePart(NodeRef)],
+            [
+                // A neutral-grounding resistor or reactor: part of the network in every case, never a load.
+                Clause("impedance", "earthed through a neutral-grounding resistor or reactor of this impedance, which stays in every case (no-load, faults)", Value),
+                Clause("rated-current", "the current the grounding impedance is rated to carry for its time rating", Value),
+                Clause("time-rating", "how long the grounding impedance may carry its rated current", Value),
+            ],
+            "ground N", "the reference node, or a node earthed through a grounding impedance"),
         new(StatementKind.Supply, "supply", [new NamePart(Def(SymbolKind.Supply, "a new supply name")), new NamePart(NodeRef), new NamePart(NodeRef), new ValuePart("a voltage")],
             [
                 Clause("fault-level", "the prospective fault current or fault power at the supply", Value),

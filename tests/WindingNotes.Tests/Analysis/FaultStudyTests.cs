@@ -254,7 +254,7 @@ public class FaultStudyTests
         Assert.Equal("II", FaultStudy.Category(5000, threePhase: true));
         Assert.Equal("III", FaultStudy.Category(5001, threePhase: true));
         Assert.Equal("IV", FaultStudy.Category(30001, threePhase: true));
-        Assert.Equal(2, FaultStudy.AllowedSeconds("I", 25), 9);
+        Assert.Equal(2, FaultStudy.AllowedSeconds("I", 25)!.Value, 9);
         Assert.Equal(25, FaultStudy.CategoryOneMultiple(500, threePhase: true));
         Assert.Equal(40, FaultStudy.CategoryOneMultiple(25, threePhase: false));
     }
@@ -539,8 +539,8 @@ public class FaultStudyTests
         Assert.Equal(12.5, FaultStudy.FrequentSeconds("II", 10, largest), 9);                           // 10 < 11.67: 1250/100
         Assert.Equal(5.556, FaultStudy.FrequentSeconds("III", 10, largest), 3);                         // 10 ≥ 8.33: 555.6/100
         Assert.Equal(2, FaultStudy.FrequentSeconds("II", 17, largest), 9);                              // past Mmax: the curve's end
-        Assert.Equal(1250.0 / 196, FaultStudy.AllowedSeconds("II", 14), 9);
-        Assert.Equal(2, FaultStudy.AllowedSeconds("IV", 14), 9);
+        Assert.Equal(1250.0 / 196, FaultStudy.AllowedSeconds("II", 14)!.Value, 9);
+        Assert.Equal(2, FaultStudy.AllowedSeconds("IV", 14)!.Value, 9);
         // Zt = 3 %: Mmax 33.3 passes 25, and the thermal curve bounds the frequent one: at 30, 1250/900 s.
         Assert.Equal(1250.0 / 900, FaultStudy.FrequentSeconds("II", 30, 1 / 0.03), 9);
 

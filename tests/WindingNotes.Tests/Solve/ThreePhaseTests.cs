@@ -291,7 +291,8 @@ public class ThreePhaseTests
     [Fact]
     public void A_zigzag_grounding_transformer_gives_the_fault_current_of_its_sequence_impedances()
     {
-        // The Kestrel Point example: a delta-delta bank feeds a 4.16 kV bus grounded only by a zigzag.
+        // The Kestrel Point example: a delta-delta bank feeds a 4.16 kV bus grounded only by a zigzag,
+        // whose neutral is earthed through an 8 ohm resistor.
         var e = Wn.Solved(Example("kestrel-point-zigzag-grounding"));
         // By hand: with equal and opposite ampere-turns on each limb the zigzag's Z0 per phase is the
         // leakage between a limb's two halves referred to one half: 10 % on a limb (50 kVA) at a half's
@@ -305,19 +306,23 @@ public class ThreePhaseTests
         // 2.5 MVA, X/R 8) in series, referred to 4160 V, in parallel with the zigzag's magnetising
         // branch from its open-circuit test (2 % of rated line current at 4160 V, 500 W: per phase
         // G = P/V², |Y| = I/(V/√3)). R30 (any power-systems textbook, symmetrical components): a
-        // line-to-ground fault draws I = 3E/(Z1 + Z2 + Z0); the delta blocks the source's zero
-        // sequence, so Z0 is the zigzag's alone. E = c·Un/√3 with c = 1.10 (IEC 60909-0 equivalent
-        // source, loads left out, as the fault study states it).
+        // line-to-ground fault draws I = 3E/(Z1 + Z2 + Z0 + 3·R_N); the delta blocks the source's zero
+        // sequence, so Z0 is the zigzag's alone, and the neutral resistor adds 3·R_N. E = c·Un/√3 with
+        // c = 1.10 (IEC 60909-0 equivalent source, loads left out, as the fault study states it; the
+        // resistor is part of the network and stays).
         const double v = 4160;
         var zs = Angle(v * v / 500e6, 10) + Angle(0.06 * v * v / 2.5e6, 8);
         var g = 500 / (v * v);
         var y = 0.02 * 150e3 / (Math.Sqrt(3) * v) / (v / Math.Sqrt(3));
         var z1 = 1 / (1 / zs + new Complex(g, -Math.Sqrt(y * y - g * g)));
-        var expected = 3 * 1.1 * v / Math.Sqrt(3) / (2 * z1 + z0);
+        var expected = 3 * 1.1 * v / Math.Sqrt(3) / (2 * z1 + z0 + 3 * 8);
         // To 1e-7: the magnetising admittance is some 1e-4 of the leakage's, and the solved system
         // carries both (the phase-by-phase form agrees with it to 1e-9 below).
         var fault = e.Cases.Select(c => c.ShortCircuit).OfType<ShortCircuitResult>().Single();
-        Wn.Near(expected.Magnitude, fault.Initial, 1e-7, "I = 3E/(Z1 + Z2 + Z0)");
+        Wn.Near(expected.Magnitude, fault.Initial, 1e-7, "I = 3E/(Z1 + Z2 + Z0 + 3·R_N)");
+        // All of it returns by the resistor: 314.7 A, within its 400 A for 10 s.
+        Wn.Near(expected.Magnitude, Assert.Single(fault.Groundings).Current.Magnitude, 1e-7, "the resistor's current");
+        Assert.False(fault.Groundings[0].Exceeded);
         Close(z1, fault.Z1, 1e-7);
         // The fault current returns by the zigzag's neutral: its zero-sequence current is a third of it.
         var faulted = e.Cases.Single(c => c.ShortCircuit is not null);
