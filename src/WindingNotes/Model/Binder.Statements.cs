@@ -50,6 +50,7 @@ internal sealed partial class BindRun
             case StatementKind.Find: BindFind(s); break;
             case StatementKind.FaultStudy: if (Once(s)) BindFaultStudy(s); break;
             case StatementKind.BusFault: BindBusFault(s); break;
+            case StatementKind.Pair: BindPair(s); break;
         }
     }
 
@@ -172,6 +173,7 @@ internal sealed partial class BindRun
         var at = s.Value("at");
         // A tap written without its position has none at any sweep point either.
         Quantity? Position() => at is not null && overrides.Values.TryGetValue(name.Text, out var moved) ? moved : Value(at, $"the position of {name.Text}");
+        if (winding is not null && IsPairWhole(winding, s.Clause("on")!.Name(0))) return;
         if (winding is not null && BindThreePhaseTap(s, winding, name, isBrush, () => Position() is { } p ? TapPosition(p, at!, name.Text) : null)) return;
         var position = Position();
         if (winding is null || position is null || TapPosition(position.Value, at!, name.Text) is not { } place) return;
@@ -244,7 +246,7 @@ internal sealed partial class BindRun
         foreach (var end in new[] { name.SectionFrom, name.SectionTo })
         {
             var point = symbols.Find(end.Text);
-            if (point is null || !point.IsConnectionPoint || point.Owner != winding.Name)
+            if (point is null || !point.IsConnectionPoint || (point.Owner != winding.Name && !IsPairPoint(point, winding)))
             {
                 var candidates = symbols.Symbols.Where(p => p.IsConnectionPoint && p.Owner == winding.Name).Select(p => p.Name);
                 if (!FollowsFromBrokenLine(end))
@@ -552,13 +554,13 @@ internal sealed partial class BindRun
             var symbol = isPoint ? Observed(names[i]) : Resolve(names[i], names[i].Role.Label, names[i].Role.Kinds);
             if (symbol is null) return;
             if (isPoint && IsThreePhaseTap(symbol, names[i])) return;
-            if (!isPoint && declaredThreePhase.Contains(symbol.Name))
+            if (!isPoint && (declaredThreePhase.Contains(symbol.Name) || IsPairWhole(symbol, null)))
             {
                 // A current or loading check of a whole three-phase element checks each of its phases.
                 if (names.Count == 1 && PhasesChecked(symbol, measure) is { IsEmpty: false } phases) phaseTargets = phases;
                 else
                 {
-                    diagnostics.ReportNamePhase(names[i].Name, symbol.Name);
+                    if (!IsPairWhole(symbol, names[i])) diagnostics.ReportNamePhase(names[i].Name, symbol.Name);
                     return;
                 }
             }

@@ -160,6 +160,7 @@ internal sealed partial class BindRun
             foreach (var name in statement.AllNames) brokenWords.Add(name.Text);
         }
         DeclarePhases(statement);
+        DeclarePair(statement);
     }
 
     /// <summary>The winding the points a statement defines are on.</summary>
@@ -167,6 +168,7 @@ internal sealed partial class BindRun
     {
         StatementKind.Winding => statement.Head.Name(0)?.Text,
         StatementKind.Tap or StatementKind.Brush => statement.Clause("on")?.Name(0)?.Text,
+        StatementKind.Pair => statement.Head.Name(0)?.Text,
         _ => null,
     };
 
