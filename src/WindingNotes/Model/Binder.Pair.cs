@@ -25,6 +25,7 @@ internal sealed partial class BindRun
     {
         if (s.Kind != StatementKind.Pair || rejected.Contains(s) || s.Head.Name(0) is not { } head) return;
         var units = PairUnits(s);
+        declaredPairs[head.Text] = units;
         foreach (var unit in units) Derive($"{head.Text}_{unit}", SymbolKind.Core, head, s);
         foreach (var clause in new[] { s.Clause("primary"), s.Clause("secondary") })
         {
@@ -37,7 +38,7 @@ internal sealed partial class BindRun
             if (Derive(point.Item1, point.Item2, primary, s) is { } symbol && !derivedPoints.Contains(symbol)) derivedPoints.Add(symbol);
     }
 
-    /// <summary>A pair's primary and secondary names, each with its units' suffixes: each stands for its units' windings.</summary>
+    /// <summary>A pair's name and its primary and secondary names, each with its units' suffixes: each stands for its two units' cores or windings.</summary>
     private readonly Dictionary<string, string[]> declaredPairs = new(StringComparer.Ordinal);
 
     /// <summary>
@@ -50,12 +51,12 @@ internal sealed partial class BindRun
         && (at == owner || symbols.Find(at) is { Kind: SymbolKind.Core } pair && pair.StatementSpan == winding.StatementSpan);
 
     /// <summary>
-    /// Whether a winding name is a pair's primary or secondary, which stands for its two units'
-    /// windings; written where one winding is meant (given <paramref name="use"/>), an error that names them.
+    /// Whether a name is a pair's own or its primary's or secondary's, which stands for its two units'
+    /// cores or windings; written where one is meant (given <paramref name="use"/>), an error that names them.
     /// </summary>
     private bool IsPairWhole(Symbol symbol, NameSyntax? use)
     {
-        if (symbol.Kind != SymbolKind.Winding || symbol.Derived || !declaredPairs.TryGetValue(symbol.Name, out var units)) return false;
+        if (symbol.Kind is not (SymbolKind.Winding or SymbolKind.Core) || symbol.Derived || !declaredPairs.TryGetValue(symbol.Name, out var units)) return false;
         if (use is not null) diagnostics.ReportNameUnit(use.Name, symbol.Name, units);
         return true;
     }

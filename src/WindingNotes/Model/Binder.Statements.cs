@@ -241,7 +241,7 @@ internal sealed partial class BindRun
     private WindingPart? WindingPartOf(NameSyntax name)
     {
         var winding = Resolve(name, "a winding", SymbolKind.Winding);
-        if (winding is null) return null;
+        if (winding is null || IsPairWhole(winding, name)) return null;
         if (name.SectionFrom is null || name.SectionTo is null) return new WindingPart(winding.Name, null, null, name.Span);
         foreach (var end in new[] { name.SectionFrom, name.SectionTo })
         {
@@ -267,6 +267,7 @@ internal sealed partial class BindRun
         var at = s.Clause("at");
         var winding = Resolve(at?.Name(0), "a winding", SymbolKind.Winding);
         var voltage = Real(at?.Value(), Dimension.Voltage, "the test voltage", positive: true);
+        if ((core is not null && IsPairWhole(core, s.Head.Name(0))) || (winding is not null && IsPairWhole(winding, at!.Name(0)))) return;
         if (core is null || current is not { } i || loss is null || winding is null || voltage is null) return;
         var fraction = i.IsPercent && i.Dimension.IsNone;
         if (!fraction && !i.Dimension.Fits(Dimension.CurrentDim))

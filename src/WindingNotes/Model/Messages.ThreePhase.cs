@@ -52,7 +52,7 @@ public static partial class ModelMessages
     extension(DiagnosticBag bag)
     {
         public Diagnostic ReportNameUnit(Token name, string winding, string[] units) =>
-            bag.Error("wrong-kind", name.Span, $"'{winding}' is the windings of a pair's two units here: name one of them ('{winding}_{units[0]}' or '{winding}_{units[1]}')");
+            bag.Error("wrong-kind", name.Span, $"'{winding}' stands for both units of a pair here: name one of them ('{winding}_{units[0]}' or '{winding}_{units[1]}')");
 
         public Diagnostic ReportPairOutput(Token keyword, bool scott) =>
             bag.Error("wrong-kind", keyword.Span, scott

@@ -119,9 +119,15 @@ public class PairTests
         Assert.Contains("'main' and 'teaser' are a Scott-T's units", Assert.Single(open.Errors()).Message);
         // A pair's winding name stands for both units: where one winding is meant, one error names them.
         var tap = Assert.Single(Wn.Eval(ScottT + "tap T1 on P at 10 %\n").Errors());
-        Assert.Equal("'P' is the windings of a pair's two units here: name one of them ('P_m' or 'P_t')", tap.Message);
+        Assert.Equal("'P' stands for both units of a pair here: name one of them ('P_m' or 'P_t')", tap.Message);
         var power = Assert.Single(Wn.Eval(ScottT + "expect current S X1 X2 below 10 A\n").Errors());
-        Assert.Equal("'S' is the windings of a pair's two units here: name one of them ('S_m' or 'S_t')", power.Message);
+        Assert.Equal("'S' stands for both units of a pair here: name one of them ('S_m' or 'S_t')", power.Message);
+        // Likewise an impedance line, an open-circuit test and a flux check: never left out unsaid.
+        Assert.Equal("'P' stands for both units of a pair here: name one of them ('P_m' or 'P_t')", Assert.Single(Wn.Eval(ScottT + "impedance P S_m 3 %\n").Errors()).Message);
+        Assert.Equal("'K' stands for both units of a pair here: name one of them ('K_m' or 'K_t')", Assert.Single(Wn.Eval(ScottT + "no-load K current 1 % loss 20 W at P_m 480 V\n").Errors()).Message);
+        Assert.Equal("'K' stands for both units of a pair here: name one of them ('K_m' or 'K_t')", Assert.Single(Wn.Eval(ScottT + "expect flux K below 1.5 T\n").Errors()).Message);
+        // Each unit's own lines are as for any core: K_m's open-circuit test at its primary.
+        Assert.Empty(Wn.Solved(ScottT + "no-load K_m current 1 % loss 20 W at P_m 480 V\n").Errors());
     }
 
     [Theory]
