@@ -48,6 +48,7 @@ internal sealed partial class BindRun
             case StatementKind.Find: BindFind(s); break;
             case StatementKind.FaultStudy: if (Once(s)) BindFaultStudy(s); break;
             case StatementKind.BusFault: BindBusFault(s); break;
+            case StatementKind.Pair: BindPair(s); break;
         }
     }
 
@@ -174,6 +175,7 @@ internal sealed partial class BindRun
             s.Clause("range") is { } r && Value(r.Value(0), "the start of the range") is { } a && Value(r.Value(1), "the end of the range") is { } b
             && TapPosition(a, r.Value(0)!, name.Text) is { } from && TapPosition(b, r.Value(1)!, name.Text) is { } to
                 ? new TapRange(from.Position, from.Unit, to.Position, to.Unit, r.Span) : null;
+        if (winding is not null && IsPairWhole(winding, s.Clause("on")!.Name(0))) return;
         if (winding is not null && BindThreePhaseTap(s, winding, name, isBrush, () => Position() is { } p ? TapPosition(p, at!, name.Text) : null, Range)) return;
         var position = Position();
         if (winding is null || position is null || TapPosition(position.Value, at!, name.Text) is not { } place) return;
@@ -238,12 +240,12 @@ internal sealed partial class BindRun
     private WindingPart? WindingPartOf(NameSyntax name)
     {
         var winding = Resolve(name, "a winding", SymbolKind.Winding);
-        if (winding is null) return null;
+        if (winding is null || IsPairWhole(winding, name)) return null;
         if (name.SectionFrom is null || name.SectionTo is null) return new WindingPart(winding.Name, null, null, name.Span);
         foreach (var end in new[] { name.SectionFrom, name.SectionTo })
         {
             var point = symbols.Find(end.Text);
-            if (point is null || !point.IsConnectionPoint || point.Owner != winding.Name)
+            if (point is null || !point.IsConnectionPoint || (point.Owner != winding.Name && !IsPairPoint(point, winding)))
             {
                 var candidates = symbols.Symbols.Where(p => p.IsConnectionPoint && p.Owner == winding.Name).Select(p => p.Name);
                 if (!FollowsFromBrokenLine(end))
@@ -264,6 +266,7 @@ internal sealed partial class BindRun
         var at = s.Clause("at");
         var winding = Resolve(at?.Name(0), "a winding", SymbolKind.Winding);
         var voltage = Real(at?.Value(), Dimension.Voltage, "the test voltage", positive: true);
+        if ((core is not null && IsPairWhole(core, s.Head.Name(0))) || (winding is not null && IsPairWhole(winding, at!.Name(0)))) return;
         if (core is null || current is not { } i || loss is null || winding is null || voltage is null) return;
         var fraction = i.IsPercent && i.Dimension.IsNone;
         if (!fraction && !i.Dimension.Fits(Dimension.CurrentDim))
@@ -551,13 +554,13 @@ internal sealed partial class BindRun
             var symbol = isPoint ? Observed(names[i]) : Resolve(names[i], names[i].Role.Label, names[i].Role.Kinds);
             if (symbol is null) return;
             if (isPoint && !(i > 0 && !phaseTargets.IsEmpty) && IsThreePhaseTap(symbol, names[i])) return;
-            if (!isPoint && declaredThreePhase.Contains(symbol.Name))
+            if (!isPoint && (declaredThreePhase.Contains(symbol.Name) || IsPairWhole(symbol, null)))
             {
                 // A current or loading check of a whole three-phase element checks each of its phases.
                 if ((names.Count == 1 || ThreePhaseSection(symbol, names)) && PhasesChecked(symbol, measure) is { IsEmpty: false } phases) phaseTargets = phases;
                 else
                 {
-                    diagnostics.ReportNamePhase(names[i].Name, symbol.Name);
+                    if (!IsPairWhole(symbol, names[i])) diagnostics.ReportNamePhase(names[i].Name, symbol.Name);
                     return;
                 }
             }

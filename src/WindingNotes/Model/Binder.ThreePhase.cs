@@ -238,6 +238,12 @@ internal sealed partial class BindRun
                 impedances.Add(z with { First = z.First with { Winding = PhaseOn(first, k) }, Second = z.Second with { Winding = first.PhaseWindings[(k + 2) % 3] + "n" } });
             return;
         }
+        if (first is not null && first == second)
+        {
+            // One mistake, one message: not one for each limb.
+            diagnostics.ReportSameWinding(z.Second.Span);
+            return;
+        }
         if (first is null || second is null || first.Connection == PhaseConnection.Zigzag || second.Connection == PhaseConnection.Zigzag)
         {
             diagnostics.ReportPhaseImpedance(z.Line);

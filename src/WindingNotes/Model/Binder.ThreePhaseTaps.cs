@@ -81,6 +81,7 @@ internal sealed partial class BindRun
         if (measure is not (MeasureKind.Current or MeasureKind.Loading)) return [];
         if (measure == MeasureKind.Loading && symbol.Kind != SymbolKind.Winding) return [];
         if (symbol.Kind is not (SymbolKind.Winding or SymbolKind.Supply or SymbolKind.Load)) return [];
+        if (PairPhases(symbol) is { } units) return units;
         // A delta load's phases are named by the lines they join.
         var names = symbol.Kind == SymbolKind.Load && symbols.Find(Phases.Of(symbol.Name, 0)) is null ? DeltaNames(symbol.Name) : Phases.All(symbol.Name);
         return names.All(n => symbols.Find(n) is { Derived: true }) ? [.. names] : [];

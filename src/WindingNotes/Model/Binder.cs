@@ -279,6 +279,7 @@ internal sealed partial class BindRun
         }
         DeclarePhases(statement);
         DeclareGrounding(statement);
+        DeclarePair(statement);
     }
 
     /// <summary>The winding the points a statement defines are on.</summary>
@@ -286,6 +287,7 @@ internal sealed partial class BindRun
     {
         StatementKind.Winding => statement.Head.Name(0)?.Text,
         StatementKind.Tap or StatementKind.Brush => statement.Clause("on")?.Name(0)?.Text,
+        StatementKind.Pair => statement.Head.Name(0)?.Text,
         _ => null,
     };
 

@@ -45,3 +45,18 @@ public static partial class ModelMessages
             bag.Error("wrong-kind", name.Span, $"'{name.Text}' {problem}");
     }
 }
+
+// Messages of the binding stage about 'pair'.
+public static partial class ModelMessages
+{
+    extension(DiagnosticBag bag)
+    {
+        public Diagnostic ReportNameUnit(Token name, string winding, string[] units) =>
+            bag.Error("wrong-kind", name.Span, $"'{winding}' stands for both units of a pair here: name one of them ('{winding}_{units[0]}' or '{winding}_{units[1]}')");
+
+        public Diagnostic ReportPairOutput(Token keyword, bool scott) =>
+            bag.Error("wrong-kind", keyword.Span, scott
+                ? $"a Scott-T's outputs are its main's and its teaser's secondaries: 'main X1 X2 teaser Y1 Y2', not '{keyword.Text}'"
+                : "'main' and 'teaser' are a Scott-T's units: an open delta's secondaries are 'output X1 X2 X3' (in open delta too) or 'series Y1 Y3' (in series with the outer lines)");
+    }
+}

@@ -2,7 +2,7 @@ using System.Collections.Frozen;
 
 namespace WindingNotes.Syntax;
 
-public enum StatementKind { Frequency, Temperature, Let, Core, Winding, Tap, Brush, Impedance, NoLoad, Join, Ground, Supply, Load, Fault, Sweep, Expect, FailOn, Acknowledge, ThreePhaseSupply, ThreePhaseLoad, Thermal, LoadCycle, CyclePoint, TapChanger, Find, FaultStudy, BusFault, Capability }
+public enum StatementKind { Frequency, Temperature, Let, Core, Winding, Tap, Brush, Impedance, NoLoad, Join, Ground, Supply, Load, Fault, Sweep, Expect, FailOn, Acknowledge, ThreePhaseSupply, ThreePhaseLoad, Thermal, LoadCycle, CyclePoint, TapChanger, Find, FaultStudy, BusFault, Capability, Pair }
 
 /// <summary>What a name stands for. One namespace holds them all.</summary>
 public enum SymbolKind { Let, Core, Winding, Terminal, Tap, Brush, Node, Supply, Load, Fault, TapChanger }
@@ -372,6 +372,29 @@ public static class Grammar
             ],
             "bus-fault F2 X1 X2 X3 line-to-ground impedance 0 ohm",
             "a short circuit on a three-phase bus: line-to-ground on the first line, line-to-line and double-line-to-ground on the second and third"),
+        // Two like single-phase units on a three-phase supply, declared once and placed by a connection word.
+        new(StatementKind.Pair, "pair", [new NamePart(Def(SymbolKind.Core, "a new pair name")), .. Lines],
+            [
+                new("open-delta", [], Group: "connection",
+                    Summary: "two units in open delta: the first from the first line terminal to the second, the other from the third to the second, the line they share"),
+                new("scott-t", [], Group: "connection",
+                    Summary: "a Scott-T: the main from the first line terminal to the second, centre-tapped; the teaser from the third to the main's centre tap on its 86.6 % tap"),
+                new("output", [new NamePart(Terminal), new NamePart(Terminal), new NamePart(Terminal)], Group: "output",
+                    Summary: "open delta: the secondaries in open delta too, the first from the first output terminal to the second, the other from the third to the second"),
+                new("series", [new NamePart(Terminal), new NamePart(Terminal)], Group: "output",
+                    Summary: "open delta: each secondary in series with its unit's outer line, from its output terminal to the line, adding to the supply (boost)"),
+                new("main", [new NamePart(Terminal), new NamePart(Terminal), new WordPart("teaser"), new NamePart(Terminal), new NamePart(Terminal)], Group: "output",
+                    Summary: "Scott-T: the main's secondary from, to, then the teaser's from, to: two single-phase outputs in quadrature"),
+                new("rating", [Value], Required: true, Summary: "each unit's kVA rating"),
+                new("primary", [new NamePart(Def(SymbolKind.Winding, "a new winding name")), new ValuePart("a rated voltage")], Required: true,
+                    Summary: "the winding on the three-phase lines and its rated voltage: phase windings NAME_a, NAME_b (open delta) or NAME_m, NAME_t (main, teaser)"),
+                new("secondary", [new NamePart(Def(SymbolKind.Winding, "a new winding name")), new ValuePart("a rated voltage")], Required: true,
+                    Summary: "the other winding of each unit and its rated voltage"),
+                Clause("impedance", "each unit's short-circuit impedance between its primary and secondary, in % on its rating or ohms referred to the primary", Value),
+                Clause("xr", "the X/R ratio of the impedance", Value),
+            ],
+            "pair B H1 H2 H3 open-delta series Y1 Y3 rating 3 kVA primary P 480 V secondary S 48 V impedance 2.5 % xr 1.2",
+            "two like single-phase two-winding units on three lines: open delta, or Scott-T (main and teaser)", ["connection", "output"]),
     ];
 
     public static readonly FrozenDictionary<string, StatementForm> ByKeyword = Statements.ToFrozenDictionary(s => s.Keyword);

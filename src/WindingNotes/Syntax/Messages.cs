@@ -50,6 +50,13 @@ public static partial class SyntaxMessages
             bag.Error("missing-clause", statement.Keyword.Span,
                 $"a {statement.Keyword.Text} needs one of {Alternatives(choices.Select(c => $"'{c}'").ToList())}");
 
+        public Diagnostic ReportMissingClauses(StatementSyntax statement, IReadOnlyList<string> clauses, IReadOnlyList<IReadOnlyList<string>> groups)
+        {
+            var needs = clauses.Select(c => $"'{c}'").Concat(groups.Select(g => $"one of {Alternatives(g.Select(c => $"'{c}'").ToList())}")).ToList();
+            return bag.Error("missing-clause", statement.Keyword.Span,
+                $"a {statement.Keyword.Text} needs {string.Join(", ", needs.Take(needs.Count - 1))} and {needs[^1]}");
+        }
+
         /// <summary>"a, b or c"; long lists are cut so the message stays readable.</summary>
         private static string Alternatives(IReadOnlyList<string> items)
         {

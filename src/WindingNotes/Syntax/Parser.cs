@@ -134,13 +134,12 @@ public static class Parser
             seen.TryAdd(form.Keyword, clause);
             if (form.Group is not null) groups.TryAdd(form.Group, clause);
         }
-        foreach (var form in statement.Form.Clauses.Where(c => c.Required && !seen.ContainsKey(c.Keyword)))
-            diagnostics.ReportMissingClause(statement, form.Keyword);
-        foreach (var group in statement.Form.RequiredGroups ?? [])
-        {
-            if (groups.ContainsKey(group)) continue;
-            var choices = statement.Form.Clauses.Where(c => c.Group == group).Select(c => c.Keyword).ToList();
-            diagnostics.ReportMissingGroup(statement, group, choices);
-        }
+        // One mistake, one message: every clause and group the line lacks, said together.
+        var clauses = statement.Form.Clauses.Where(c => c.Required && !seen.ContainsKey(c.Keyword)).Select(c => c.Keyword).ToList();
+        var missingGroups = (statement.Form.RequiredGroups ?? []).Where(g => !groups.ContainsKey(g))
+            .Select(g => (IReadOnlyList<string>)statement.Form.Clauses.Where(c => c.Group == g).Select(c => c.Keyword).ToList()).ToList();
+        if (clauses.Count + missingGroups.Count > 1) diagnostics.ReportMissingClauses(statement, clauses, missingGroups);
+        else if (clauses.Count == 1) diagnostics.ReportMissingClause(statement, clauses[0]);
+        else if (missingGroups.Count == 1) diagnostics.ReportMissingGroup(statement, "", missingGroups[0]);
     }
 }

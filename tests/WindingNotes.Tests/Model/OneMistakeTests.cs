@@ -88,4 +88,22 @@ public class OneMistakeTests
         var text = Example("alder-creek-boost.wn").Replace("core K1 rating 0.5 kVA", "winding HV rating 0.5 kVA\ncore K1 rating 0.5 kVA");
         Assert.All(Errors(text), e => Assert.StartsWith("missing-clause:", e));
     }
+
+    [Fact]
+    public void A_winding_line_lacking_its_core_and_its_ends_is_one_error_naming_both()
+    {
+        // Before: two missing-clause errors at the same keyword, "needs 'on'" and "needs one of 'from' …".
+        var error = Assert.Single(Errors("frequency 60 Hz\ncore K1 rating 1 kVA\nwinding HV rated 240 V\n"));
+        Assert.Equal("missing-clause: a winding needs 'on' and one of 'from', 'wye', 'delta', 'zigzag', 'series' or 'ends'", error);
+        // One of them missing is said as before.
+        Assert.Equal("missing-clause: a winding needs 'on'", Assert.Single(Errors("frequency 60 Hz\ncore K1 rating 1 kVA\nwinding HV rated 240 V from H1 to H2\n")));
+    }
+
+    [Fact]
+    public void A_three_phase_impedance_naming_one_winding_twice_is_one_error()
+    {
+        // Before: 'same-winding' once for each limb, three times at the same place.
+        var text = WindingNotes.Tests.Solve.ThreePhaseTests.Unit("delta H1 H2 H3", "wye X1 X2 X3 neutral X0") + "impedance HV HV 5 %\n";
+        Assert.Equal("same-winding: an impedance needs two different windings or sections", Assert.Single(Errors(text)));
+    }
 }
