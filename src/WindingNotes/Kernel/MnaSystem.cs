@@ -100,11 +100,15 @@ internal sealed class MnaSystem
 
     public int Column(int node) => nodeColumn.TryGetValue(node, out var c) ? c : -1;
 
-    public static MnaSystem Assemble(Network network, SolveGroup group, int[] reference, CaseSpec spec)
+    public static MnaSystem Assemble(Network network, SolveGroup group, int[] reference, CaseSpec spec) =>
+        Assemble(network, group, n => reference[n] == n, spec);
+
+    /// <param name="isReference">Whether a node is its island's reference (no unknown of its own).</param>
+    public static MnaSystem Assemble(Network network, SolveGroup group, Func<int, bool> isReference, CaseSpec spec)
     {
         var unknowns = new List<Element>();
         var (nodes, sections, supplies, cores) = (new Dictionary<int, int>(), new Dictionary<int, int>(), new Dictionary<int, int>(), new Dictionary<int, int>());
-        foreach (var n in group.Nodes.Where(n => reference[n] != n))
+        foreach (var n in group.Nodes.Where(n => !isReference(n)))
         {
             nodes[n] = unknowns.Count;
             unknowns.Add(new Element(ElementKind.Node, network.Nodes[n].Name, PointSpan(network, n)));
@@ -256,20 +260,30 @@ internal sealed record SolveGroup(List<int> Nodes, List<int> Sections, List<int>
     /// </summary>
     public static List<SolveGroup> Find(Network network, CaseSpec spec)
     {
-        var nodeCount = network.Nodes.Length;
-        var earth = network.EarthNode;
         var loads = spec.WithoutLoads ? [] : network.Loads.Where(l => l.NodeA != l.NodeB).ToList();
         int faultA = -1, faultB = -1;
         if (spec.Fault is { } f) (faultA, faultB) = (network.Node(f.A.Name), network.Node(f.B.Name));
+        // A fault's case is its part alone (NetworkSolver), so only that part is wanted: the parts of
+        // the wiring are found once (Wiring), and a file of many units then costs each fault the size
+        // of its unit, not the size of the whole file.
+        if (faultA >= 0 && faultB >= 0 && Wiring.Of(network).FaultedPart(faultA, faultB, !spec.WithoutLoads) is { } part) return [part];
         var sets = Islands.Parts(network, !spec.WithoutLoads, faultA >= 0 ? [(faultA, faultB)] : []);
-        // A fault's case is its part alone (NetworkSolver), so only that part is gathered: a file of
-        // many units then costs each fault lists the size of its unit, not lists of the whole file.
         var faulted = faultA >= 0 && Islands.Anchor(network, faultA, faultB) is var anchor and >= 0 ? sets.Find(anchor) : -1;
+        var groups = Gather(network, sets, loads, faulted);
+        if (faulted >= 0) return [groups[faulted] with { HasFault = true }];
+        return groups.OrderBy(g => g.Key).Select(g => g.Value).ToList();
+    }
+
+    /// <summary>The parts of <paramref name="sets"/> by their root, each list ascending; only the part of root <paramref name="only"/> unless it is −1.</summary>
+    internal static Dictionary<int, SolveGroup> Gather(Network network, DisjointSets sets, IEnumerable<LoadNet> loads, int only)
+    {
+        var nodeCount = network.Nodes.Length;
+        var earth = network.EarthNode;
         var groups = new Dictionary<int, SolveGroup>();
         SolveGroup? Of(int vertex)
         {
             var root = sets.Find(vertex);
-            if (faulted >= 0 && root != faulted) return null;
+            if (only >= 0 && root != only) return null;
             if (!groups.TryGetValue(root, out var g)) groups[root] = g = new SolveGroup([], [], [], [], [], false);
             return g;
         }
@@ -280,7 +294,6 @@ internal sealed record SolveGroup(List<int> Nodes, List<int> Sections, List<int>
         foreach (var l in loads) Of(Islands.Anchor(network, l.NodeA, l.NodeB))?.Loads.Add(l.Index);
         for (var c = 0; c < network.Cores.Length; c++)
             if (network.Cores[c].Sections.Length > 0) Of(nodeCount + c)?.Cores.Add(c);
-        if (faulted >= 0) return [groups[faulted] with { HasFault = true }];
-        return groups.OrderBy(g => g.Key).Select(g => g.Value).ToList();
+        return groups;
     }
 }

@@ -1,5 +1,7 @@
 using System.Collections.Immutable;
 using System.Numerics;
+using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
 using WindingNotes.Text;
 
 namespace WindingNotes.Model;
@@ -85,7 +87,18 @@ public sealed record Network(
 {
     public int Node(string point) => NodeOfPoint.TryGetValue(point, out var n) ? n : -1;
 
-    public int EarthNode => Nodes.FirstOrDefault(n => n.IsEarth)?.Index ?? -1;
+    /// <summary>The earth node, or −1; found once per node array, as the solver asks for it per element.</summary>
+    public int EarthNode
+    {
+        get
+        {
+            var nodes = ImmutableCollectionsMarshal.AsArray(Nodes);
+            if (nodes is null) return -1;
+            return Earths.GetValue(nodes, n => new StrongBox<int>(Array.FindIndex(n, x => x.IsEarth) is var i and >= 0 ? n[i].Index : -1)).Value;
+        }
+    }
+
+    private static readonly ConditionalWeakTable<NetworkNode[], StrongBox<int>> Earths = new();
 
     /// <summary>The limbs of three-phase cores linked through their yokes.</summary>
     public ImmutableArray<MagneticCoupling> Couplings { get; init; } = [];

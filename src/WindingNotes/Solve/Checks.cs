@@ -89,15 +89,14 @@ public static class Checks
             case MeasureKind.Voltage:
                 return (result.PointVoltage(t[0].Name) - result.PointVoltage(t[1].Name)).Magnitude;
             case MeasureKind.Current or MeasureKind.Loading:
-                var terminal = result.Supplies.FirstOrDefault(s => s.Supply.Name == t[0].Name)?.Current
-                    ?? result.Loads.FirstOrDefault(l => l.Load.Name == t[0].Name)?.Current;
+                var terminal = result.SupplyNamed(t[0].Name)?.Current ?? result.LoadNamed(t[0].Name)?.Current;
                 if (terminal is { } current)
                 {
                     if (expect.Measure == MeasureKind.Current) return current.Magnitude;
                     problem = "loading is measured on windings and sections";
                     return null;
                 }
-                var sections = result.Sections.Where(s => s.Winding.Name == t[0].Name).ToList();
+                var sections = result.SectionsOf(t[0].Name).ToList();
                 if (t.Length == 3)
                 {
                     var names = new HashSet<string> { t[1].Name, t[2].Name };
@@ -126,13 +125,13 @@ public static class Checks
                 }
                 return sections.Max(s => s.Loading!.Value);
             case MeasureKind.Flux:
-                var core = result.Cores.FirstOrDefault(c => c.Core.Name == t[0].Name);
+                var core = result.CoreNamed(t[0].Name);
                 if (core?.Flux is { } flux) return flux;
                 problem = $"the flux density of '{t[0].Name}' needs the core's 'area' and the windings' 'turns'";
                 return null;
             case MeasureKind.Power:
-                if (result.Supplies.FirstOrDefault(s => s.Supply.Name == t[0].Name) is { } ps) return ps.Power.Real;
-                if (result.Loads.FirstOrDefault(l => l.Load.Name == t[0].Name) is { } pl) return pl.Power.Real;
+                if (result.SupplyNamed(t[0].Name) is { } ps) return ps.Power.Real;
+                if (result.LoadNamed(t[0].Name) is { } pl) return pl.Power.Real;
                 problem = $"'{t[0].Name}' was left out of the network";
                 return null;
             case MeasureKind.VectorGroup:
@@ -153,7 +152,7 @@ public static class Checks
                     : $"efficiency needs the core loss: give a 'no-load' line for {string.Join(", ", result.Cores.Where(k => !k.LossKnown).Take(4).Select(k => $"core '{k.Core.Name}'"))}";
                 return null;
             default:
-                if (result.Loads.FirstOrDefault(l => l.Load.Name == t[0].Name)?.Regulation is { } regulation) return regulation;
+                if (result.LoadNamed(t[0].Name)?.Regulation is { } regulation) return regulation;
                 problem = $"the regulation of '{t[0].Name}' is unknown";
                 return null;
         }

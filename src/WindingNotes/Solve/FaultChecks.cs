@@ -16,6 +16,10 @@ public static class FaultChecks
     {
         if (!expects.Any(InFault)) return others;
         var results = ImmutableArray.CreateBuilder<CheckResult>();
+        // Each fault's case found once, not searched for per check: a file of many units has many of both.
+        var byFault = new Dictionary<string, CaseResult>(StringComparer.Ordinal);
+        foreach (var c in cases)
+            if (c.Case.Fault is { } f) byFault.TryAdd(f.Name, c);
         var next = 0;
         foreach (var e in expects)
         {
@@ -25,7 +29,7 @@ public static class FaultChecks
                 continue;
             }
             var tally = new CheckTally([e]);
-            var found = Case(e, cases);
+            var found = (e.InFault is { } name ? byFault.GetValueOrDefault(name) : null) ?? Case(e, cases);
             tally.BeginPoint(found?.Case.Name ?? $"fault {e.InFault}");
             if (found is null) tally.Unsolved(null);
             else tally.Observe(found, null);

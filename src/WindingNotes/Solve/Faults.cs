@@ -73,7 +73,7 @@ public static class Faults
             // A load the fault shorts has no voltage: that is the fault, not something to warn about.
             diagnostics.AddRange(solved.Diagnostics.Where(d => d.Code != "load-without-voltage"));
             if (!solved.Solved) return null;
-            var converted = network.Loads.Where(l => l.Source.Exponent != 2 && (solved.Scope?.Loads.Contains(l.Index) ?? true)).Select(l => l.Source);
+            var converted = Results.InScope(network.Loads, solved.Scope?.Loads).Where(l => l.Source.Exponent != 2).Select(l => l.Source);
             var result = Results.Compute(solved, null);
             return result with { Fault = Compute(solved, main.Voltage(a) - main.Voltage(b)) with { LoadsAsImpedance = [.. converted] } };
         }
@@ -114,12 +114,13 @@ public static class Faults
         string? worstWinding = null;
         var worstTouches = false;
         var (a, b) = (network.Node(f.A.Name), network.Node(f.B.Name));
-        foreach (var s in network.Sections.Where(s => fault.Scope?.Sections.Contains(s.Index) ?? true))
+        var earth = network.EarthNode;
+        foreach (var s in Results.InScope(network.Sections, fault.Scope?.Sections))
         {
             if (network.Windings[s.Winding].RatedCurrent is not { } rated || rated <= 0) continue;
             var multiple = fault.SectionCurrents[s.Index].Magnitude / rated;
             // Windings of one core carry the same multiple; of equals, name the one the fault is on.
-            var touches = new[] { s.NodeA, s.NodeB }.Any(n => n != network.EarthNode && (n == a || n == b));
+            var touches = (s.NodeA != earth && (s.NodeA == a || s.NodeA == b)) || (s.NodeB != earth && (s.NodeB == a || s.NodeB == b));
             var tie = worst is { } w && Math.Abs(multiple - w) <= 1e-9 * w;
             if (worst is null || (multiple > worst && !tie) || (tie && touches && !worstTouches))
                 (worst, worstWinding, worstTouches) = (multiple, network.Windings[s.Winding].Name, touches);

@@ -16,8 +16,10 @@ public static class NetworkSolver
     public static Solution Solve(Network network, CaseSpec spec, CancellationToken cancel = default)
     {
         var diagnostics = new DiagnosticBag();
-        (int, int)[] extra = spec.Fault is { } f ? [(network.Node(f.A.Name), network.Node(f.B.Name))] : [];
-        var reference = Islands.References(network, extra);
+        var (a, b) = spec.Fault is { } f ? (network.Node(f.A.Name), network.Node(f.B.Name)) : (-1, -1);
+        // The islands' references are the wiring's, a fault joining two islands as its branch does.
+        var wiring = Wiring.Of(network);
+        Func<int, bool> isReference = n => wiring.IsReference(n, a, b);
         var parts = new List<(MnaSystem, Complex[])>();
         var solved = true;
 
@@ -30,7 +32,7 @@ public static class NetworkSolver
             cancel.ThrowIfCancellationRequested();
             // A part with no source carries no current and no voltage.
             if (group.Supplies.Count == 0) continue;
-            var m = MnaSystem.Assemble(network, group, reference, spec);
+            var m = MnaSystem.Assemble(network, group, isReference, spec);
             var x = SolveSystem(ref m, network, diagnostics, cancel);
             if (x is null) solved = false;
             else parts.Add((m, x));
@@ -65,25 +67,31 @@ public static class NetworkSolver
         var supplies = new Complex[network.Supplies.Length];
         var loads = new Complex[network.Loads.Length];
         var fault = Complex.Zero;
+        // What the parts set, by array: only those entries can need chopping (a fault's case is one part of many).
+        List<int> nodesSet = [], sectionsSet = [], coresSet = [], suppliesSet = [], loadsSet = [];
         foreach (var (m, x) in parts)
         {
-            foreach (var (node, column) in m.NodeColumn) voltages[node] = x[column];
-            foreach (var (k, column) in m.SectionColumn) sections[k] = x[column];
-            foreach (var (c, column) in m.CoreColumn) cores[c] = x[column];
-            foreach (var (s, column) in m.SupplyColumn) supplies[s] = x[column];
+            foreach (var (node, column) in m.NodeColumn) { voltages[node] = x[column]; nodesSet.Add(node); }
+            foreach (var (k, column) in m.SectionColumn) { sections[k] = x[column]; sectionsSet.Add(k); }
+            foreach (var (c, column) in m.CoreColumn) { cores[c] = x[column]; coresSet.Add(c); }
+            foreach (var (s, column) in m.SupplyColumn) { supplies[s] = x[column]; suppliesSet.Add(s); }
             if (m.FaultColumn >= 0) fault = x[m.FaultColumn];
             Complex At(int column) => column >= 0 ? x[column] : Complex.Zero;
             foreach (var (load, a, b) in m.LinearLoads)
             {
                 var l = network.Loads[load].Source;
                 loads[load] = Complex.Conjugate(l.S0) / (l.V0 * l.V0) * (At(a) - At(b));
+                loadsSet.Add(load);
             }
             foreach (var load in m.NonlinearLoads)
+            {
                 loads[load.Load] = NewtonSolver.LoadCurrent(load, NewtonSolver.Across(load, x));
+                loadsSet.Add(load.Load);
+            }
         }
-        Chop(voltages);
-        Chop(sections, supplies, loads);
-        Chop(cores);
+        Chop((voltages, nodesSet));
+        Chop((sections, sectionsSet), (supplies, suppliesSet), (loads, loadsSet));
+        Chop((cores, coresSet));
         return new Solution(network, spec, voltages, sections, cores, supplies, loads, fault, solved, diagnostics);
     }
 
@@ -202,15 +210,16 @@ public static class NetworkSolver
     }
 
     /// <summary>Rounding leaves values like 1e-17 where the answer is zero; they would print as noise.</summary>
-    private static void Chop(params Complex[][] groups)
+    /// <remarks>The entries given are the only ones not zero, so the largest is the largest of all.</remarks>
+    private static void Chop(params (Complex[] Values, List<int> Set)[] groups)
     {
         var max = 0.0;
-        foreach (var values in groups)
-            foreach (var v in values)
-                if (v.Magnitude > max) max = v.Magnitude;
+        foreach (var (values, set) in groups)
+            foreach (var i in set)
+                if (values[i].Magnitude > max) max = values[i].Magnitude;
         var limit = 1e-12 * max;
-        foreach (var values in groups)
-            for (var i = 0; i < values.Length; i++)
+        foreach (var (values, set) in groups)
+            foreach (var i in set)
             {
                 var v = values[i];
                 values[i] = new Complex(Math.Abs(v.Real) <= limit ? 0 : v.Real, Math.Abs(v.Imaginary) <= limit ? 0 : v.Imaginary);

@@ -1,5 +1,7 @@
 using System.Collections.Immutable;
 using System.Numerics;
+using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
 using WindingNotes.Kernel;
 using WindingNotes.Model;
 using WindingNotes.Text;
@@ -106,6 +108,65 @@ public sealed record CaseResult(
 
     private Dictionary<string, Complex>? pointIndex;
 
+    /// <summary>The first supply of that name, or null.</summary>
+    public SupplyResult? SupplyNamed(string name) =>
+        Small ? Supplies.FirstOrDefault(s => s.Supply.Name == name) : Index().Supplies.GetValueOrDefault(name);
+
+    /// <summary>The first load of that name, or null.</summary>
+    public LoadResult? LoadNamed(string name) =>
+        Small ? Loads.FirstOrDefault(l => l.Load.Name == name) : Index().Loads.GetValueOrDefault(name);
+
+    /// <summary>The first core of that name, or null.</summary>
+    public CoreResult? CoreNamed(string name) =>
+        Small ? Cores.FirstOrDefault(c => c.Core.Name == name) : Index().Cores.GetValueOrDefault(name);
+
+    /// <summary>The sections of the winding of that name, in order.</summary>
+    public IReadOnlyList<SectionResult> SectionsOf(string winding) =>
+        Small ? [.. Sections.Where(s => s.Winding.Name == winding)] : Index().Sections.GetValueOrDefault(winding) ?? [];
+
+    /// <summary>A small case is searched (a sweep point of one unit makes no index); a large one gets an index.</summary>
+    private bool Small => Sections.Length + Cores.Length + Supplies.Length + Loads.Length <= 32;
+
+    /// <summary>
+    /// The case's elements by name, made on first use: a check finds its element without a search
+    /// of the case's lists, which a file of many units and checks would make n². Made again for a
+    /// copy of this case whose lists differ.
+    /// </summary>
+    private ElementIndex Index()
+    {
+        if (elementIndex is { } kept && kept.Of(this)) return kept;
+        return elementIndex = new ElementIndex(this);
+    }
+
+    private ElementIndex? elementIndex;
+
+    private sealed class ElementIndex
+    {
+        private readonly ImmutableArray<SectionResult> sections;
+        private readonly ImmutableArray<CoreResult> cores;
+        private readonly ImmutableArray<SupplyResult> supplies;
+        private readonly ImmutableArray<LoadResult> loads;
+        public readonly Dictionary<string, SupplyResult> Supplies = new(StringComparer.Ordinal);
+        public readonly Dictionary<string, LoadResult> Loads = new(StringComparer.Ordinal);
+        public readonly Dictionary<string, CoreResult> Cores = new(StringComparer.Ordinal);
+        public readonly Dictionary<string, List<SectionResult>> Sections = new(StringComparer.Ordinal);
+
+        public ElementIndex(CaseResult c)
+        {
+            (sections, cores, supplies, loads) = (c.Sections, c.Cores, c.Supplies, c.Loads);
+            foreach (var s in supplies) Supplies.TryAdd(s.Supply.Name, s);
+            foreach (var l in loads) Loads.TryAdd(l.Load.Name, l);
+            foreach (var k in cores) Cores.TryAdd(k.Core.Name, k);
+            foreach (var s in sections)
+            {
+                if (!Sections.TryGetValue(s.Winding.Name, out var list)) Sections[s.Winding.Name] = list = [];
+                list.Add(s);
+            }
+        }
+
+        public bool Of(CaseResult c) => c.Sections == sections && c.Cores == cores && c.Supplies == supplies && c.Loads == loads;
+    }
+
     /// <summary>For a fault case: the fault current, the loop's X/R and the asymmetrical peak.</summary>
     public FaultResult? Fault { get; init; }
 
@@ -144,12 +205,11 @@ public static class Results
         var network = solution.Network;
         var model = network.Model;
         var scope = solution.Scope;
-        var points = model.Points
-            .Where(p => scope is null || scope.Points.Contains(p.Name))
+        var points = PointsOf(model, scope)
             .Select(p => (p.Name, solution.Voltage(network.Node(p.Name)))).ToImmutableArray();
 
         var losses = SectionLosses(network, solution, scope);
-        var inScope = network.Sections.Where(s => scope is null || scope.Sections.Contains(s.Index)).ToList();
+        var inScope = InScope(network.Sections, scope?.Sections).ToList();
         var sections = inScope.Select(s =>
         {
             var w = network.Windings[s.Winding];
@@ -164,7 +224,7 @@ public static class Results
             };
         }).ToImmutableArray();
 
-        var cores = network.Cores.Where(c => scope is null || scope.Cores.Contains(c.Index)).Select(c =>
+        var cores = InScope(network.Cores, scope?.Cores).Select(c =>
         {
             var e = solution.CoreVoltsPerTurn[c.Index];
             var known = c.Sections.All(k => network.Windings[network.Sections[k].Winding].TurnsKnown) && c.Sections.Length > 0;
@@ -178,14 +238,14 @@ public static class Results
             };
         }).ToImmutableArray();
 
-        var supplies = network.Supplies.Where(s => scope is null || scope.Supplies.Contains(s.Index)).Select(s =>
+        var supplies = InScope(network.Supplies, scope?.Supplies).Select(s =>
         {
             var v = solution.SupplyVoltage(s);
             var i = solution.SupplyCurrents[s.Index];
             return new SupplyResult(s, v, i, Clean(v * Complex.Conjugate(i)));
         }).ToImmutableArray();
 
-        var loads = network.Loads.Where(l => scope is null || scope.Loads.Contains(l.Index)).Select(l =>
+        var loads = InScope(network.Loads, scope?.Loads).Select(l =>
         {
             var v = solution.LoadVoltage(l);
             var i = solution.LoadCurrents[l.Index];
@@ -213,6 +273,21 @@ public static class Results
     }
 
     /// <summary>
+    /// The elements a scope names, in the network's order (the order of their indices); all of them
+    /// without one. A fault's case visits its own part only, not every element of the file.
+    /// </summary>
+    internal static IEnumerable<T> InScope<T>(ImmutableArray<T> all, IReadOnlySet<int>? scope) =>
+        scope is null ? all : scope.Order().Select(i => all[i]);
+
+    /// <summary>The model's points a scope names, in the model's order; all of them without one.</summary>
+    private static IEnumerable<Symbol> PointsOf(Model.Model model, CaseScope? scope)
+    {
+        if (scope is null) return model.Points;
+        var order = Order.Of(model.Points, p => p.Name, firstOnly: false);
+        return order is null ? model.Points.Where(p => scope.Points.Contains(p.Name)) : order.Pick(model.Points, scope.Points);
+    }
+
+    /// <summary>
     /// η = x·S·pf / (x·S·pf + P0 + x²·P_cu) is highest where x²·P_cu = P0, so at x = √(P0/P_cu) of
     /// this load, where η = x·S·pf / (x·S·pf + 2·P0) (R12).
     /// </summary>
@@ -236,7 +311,10 @@ public static class Results
             at[s.FromPoint] = (s.Winding, from.Current - i, Math.Max(from.Scale, i.Magnitude));
         }
         // The difference of two equal currents through a tap is zero, not the solver's rounding (picoamperes of kiloamperes).
-        return [.. network.Model.Taps.DistinctBy(t => t.Name).Where(t => at.ContainsKey(t.Name))
+        var taps = network.Model.Taps;
+        var order = Order.Of(taps, t => t.Name, firstOnly: true);
+        // A tap's first line names it: those of the sections' points, in the model's order.
+        return [.. (order is null ? taps.DistinctBy(t => t.Name).Where(t => at.ContainsKey(t.Name)) : order.Pick(taps, at.Keys))
             .Select(t => new TapResult(t.Name, network.Windings[at[t.Name].Winding], Numbers.Clean(at[t.Name].Current, at[t.Name].Scale)))];
     }
 
@@ -289,8 +367,7 @@ public static class Results
     {
         var network = solution.Network;
         var losses = SectionLosses(network, solution, solution.Scope);
-        return [.. network.Sections
-            .Where(s => solution.Scope is null || solution.Scope.Sections.Contains(s.Index))
+        return [.. InScope(network.Sections, solution.Scope?.Sections)
             .Select(s => new SectionHeat(s.Winding, s.Turns > 0 ? solution.SectionCurrents[s.Index].Magnitude : 0, losses[s.Index]))];
     }
 
@@ -300,9 +377,8 @@ public static class Results
     {
         var result = new double[network.Sections.Length];
         if (!solution.HasVectors) return result;
-        foreach (var core in network.Cores)
+        foreach (var core in InScope(network.Cores, scope?.Cores))
         {
-            if (scope is not null && !scope.Cores.Contains(core.Index)) continue;
             var n = core.Sections.Length;
             var currents = core.Sections.Select(s => solution.SectionCurrents[s]).ToArray();
             var total = 0.0;
@@ -326,6 +402,47 @@ public static class Results
             for (var p = 0; p < n; p++) result[core.Sections[p]] = total * own[p] / weight;
         }
         return result;
+    }
+}
+
+/// <summary>
+/// Where each name stands in a list of the model (its points, its taps), found once per list and
+/// kept with it, so the part of a case picks its own names in the model's order without going
+/// through the whole list: a file of many units asks once per fault.
+/// </summary>
+internal sealed class Order
+{
+    private static readonly ConditionalWeakTable<object, Order?[]> Known = new();
+
+    private readonly Dictionary<string, int> position;
+
+    private Order(Dictionary<string, int> position) => this.position = position;
+
+    /// <summary>
+    /// The order of <paramref name="list"/> by name: each name at its first place with
+    /// <paramref name="firstOnly"/>; without, null where a name stands twice (the caller filters the whole list).
+    /// </summary>
+    public static Order? Of<T>(ImmutableArray<T> list, Func<T, string> name, bool firstOnly)
+    {
+        var key = ImmutableCollectionsMarshal.AsArray(list);
+        if (key is null) return null;
+        var kept = Known.GetValue(key, _ => new Order?[2]);
+        var slot = firstOnly ? 0 : 1;
+        if (kept[slot] is { } known) return known;
+        var position = new Dictionary<string, int>(list.Length, StringComparer.Ordinal);
+        for (var i = 0; i < list.Length; i++)
+            if (!position.TryAdd(name(list[i]), i) && !firstOnly) return null;
+        return kept[slot] = new Order(position);
+    }
+
+    /// <summary>The entries of <paramref name="list"/> (the list this order is of) that <paramref name="names"/> name, in the list's order.</summary>
+    public IEnumerable<T> Pick<T>(ImmutableArray<T> list, IEnumerable<string> names)
+    {
+        var at = new List<int>();
+        foreach (var n in names)
+            if (position.TryGetValue(n, out var i)) at.Add(i);
+        at.Sort();
+        return at.Select(i => list[i]);
     }
 }
 
