@@ -5,13 +5,15 @@ namespace WindingNotes.Benchmarks;
 /// <summary>
 /// Benchmarks, measured and recorded (RESULTS.md beside this file), never asserted in unit tests.
 /// Run: dotnet run -c Release --project tests/WindingNotes.Benchmarks -- --filter '*' --artifacts /tmp/wn-bench
-/// (or `-- startup …` for the start-up of the command as installed: <see cref="Startup"/>).
+/// (or `-- startup …` for the start-up of the command as installed: <see cref="Startup"/>; `-- stages 1 2 5`
+/// for every stage on files of 1, 2 and 5 MB: <see cref="Stages"/>).
 /// </summary>
 public static class Program
 {
     public static void Main(string[] args)
     {
         if (args is ["startup", .. var rest]) Startup.Run(rest);
+        else if (args is ["stages", .. var sizes]) Stages.Run(sizes);
         else BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
     }
 }
