@@ -25,6 +25,14 @@ internal sealed class Publisher(DocumentWorkspace workspace, Func<PublishDiagnos
     // otherwise all run), and the memory the server needs must not grow with the machine's cores.
     private readonly SemaphoreSlim evaluating = new(Math.Min(Environment.ProcessorCount, 4));
 
+    // Large documents one at a time besides: an evaluation of a 1 MB document holds about 50 MB when
+    // done and allocates several times that on the way, so two at once set the server's peak (50 open
+    // documents of 1 MB: samples to 1.59 GB with two, RESULTS.md). Small ones still share the cores.
+    private readonly SemaphoreSlim evaluatingLarge = new(1, 1);
+
+    /// <summary>Characters of text from which a document counts as large: a few hundred kilobytes, well above any hand-written calculation.</summary>
+    public const int LargeDocument = 250_000;
+
     // Publishing one at a time, with the version each document was last published at: results shown
     // from an earlier version while a long evaluation runs never follow the current version's.
     private readonly SemaphoreSlim sending = new(1, 1);
@@ -80,6 +88,8 @@ internal sealed class Publisher(DocumentWorkspace workspace, Func<PublishDiagnos
             return;
         }
         Evaluation? evaluation;
+        var large = document.Text.Length >= LargeDocument ? evaluatingLarge : null;
+        if (large is not null) await large.WaitAsync();
         await evaluating.WaitAsync();
         try
         {
@@ -92,6 +102,7 @@ internal sealed class Publisher(DocumentWorkspace workspace, Func<PublishDiagnos
         finally
         {
             evaluating.Release();
+            large?.Release();
         }
         if (evaluation is not null)
             await Send(uri, document.Version, () => workspace.Find(uri)?.Version == document.Version ? Conversion.ToLsp(evaluation, uri, document.Version) : null);
