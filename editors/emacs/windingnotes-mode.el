@@ -31,7 +31,7 @@ A bare program name is looked up on `exec-path' and then in
   '("frequency" "temperature" "let" "core" "winding" "tap" "brush" "impedance" "no-load"
     "join" "ground" "supply" "load" "fault" "sweep" "expect" "fail-on" "acknowledge"
     "three-phase-supply" "three-phase-load" "thermal" "load-cycle" "cycle-point"
-    "capability" "tap-changer" "find" "fault-study" "bus-fault" "pair")
+    "capability" "tap-changer" "find" "fault-study" "bus-fault" "unit-pair")
   "Words that start a statement.")
 
 (defconst windingnotes-clause-keywords
@@ -48,7 +48,7 @@ A bare program name is looked up on `exec-path' and then in
     "equals" "currents" "voltage-tolerance" "duration" "initial-temperature" "peak-method" "end-temperature" "earth-impedance"
     "nominal" "fault-current" "peak-current" "thermal-current" "earth-fault-factor" "in"
     "positive-sequence" "class" "winding-rise" "equivalent-aging" "peak-withstand" "peak-duty" "minimum-fault-level" "transformer-correction"
-    "time-rating" "open-delta" "scott-t" "output" "main" "teaser" "primary" "secondary")
+    "time-rating" "open-delta" "scott-t" "delta-output" "main-output" "teaser-output" "primary-winding" "secondary-winding")
   "Words that start a clause or join its parts.")
 
 (defconst windingnotes-option-keywords
@@ -116,7 +116,7 @@ it.  Group 1 is the number, group 2 the unit when there is one."
 (defconst windingnotes-font-lock-keywords
   `((,(concat "^[ \t]*\\(" (regexp-opt '("let")) "\\)\\_>[ \t]+\\([A-Za-z_][A-Za-z0-9_]*\\)")
      (2 font-lock-variable-name-face))
-    (,(concat "^[ \t]*" (regexp-opt '("core" "winding" "tap" "brush" "supply" "load" "fault" "three-phase-supply" "three-phase-load" "tap-changer" "bus-fault" "pair"))
+    (,(concat "^[ \t]*" (regexp-opt '("core" "winding" "tap" "brush" "supply" "load" "fault" "three-phase-supply" "three-phase-load" "tap-changer" "bus-fault" "unit-pair"))
               "\\_>[ \t]+\\([A-Za-z_][A-Za-z0-9_]*\\)")
      (1 font-lock-function-name-face))
     (windingnotes--match-unit (1 'windingnotes-number-face) (2 'windingnotes-unit-face nil t))

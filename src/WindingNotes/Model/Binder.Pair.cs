@@ -4,7 +4,7 @@ using WindingNotes.Text;
 
 namespace WindingNotes.Model;
 
-// 'pair': two like single-phase two-winding units declared once and placed on three lines by a
+// 'unit-pair': two like single-phase two-winding units declared once and placed on three lines by a
 // connection word (open delta, Scott-T). It expands to the cores, windings, taps, joins and
 // impedance lines the single-phase notation would have written, so the solver, the ratings and the
 // cautions (open delta, no isolation, output above supply) see the units as written by hand.
@@ -27,13 +27,13 @@ internal sealed partial class BindRun
         var units = PairUnits(s);
         declaredPairs[head.Text] = units;
         foreach (var unit in units) Derive($"{head.Text}_{unit}", SymbolKind.Core, head, s);
-        foreach (var clause in new[] { s.Clause("primary"), s.Clause("secondary") })
+        foreach (var clause in new[] { s.Clause("primary-winding"), s.Clause("secondary-winding") })
         {
             if (clause?.Name(0) is not { } winding) continue;
             declaredPairs[winding.Text] = units;
             foreach (var unit in units) Derive($"{winding.Text}_{unit}", SymbolKind.Winding, winding, s);
         }
-        if (s.Clause("scott-t") is null || s.Clause("primary")?.Name(0) is not { } primary) return;
+        if (s.Clause("scott-t") is null || s.Clause("primary-winding")?.Name(0) is not { } primary) return;
         foreach (var point in new[] { (primary.Text + "_mc", SymbolKind.Tap), (primary.Text + "_tt", SymbolKind.Tap), (primary.Text + "_t2", SymbolKind.Terminal) })
             if (Derive(point.Item1, point.Item2, primary, s) is { } symbol && !derivedPoints.Contains(symbol)) derivedPoints.Add(symbol);
     }
@@ -72,17 +72,17 @@ internal sealed partial class BindRun
         var head = s.Head.Name(0)!;
         var scott = s.Clause("scott-t");
         var connection = scott ?? s.Clause("open-delta");
-        var output = s.Clause("output") ?? s.Clause("series") ?? s.Clause("main");
+        var output = s.Clause("delta-output") ?? s.Clause("series") ?? s.Clause("main-output");
         var rating = Real(s.Value("rating"), Dimension.ApparentPower, $"the rating of {head.Text}", positive: true);
-        var primary = s.Clause("primary");
-        var secondary = s.Clause("secondary");
+        var primary = s.Clause("primary-winding");
+        var secondary = s.Clause("secondary-winding");
         var vp = Real(primary?.Value(0), Dimension.Voltage, $"the rated voltage of {primary?.Name(0)?.Text}", positive: true);
         var vs = Real(secondary?.Value(0), Dimension.Voltage, $"the rated voltage of {secondary?.Name(0)?.Text}", positive: true);
         var zSyntax = s.Value("impedance");
         var z = Value(zSyntax, $"the impedance of {head.Text}");
         var xr = Real(s.Value("xr"), Dimension.None, "the X/R ratio", positive: true);
         if (connection is null || output is null || primary?.Name(0) is not { } p || secondary?.Name(0) is not { } q) return;
-        if ((scott is null) != (output.Keyword!.Text != "main"))
+        if ((scott is null) != (output.Keyword!.Text != "main-output"))
         {
             diagnostics.ReportPairOutput(output.Keyword!, scott is not null);
             return;
