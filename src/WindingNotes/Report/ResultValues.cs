@@ -19,7 +19,10 @@ public sealed record ResultValue(string Case, string Element, string Field, stri
         var parts = field.Split('.');
         if (parts.Length > 1 && Objects.TryGetValue(parts[0], out var whole) && whole.Nested.FirstOrDefault(f => f.Key == parts[1]) is { } part)
             return $"{whole.Label} {part.Label}";
-        var label = Solve.ResultTable.FieldNamed(parts[0])?.Label ?? parts[0];
+        var label = Solve.ResultTable.FieldNamed(parts[0])?.Label ?? ResultValues.Words(parts[0]);
+        // The parts between (a sequence's component, a set's phase), not a phasor's rms or angle.
+        var between = parts[1..(parts[^1] is "rms" or "deg" ? ^1 : ^0)];
+        if (between.Length > 0) label = $"{label} {string.Join(' ', between.Select(ResultValues.Words))}";
         return parts.Length > 1 && parts[^1] == "deg" ? label + " angle" : label;
     }
 
@@ -62,6 +65,11 @@ public static class ResultValues
                         else Walk(values, name, "bus fault", p.Name, p.Value);
                     continue;
                 }
+                if (Solve.StudyResultTable.CaseParts.FirstOrDefault(g => g.Key == group.Name) is { } part)
+                {
+                    WalkFields(values, name, Words(part.Key), part.Fields, group.Value);
+                    continue;
+                }
                 if (!Groups.TryGetValue(group.Name, out var kind)) continue;
                 if (Single.Contains(group.Name))
                 {
@@ -75,8 +83,50 @@ public static class ResultValues
                 }
             }
         }
+        // The study's sections (the load cycle, sequence impedances, paralleled units) with the normal case.
+        var sections = Solve.StudyResultTable.Study.Where(f => json.RootElement.TryGetProperty(f.Key, out _)).ToImmutableArray();
+        foreach (var section in sections) WalkFields(values, "normal", "", [section], json.RootElement);
         return values.ToImmutable();
     }
+
+    /// <summary>
+    /// A part of the report described by the study's results table: each element of a map or list
+    /// by its name or number, so a new field or part is compared without more.
+    /// </summary>
+    private static void WalkFields(ImmutableArray<ResultValue>.Builder values, string @case, string element, ImmutableArray<Solve.ResultField> fields, JsonElement value)
+    {
+        foreach (var field in fields)
+        {
+            if (!value.TryGetProperty(field.Key, out var v)) continue;
+            var inner = $"{element} {Words(field.Label)}".Trim();
+            switch (field)
+            {
+                case { Kind: Solve.ResultKind.Map, Item: { } item } when v.ValueKind == JsonValueKind.Object:
+                    foreach (var e in v.EnumerateObject()) Element(values, @case, $"{inner} {e.Name}", item, e.Value);
+                    break;
+                case { Kind: Solve.ResultKind.List, Item: { } item } when v.ValueKind == JsonValueKind.Array:
+                    var k = 0;
+                    foreach (var e in v.EnumerateArray()) Element(values, @case, $"{inner} {++k}", item, e);
+                    break;
+                case { Kind: Solve.ResultKind.Object, Nested.IsEmpty: false }:
+                    WalkFields(values, @case, inner, field.Nested, v);
+                    break;
+                default:
+                    Walk(values, @case, element, field.Key, v, field.Unit);
+                    break;
+            }
+        }
+    }
+
+    private static void Element(ImmutableArray<ResultValue>.Builder values, string @case, string element, Solve.ResultField item, JsonElement value)
+    {
+        if (item.Kind == Solve.ResultKind.Object && !item.Nested.IsEmpty) WalkFields(values, @case, element, item.Nested, value);
+        else Walk(values, @case, element, "", value, item.Unit);
+    }
+
+    /// <summary>"vectorGroups" as "vector groups": a key of the report as a person says it.</summary>
+    internal static string Words(string key) =>
+        string.Concat(key.Select((ch, i) => char.IsUpper(ch) && i > 0 ? " " + char.ToLowerInvariant(ch) : ch.ToString()));
 
     private static void Walk(ImmutableArray<ResultValue>.Builder values, string @case, string element, string field, JsonElement value, string? unit = null)
     {
@@ -94,7 +144,7 @@ public static class ResultValues
                 }
                 break;
             case JsonValueKind.Number:
-                values.Add(new ResultValue(@case, element, field, unit ?? UnitOf(field), value.GetDouble()));
+                values.Add(new ResultValue(@case, element, field, field.EndsWith("deg") ? "deg" : unit ?? UnitOf(field), value.GetDouble()));
                 break;
         }
     }
