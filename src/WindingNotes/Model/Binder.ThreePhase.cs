@@ -220,6 +220,9 @@ internal sealed partial class BindRun
     /// <summary>The phase winding of a three-phase winding on one limb (a zigzag's line-side half).</summary>
     private static string PhaseOn(ThreePhaseWindingModel w, int limb) => w.PhaseWindings[limb];
 
+    /// <summary>Impedance lines between a zigzag and another three-phase winding on its core, fitted once the unit is bound.</summary>
+    private readonly List<ZigzagImpedance> zigzagImpedances = [];
+
     /// <summary>An impedance between two three-phase windings holds on each limb; with a single-phase winding it is an error.</summary>
     private void AddImpedance(ImpedanceModel z)
     {
@@ -242,6 +245,12 @@ internal sealed partial class BindRun
         {
             // One mistake, one message: not one for each limb.
             diagnostics.ReportSameWinding(z.Second.Span);
+            return;
+        }
+        if (first is not null && second is not null && first.Core == second.Core && (first.Connection == PhaseConnection.Zigzag) != (second.Connection == PhaseConnection.Zigzag))
+        {
+            // A zigzag with another winding of its unit: fitted to the unit's short-circuit test once all is bound.
+            zigzagImpedances.Add(first.Connection == PhaseConnection.Zigzag ? new(z, second.Name, first.Name) : new(z, first.Name, second.Name));
             return;
         }
         if (first is null || second is null || first.Connection == PhaseConnection.Zigzag || second.Connection == PhaseConnection.Zigzag)

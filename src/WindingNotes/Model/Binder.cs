@@ -252,6 +252,7 @@ internal sealed partial class BindRun
             // Three-phase statements make their phase elements from what other lines declared: bound in full.
             // Kept only where there are points to bind: sweeps or toleranced values.
             Reach = (sweeps.Count > 0 || evaluator.Tolerances.Count > 0) && phaseCores.Count == 0 && threePhaseWindings.Count == 0 && phaseSupplies.Count == 0 && phaseLoads.Count == 0 ? reach : null,
+            ZigzagImpedances = [.. zigzagImpedances],
         };
     }
 

@@ -22,7 +22,16 @@ public static partial class ModelMessages
             bag.Error("wrong-kind", keyword.Span, $"'{keyword.Text}' connects three phase windings; '{core}' is a single-phase core (give it a 'construction')");
 
         public Diagnostic ReportPhaseImpedance(TextSpan span) =>
-            bag.Error("wrong-kind", span, "an impedance between three-phase windings holds on each limb: name two three-phase windings, neither a zigzag (a zigzag twice for its two halves), or give it per phase winding (HV_a LV_a)");
+            bag.Error("wrong-kind", span, "an impedance between three-phase windings holds on each limb: name two three-phase windings of one unit (a zigzag twice for its two halves), or give it per phase winding (HV_a LV_a)");
+
+        public Diagnostic ReportZigzagHalvesMissing(TextSpan span, string zigzag) =>
+            bag.Error("missing-clause", span, $"an impedance with zigzag '{zigzag}' needs the impedance between its two halves ('impedance {zigzag} {zigzag}')");
+
+        public Diagnostic ReportZigzagImpedanceBelowHalves(TextSpan span, string zigzag, string? least) =>
+            bag.Error("out-of-bounds", span, $"the short-circuit impedance with zigzag '{zigzag}' must be at least what the leakage between its halves gives{(least is null ? "" : $" ({least})")}: below it the other winding's leakage to a half would be less than half of theirs");
+
+        public Diagnostic ReportZigzagImpedanceUnfitted(TextSpan span, string why) =>
+            bag.Error("out-of-bounds", span, $"the short-circuit impedance with a zigzag cannot be met: {why}");
 
         public Diagnostic ReportVectorGroupPair(TextSpan span) =>
             bag.Error("wrong-kind", span, "'vector-group' goes with 'is' and a connection symbol, and 'is' with 'vector-group'");

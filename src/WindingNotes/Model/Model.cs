@@ -219,6 +219,9 @@ public sealed record Model(SyntaxTree Syntax, SymbolTable Symbols, ImmutableArra
 
     public bool HasErrors => Diagnostics.Any(d => d.IsError);
 
+    /// <summary>Impedance lines between a zigzag and another winding of its unit, still to be fitted to the unit's short-circuit test (<c>Solve.ZigzagImpedances</c>).</summary>
+    public ImmutableArray<ZigzagImpedance> ZigzagImpedances { get; init; } = [];
+
     /// <summary>What each let, toleranced value and tap position reaches, for the document as written; null where points are bound in full.</summary>
     internal Reach? Reach { get; init; }
 }
@@ -237,3 +240,6 @@ public sealed record BindOverrides
     /// <summary>The frequency as written, where the values above may change the frequency.</summary>
     public double? RatedFrequency { get; init; }
 }
+
+/// <summary>An impedance line between the zigzag <paramref name="Zigzag"/> and <paramref name="Other"/> on one three-phase unit, as written.</summary>
+public sealed record ZigzagImpedance(ImpedanceModel Line, string Other, string Zigzag);
