@@ -14,13 +14,13 @@ namespace WindingNotes.Tests.Solve;
 /// </summary>
 public class ZigzagImpedanceTests
 {
-    private static string Unit(string hvz) => $"""
+    private static string Unit(string hvz, string pair = "HV Z", string halves = "impedance Z Z 2 %") => $"""
         frequency 50 Hz
         core T1 construction three-limb rating 1000 kVA zero-sequence 50 %
         winding HV on T1 rated 11 kV wye H1 H2 H3
         winding Z on T1 rated 415 V zigzag X1 X2 X3 neutral X0
-        impedance HV Z {hvz}
-        impedance Z Z 2 %
+        impedance {pair} {hvz}
+        {halves}
         three-phase-supply u H1 H2 H3 11 kV
 
         """;
@@ -89,6 +89,35 @@ public class ZigzagImpedanceTests
     public void A_bare_magnitude_is_met_as_a_magnitude()
     {
         var z1 = Test(Wn.Solved(Unit("6 %")), SequenceKind.Positive, "HV", "Z");
+        Wn.Near(0.06, z1.PerUnit!.Value, 1e-9, "Z1 %");
+    }
+
+    [Fact]
+    public void Written_from_the_zigzag_it_is_the_same_per_unit_figure()
+    {
+        // The test from Z's lines with HV's shorted, in % on the same rating: the unit reports it from
+        // HV (the first winding of the unit), and a two-winding short-circuit impedance in per unit is
+        // the same from either side.
+        var z1 = Test(Wn.Solved(Unit("6 % xr 8", pair: "Z HV")), SequenceKind.Positive, "HV", "Z");
+        Wn.Near(0.06, z1.PerUnit!.Value, 1e-9, "Z1 %");
+        Wn.Near(8, z1.Impedance.Imaginary / z1.Impedance.Real, 1e-9, "X/R");
+    }
+
+    [Fact]
+    public void Without_the_halves_leakage_it_is_one_error_that_asks_for_it()
+    {
+        var e = Wn.Eval(Unit("6 % xr 8", halves: ""));
+        var d = Assert.Single(e.Errors());
+        Assert.Equal("missing-clause", d.Code);
+        Assert.Contains("'impedance Z Z'", d.Message);
+    }
+
+    [Fact]
+    public void In_ohms_it_is_per_phase_at_the_energised_lines()
+    {
+        // By hand: 7.26 Ω at 11 kV on 1 MVA is 7.26/121 = 6 %.
+        var z1 = Test(Wn.Solved(Unit("7.26 ohm xr 8")), SequenceKind.Positive, "HV", "Z");
+        Wn.Near(7.26, z1.Impedance.Magnitude, 1e-9, "Z1 ohms");
         Wn.Near(0.06, z1.PerUnit!.Value, 1e-9, "Z1 %");
     }
 }
