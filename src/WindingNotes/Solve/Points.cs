@@ -24,7 +24,7 @@ public static class Points
 {
     public static PointResult Solve(SyntaxTree syntax, BindOverrides overrides, CaseSpec spec, bool withFaults, CancellationToken cancel)
     {
-        var model = ZigzagImpedances.Fit(Binder.Bind(syntax, overrides));
+        var model = ZigzagImpedances.Bind(syntax, overrides);
         if (overrides.RatedFrequency is { } rated) model = model with { RatedFrequency = rated };
         return Solve(model, spec, withFaults, cancel);
     }

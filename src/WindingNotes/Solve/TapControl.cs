@@ -84,7 +84,7 @@ public sealed class TapPlan
     /// <summary>The model of a point bound at these positions, its reversed windings reversed.</summary>
     public Model.Model Bind(BindOverrides point, int[] positions)
     {
-        var model = ZigzagImpedances.Fit(Binder.Bind(syntax, At(point, positions)));
+        var model = ZigzagImpedances.Bind(syntax, At(point, positions));
         var reversed = changers.Where((t, i) => t.Reversing && positions[i] < 0).Select(t => t.Winding).ToHashSet(StringComparer.Ordinal);
         return reversed.Count == 0 || model.HasErrors ? model : Reverse(model, reversed);
     }

@@ -174,7 +174,7 @@ public static class ThermalStudy
         CaseSpec spec = CaseSpec.Normal;
         if (cycle.Let is { } let)
         {
-            var bound = ZigzagImpedances.Fit(Binder.Bind(syntax, new BindOverrides { Values = ImmutableDictionary<string, Quantity>.Empty.Add(let, point.Load), RatedFrequency = model.RatedFrequency }, cancel));
+            var bound = ZigzagImpedances.Bind(syntax, new BindOverrides { Values = ImmutableDictionary<string, Quantity>.Empty.Add(let, point.Load), RatedFrequency = model.RatedFrequency }, cancel);
             if (bound.Diagnostics.FirstOrDefault(d => d.IsError) is { } bindError)
             {
                 problem = bindError.Message;

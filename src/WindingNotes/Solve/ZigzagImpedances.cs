@@ -17,7 +17,11 @@ public static class ZigzagImpedances
     /// solved test gives the value written: the test impedance is affine in Zh (a linear network
     /// where Zh adds to the star branch of HV), so two solves fix it and a third checks it.
     /// </summary>
-    /// <remarks>Run on every model the binder gives before it is solved; a model with errors is left as it is.</remarks>
+    /// <remarks>Run on every model the binder gives before it is solved (<see cref="Bind"/>); a model with errors is left as it is.</remarks>
+    /// <summary>The binder's model with the zigzag's impedances fitted: the one way the study and the evaluation bind.</summary>
+    public static Model.Model Bind(Syntax.SyntaxTree syntax, BindOverrides? overrides = null, CancellationToken cancel = default) =>
+        Fit(Binder.Bind(syntax, overrides, cancel));
+
     public static Model.Model Fit(Model.Model bound)
     {
         if (bound.ZigzagImpedances.IsEmpty || bound.HasErrors) return bound;

@@ -135,7 +135,7 @@ public static class Evaluator
     {
         var cancel = budget.Token;
         cancel.ThrowIfCancellationRequested();
-        var model = ZigzagImpedances.Fit(Binder.Bind(stages.Syntax, cancel: cancel));
+        var model = ZigzagImpedances.Bind(stages.Syntax, cancel: cancel);
         var diagnostics = stages.Diagnostics;
         stages.Model = model;
         diagnostics.AddRange(model.Diagnostics);

@@ -24,7 +24,7 @@ public class FaultStudyTests
     private static void Close(Complex expected, Complex actual, double relative = 1e-7, string what = "") =>
         ShortCircuit.Near(expected, actual, relative, what);
 
-    private static Complex Polar(double magnitude, double xr) => magnitude * new Complex(1, xr) / Math.Sqrt(1 + xr * xr);
+    internal static Complex Polar(double magnitude, double xr) => magnitude * new Complex(1, xr) / Math.Sqrt(1 + xr * xr);
 
     // A delta-wye bank (Dyn11): 1500 kVA, 11 kV / 415 V, 6 % at X/R 8, on a 250 MVA source at X/R 10.
     private const string DeltaWye = """
@@ -48,9 +48,9 @@ public class FaultStudyTests
     // line-to-line ratio (415/11000)² to 0.00068890 Ω at X/R 10. Z1 = Z2 = Zs + Zt; the delta holds
     // the zero sequence in the bank, so from the wye side Z0 = Zt. E = c·Un/√3 with c = 1.10 (Un
     // 415 V, a +10 % low-voltage system, IEC 60909-0 Table 1 from memory).
-    private static readonly Complex Zt = Polar(0.06 * 0.415 * 0.415 / 1.5, 8);
-    private static readonly Complex Zs = Polar(11.0 * 11 / 250 * Math.Pow(415.0 / 11000, 2), 10);
-    private static readonly double E = 1.10 * 415 / Math.Sqrt(3);
+    internal static readonly Complex Zt = Polar(0.06 * 0.415 * 0.415 / 1.5, 8);
+    internal static readonly Complex Zs = Polar(11.0 * 11 / 250 * Math.Pow(415.0 / 11000, 2), 10);
+    internal static readonly double E = 1.10 * 415 / Math.Sqrt(3);
 
     [Fact]
     public void Delta_wye_faults_match_symmetrical_components()

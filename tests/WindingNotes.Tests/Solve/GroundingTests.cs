@@ -15,8 +15,6 @@ namespace WindingNotes.Tests.Solve;
 /// </summary>
 public class GroundingTests
 {
-    private static Complex Polar(double magnitude, double xr) => magnitude * new Complex(1, xr) / Math.Sqrt(1 + xr * xr);
-
     // A delta-wye bank (Dyn11): 1500 kVA, 11 kV / 415 V, 6 % at X/R 8, on a 250 MVA source at X/R 10;
     // the wye's neutral earthed through 0.2 ohm (a resistor) unless a test says otherwise.
     private const string Unit = """
@@ -32,11 +30,11 @@ public class GroundingTests
 
         """;
 
-    private static readonly Complex Zt = Polar(0.06 * 0.415 * 0.415 / 1.5, 8);
-    private static readonly Complex Zs = Polar(11.0 * 11 / 250 * Math.Pow(415.0 / 11000, 2), 10);
-
-    // E = c·Un/√3, c = 1.10 up to 1 kV (IEC 60909-0, from memory, R36; 'voltage-tolerance' not given).
-    private static readonly double E = 1.10 * 415 / Math.Sqrt(3);
+    // The bank's and source's impedances at 415 V and E = c·Un/√3, c = 1.10 up to 1 kV (IEC 60909-0,
+    // from memory, R36), as derived in the fault-study tests for the same bank.
+    private static readonly Complex Zt = Analysis.FaultStudyTests.Zt;
+    private static readonly Complex Zs = Analysis.FaultStudyTests.Zs;
+    private static readonly double E = Analysis.FaultStudyTests.E;
 
     private static ShortCircuitResult Bus(Evaluation e, string fault) =>
         e.Cases.Select(c => c.ShortCircuit).OfType<ShortCircuitResult>().Single(s => s.Fault.Name == fault && !s.Minimum);

@@ -9,19 +9,8 @@ namespace WindingNotes.Tests.Solve;
 /// </summary>
 public class ThreePhaseSectionTests
 {
-    // A delta-wye bank, ideal leakage, 11 kV to 415 V, two taps on the wye.
-    private const string Unit = """
-        frequency 50 Hz
-        core T1 construction bank rating 300 kVA
-        winding HV on T1 rated 11 kV resistance 2 ohm delta H1 H2 H3
-        winding LV on T1 rated 415 V resistance 0.003 ohm wye X1 X2 X3 neutral X0
-        no-load T1 current 1.5 % loss 900 W at HV 11 kV
-        three-phase-supply grid H1 H2 H3 11 kV fault-level 250 MVA
-        ground X0
-        tap TA on LV at 25 %
-        tap TB on LV at 75 %
-
-        """;
+    // The delta-wye bank of the tap tests (ideal leakage, 11 kV to 415 V) with two taps on the wye.
+    private const string Unit = ThreePhaseTapTests.Unit + "tap TA on LV at 25 %\ntap TB on LV at 75 %\n";
 
     [Fact]
     public void A_section_check_of_a_three_phase_winding_checks_each_phase_between_its_taps_and_names_the_worst()

@@ -10,8 +10,8 @@ namespace WindingNotes.Tests.Solve;
 /// </summary>
 public class ThreePhaseTapTests
 {
-    // A delta-wye bank, ideal leakage (no impedance line), 11 kV to 415 V.
-    private const string Unit = """
+    // A delta-wye bank, ideal leakage (no impedance line), 11 kV to 415 V; the brush and section tests add to it.
+    internal const string Unit = """
         frequency 50 Hz
         core T1 construction bank rating 300 kVA
         winding HV on T1 rated 11 kV resistance 2 ohm delta H1 H2 H3
