@@ -127,23 +127,21 @@ public static class InlayHints
             ? string.Join("; ", Phases.All(name).Select(p => $"{p} {ResultText.Magnitude(normal.PointVoltage(p), "V")}"))
             : null;
 
-    /// <summary>Over the sweep's points: each load's voltage, or each supply's current where there is no load.</summary>
+    /// <summary>
+    /// Over every point of the sweep (the study's reductions, not the points kept of a long sweep):
+    /// each load's voltage, or each supply's current where there is no load.
+    /// </summary>
     private static string? SweepRange(Evaluation evaluation, string name)
     {
-        var points = evaluation.Cases.Where(c => c.Case.Sweep.Any(v => v.Name == name)).ToList();
-        if (points.Count == 0) return null;
-        var first = points[0];
-        var ranges = first.Loads.Length > 0
-            ? first.Loads.Select(l => Over(l.Load.Name, points.Select(p => p.Loads.FirstOrDefault(x => x.Load.Name == l.Load.Name)?.Voltage.Magnitude), "V"))
-            : first.Supplies.Select(s => Over(s.Supply.Name, points.Select(p => p.Supplies.FirstOrDefault(x => x.Supply.Name == s.Supply.Name)?.Current.Magnitude), "A"));
-        return $"{points.Count} points: {string.Join("; ", ranges)}";
+        if (evaluation.SweepColumns is not { Points.Length: > 0 } sweep || !sweep.Points[0].Any(v => v.Name == name) || evaluation.Normal is not { } normal) return null;
+        var ranges = normal.Loads.Length > 0
+            ? normal.Loads.Select(l => Over(l.Load.Name, sweep[$"loads.{l.Load.Name}.v.rms"], "V"))
+            : normal.Supplies.Select(s => Over(s.Supply.Name, sweep[$"supplies.{s.Supply.Name}.i.rms"], "A"));
+        return $"{sweep.Solved} points: {string.Join("; ", ranges)}";
     }
 
-    private static string Over(string name, IEnumerable<double?> values, string unit)
-    {
-        var known = values.OfType<double>().ToList();
-        return known.Count == 0 ? $"{name} unknown" : $"{name} {ResultText.Range(known.Min(), known.Max(), unit)}";
-    }
+    private static string Over(string name, SweepColumn? column, string unit) =>
+        column is null || double.IsNaN(column.Min) ? $"{name} unknown" : $"{name} {ResultText.Range(column.Min, column.Max, unit)}";
 
     /// <summary>A let's value where it is computed; a plain literal says its value already.</summary>
     private static string? LetValue(Evaluation evaluation, StatementSyntax s, string name)

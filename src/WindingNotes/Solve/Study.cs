@@ -20,6 +20,9 @@ public sealed record StudyResult(ImmutableArray<CaseResult> Cases, ImmutableArra
 
     /// <summary>Paralleled three-phase units: the current circulating with every load removed, and each one's share of the load.</summary>
     public ImmutableArray<ParallelGroup> Parallel { get; init; } = [];
+
+    /// <summary>The sweep's results in columns over its kept points, with each result's least and greatest over every point; null without a sweep.</summary>
+    public SweepColumns? SweepColumns { get; init; }
 }
 
 /// <summary>
@@ -59,6 +62,7 @@ public static class Study
         var outputs = new OutputTally(network);
         var cases = ImmutableArray.CreateBuilder<CaseResult>();
         var kept = new KeptPoints(Sweeps.KeptFor(normal));
+        var columns = new SweepColumnsBuilder(Sweeps.KeptFor(normal));
 
         checks.BeginPoint(normal.Case.Where);
         checks.Observe(normal, null);
@@ -115,7 +119,7 @@ public static class Study
         run.ReportNew();
         if (stopped)
             diagnostics.ReportTimeLimit(model.Sweeps.FirstOrDefault()?.Line ?? model.Tolerances.FirstOrDefault()?.Span ?? model.Thermal.Cycle?.Line ?? model.Supplies[0].Line, budget.Limit, run.Done, run.Total);
-        return new StudyResult(all, checkResults) { Thermal = thermal, SequenceImpedances = sequence, Parallel = ParallelUnits.Find(network, normal, nominal.NoLoad) };
+        return new StudyResult(all, checkResults) { Thermal = thermal, SequenceImpedances = sequence, Parallel = ParallelUnits.Find(network, normal, nominal.NoLoad), SweepColumns = points > 0 ? columns.Finish() : null };
 
         // The bands of the normal case and of each fault over the tolerance samples.
         (ImmutableArray<Band> Normal, ImmutableArray<ImmutableArray<Band>> Faults) SampleNominal()
@@ -153,6 +157,7 @@ public static class Study
             checks.Observe(at, null);
             ratings.Observe(p);
             outputs.Observe(at);
+            columns.Add(k, labels, at);
             if (!bandsAtPoints)
             {
                 kept.Add(k, Kept(at));

@@ -46,6 +46,9 @@ public sealed record Evaluation(
 
     /// <summary>Paralleled three-phase units: circulating currents and load shares.</summary>
     public ImmutableArray<ParallelGroup> Parallel { get; init; } = [];
+
+    /// <summary>The sweep's results in columns (kept points) and their least and greatest over every point; null without a sweep run.</summary>
+    public SweepColumns? SweepColumns { get; init; }
 }
 
 /// <summary>An earlier version of a document that was solved, and its evaluation.</summary>
@@ -171,7 +174,7 @@ public static class Evaluator
     {
         var ordered = stages.Diagnostics.Select(d => AsTheFileSays(d, stages.Model)).OrderBy(d => d.Span.Start).ThenBy(d => d.Severity).ToImmutableArray();
         var checks = stages.Study.Cases.IsEmpty ? NotEvaluated(stages.Syntax, stages.Model) : stages.Study.Checks;
-        return new Evaluation(path, stages.Syntax, stages.Model, stages.Network, stages.Study.Cases, checks, ordered) { Thermal = stages.Study.Thermal, SequenceImpedances = stages.Study.SequenceImpedances, Parallel = stages.Study.Parallel };
+        return new Evaluation(path, stages.Syntax, stages.Model, stages.Network, stages.Study.Cases, checks, ordered) { Thermal = stages.Study.Thermal, SequenceImpedances = stages.Study.SequenceImpedances, Parallel = stages.Study.Parallel, SweepColumns = stages.Study.SweepColumns };
     }
 
     /// <summary>A rating warning the file fails on becomes an error; a caution it acknowledges is marked so.</summary>

@@ -30,6 +30,14 @@ public class LargeSweepTests
         Assert.All(points, p => Assert.False(p.Solution.HasVectors));
         Wn.Near(140.4 * 2 / 4000, points[1].V("BR", "A").Magnitude, 1e-9, "the second kept point is the third of the sweep");
 
+        // The columns hold the kept points; their reductions and the sweep line's hint cover all 4,001.
+        var columns = e.SweepColumns!;
+        Assert.Equal(4001, columns.Solved);
+        Assert.Equal(2001, columns.Points.Length);
+        Wn.Near(140.4 * 2 / 4000, columns["loads.bench.v.rms"]!.Values[1], 1e-9, "the second kept point's column");
+        Assert.Equal("BR=100 %", columns["loads.bench.v.rms"]!.AtMax);
+        Assert.Contains(WindingNotes.Editing.InlayHints.For(e), h => h.Label.StartsWith("4001 points: bench ", StringComparison.Ordinal));
+
         // Above 70.2 V for k > 2000: 2,000 points fail, the first 1,000 are named, all are counted.
         var check = Assert.Single(e.Checks);
         Assert.Equal(4002, check.Points);

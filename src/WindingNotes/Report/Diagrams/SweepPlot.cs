@@ -1,4 +1,6 @@
+using System.Collections.Immutable;
 using System.Text.RegularExpressions;
+using WindingNotes.Kernel;
 using WindingNotes.Solve;
 using WindingNotes.Text;
 using WindingNotes.Workspace;
@@ -26,19 +28,20 @@ public static class SweepPlot
     public static Drawing? Draw(Evaluation evaluation, IReadOnlyList<string>? results, out string? problem)
     {
         problem = null;
-        var points = evaluation.Cases.Where(c => c.Case.IsSweepPoint).ToList();
-        if (points.Count == 0)
+        // The sweep's columns: one array per result over the points kept, as the study filled them.
+        var points = evaluation.SweepColumns?.Points ?? [];
+        if (points.Length == 0)
         {
             // A file with a load cycle and no sweep: its day is what varies.
             if (evaluation.Thermal is { } day && evaluation.Model.Sweeps.IsEmpty) return Cycle(evaluation, day, results, out problem);
             problem = evaluation.Model.Sweeps.IsEmpty ? "the file has no sweep" : "the sweep was not run: see the file's diagnostics";
             return null;
         }
-        var axis = points[0].Case.Sweep[0].Name;
+        var axis = points[0][0].Name;
         var sweep = evaluation.Model.Sweeps.FirstOrDefault(s => s.Target.Name == axis);
         var xUnit = sweep is null ? "" : SweepAxis.Unit(sweep);
-        var values = points.Select(p => CaseValues.Of(p).GroupBy(v => v.Path).ToDictionary(g => g.Key, g => g.First())).ToList();
-        var paths = values.SelectMany(v => v.Keys).Distinct().ToList();
+        var columns = evaluation.SweepColumns!.Columns.Where(c => c.Values.Any(v => !double.IsNaN(v))).ToDictionary(c => c.Path);
+        var paths = columns.Keys.ToList();
 
         var explicitly = results is { Count: > 0 };
         var patterns = explicitly ? results! : DefaultResults;
@@ -57,7 +60,7 @@ public static class SweepPlot
         if (chosen.Count == 0) chosen.AddRange(paths.Where(p => Glob("nodes.*.v.rms").IsMatch(p)));
 
         // A further sweep axis makes a line per value of it.
-        string Group(CaseResult c) => string.Join(" ", c.Case.Sweep.Skip(1));
+        string Group(ImmutableArray<SweepValue> point) => string.Join(" ", point.Skip(1));
         var groups = points.Select(Group).Distinct().ToList();
         var series = new List<Series>();
         foreach (var path in chosen)
@@ -65,13 +68,14 @@ public static class SweepPlot
             {
                 var line = new List<(double, double)?>();
                 string? unit = null;
-                for (var i = 0; i < points.Count; i++)
+                var column = columns[path];
+                for (var i = 0; i < points.Length; i++)
                 {
                     if (Group(points[i]) != group) continue;
-                    if (values[i].TryGetValue(path, out var v) && double.IsFinite(v.Value))
+                    if (double.IsFinite(column.Values[i]))
                     {
-                        line.Add((points[i].Case.Sweep[0].Value, v.Value));
-                        unit ??= v.Unit;
+                        line.Add((points[i][0].Value, column.Values[i]));
+                        unit ??= column.Unit;
                     }
                     else line.Add(null);
                 }
