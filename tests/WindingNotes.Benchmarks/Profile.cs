@@ -41,6 +41,46 @@ public static class Profile
             var r = new Rebinding(letSyntax, let);
             foreach (var (o, spec) in points) r.Solve(o, spec, withFaults: false, default);
         });
+
+        // The brush sweep of SweepBenchmarks: what the whole pipeline does beyond the points.
+        var brushText = Documents.TwentySections(1000);
+        var brushSyntax = Parser.Parse(brushText);
+        var brush = Binder.Bind(brushSyntax);
+        var brushAxes = Sweeps.Plan(brush, new Text.DiagnosticBag());
+        var brushPoints = Enumerable.Range(0, 1000).Select(k => Sweeps.Point(brushAxes, k)).Select(p => (p.Overrides with { RatedFrequency = brush.Frequency }, CaseSpec.ForSweep(p.Labels), p.Labels)).ToArray();
+        var solved = new BrushSweep(brushSyntax, brush);
+        var results = brushPoints.Select(p => solved.Solve(p.Item1, p.Item2, default)).ToArray();
+        var kept = Sweeps.KeptFor(results[0].Case!);
+        Console.WriteLine("Brush sweep, 1,000 points on twenty sections, µs a point:");
+        Report("the whole evaluation", () => Workspace.Evaluator.Evaluate(brushText, "twenty.wn"));
+        Report("the points: moved, updated, loaded and without loads, both results (BrushSweep)", () =>
+        {
+            var b = new BrushSweep(brushSyntax, brush);
+            foreach (var (o, spec, _) in brushPoints) b.Solve(o, spec, default);
+        });
+        Report("the results of a point, loaded and without loads (Results.Compute twice)", () =>
+        {
+            foreach (var r in results) Results.Compute(r.Case!.Solution, r.NoLoad!.Solution);
+        });
+        Report("the columns: every number of a point's case, reduced and kept (SweepColumnsBuilder)", () =>
+        {
+            var c = new SweepColumnsBuilder(kept);
+            for (var k = 0; k < results.Length; k++) c.Add(k, brushPoints[k].Labels, results[k].Case!);
+        });
+        Report("the kept cases, compacted (KeptPoints)", () =>
+        {
+            var c = new KeptPoints(kept);
+            for (var k = 0; k < results.Length; k++) c.Add(k, results[k].Case! with { Solution = results[k].Case!.Solution.Compact() });
+        });
+        Report("the checks over every point (CheckTally)", () =>
+        {
+            var checks = new CheckTally([.. brush.Expects]);
+            foreach (var r in results)
+            {
+                checks.BeginPoint(r.Case!.Case.Where);
+                checks.Observe(r.Case!, null);
+            }
+        });
     }
 
     private static void Report(string what, Action pass)

@@ -16,39 +16,101 @@ public static class CaseValues
 {
     public static IEnumerable<CaseValue> Of(CaseResult c)
     {
-        foreach (var group in ResultTable.Case.Concat(StudyResultTable.CaseParts))
+        var paths = new PathSink();
+        Walk(c, paths);
+        return paths.Values;
+    }
+
+    /// <summary>
+    /// Where a walk of a case's numbers is: <see cref="Enter"/> a part of the path ("loads", "heater",
+    /// "v", "rms"), <see cref="Here"/> a number at the path entered, <see cref="Leave"/> the part.
+    /// A sweep's columns find each number's column from these parts without writing its path out.
+    /// </summary>
+    internal interface ISink
+    {
+        void Enter(string part);
+        void Here(double value, string unit);
+        void Leave();
+    }
+
+    /// <summary>Every number of <see cref="Of"/>, in its order, told to <paramref name="sink"/> by the parts of its path.</summary>
+    internal static void Walk(CaseResult c, ISink sink)
+    {
+        foreach (var group in Banded)
         {
-            if (!group.Fields.Any(HasBand) || !group.When(c)) continue;
+            if (!group.When(c)) continue;
+            sink.Enter(group.Key);
             foreach (var (name, item) in group.Items(c))
-                foreach (var v in Values(name is null ? group.Key : $"{group.Key}.{name}", group.Fields, item)) yield return v;
+            {
+                if (name is not null) sink.Enter(name);
+                Fields(group.Fields, item, sink);
+                if (name is not null) sink.Leave();
+            }
+            sink.Leave();
         }
     }
 
-    /// <summary>Whether the field, or a field inside it, is kept over the tolerances.</summary>
-    private static bool HasBand(ResultField f) => f.Band || f.Nested.Any(HasBand) || f.Item is { } item && HasBand(item);
+    /// <summary>The groups with a field kept over the tolerances, in the report's order.</summary>
+    private static readonly ResultGroup[] Banded = [.. ResultTable.Case.Concat(StudyResultTable.CaseParts).Where(g => g.Fields.Any(HasBand))];
 
-    private static IEnumerable<CaseValue> Values(string path, IEnumerable<ResultField> fields, object item)
+    /// <summary>Whether the field, or a field inside it, is kept over the tolerances.</summary>
+    private static bool HasBand(ResultField f)
+    {
+        if (f.Band || f.Item is { } item && HasBand(item)) return true;
+        foreach (var n in f.Nested)
+            if (HasBand(n)) return true;
+        return false;
+    }
+
+    private static void Fields(IEnumerable<ResultField> fields, object item, ISink sink)
     {
         foreach (var field in fields)
             if (HasBand(field))
-                foreach (var v in Value($"{path}.{field.Key}", field, field.Read(item))) yield return v;
+            {
+                sink.Enter(field.Key);
+                Value(field, field.Read(item), sink);
+                sink.Leave();
+            }
     }
 
-    private static IEnumerable<CaseValue> Value(string path, ResultField field, object? value)
+    private static void Value(ResultField field, object? value, ISink sink)
     {
         switch (value)
         {
-            case null: yield break;
-            case Complex v when field.Band: yield return new($"{path}.rms", v.Magnitude, field.Unit); break;
-            case double v when field.Band: yield return new(path, v, field.Unit); break;
-            case int v when field.Band: yield return new(path, v, field.Unit); break;
+            case null: return;
+            case Complex v when field.Band:
+                sink.Enter("rms");
+                sink.Here(v.Magnitude, field.Unit);
+                sink.Leave();
+                break;
+            case double v when field.Band: sink.Here(v, field.Unit); break;
+            case int v when field.Band: sink.Here(v, field.Unit); break;
         }
-        var inner = field.Kind switch
+        switch (field.Kind)
         {
-            ResultKind.Object => Values(path, field.Nested, value),
-            ResultKind.Map => ((IEnumerable<(string Name, object Element)>)value).SelectMany(e => Value($"{path}.{e.Name}", field.Item!, field.Item!.Read(e.Element))),
-            _ => [],
-        };
-        foreach (var v in inner) yield return v;
+            case ResultKind.Object: Fields(field.Nested, value, sink); break;
+            case ResultKind.Map:
+                foreach (var (name, element) in (IEnumerable<(string Name, object Element)>)value)
+                {
+                    sink.Enter(name);
+                    Value(field.Item!, field.Item!.Read(element), sink);
+                    sink.Leave();
+                }
+                break;
+        }
+    }
+
+    /// <summary>The numbers with their paths written out, "sections.LV.i.rms".</summary>
+    private sealed class PathSink : ISink
+    {
+        private readonly List<string> parts = [];
+
+        public List<CaseValue> Values { get; } = [];
+
+        public void Enter(string part) => parts.Add(part);
+
+        public void Here(double value, string unit) => Values.Add(new CaseValue(string.Join(".", parts), value, unit));
+
+        public void Leave() => parts.RemoveAt(parts.Count - 1);
     }
 }

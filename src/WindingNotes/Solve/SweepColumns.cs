@@ -28,9 +28,8 @@ public sealed record SweepColumns(long Solved, ImmutableArray<ImmutableArray<Swe
 /// capacity, then every second one let go as the step doubles, and the last point solved), so the
 /// columns and the kept cases are the same points.
 /// </summary>
-internal sealed class SweepColumnsBuilder(int capacity)
+internal sealed class SweepColumnsBuilder(int capacity) : CaseValues.ISink
 {
-    private readonly Dictionary<string, int> index = new(StringComparer.Ordinal);
     private readonly List<(string Path, string Unit, double Min, string AtMin, double Max, string AtMax)> reductions = [];
     private readonly List<long> keptK = [];
     private readonly List<ImmutableArray<SweepValue>> keptLabels = [];
@@ -41,32 +40,27 @@ internal sealed class SweepColumnsBuilder(int capacity)
     private long stride = 1;
     private long solved;
     private double[] row = [];
+    // Each path's column found by its parts ("loads", "heater", "v", "rms"), so a point's numbers are placed without writing a path out.
+    private readonly Node root = new("");
+    private readonly List<Node> stack = [];
+    private string where = "";
+
+    private sealed class Node(string path)
+    {
+        public readonly string Path = path;
+        public readonly Dictionary<string, Node> Parts = new(StringComparer.Ordinal);
+        public int Column = -1;
+    }
 
     /// <summary>Point <paramref name="k"/> of the sweep, solved, with its swept values and results.</summary>
     public void Add(long k, ImmutableArray<SweepValue> labels, CaseResult c)
     {
         solved++;
-        var where = string.Join(" ", labels);
+        where = string.Join(" ", labels);
         Array.Fill(row, double.NaN);
-        foreach (var v in CaseValues.Of(c))
-        {
-            if (!index.TryGetValue(v.Path, out var i))
-            {
-                index[v.Path] = i = reductions.Count;
-                reductions.Add((v.Path, v.Unit, double.NaN, "", double.NaN, ""));
-                columns.Add([.. Enumerable.Repeat(double.NaN, keptK.Count)]);
-                Array.Resize(ref row, reductions.Count);
-                row[i] = double.NaN;
-            }
-            // The first value of a path at a point is the one reports show.
-            if (!double.IsNaN(row[i])) continue;
-            row[i] = v.Value;
-            if (double.IsNaN(v.Value)) continue;
-            var r = reductions[i];
-            if (!(v.Value >= r.Min)) r = r with { Min = v.Value, AtMin = where };
-            if (!(v.Value <= r.Max)) r = r with { Max = v.Value, AtMax = where };
-            reductions[i] = r;
-        }
+        stack.Clear();
+        stack.Add(root);
+        CaseValues.Walk(c, this);
         last = (k, labels);
         if (lastValues.Length != row.Length) lastValues = new double[row.Length];
         row.CopyTo(lastValues, 0);
@@ -78,6 +72,37 @@ internal sealed class SweepColumnsBuilder(int capacity)
         Thin(keptK, keep);
         Thin(keptLabels, keep);
         foreach (var column in columns) Thin(column, keep);
+    }
+
+    void CaseValues.ISink.Enter(string part)
+    {
+        var at = stack[^1];
+        if (!at.Parts.TryGetValue(part, out var next)) at.Parts[part] = next = new Node(at == root ? part : $"{at.Path}.{part}");
+        stack.Add(next);
+    }
+
+    void CaseValues.ISink.Leave() => stack.RemoveAt(stack.Count - 1);
+
+    void CaseValues.ISink.Here(double value, string unit)
+    {
+        var node = stack[^1];
+        if (node.Column < 0)
+        {
+            node.Column = reductions.Count;
+            reductions.Add((node.Path, unit, double.NaN, "", double.NaN, ""));
+            columns.Add([.. Enumerable.Repeat(double.NaN, keptK.Count)]);
+            Array.Resize(ref row, reductions.Count);
+            row[node.Column] = double.NaN;
+        }
+        var i = node.Column;
+        // The first value of a path at a point is the one reports show.
+        if (!double.IsNaN(row[i])) return;
+        row[i] = value;
+        if (double.IsNaN(value)) return;
+        var r = reductions[i];
+        if (!(value >= r.Min)) r = r with { Min = value, AtMin = where };
+        if (!(value <= r.Max)) r = r with { Max = value, AtMax = where };
+        reductions[i] = r;
     }
 
     public SweepColumns Finish()
