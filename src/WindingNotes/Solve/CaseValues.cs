@@ -1,3 +1,4 @@
+using System.Collections.Immutable;
 using System.Numerics;
 
 namespace WindingNotes.Solve;
@@ -62,7 +63,8 @@ public static class CaseValues
         return false;
     }
 
-    private static void Fields(IEnumerable<ResultField> fields, object item, ISink sink)
+    // An array, not IEnumerable: enumerating it as an interface would box it at every element of every point.
+    private static void Fields(ImmutableArray<ResultField> fields, object item, ISink sink)
     {
         foreach (var field in fields)
             if (HasBand(field))

@@ -43,7 +43,8 @@ internal sealed class SweepColumnsBuilder(int capacity) : CaseValues.ISink
     // Each path's column found by its parts ("loads", "heater", "v", "rms"), so a point's numbers are placed without writing a path out.
     private readonly Node root = new("");
     private readonly List<Node> stack = [];
-    private string where = "";
+    private ImmutableArray<SweepValue> labels = [];
+    private string? where;
 
     private sealed class Node(string path)
     {
@@ -56,7 +57,7 @@ internal sealed class SweepColumnsBuilder(int capacity) : CaseValues.ISink
     public void Add(long k, ImmutableArray<SweepValue> labels, CaseResult c)
     {
         solved++;
-        where = string.Join(" ", labels);
+        (this.labels, where) = (labels, null);
         Array.Fill(row, double.NaN);
         stack.Clear();
         stack.Add(root);
@@ -100,8 +101,9 @@ internal sealed class SweepColumnsBuilder(int capacity) : CaseValues.ISink
         row[i] = value;
         if (double.IsNaN(value)) return;
         var r = reductions[i];
-        if (!(value >= r.Min)) r = r with { Min = value, AtMin = where };
-        if (!(value <= r.Max)) r = r with { Max = value, AtMax = where };
+        // The point's name is written once, and only where it holds a least or greatest so far.
+        if (!(value >= r.Min)) r = r with { Min = value, AtMin = where ??= string.Join(" ", labels) };
+        if (!(value <= r.Max)) r = r with { Max = value, AtMax = where ??= string.Join(" ", labels) };
         reductions[i] = r;
     }
 
