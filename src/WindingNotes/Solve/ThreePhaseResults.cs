@@ -44,20 +44,38 @@ public sealed record PhaseSetResult(string Name, string Kind, ImmutableArray<Com
 
     /// <summary>The voltage unbalance factor, negative over positive sequence, in the sequence the supplies run in.</summary>
     public double? Unbalance => VoltageSequence.UnbalanceIn(Acb);
+
+    /// <summary>The same set and values, its lists compared by their elements (a record compares them by reference).</summary>
+    public bool Equals(PhaseSetResult? other) => other is not null && (ReferenceEquals(this, other) ||
+        Name == other.Name && Kind == other.Kind && NeutralCurrent.Equals(other.NeutralCurrent) && Power.Equals(other.Power) && Acb == other.Acb
+        && VoltageSequence == other.VoltageSequence && CurrentSequence == other.CurrentSequence
+        && Sequences.Equal(Voltages, other.Voltages) && Sequences.Equal(LineToLine, other.LineToLine)
+        && Sequences.Equal(PhaseCurrents, other.PhaseCurrents) && Sequences.Equal(LineCurrents, other.LineCurrents));
+
+    public override int GetHashCode() => HashCode.Combine(Name, Kind, Power);
 }
 
 public sealed record ThreePhaseResult(ImmutableArray<PhaseSetResult> Sets, ImmutableArray<VectorGroup> VectorGroups)
 {
     public static readonly ThreePhaseResult Empty = new([], []);
 
-    // Indices built once: a file of many units looks up many sets and vector groups.
-    private readonly Dictionary<string, VectorGroup> byCore = Index(VectorGroups, g => g.Core);
-    private readonly Dictionary<string, PhaseSetResult> byName = Index(Sets, s => s.Name);
+    // Indices built on first use: a file of many units looks up many sets and vector groups. Each is kept
+    // with the list it indexes, so a copy made with another list ('with') indexes its own.
+    private (ImmutableArray<VectorGroup> Of, Dictionary<string, VectorGroup> Index)? byCore;
+    private (ImmutableArray<PhaseSetResult> Of, Dictionary<string, PhaseSetResult> Index)? byName;
 
-    public VectorGroup? GroupOf(string core) => byCore.GetValueOrDefault(core);
+    public VectorGroup? GroupOf(string core) =>
+        (byCore is { } k && k.Of == VectorGroups ? k : (byCore = (VectorGroups, Index(VectorGroups, g => g.Core))).Value).Index.GetValueOrDefault(core);
 
     /// <summary>The terminal set of a three-phase winding, supply or load by its name.</summary>
-    public PhaseSetResult? SetOf(string name) => byName.GetValueOrDefault(name);
+    public PhaseSetResult? SetOf(string name) =>
+        (byName is { } k && k.Of == Sets ? k : (byName = (Sets, Index(Sets, s => s.Name))).Value).Index.GetValueOrDefault(name);
+
+    /// <summary>The same sets and vector groups, compared by their elements; the indices are no part of it.</summary>
+    public bool Equals(ThreePhaseResult? other) => other is not null && (ReferenceEquals(this, other) ||
+        Sequences.Equal(Sets, other.Sets) && Sequences.Equal(VectorGroups, other.VectorGroups));
+
+    public override int GetHashCode() => HashCode.Combine(Sequences.Hash(Sets), Sequences.Hash(VectorGroups));
 
     private static Dictionary<string, T> Index<T>(IEnumerable<T> items, Func<T, string> key)
     {
