@@ -60,16 +60,19 @@ public sealed record ThreePhaseResult(ImmutableArray<PhaseSetResult> Sets, Immut
     public static readonly ThreePhaseResult Empty = new([], []);
 
     // Indices built on first use: a file of many units looks up many sets and vector groups. Each is kept
-    // with the list it indexes, so a copy made with another list ('with') indexes its own.
-    private (ImmutableArray<VectorGroup> Of, Dictionary<string, VectorGroup> Index)? byCore;
-    private (ImmutableArray<PhaseSetResult> Of, Dictionary<string, PhaseSetResult> Index)? byName;
+    // with the list it indexes, so a copy made with another list ('with') indexes its own; one object, so a
+    // reader on another thread sees a whole index or none.
+    private sealed record Indexed<T>(ImmutableArray<T> Of, Dictionary<string, T> Index);
+
+    private Indexed<VectorGroup>? byCore;
+    private Indexed<PhaseSetResult>? byName;
 
     public VectorGroup? GroupOf(string core) =>
-        (byCore is { } k && k.Of == VectorGroups ? k : (byCore = (VectorGroups, Index(VectorGroups, g => g.Core))).Value).Index.GetValueOrDefault(core);
+        (byCore is { } k && k.Of == VectorGroups ? k : byCore = new(VectorGroups, Index(VectorGroups, g => g.Core))).Index.GetValueOrDefault(core);
 
     /// <summary>The terminal set of a three-phase winding, supply or load by its name.</summary>
     public PhaseSetResult? SetOf(string name) =>
-        (byName is { } k && k.Of == Sets ? k : (byName = (Sets, Index(Sets, s => s.Name))).Value).Index.GetValueOrDefault(name);
+        (byName is { } k && k.Of == Sets ? k : byName = new(Sets, Index(Sets, s => s.Name))).Index.GetValueOrDefault(name);
 
     /// <summary>The same sets and vector groups, compared by their elements; the indices are no part of it.</summary>
     public bool Equals(ThreePhaseResult? other) => other is not null && (ReferenceEquals(this, other) ||
@@ -143,6 +146,9 @@ public static class ThreePhaseResults
         var lineCurrents = lines.Select(n => outward ? -Into(n) : Into(n)).ToArray();
         var iScale = lineCurrents.Max(i => i.Magnitude);
         Complex? neutral = star >= 0 && !lines.Contains(star) ? Numbers.Clean(outward ? Into(star) : -Into(star), iScale) : null;
+        // The total's parts likewise: the reactive powers of two phases that cancel leave rounding, not a figure.
+        var pScale = v.Max(x => x.Magnitude) * Math.Max(iScale, phaseCurrents.Max(i => i.Magnitude));
+        power = new Complex(Numbers.Clean(power.Real, pScale), Numbers.Clean(power.Imaginary, pScale));
         return new PhaseSetResult(name, kind, [.. v], [v[0] - v[1], v[1] - v[2], v[2] - v[0]], [.. phaseCurrents], [.. lineCurrents], neutral, power,
             Clean(Sequence.Of(v[0], v[1], v[2]), v.Max(x => x.Magnitude)), Clean(Sequence.Of(lineCurrents[0], lineCurrents[1], lineCurrents[2]), iScale));
     }
