@@ -48,7 +48,8 @@ A bare program name is looked up on `exec-path' and then in
     "equals" "currents" "voltage-tolerance" "duration" "initial-temperature" "peak-method" "end-temperature" "earth-impedance"
     "nominal" "fault-current" "peak-current" "thermal-current" "earth-fault-factor" "in"
     "positive-sequence" "class" "winding-rise" "equivalent-aging" "peak-withstand" "peak-duty" "minimum-fault-level" "transformer-correction"
-    "time-rating" "open-delta" "scott-t" "delta-output" "main-output" "teaser-output" "primary-winding" "secondary-winding")
+    "time-rating" "open-delta" "scott-t" "delta-output" "main-output" "teaser-output" "primary-winding" "secondary-winding"
+    "series-bucking" "teaser-tap")
   "Words that start a clause or join its parts.")
 
 (defconst windingnotes-option-keywords

@@ -35,6 +35,12 @@ public sealed record CaseSpec(string Name, bool WithoutLoads = false, FaultModel
 
     /// <summary>The no-load companion of a case (for regulation and excitation at no load), keeping its swept values.</summary>
     public CaseSpec WithoutLoad() => this == Normal ? NoLoad : new CaseSpec($"{Name} no-load", WithoutLoads: true) { Sweep = Sweep };
+
+    /// <summary>The same case with the same swept values, in whatever list (a record compares its list by reference).</summary>
+    public bool Equals(CaseSpec? other) => other is not null && (ReferenceEquals(this, other) ||
+        Name == other.Name && WithoutLoads == other.WithoutLoads && Fault == other.Fault && Sequences.Equal(Sweep, other.Sweep));
+
+    public override int GetHashCode() => HashCode.Combine(Name, WithoutLoads, Fault);
 }
 
 /// <summary>
@@ -74,10 +80,30 @@ public sealed record Solution(
     /// then holds its results and not every unknown of every case besides.
     /// </summary>
     public Solution Compact() => this with { NodeVoltages = [], SectionCurrents = [], CoreVoltsPerTurn = [], SupplyCurrents = [], LoadCurrents = [] };
+
+    /// <summary>
+    /// The same solution: of that network (the instance solved, not one of equal parts), the same case,
+    /// unknowns and messages, compared by value (a record compares its arrays by reference).
+    /// </summary>
+    public bool Equals(Solution? other) => other is not null && (ReferenceEquals(this, other) ||
+        ReferenceEquals(Network, other.Network) && Case == other.Case && FaultCurrent.Equals(other.FaultCurrent) && Solved == other.Solved && Scope == other.Scope
+        && Sequences.Equal(NodeVoltages, other.NodeVoltages) && Sequences.Equal(SectionCurrents, other.SectionCurrents)
+        && Sequences.Equal(CoreVoltsPerTurn, other.CoreVoltsPerTurn) && Sequences.Equal(SupplyCurrents, other.SupplyCurrents)
+        && Sequences.Equal(LoadCurrents, other.LoadCurrents) && Sequences.Equal(Diagnostics, other.Diagnostics));
+
+    public override int GetHashCode() => HashCode.Combine(Case, NodeVoltages.Length, Solved);
 }
 
 /// <summary>
 /// The elements of the part of the network a case is about. A fault changes only the independent
 /// part it is in, so its case solves and reports that part; every other part is as in the normal case.
 /// </summary>
-public sealed record CaseScope(IReadOnlySet<string> Points, IReadOnlySet<int> Sections, IReadOnlySet<int> Cores, IReadOnlySet<int> Supplies, IReadOnlySet<int> Loads);
+public sealed record CaseScope(IReadOnlySet<string> Points, IReadOnlySet<int> Sections, IReadOnlySet<int> Cores, IReadOnlySet<int> Supplies, IReadOnlySet<int> Loads)
+{
+    /// <summary>The same elements (a record compares its sets by reference).</summary>
+    public bool Equals(CaseScope? other) => other is not null && (ReferenceEquals(this, other) ||
+        Sequences.Equal(Points, other.Points) && Sequences.Equal(Sections, other.Sections) && Sequences.Equal(Cores, other.Cores)
+        && Sequences.Equal(Supplies, other.Supplies) && Sequences.Equal(Loads, other.Loads));
+
+    public override int GetHashCode() => HashCode.Combine(Points.Count, Sections.Count, Supplies.Count, Loads.Count);
+}

@@ -13,7 +13,7 @@ internal sealed partial class BindRun
     /// <summary>The suffixes of a pair's two units: open delta's first and second unit, or a Scott-T's main and teaser.</summary>
     private static string[] PairUnits(StatementSyntax s) => s.Clause("scott-t") is null ? ["a", "b"] : ["m", "t"];
 
-    /// <summary>The teaser's tap, as the trade gives it: 86.6 % of its winding (√3/2 to three figures).</summary>
+    /// <summary>The teaser's tap where 'teaser-tap' does not place it, as the trade gives it: 86.6 % of its winding (√3/2 to three figures).</summary>
     internal const double TeaserTap = 0.866;
 
     /// <summary>
@@ -72,7 +72,9 @@ internal sealed partial class BindRun
         var head = s.Head.Name(0)!;
         var scott = s.Clause("scott-t");
         var connection = scott ?? s.Clause("open-delta");
-        var output = s.Clause("delta-output") ?? s.Clause("series") ?? s.Clause("main-output");
+        var output = s.Clause("delta-output") ?? s.Clause("series") ?? s.Clause("series-bucking") ?? s.Clause("main-output");
+        var teaserSyntax = s.Value("teaser-tap");
+        var teaser = Real(teaserSyntax, Dimension.None, "the teaser's tap", positive: true, ratio: true);
         var rating = Real(s.Value("rating"), Dimension.ApparentPower, $"the rating of {head.Text}", positive: true);
         var primary = s.Clause("primary-winding");
         var secondary = s.Clause("secondary-winding");
@@ -85,6 +87,16 @@ internal sealed partial class BindRun
         if ((scott is null) != (output.Keyword!.Text != "main-output"))
         {
             diagnostics.ReportPairOutput(output.Keyword!, scott is not null);
+            return;
+        }
+        if (s.Clause("teaser-tap") is { } teaserClause && scott is null)
+        {
+            diagnostics.ReportOutOfBounds(teaserClause.Span, "'teaser-tap'", "left out of an open delta, which has no teaser: it places a Scott-T's teaser tap");
+            return;
+        }
+        if (teaser is >= 1)
+        {
+            diagnostics.ReportOutOfBounds(teaserSyntax!.Span, "the teaser's tap", "below 100 % of the teaser winding: the tap joined to the main's centre lies between its ends");
             return;
         }
         if (z is { } zv && !(zv.Dimension == Dimension.Impedance || (zv.Dimension.IsNone && zv.IsPercent)))
@@ -108,9 +120,14 @@ internal sealed partial class BindRun
         if (scott is null)
         {
             primaries = [(lines[0], lines[1]), (lines[2], lines[1])];
-            secondaries = output.Keyword!.Text == "series"
-                ? [(outs[0], lines[0]), (outs[1], lines[2])]
-                : [(outs[0], outs[1]), (outs[2], outs[1])];
+            // In series: from the output terminal to the line adds the unit's secondary voltage to the
+            // line's (a boost); from the line to the output terminal takes it away (a buck).
+            secondaries = output.Keyword!.Text switch
+            {
+                "series" => [(outs[0], lines[0]), (outs[1], lines[2])],
+                "series-bucking" => [(lines[0], outs[0]), (lines[2], outs[1])],
+                _ => [(outs[0], outs[1]), (outs[2], outs[1])],
+            };
         }
         else
         {
@@ -128,9 +145,9 @@ internal sealed partial class BindRun
                     impedance.Value, impedance.Dimension.IsNone, xr, s.Span, zSyntax!.Span));
         }
         if (scott is null) return;
-        // The main centre-tapped, the teaser on its 86.6 % tap, the two taps one point.
+        // The main centre-tapped, the teaser on its 86.6 % tap or the one written, the two taps one point.
         taps.Add(new TapModel(p.Text + "_mc", p.Name.Span, s.Span, p.Text + "_m", 0.5, TapUnit.Fraction, false) { PositionSpan = scott.Span });
-        taps.Add(new TapModel(p.Text + "_tt", p.Name.Span, s.Span, p.Text + "_t", TeaserTap, TapUnit.Fraction, false) { PositionSpan = scott.Span });
+        taps.Add(new TapModel(p.Text + "_tt", p.Name.Span, s.Span, p.Text + "_t", teaser ?? TeaserTap, TapUnit.Fraction, false) { PositionSpan = teaserSyntax?.Span ?? scott.Span });
         joins.Add([new NodeRef(p.Text + "_tt", p.Name.Span), new NodeRef(p.Text + "_mc", p.Name.Span)]);
     }
 }

@@ -388,7 +388,7 @@ internal sealed partial class BindRun
         {
             var earth = MadePoint(name.Text + "_e", name);
             grounds.Add(earth);
-            supplies.Add(new SupplyModel(name.Text + "_zn", name.Name.Span, s.Span, star, earth, Phasor.Zero) { Impedance = zn });
+            supplies.Add(new SupplyModel(name.Text + "_zn", name.Name.Span, s.Span, star, earth, Phasor.Zero) { Impedance = zn, Neutral = true });
         }
         phaseSupplies.Add(new ThreePhaseSupplyModel(name.Text, name.Name.Span, s.Span, [.. lines!], vll, acb, z1, z0));
     }

@@ -66,6 +66,6 @@ public static partial class ModelMessages
         public Diagnostic ReportPairOutput(Token keyword, bool scott) =>
             bag.Error("wrong-kind", keyword.Span, scott
                 ? $"a Scott-T's outputs are its main's and its teaser's secondaries: 'main-output X1 X2 teaser-output Y1 Y2', not '{keyword.Text}'"
-                : "'main-output' and 'teaser-output' are a Scott-T's outputs: an open delta's secondaries are 'delta-output X1 X2 X3' (in open delta too) or 'series Y1 Y3' (in series with the outer lines)");
+                : "'main-output' and 'teaser-output' are a Scott-T's outputs: an open delta's secondaries are 'delta-output X1 X2 X3' (in open delta too), 'series Y1 Y3' (in series with the outer lines, boosting) or 'series-bucking Y1 Y3' (bucking)");
     }
 }

@@ -96,6 +96,17 @@ public sealed record SupplyModel(string Name, TextSpan NameSpan, TextSpan Line, 
     /// <summary>A neutral-grounding impedance ('ground N impedance …'): a branch of no EMF to earth, never a source.</summary>
     public bool Grounding { get; init; }
 
+    /// <summary>A three-phase supply's neutral impedance ('NAME_zn', Zn = (Z0 − Z1)/3 from its star point to earth): a branch of no EMF, never a source.</summary>
+    public bool Neutral { get; init; }
+
+    /// <summary>
+    /// Whether it drives the network: the one test of "is this a source" (autotransformer connections and
+    /// their supply points, the power supplied for efficiency, the branches of κ's meshed exemption, a part
+    /// fed or not). A branch of no EMF to earth (<see cref="Grounding"/>, <see cref="Neutral"/>) carries
+    /// current and has a loss, but supplies nothing.
+    /// </summary>
+    public bool IsSource => !Grounding && !Neutral;
+
     /// <summary>The internal impedance at the minimum fault level ('minimum-fault-level'), at the frequency as written; for minimum short-circuit currents.</summary>
     public Complex? MinimumImpedance { get; init; }
 }

@@ -270,7 +270,7 @@ public static class NetworkBuilder
         {
             var parts = Islands.Parts(network, withLoads: true, []);
             int PartOf(int a, int b) => parts.Find(Islands.Anchor(network, a, b));
-            var fed = network.Supplies.Select(s => PartOf(s.NodeP, s.NodeQ)).ToHashSet();
+            var fed = network.Supplies.Where(s => s.Source.IsSource).Select(s => PartOf(s.NodeP, s.NodeQ)).ToHashSet();
             var dead = network.Loads.Where(l => l.NodeA != l.NodeB && !fed.Contains(PartOf(l.NodeA, l.NodeB))).ToList();
             foreach (var part in dead.GroupBy(l => PartOf(l.NodeA, l.NodeB)))
                 diagnostics.ReportNoSource(part.Select(l => (l.Name, l.Source.NameSpan)).ToList());

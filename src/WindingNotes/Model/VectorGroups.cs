@@ -11,7 +11,14 @@ public sealed record WindingSymbol(string Winding, string Letters, int? Clock);
 /// The vector group of a three-phase core, from its wiring: null <see cref="Symbol"/> with the
 /// reason where the wiring gives no clock number.
 /// </summary>
-public sealed record VectorGroup(string Core, ImmutableArray<WindingSymbol> Windings, string? Symbol, string? Problem);
+public sealed record VectorGroup(string Core, ImmutableArray<WindingSymbol> Windings, string? Symbol, string? Problem)
+{
+    /// <summary>The same group, its windings compared by their elements (a record compares its list by reference).</summary>
+    public bool Equals(VectorGroup? other) => other is not null && (ReferenceEquals(this, other) ||
+        Core == other.Core && Symbol == other.Symbol && Problem == other.Problem && Sequences.Equal(Windings, other.Windings));
+
+    public override int GetHashCode() => HashCode.Combine(Core, Symbol);
+}
 
 /// <summary>
 /// Vector groups from polarity marks and joins. The limbs of a core are given balanced

@@ -7,6 +7,8 @@ namespace WindingNotes.Report;
 /// <summary>
 /// Sweep points as tables in the text report: one row a point, one column a result, every column
 /// the same fixed width (never the widest entry's), so a changed value rewrites only its own row.
+/// A column with an entry too long for it (a section of a tapped winding, 'SERIES:B1-SEL', in its
+/// header) is as wide as that entry and a space: an entry never pushes the columns after it out of line.
 /// A result a point does not have shows as "-".
 /// </summary>
 public static class SweepTables
@@ -30,8 +32,9 @@ public static class SweepTables
         foreach (var table in Tables(points))
         {
             o.Append("  ").Append(table.Title).Append('\n');
-            Row(o, table.Header);
-            foreach (var row in table.Rows) Row(o, row);
+            var widths = Widths(table);
+            Row(o, table.Header, widths);
+            foreach (var row in table.Rows) Row(o, row, widths);
         }
     }
 
@@ -98,10 +101,19 @@ public static class SweepTables
         return new Table(title, [.. axes.Select(a => $"{a}="), .. columns], body);
     }
 
-    private static void Row(StringBuilder o, IEnumerable<string> cells)
+    /// <summary>Each column's width: <see cref="Width"/>, or its longest entry and a space where that is longer.</summary>
+    private static int[] Widths(Table table)
+    {
+        var widths = table.Header.Select(h => Math.Max(Width, h.Length + 1)).ToArray();
+        foreach (var row in table.Rows)
+            for (var i = 0; i < row.Count && i < widths.Length; i++) widths[i] = Math.Max(widths[i], row[i].Length + 1);
+        return widths;
+    }
+
+    private static void Row(StringBuilder o, IReadOnlyList<string> cells, int[] widths)
     {
         var line = new StringBuilder("    ");
-        foreach (var cell in cells) line.Append(cell.PadRight(Width - 1)).Append(' ');
+        for (var i = 0; i < cells.Count; i++) line.Append(cells[i].PadRight((i < widths.Length ? widths[i] : Width) - 1)).Append(' ');
         o.Append(line.ToString().TrimEnd()).Append('\n');
     }
 }

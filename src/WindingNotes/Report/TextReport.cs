@@ -50,6 +50,7 @@ public static class TextReport
         if (!c.Cores.IsEmpty)
         {
             Heading(o, "Cores");
+            var coreWidth = Width(c.Cores.Select(k => k.Core.Name));
             foreach (var k in c.Cores)
             {
                 var parts = new List<string>();
@@ -58,7 +59,7 @@ public static class TextReport
                 else parts.Add(FluxUnknown(k));
                 parts.Add(k.LossKnown ? $"core loss {Numbers.Format(k.Loss, "W")}" : "core loss unknown (no 'no-load' line)");
                 if (k.NoLoadCurrent is { } i0) parts.Add($"no-load current {Numbers.Format(i0.Magnitude, "A")} in {k.NoLoadWinding!.Name}");
-                Line(o, k.Core.Name, string.Join(", ", parts));
+                Line(o, k.Core.Name, string.Join(", ", parts), coreWidth);
             }
         }
         WriteGroup(o, ResultTable.Named("supplies"), c);
@@ -67,14 +68,19 @@ public static class TextReport
         {
             Heading(o, "Fault");
             var xr = double.IsFinite(fault.XR) ? Numbers.Fixed(fault.XR) : "infinite";
-            Line(o, fault.Fault.Name, $"{fault.Fault.A.Name} to {fault.Fault.B.Name}: {Phasor(fault.Current, "A")}, peak {Numbers.Format(fault.Peak, "A")} (X/R {xr}, factor {Numbers.Fixed(fault.PeakFactor)})");
-            Line(o, "method", FaultDutyReport.Method(fault));
+            var faultWidth = Width([fault.Fault.Name, "method"]);
+            Line(o, fault.Fault.Name, $"{fault.Fault.A.Name} to {fault.Fault.B.Name}: {Phasor(fault.Current, "A")}, peak {Numbers.Format(fault.Peak, "A")} (X/R {xr}, factor {Numbers.Fixed(fault.PeakFactor)})", faultWidth);
+            Line(o, "method", FaultDutyReport.Method(fault), faultWidth);
             WriteBands(o, c);
             return;
         }
         if (c.ShortCircuit is { } sc)
         {
-            FaultDutyReport.Text(o, sc, t => Heading(o, t), (n, t) => Line(o, n, t));
+            // Its lines are gathered first: the block's name column is as wide as its names.
+            var lines = new List<(string Name, string Text)>();
+            FaultDutyReport.Text(o, sc, t => Heading(o, t), (n, t) => lines.Add((n, t)));
+            var width = Width(lines.Select(l => l.Name));
+            foreach (var (name, text) in lines) Line(o, name, text, width);
             WriteBands(o, c);
             return;
         }
@@ -98,12 +104,13 @@ public static class TextReport
         if (items.Count == 0) return;
         Heading(o, group.Heading);
         var columns = group.Columns.Where(k => k.When(c)).ToList();
+        var width = Width(items.Select(e => e.Name ?? ""));
         foreach (var (name, item) in items)
         {
             var text = new StringBuilder();
             foreach (var column in columns)
                 if (group.Shown(column, item) is ({ } value, var unit)) text.Append(column.Text.Replace("{}", Shown(value, unit)));
-            Line(o, name ?? "", text.ToString());
+            Line(o, name ?? "", text.ToString(), width);
         }
     }
 
@@ -173,8 +180,31 @@ public static class TextReport
 
     private static void Heading(StringBuilder o, string title) => o.Append("  ").Append(title).Append('\n');
 
-    private static void Line(StringBuilder o, string name, string text) =>
-        o.Append("    ").Append(name.PadRight(NameWidth)).Append(' ').Append(text).Append('\n');
+    private static void Line(StringBuilder o, string name, string text, int width = NameWidth) => Named(o, "    ", name, width, text);
+
+    /// <summary>The longest name a block's name column widens to; a longer one stands on its own line (<see cref="Named"/>).</summary>
+    private const int WidestName = 24;
+
+    /// <summary>
+    /// The width of a block's name column: its longest name's of those up to <see cref="WidestName"/>,
+    /// at least <paramref name="least"/>. One width a block, so its texts stand in one column; a block of
+    /// short names is as it was.
+    /// </summary>
+    internal static int Width(IEnumerable<string> names, int least = NameWidth) =>
+        Math.Max(least, names.Select(n => n.Length).Where(n => n <= WidestName).DefaultIfEmpty(0).Max());
+
+    /// <summary>
+    /// A line of a block: its name in a column of <paramref name="width"/> (<see cref="Width"/>), then its
+    /// text. A name longer than even the widest column (a long name of the file's) stands on its own line
+    /// and its text begins the next at the column, so the block's texts stay in one column.
+    /// </summary>
+    internal static void Named(StringBuilder o, string indent, string name, int width, string text)
+    {
+        o.Append(indent);
+        if (name.Length > width) o.Append(name).Append('\n').Append(' ', indent.Length + width);
+        else o.Append(name.PadRight(width));
+        o.Append(' ').Append(text).Append('\n');
+    }
 
     public static string Location(Evaluation evaluation, Diagnostic d)
     {

@@ -53,10 +53,12 @@ public static class ThermalReport
     {
         if (r is null) return;
         o.Append("\nLoad cycle (").Append(Method(r)).Append(", ").Append(Step(r)).Append(" steps, the day after ").Append(r.Days - 1).Append(" days of the same cycle)\n");
+        var unitWidth = TextReport.Width(r.Units.Select(u => u.Unit.Core));
         foreach (var u in r.Units)
         {
-            o.Append("  ").Append(u.Unit.Core.PadRight(12)).Append(' ').Append(Summary(r, u)).Append('\n');
-            foreach (var w in u.Windings) o.Append("    ").Append(w.Winding.PadRight(10)).Append(' ').Append(Winding(r, w)).Append('\n');
+            TextReport.Named(o, "  ", u.Unit.Core, unitWidth, Summary(r, u));
+            var windingWidth = TextReport.Width(u.Windings.Select(w => w.Winding), least: 10);
+            foreach (var w in u.Windings) TextReport.Named(o, "    ", w.Winding, windingWidth, Winding(r, w));
             foreach (var c in r.Capabilities.Where(c => c.Capability.Core == u.Unit.Core)) o.Append("    capability ").Append(Capability(r, c)).Append('\n');
         }
         o.Append("  hour by hour: time, load and ambient up to it").Append(string.Concat(r.Units.Select(u => $"; {u.Unit.Core} {Bulk(u)}, hot-spot"))).Append('\n');

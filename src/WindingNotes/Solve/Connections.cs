@@ -2,6 +2,7 @@ using System.Collections.Immutable;
 using System.Runtime.CompilerServices;
 using System.Runtime.InteropServices;
 using WindingNotes.Model;
+using WindingNotes.Text;
 
 namespace WindingNotes.Solve;
 
@@ -30,6 +31,13 @@ public sealed record Connection(SupplyNet Supply, LoadNet Load, ImmutableArray<i
     /// </summary>
     public bool IsPhaseElement(Model.Model model) =>
         model.ThreePhase.IsSupplyOrLoad(Supply.Source.Line) || model.ThreePhase.IsSupplyOrLoad(Load.Source.Line);
+
+    /// <summary>The same connection, its lists compared by their elements (a record compares them by reference).</summary>
+    public bool Equals(Connection? other) => other is not null && (ReferenceEquals(this, other) ||
+        Supply == other.Supply && Load == other.Load && Island == other.Island && FedFrom == other.FedFrom
+        && Sequences.Equal(Common, other.Common) && Sequences.Equal(Cores, other.Cores) && Sequences.Equal(Series, other.Series));
+
+    public override int GetHashCode() => HashCode.Combine(Supply, Load, Island);
 }
 
 public static class Connections
@@ -86,8 +94,8 @@ public static class Connections
             if (s.NodeA != earth && s.NodeB != earth) sets.Union(s.NodeA, s.NodeB);
         // By island, so that a file of many units pairs each load only with the supplies of its own unit.
         var suppliesIn = new Dictionary<int, SortedSet<int>>();
-        // A neutral-grounding impedance is no source: a load beside it is not fed through it.
-        foreach (var supply in network.Supplies.Where(s => !s.Source.Grounding))
+        // A neutral or neutral-grounding impedance is no source: a load beside it is not fed through it, nor is earth a supply point by it.
+        foreach (var supply in network.Supplies.Where(s => s.Source.IsSource))
             foreach (var p in new[] { supply.NodeP, supply.NodeQ }.Where(p => p != earth))
             {
                 if (!suppliesIn.TryGetValue(sets.Find(p), out var set)) suppliesIn[sets.Find(p)] = set = [];
@@ -100,7 +108,7 @@ public static class Connections
                 if (!coresIn.TryGetValue(sets.Find(n), out var set)) coresIn[sets.Find(n)] = set = [];
                 set.Add(s.Core);
             }
-        var supplyPoints = network.Supplies.Where(s => !s.Source.Grounding).SelectMany(s => new[] { s.NodeP, s.NodeQ }).ToHashSet();
+        var supplyPoints = network.Supplies.Where(s => s.Source.IsSource).SelectMany(s => new[] { s.NodeP, s.NodeQ }).ToHashSet();
         var touching = network.Sections.SelectMany(s => new[] { (Node: s.NodeA, Section: s), (Node: s.NodeB, Section: s) }).ToLookup(x => x.Node, x => x.Section);
         var result = ImmutableArray.CreateBuilder<Connection>();
         foreach (var load in network.Loads)

@@ -142,6 +142,24 @@ public sealed record ShortCircuitResult(BusFaultModel Fault, FaultStudyModel Stu
 
     /// <summary>Whether a winding's duty passes a limit judged: its peak withstand, its temperature, or its category's infrequent- or frequent-fault time.</summary>
     public bool Exceeds(WindingDuty d) => d.PeakExceeded || d.ThermalExceeded || d.CategoryExceeded(Study.Duration) || d.FrequentExceeded(Study.Duration);
+
+    /// <summary>
+    /// The same fault's study with the same values, its lists compared by their elements (a record
+    /// compares them by reference). Every property is named here: ResultEqualityTests keeps the list whole.
+    /// </summary>
+    public bool Equals(ShortCircuitResult? other) => other is not null && (ReferenceEquals(this, other) ||
+        Fault == other.Fault && Study == other.Study && Minimum == other.Minimum && EndTemperature == other.EndTemperature
+        && KappaAtFault.Equals(other.KappaAtFault) && KappaExempt == other.KappaExempt && EquivalentImpedance.Equals(other.EquivalentImpedance)
+        && EquivalentFrequency.Equals(other.EquivalentFrequency) && EquivalentRX.Equals(other.EquivalentRX) && VoltageFactor.Equals(other.VoltageFactor)
+        && Nominal.Equals(other.Nominal) && NominalFrom == other.NominalFrom && EarthCurrent.Equals(other.EarthCurrent)
+        && Currents == other.Currents && Voltages == other.Voltages && Initial.Equals(other.Initial) && Z1.Equals(other.Z1)
+        && Kappa.Equals(other.Kappa) && Peak.Equals(other.Peak) && Peak60076.Equals(other.Peak60076) && ThermalFactorM.Equals(other.ThermalFactorM)
+        && Thermal.Equals(other.Thermal) && DcTimeConstant.Equals(other.DcTimeConstant) && EarthFaultFactor.Equals(other.EarthFaultFactor)
+        && Sequences.Equal(TransformerCorrections, other.TransformerCorrections) && Sequences.Equal(WeakestSources, other.WeakestSources)
+        && Sequences.Equal(LineCurrents, other.LineCurrents) && Sequences.Equal(LineVoltages, other.LineVoltages) && Sequences.Equal(PreFault, other.PreFault)
+        && Sequences.Equal(Groundings, other.Groundings) && Sequences.Equal(Duties, other.Duties));
+
+    public override int GetHashCode() => HashCode.Combine(Fault, Minimum, Initial);
 }
 
 /// <summary>
@@ -336,8 +354,8 @@ public static class FaultStudy
     {
         const double limit = 0.3;
         var model = network.Model;
-        // A neutral-grounding impedance carries no positive-sequence current, which is what κ is of.
-        foreach (var s in network.Supplies.Where(s => !s.Source.Grounding))
+        // A neutral or neutral-grounding impedance carries no positive-sequence current, which is what κ is of.
+        foreach (var s in network.Supplies.Where(s => s.Source.IsSource))
             if (s.Impedance != Complex.Zero && !(s.Impedance.Imaginary > 0 && s.Impedance.Real / s.Impedance.Imaginary < limit)) return false;
         bool States(string winding) => model.Windings.FirstOrDefault(w => w.Name == winding) is { } w && (w.Resistance is not null || w.Conductor is not null);
         foreach (var z in model.Impedances)

@@ -187,6 +187,21 @@ public sealed record CaseResult(
 
     /// <summary>Three-phase terminal sets and vector groups; empty without three-phase statements.</summary>
     public ThreePhaseResult ThreePhase { get; init; } = ThreePhaseResult.Empty;
+
+    /// <summary>
+    /// Equal results: the same case, solution and values, each list compared by its elements. The
+    /// look-up caches (<see cref="pointIndex"/>, <see cref="elementIndex"/>) are no part of it: a
+    /// record's own equality compared them, and its lists, by reference.
+    /// </summary>
+    public bool Equals(CaseResult? other) => other is not null && (ReferenceEquals(this, other) ||
+        Case == other.Case && Solution == other.Solution && Totals == other.Totals
+        && Sequences.Equal(Points, other.Points) && Sequences.Equal(Sections, other.Sections) && Sequences.Equal(Cores, other.Cores)
+        && Sequences.Equal(Supplies, other.Supplies) && Sequences.Equal(Loads, other.Loads)
+        && Fault == other.Fault && ShortCircuit == other.ShortCircuit
+        && Sequences.Equal(Taps, other.Taps) && Sequences.Equal(TapPositions, other.TapPositions) && Sequences.Equal(Connections, other.Connections)
+        && Sequences.Equal(Bands, other.Bands) && ThreePhase == other.ThreePhase);
+
+    public override int GetHashCode() => HashCode.Combine(Case, Totals, Sequences.Hash(Points), Sequences.Hash(Loads));
 }
 
 /// <summary>Derives what engineers read from a solution: powers, loading, losses, flux density, totals.</summary>
@@ -253,8 +268,8 @@ public static class Results
             return new LoadResult(l, v, i, Clean(v * Complex.Conjugate(i)), regulation);
         }).ToImmutableArray();
 
-        // A neutral-grounding impedance's power is a loss of the network, not power supplied.
-        var supplied = supplies.Where(s => !s.Supply.Source.Grounding).Sum(s => s.Power.Real);
+        // A neutral or neutral-grounding impedance's power is a loss of the network, not power supplied.
+        var supplied = supplies.Where(s => s.Supply.Source.IsSource).Sum(s => s.Power.Real);
         var delivered = loads.Sum(l => l.Power.Real);
         // Without an open-circuit test a core's loss is unknown: an efficiency of copper loss alone would flatter.
         var coreLossKnown = cores.All(c => c.LossKnown);

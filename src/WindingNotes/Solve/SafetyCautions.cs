@@ -98,10 +98,10 @@ public sealed class OutputTally(Network network)
             : $"between {PointName(a)} and {PointName(b)}";
     }
 
-    /// <summary>A supply point as the first supply that ends there names it.</summary>
+    /// <summary>A supply point as the first source that ends there names it (earth is no supply point of a neutral impedance).</summary>
     private string PointName(int node)
     {
-        pointNames ??= network.Supplies.SelectMany(s => new[] { (s.NodeP, s.Source.Positive.Name), (s.NodeQ, s.Source.Negative.Name) })
+        pointNames ??= network.Supplies.Where(s => s.Source.IsSource).SelectMany(s => new[] { (s.NodeP, s.Source.Positive.Name), (s.NodeQ, s.Source.Negative.Name) })
             .DistinctBy(p => p.Item1).ToDictionary(p => p.Item1, p => p.Item2);
         return pointNames.GetValueOrDefault(node) ?? network.Nodes[node].Name;
     }

@@ -44,20 +44,41 @@ public sealed record PhaseSetResult(string Name, string Kind, ImmutableArray<Com
 
     /// <summary>The voltage unbalance factor, negative over positive sequence, in the sequence the supplies run in.</summary>
     public double? Unbalance => VoltageSequence.UnbalanceIn(Acb);
+
+    /// <summary>The same set and values, its lists compared by their elements (a record compares them by reference).</summary>
+    public bool Equals(PhaseSetResult? other) => other is not null && (ReferenceEquals(this, other) ||
+        Name == other.Name && Kind == other.Kind && NeutralCurrent.Equals(other.NeutralCurrent) && Power.Equals(other.Power) && Acb == other.Acb
+        && VoltageSequence == other.VoltageSequence && CurrentSequence == other.CurrentSequence
+        && Sequences.Equal(Voltages, other.Voltages) && Sequences.Equal(LineToLine, other.LineToLine)
+        && Sequences.Equal(PhaseCurrents, other.PhaseCurrents) && Sequences.Equal(LineCurrents, other.LineCurrents));
+
+    public override int GetHashCode() => HashCode.Combine(Name, Kind, Power);
 }
 
 public sealed record ThreePhaseResult(ImmutableArray<PhaseSetResult> Sets, ImmutableArray<VectorGroup> VectorGroups)
 {
     public static readonly ThreePhaseResult Empty = new([], []);
 
-    // Indices built once: a file of many units looks up many sets and vector groups.
-    private readonly Dictionary<string, VectorGroup> byCore = Index(VectorGroups, g => g.Core);
-    private readonly Dictionary<string, PhaseSetResult> byName = Index(Sets, s => s.Name);
+    // Indices built on first use: a file of many units looks up many sets and vector groups. Each is kept
+    // with the list it indexes, so a copy made with another list ('with') indexes its own; one object, so a
+    // reader on another thread sees a whole index or none.
+    private sealed record Indexed<T>(ImmutableArray<T> Of, Dictionary<string, T> Index);
 
-    public VectorGroup? GroupOf(string core) => byCore.GetValueOrDefault(core);
+    private Indexed<VectorGroup>? byCore;
+    private Indexed<PhaseSetResult>? byName;
+
+    public VectorGroup? GroupOf(string core) =>
+        (byCore is { } k && k.Of == VectorGroups ? k : byCore = new(VectorGroups, Index(VectorGroups, g => g.Core))).Index.GetValueOrDefault(core);
 
     /// <summary>The terminal set of a three-phase winding, supply or load by its name.</summary>
-    public PhaseSetResult? SetOf(string name) => byName.GetValueOrDefault(name);
+    public PhaseSetResult? SetOf(string name) =>
+        (byName is { } k && k.Of == Sets ? k : byName = new(Sets, Index(Sets, s => s.Name))).Index.GetValueOrDefault(name);
+
+    /// <summary>The same sets and vector groups, compared by their elements; the indices are no part of it.</summary>
+    public bool Equals(ThreePhaseResult? other) => other is not null && (ReferenceEquals(this, other) ||
+        Sequences.Equal(Sets, other.Sets) && Sequences.Equal(VectorGroups, other.VectorGroups));
+
+    public override int GetHashCode() => HashCode.Combine(Sequences.Hash(Sets), Sequences.Hash(VectorGroups));
 
     private static Dictionary<string, T> Index<T>(IEnumerable<T> items, Func<T, string> key)
     {
@@ -125,6 +146,9 @@ public static class ThreePhaseResults
         var lineCurrents = lines.Select(n => outward ? -Into(n) : Into(n)).ToArray();
         var iScale = lineCurrents.Max(i => i.Magnitude);
         Complex? neutral = star >= 0 && !lines.Contains(star) ? Numbers.Clean(outward ? Into(star) : -Into(star), iScale) : null;
+        // The total's parts likewise: the reactive powers of two phases that cancel leave rounding, not a figure.
+        var pScale = v.Max(x => x.Magnitude) * Math.Max(iScale, phaseCurrents.Max(i => i.Magnitude));
+        power = new Complex(Numbers.Clean(power.Real, pScale), Numbers.Clean(power.Imaginary, pScale));
         return new PhaseSetResult(name, kind, [.. v], [v[0] - v[1], v[1] - v[2], v[2] - v[0]], [.. phaseCurrents], [.. lineCurrents], neutral, power,
             Clean(Sequence.Of(v[0], v[1], v[2]), v.Max(x => x.Magnitude)), Clean(Sequence.Of(lineCurrents[0], lineCurrents[1], lineCurrents[2]), iScale));
     }
