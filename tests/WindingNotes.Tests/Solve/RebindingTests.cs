@@ -69,6 +69,8 @@ public class RebindingTests
         }
         Assert.Equal(count, rebinding.Rebound);
         if (updates) Assert.True(rebinding.Updated >= count - 1, $"{what}: {rebinding.Updated} of {count} points updated");
+        // Points built and solved in full refactor on the first's pivots (the sparse threshold: 42 unknowns).
+        else Assert.True(rebinding.Refactorisations.Refactored >= count - 1, $"{what}: {rebinding.Refactorisations} refactorisations for {count} points");
     }
 
     [Fact]
@@ -94,6 +96,8 @@ public class RebindingTests
             foreach (var (f, g) in full.Faults.Zip(fast.Faults)) BrushSweepTests.AssertSame(f, g, $"{sample.Where}, {f.Case.Name}");
         }
         Assert.Equal(samples.Length / 20, rebinding.Rebound);
+        // Each sample's three cases (loaded, without loads, the fault) refactor on the first sample's pivots.
+        Assert.True(rebinding.Refactorisations.Refactored >= 3 * (samples.Length / 20 - 1), $"{rebinding.Refactorisations} refactorisations");
     }
 
     [Fact]
