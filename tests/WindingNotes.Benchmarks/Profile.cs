@@ -28,6 +28,32 @@ public static class Profile
         Report("solve loaded, without loads, results", () => { foreach (var n in networks) Points.Solve(n, CaseSpec.Normal, withFaults: false, default); });
         Report("the same with the fault", () => { foreach (var n in networks) Points.Solve(n, CaseSpec.Normal, withFaults: true, default); });
         Report("one full solve of the loaded case alone", () => { foreach (var n in networks) NetworkSolver.Solve(n, CaseSpec.Normal); });
+        Report("the same, refactored on kept pivots", () =>
+        {
+            var kept = new SymbolicFactors();
+            foreach (var n in networks) NetworkSolver.Solve(n, CaseSpec.Normal, kept);
+        });
+        Report("solve loaded, without loads, results, refactored", () =>
+        {
+            var kept = new SymbolicFactors();
+            foreach (var n in networks) Points.Solve(n, CaseSpec.Normal, withFaults: false, c => NetworkSolver.Solve(n, c, kept), default, kept);
+        });
+        Report("the same with the fault, refactored", () =>
+        {
+            var kept = new SymbolicFactors();
+            foreach (var n in networks) Points.Solve(n, CaseSpec.Normal, withFaults: true, c => NetworkSolver.Solve(n, c, kept), default, kept);
+        });
+        Report("the sample whole (Rebinding: bound again, built, refactored, with the fault)", () =>
+        {
+            var r = new Rebinding(syntax, model);
+            foreach (var o in overrides) r.Solve(o, CaseSpec.Normal, withFaults: true, default);
+        });
+        var system = MnaSystem.Assemble(networks[0], SolveGroup.Find(networks[0], CaseSpec.Normal).Single(g => g.Supplies.Count > 0), Islands.References(networks[0], []), CaseSpec.Normal);
+        var ones = Enumerable.Repeat(1.0, system.Size).ToArray();
+        var rows = SparseRows.Of(system.A, ones, ones);
+        var lu = SparseLu.Factor(rows);
+        Report("bare sparse factorisation of one sample's system, 1,000 times", () => { for (var i = 0; i < 1000; i++) SparseLu.Factor(rows); });
+        Report("bare refactorisation of the same, 1,000 times", () => { for (var i = 0; i < 1000; i++) lu.Refactor(rows); });
 
         var letSyntax = Parser.Parse(Documents.TwentySectionsLoadSweep(1000));
         var let = Binder.Bind(letSyntax);

@@ -55,9 +55,13 @@ public sealed class TapPlan
     /// <summary>The positions of the normal case, once settled.</summary>
     public ImmutableArray<TapPosition> Nominal { get; private set; } = [];
 
+    /// <summary>The document as written, bound: positions bind again only the statements their lets reach (<see cref="Binder.Rebind"/>).</summary>
+    private readonly Model.Model nominal;
+
     private TapPlan(SyntaxTree syntax, Model.Model model)
     {
         this.syntax = syntax;
+        nominal = model;
         changers = model.TapChangers;
         written = model.TapChangers.Where(t => model.Lets.ContainsKey(t.Let)).ToDictionary(t => t.Name, t => model.Lets[t.Let]);
         windings = model.Windings.ToDictionary(w => w.Name);
@@ -81,10 +85,17 @@ public sealed class TapPlan
         return point with { Values = values };
     }
 
+    /// <summary>How many points were bound again statement by statement (for tests: the path is taken).</summary>
+    internal int Rebound { get; private set; }
+
     /// <summary>The model of a point bound at these positions, its reversed windings reversed.</summary>
     public Model.Model Bind(BindOverrides point, int[] positions)
     {
-        var model = ZigzagImpedances.Bind(syntax, At(point, positions));
+        var overrides = At(point, positions);
+        // As a sweep point's: the statements the positions and the point's values reach, bound again; in full where they cannot be alone.
+        var again = Binder.Rebind(nominal, overrides)?.Model;
+        if (again is not null) Rebound++;
+        var model = again ?? ZigzagImpedances.Bind(syntax, overrides);
         var reversed = changers.Where((t, i) => t.Reversing && positions[i] < 0).Select(t => t.Winding).ToHashSet(StringComparer.Ordinal);
         return reversed.Count == 0 || model.HasErrors ? model : Reverse(model, reversed);
     }

@@ -142,6 +142,67 @@ public class RebindingTests
         Assert.True(rebound > 0);
     }
 
+    /// <summary>A load cycle of a let: every cycle point's model bound again is the full bind at that load, and the study takes that path.</summary>
+    [Fact]
+    public void A_load_cycle_of_a_let_binds_its_points_again()
+    {
+        var text = """
+            frequency 50 Hz
+            let demand = 500 A
+            core T rating 100 kVA
+            winding HV on T rated 1000 V from H1 to H2
+            winding LV on T rated 100 V from X1 to X2
+            impedance HV LV 4 %
+            supply line H1 H2 1000 V
+            ground H2
+            ground X2
+            load L X1 X2 current demand pf 1
+            thermal T cooling ONAN top-oil-rise 52 K hot-spot-gradient 26 K loss-ratio 6 exponents 0.8 and 1.6
+            load-cycle of demand ambient 20 degC
+            cycle-point 0 h load 1200 A
+            cycle-point 8 h load 700 A
+            cycle-point 16 h load 300 A
+            """;
+        var syntax = Parser.Parse(text);
+        var model = Binder.Bind(syntax);
+        Assert.False(model.HasErrors, string.Join("; ", model.Diagnostics));
+        Assert.NotNull(model.Reach);
+        foreach (var point in model.Thermal.Cycle!.Points)
+        {
+            var overrides = new BindOverrides { Values = System.Collections.Immutable.ImmutableDictionary<string, Quantity>.Empty.Add("demand", point.Load), RatedFrequency = model.RatedFrequency };
+            AssertSameModel(Binder.Bind(syntax, overrides), Binder.Rebind(model, overrides)?.Model, $"cycle point of {point.Load.Value} A");
+        }
+        // The study's cycle at those models: K = 1200 A / (100 kVA / 100 V) at the first point.
+        var e = WindingNotes.Workspace.Evaluator.Evaluate(text, "cycle.wn");
+        Assert.Equal(1.2, e.Thermal!.Units[0].Windings[0].PeakLoad, 9);
+    }
+
+    /// <summary>Every example with tap changers: the positions the plan binds, bound again, are the full bind at them.</summary>
+    [Fact]
+    public void Tap_changer_positions_are_bound_again_as_the_full_bind()
+    {
+        var examples = Directory.GetFiles(Path.Combine(Snapshot.RepositoryRoot, "examples"), "*.wn").Order(StringComparer.Ordinal).ToList();
+        var rebound = 0;
+        foreach (var path in examples)
+        {
+            var syntax = Parser.Parse(File.ReadAllText(path).Replace("\r\n", "\n"));
+            var model = Binder.Bind(syntax);
+            if (model.HasErrors || model.TapChangers.IsEmpty || TapPlan.For(syntax, model) is not { } plan) continue;
+            foreach (var step in new[] { -2, -1, 1, 3 })
+            {
+                var positions = model.TapChangers.Select(t => Math.Clamp(step, t.Low, t.High)).ToArray();
+                var at = plan.At(BindOverrides.None, positions);
+                if (Binder.Rebind(model, at) is not { } again) continue;
+                AssertSameModel(Binder.Bind(syntax, at), again.Model, $"{Path.GetFileName(path)} at {step}");
+                rebound++;
+            }
+            // What the plan binds: the same model, by the path taken.
+            var bound = plan.Bind(BindOverrides.None, model.TapChangers.Select(t => Math.Clamp(1, t.Low, t.High)).ToArray());
+            Assert.False(bound.HasErrors, Path.GetFileName(path));
+        }
+        Assert.True(rebound > 0, "no example's positions were bound again");
+    }
+
     private static BindOverrides Value(string name, double value, Dimension dimension) =>
         new() { Values = System.Collections.Immutable.ImmutableDictionary<string, Quantity>.Empty.Add(name, new Quantity(value, dimension)) };
 
