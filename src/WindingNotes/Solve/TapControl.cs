@@ -58,6 +58,9 @@ public sealed class TapPlan
     /// <summary>The document as written, bound: positions bind again only the statements their lets reach (<see cref="Binder.Rebind"/>).</summary>
     private readonly Model.Model nominal;
 
+    /// <summary>The positions' networks differ in their numbers: each refactors on the pivots of the first.</summary>
+    private readonly SymbolicFactors factors = new();
+
     private TapPlan(SyntaxTree syntax, Model.Model model)
     {
         this.syntax = syntax;
@@ -87,6 +90,9 @@ public sealed class TapPlan
 
     /// <summary>How many points were bound again statement by statement (for tests: the path is taken).</summary>
     internal int Rebound { get; private set; }
+
+    /// <summary>How many of the points' factorisations were refactorisations (for tests).</summary>
+    internal int Refactored => factors.Refactored;
 
     /// <summary>The model of a point bound at these positions, its reversed windings reversed.</summary>
     public Model.Model Bind(BindOverrides point, int[] positions)
@@ -141,7 +147,7 @@ public sealed class TapPlan
         var (model, network) = Built(point, positions);
         if (network is null) return new PointResult(null, null, [], model.Diagnostics);
         if (network.Diagnostics.Any(d => d.IsError)) return new PointResult(null, null, [], [.. model.Diagnostics, .. network.Diagnostics]);
-        var solved = Points.Solve(network, spec, withFaults, cancel);
+        var solved = Points.Solve(network, spec, withFaults, c => NetworkSolver.Solve(network, c, factors, cancel), cancel, factors);
         return solved with { Diagnostics = [.. model.Diagnostics, .. network.Diagnostics, .. solved.Diagnostics] };
     }
 
