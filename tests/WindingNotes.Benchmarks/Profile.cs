@@ -54,6 +54,27 @@ public static class Profile
         var lu = SparseLu.Factor(rows);
         Report("bare sparse factorisation of one sample's system, 1,000 times", () => { for (var i = 0; i < 1000; i++) SparseLu.Factor(rows); });
         Report("bare refactorisation of the same, 1,000 times", () => { for (var i = 0; i < 1000; i++) lu.Refactor(rows); });
+        // The parts of one solve of the loaded case, refactored.
+        static MnaSystem Assemble(Network n) =>
+            MnaSystem.Assemble(n, SolveGroup.Find(n, CaseSpec.Normal).Single(g => g.Supplies.Count > 0), Islands.References(n, []), CaseSpec.Normal);
+        var systems = networks.Select(Assemble).ToArray();
+        var solutions = networks.Select(n => NetworkSolver.Solve(n, CaseSpec.Normal)).ToArray();
+        Report("  of which: assemble the loaded system (parts, references, stamps)", () => { foreach (var n in networks) Assemble(n); });
+        Report("  of which: equilibrate and gather the scaled entries", () =>
+        {
+            foreach (var m in systems)
+            {
+                var (r, c) = LinearSolver.Equilibrate(m.A);
+                SparseRows.Of(m.A, r, c);
+            }
+        });
+        Report("  of which: the linear solve, refactored (equilibration, refactorisation, checks, solve, residual)", () =>
+        {
+            var kept = new SymbolicFactors();
+            foreach (var m in systems) LinearSolver.Solve(m.A, m.B, kept);
+        });
+        Report("  of which: the linear solve, factored afresh", () => { foreach (var m in systems) LinearSolver.Solve(m.A, m.B); });
+        Report("results of a solved case (Results.Compute)", () => { foreach (var x in solutions) Results.Compute(x, null); });
 
         var letSyntax = Parser.Parse(Documents.TwentySectionsLoadSweep(1000));
         var let = Binder.Bind(letSyntax);
