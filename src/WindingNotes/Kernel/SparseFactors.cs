@@ -37,13 +37,20 @@ internal sealed class SparseFactors : IFactors
     public bool Refactored { get; }
 
     /// <summary>
+    /// A refactorisation's pivots must spread less than this many times the ratio at which the solver
+    /// looks for the weakest direction: other pivots of the same matrix spread otherwise, so a
+    /// system near that line is factored afresh and judged as the full solve judges it.
+    /// </summary>
+    private const double PivotMargin = 100;
+
+    /// <summary>
     /// Whether these factors solve <paramref name="b"/> as a fresh factorisation would: pivots whose
-    /// spread calls for no weakest direction, and a residual to rounding. The pivot check of
-    /// <see cref="SparseLu.Refactor"/> bounds the growth; this catches what it lets through.
+    /// spread is well clear of calling for the weakest direction, and a residual to rounding. The
+    /// pivot check of <see cref="SparseLu.Refactor"/> bounds the growth; this catches what it lets through.
     /// </summary>
     public bool Sound(Complex[] b)
     {
-        if (!(SmallestPivot > LinearSolver.PivotRatio * LargestPivot)) return false;
+        if (!(SmallestPivot > PivotMargin * LinearSolver.PivotRatio * LargestPivot)) return false;
         var x = lu.Solve(b);
         return RelativeResidual(x, b) <= RefactoredResidual;
     }
