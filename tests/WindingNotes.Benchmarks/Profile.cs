@@ -28,6 +28,53 @@ public static class Profile
         Report("solve loaded, without loads, results", () => { foreach (var n in networks) Points.Solve(n, CaseSpec.Normal, withFaults: false, default); });
         Report("the same with the fault", () => { foreach (var n in networks) Points.Solve(n, CaseSpec.Normal, withFaults: true, default); });
         Report("one full solve of the loaded case alone", () => { foreach (var n in networks) NetworkSolver.Solve(n, CaseSpec.Normal); });
+        Report("the same, refactored on kept pivots", () =>
+        {
+            var kept = new SymbolicFactors();
+            foreach (var n in networks) NetworkSolver.Solve(n, CaseSpec.Normal, kept);
+        });
+        Report("solve loaded, without loads, results, refactored", () =>
+        {
+            var kept = new SymbolicFactors();
+            foreach (var n in networks) Points.Solve(n, CaseSpec.Normal, withFaults: false, c => NetworkSolver.Solve(n, c, kept), default, kept);
+        });
+        Report("the same with the fault, refactored", () =>
+        {
+            var kept = new SymbolicFactors();
+            foreach (var n in networks) Points.Solve(n, CaseSpec.Normal, withFaults: true, c => NetworkSolver.Solve(n, c, kept), default, kept);
+        });
+        Report("the sample whole (Rebinding: bound again, built, refactored, with the fault)", () =>
+        {
+            var r = new Rebinding(syntax, model);
+            foreach (var o in overrides) r.Solve(o, CaseSpec.Normal, withFaults: true, default);
+        });
+        var system = MnaSystem.Assemble(networks[0], SolveGroup.Find(networks[0], CaseSpec.Normal).Single(g => g.Supplies.Count > 0), Islands.References(networks[0], []), CaseSpec.Normal);
+        var ones = Enumerable.Repeat(1.0, system.Size).ToArray();
+        var rows = SparseRows.Of(system.A, ones, ones);
+        var lu = SparseLu.Factor(rows);
+        Report("bare sparse factorisation of one sample's system, 1,000 times", () => { for (var i = 0; i < 1000; i++) SparseLu.Factor(rows); });
+        Report("bare refactorisation of the same, 1,000 times", () => { for (var i = 0; i < 1000; i++) lu.Refactor(rows); });
+        // The parts of one solve of the loaded case, refactored.
+        static MnaSystem Assemble(Network n) =>
+            MnaSystem.Assemble(n, SolveGroup.Find(n, CaseSpec.Normal).Single(g => g.Supplies.Count > 0), Islands.References(n, []), CaseSpec.Normal);
+        var systems = networks.Select(Assemble).ToArray();
+        var solutions = networks.Select(n => NetworkSolver.Solve(n, CaseSpec.Normal)).ToArray();
+        Report("  of which: assemble the loaded system (parts, references, stamps)", () => { foreach (var n in networks) Assemble(n); });
+        Report("  of which: equilibrate and gather the scaled entries", () =>
+        {
+            foreach (var m in systems)
+            {
+                var (r, c) = LinearSolver.Equilibrate(m.A);
+                SparseRows.Of(m.A, r, c);
+            }
+        });
+        Report("  of which: the linear solve, refactored (equilibration, refactorisation, checks, solve, residual)", () =>
+        {
+            var kept = new SymbolicFactors();
+            foreach (var m in systems) LinearSolver.Solve(m.A, m.B, kept);
+        });
+        Report("  of which: the linear solve, factored afresh", () => { foreach (var m in systems) LinearSolver.Solve(m.A, m.B); });
+        Report("results of a solved case (Results.Compute)", () => { foreach (var x in solutions) Results.Compute(x, null); });
 
         var letSyntax = Parser.Parse(Documents.TwentySectionsLoadSweep(1000));
         var let = Binder.Bind(letSyntax);

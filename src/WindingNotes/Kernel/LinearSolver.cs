@@ -28,7 +28,7 @@ internal static class LinearSolver
     public const double SingularRatio = 1e-13;
 
     /// <summary>A pivot ratio below this calls for the weakest direction.</summary>
-    private const double PivotRatio = 1e-8;
+    internal const double PivotRatio = 1e-8;
 
     /// <summary>
     /// Above this condition number fewer than six of the sixteen figures of a double can be trusted:
@@ -49,17 +49,21 @@ internal static class LinearSolver
         public Factored? Factors { get; init; }
     }
 
-    public static Result Solve(SystemMatrix a, ReadOnlySpan<Complex> b) => Solve(a, b, sparse: b.Length > SparseAbove);
+    /// <summary>The solution; a sparse system with <paramref name="symbolic"/> is refactored on a kept factorisation of its pattern where one passes its pivot check.</summary>
+    public static Result Solve(SystemMatrix a, ReadOnlySpan<Complex> b, SymbolicFactors? symbolic = null) => Solve(a, b, sparse: b.Length > SparseAbove, symbolic);
 
     /// <summary>The same, with the factorisation chosen by the caller (tests compare the two).</summary>
-    public static Result Solve(SystemMatrix a, ReadOnlySpan<Complex> b, bool sparse)
+    public static Result Solve(SystemMatrix a, ReadOnlySpan<Complex> b, bool sparse, SymbolicFactors? symbolic = null)
     {
         var n = b.Length;
         if (n == 0) return new Result(SolveStatus.Solved, [], 0, 1, [], []);
         var (rowScale, columnScale) = Equilibrate(a);
         var rhs = new Complex[n];
         for (var i = 0; i < n; i++) rhs[i] = b[i] * rowScale[i];
-        IFactors factors = sparse ? SparseFactors.Of(a, rowScale, columnScale) : DenseFactors.Of(a, rowScale, columnScale);
+        IFactors factors = sparse ? SparseFactors.Of(a, rowScale, columnScale, symbolic) : DenseFactors.Of(a, rowScale, columnScale);
+        // A refactorisation on kept pivots stands only where it is as sound as a fresh one would be: else the pivots are chosen afresh.
+        if (factors is SparseFactors { Refactored: true } refactored && !refactored.Sound(rhs))
+            factors = SparseFactors.Of(a, rowScale, columnScale, symbolic, afresh: true);
         Weakest? weakest = null;
         if (!(factors.SmallestPivot > PivotRatio * factors.LargestPivot))
         {

@@ -17,13 +17,43 @@ internal sealed class SparseFactors : IFactors
     private readonly SparseRows m;
     private readonly SparseLu lu;
 
-    private SparseFactors(SparseRows m)
+    /// <summary>A refactorisation's solve must leave no more than this relative residual (fresh factorisations of networks leave about 1e-16).</summary>
+    private const double RefactoredResidual = 1e-12;
+
+    private SparseFactors(SparseRows m, SymbolicFactors? kept, bool afresh)
     {
         this.m = m;
-        lu = SparseLu.Factor(m);
+        (lu, Refactored) = kept is null ? (SparseLu.Factor(m), false) : afresh ? (kept.Refresh(m), false) : kept.Factor(m);
     }
 
-    public static SparseFactors Of(SystemMatrix a, double[] rowScale, double[] columnScale) => new(SparseRows.Of(a, rowScale, columnScale));
+    /// <summary>
+    /// The factors of the scaled matrix; with <paramref name="kept"/>, a refactorisation where it holds
+    /// one of the same pattern that passes its pivot check, unless <paramref name="afresh"/>.
+    /// </summary>
+    public static SparseFactors Of(SystemMatrix a, double[] rowScale, double[] columnScale, SymbolicFactors? kept = null, bool afresh = false) =>
+        new(SparseRows.Of(a, rowScale, columnScale), kept, afresh);
+
+    /// <summary>Whether the factors came from a kept pivot order (<see cref="SparseLu.Refactor"/>).</summary>
+    public bool Refactored { get; }
+
+    /// <summary>
+    /// A refactorisation's pivots must spread less than this many times the ratio at which the solver
+    /// looks for the weakest direction: other pivots of the same matrix spread otherwise, so a
+    /// system near that line is factored afresh and judged as the full solve judges it.
+    /// </summary>
+    private const double PivotMargin = 100;
+
+    /// <summary>
+    /// Whether these factors solve <paramref name="b"/> as a fresh factorisation would: pivots whose
+    /// spread is well clear of calling for the weakest direction, and a residual to rounding. The
+    /// pivot check of <see cref="SparseLu.Refactor"/> bounds the growth; this catches what it lets through.
+    /// </summary>
+    public bool Sound(Complex[] b)
+    {
+        if (!(SmallestPivot > PivotMargin * LinearSolver.PivotRatio * LargestPivot)) return false;
+        var x = lu.Solve(b);
+        return RelativeResidual(x, b) <= RefactoredResidual;
+    }
 
     public double SmallestPivot => lu.SmallestPivot;
     public double LargestPivot => lu.LargestPivot;

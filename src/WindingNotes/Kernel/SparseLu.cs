@@ -82,6 +82,16 @@ internal sealed class SparseLu
     /// <summary>A pivot must be at least this fraction of the largest entry of its column.</summary>
     private const double Threshold = 0.1;
 
+    /// <summary>
+    /// A kept pivot may fall to this fraction of the largest entry of its column before a
+    /// refactorisation is refused: looser than <see cref="Threshold"/>, so that other values of the
+    /// same network keep their pivot order (a load from 20 Ω to 7 Ω on the twenty sections takes a
+    /// multiplier from 6 to 17), tight enough that the factors' growth stays bounded; a thousandth is
+    /// the relative pivot tolerance circuit solvers commonly use (common practice). The solver checks
+    /// the residual besides (<see cref="SparseFactors.Sound"/>).
+    /// </summary>
+    private const double RefactorThreshold = 1e-3;
+
     /// <summary>How many of the sparsest columns the pivot search looks at.</summary>
     private const int SearchColumns = 4;
 
@@ -97,6 +107,23 @@ internal sealed class SparseLu
     /// <summary>The entries of L and U together (without U's diagonal): the fill shows here.</summary>
     public int Entries => lowerRow.Length + upperColumn.Length;
 
+    /// <summary>A refactorisation: the pivot order and fill pattern of <paramref name="symbolic"/> with new values.</summary>
+    private SparseLu(SparseLu symbolic, Complex[] pivot, Complex[] lowerValue, Complex[] upperValue)
+    {
+        (n, pivotRow, pivotColumn, lowerStart, lowerRow, upperStart, upperColumn) =
+            (symbolic.n, symbolic.pivotRow, symbolic.pivotColumn, symbolic.lowerStart, symbolic.lowerRow, symbolic.upperStart, symbolic.upperColumn);
+        (this.pivot, this.lowerValue, this.upperValue, byRow) = (pivot, lowerValue, upperValue, symbolic.byRow);
+        (SmallestPivot, LargestPivot) = PivotRange(pivot);
+    }
+
+    private static (double Smallest, double Largest) PivotRange(Complex[] pivot)
+    {
+        if (pivot.Length == 0) return (0, 0);
+        double smallest = double.PositiveInfinity, largest = 0;
+        foreach (var p in pivot) (smallest, largest) = (Math.Min(smallest, p.Magnitude), Math.Max(largest, p.Magnitude));
+        return (smallest, largest);
+    }
+
     private SparseLu(int n, int[] pivotRow, int[] pivotColumn, Complex[] pivot, List<int> lowerStart, List<(int, Complex)> lower,
         List<int> upperStart, List<(int, Complex)> upper)
     {
@@ -110,8 +137,7 @@ internal sealed class SparseLu
         lowerValue = [.. lower.Select(e => e.Item2)];
         upperColumn = [.. upper.Select(e => e.Item1)];
         upperValue = [.. upper.Select(e => e.Item2)];
-        SmallestPivot = n == 0 ? 0 : pivot.Min(p => p.Magnitude);
-        LargestPivot = n == 0 ? 0 : pivot.Max(p => p.Magnitude);
+        (SmallestPivot, LargestPivot) = PivotRange(pivot);
     }
 
     public static SparseLu Factor(SparseRows a)
@@ -209,6 +235,96 @@ internal sealed class SparseLu
             if (!rowDone[i]) return (i, bestColumn);
         throw new InvalidOperationException("no row left for a pivot");
     }
+
+    /// <summary>
+    /// The lower factor's entries by the row they eliminate, in step order: for the step whose pivot
+    /// row is that row, the entries from <c>Start[k]</c> to <c>Start[k + 1]</c> of <c>Entry</c> (an
+    /// index into the lower factor) and <c>Step</c> (the step that made it). Found once, on the first refactorisation.
+    /// </summary>
+    private sealed record RowIndex(int[] Start, int[] Entry, int[] Step);
+
+    private RowIndex? byRow;
+
+    private RowIndex ByRow()
+    {
+        if (byRow is { } found) return found;
+        var stepOfRow = new int[n];
+        for (var k = 0; k < n; k++) stepOfRow[pivotRow[k]] = k;
+        var start = new int[n + 1];
+        foreach (var r in lowerRow) start[stepOfRow[r] + 1]++;
+        for (var k = 0; k < n; k++) start[k + 1] += start[k];
+        var (entry, step, fill) = (new int[lowerRow.Length], new int[lowerRow.Length], (int[])start.Clone());
+        // The lower factor is kept by step, so each row's entries come in step order.
+        for (var j = 0; j < n; j++)
+            for (var e = lowerStart[j]; e < lowerStart[j + 1]; e++)
+            {
+                var at = fill[stepOfRow[lowerRow[e]]]++;
+                (entry[at], step[at]) = (e, j);
+            }
+        return byRow = new RowIndex(start, entry, step);
+    }
+
+    /// <summary>
+    /// The LU of <paramref name="a"/> with this factorisation's pivots and fill pattern: the numerical
+    /// work alone, row by row (each pivot row, in step order, reduced by the earlier steps' upper rows),
+    /// into arrays laid out already. Null where it would not do: an entry of <paramref name="a"/> or of
+    /// its fill outside the pattern, a multiplier above 1 / <see cref="RefactorThreshold"/> (a pivot
+    /// below that fraction of its column, the test <see cref="Factor"/> makes with
+    /// <see cref="Threshold"/>: so the factors' growth stays bounded), or a zero or non-finite pivot.
+    /// The caller then factors afresh.
+    /// </summary>
+    public SparseLu? Refactor(SparseRows a)
+    {
+        if (a.Size != n) return null;
+        var index = ByRow();
+        var (work, mark) = (new Complex[n], new int[n]);
+        var (newPivot, lower, upper) = (new Complex[n], new Complex[lowerRow.Length], new Complex[upperColumn.Length]);
+        const double largestMultiplier = 1 / RefactorThreshold;
+        for (var k = 0; k < n; k++)
+        {
+            var r = pivotRow[k];
+            var stamp = k + 1;
+            // The places this row holds at its step: the columns its earlier steps eliminate, its pivot, its upper row.
+            for (var t = index.Start[k]; t < index.Start[k + 1]; t++) mark[pivotColumn[index.Step[t]]] = stamp;
+            mark[pivotColumn[k]] = stamp;
+            for (var u = upperStart[k]; u < upperStart[k + 1]; u++) mark[upperColumn[u]] = stamp;
+            for (var e = a.Start[r]; e < a.Start[r + 1]; e++)
+            {
+                if (mark[a.Column[e]] != stamp) return null;
+                work[a.Column[e]] = a.Value[e];
+            }
+            for (var t = index.Start[k]; t < index.Start[k + 1]; t++)
+            {
+                var j = index.Step[t];
+                var c = pivotColumn[j];
+                var l = work[c] / newPivot[j];
+                work[c] = Complex.Zero;
+                if (!(l.Magnitude <= largestMultiplier)) return null;
+                lower[index.Entry[t]] = l;
+                if (l == Complex.Zero) continue;
+                for (var u = upperStart[j]; u < upperStart[j + 1]; u++)
+                {
+                    var column = upperColumn[u];
+                    if (mark[column] != stamp) return null;
+                    work[column] -= l * upper[u];
+                }
+            }
+            var p = work[pivotColumn[k]];
+            work[pivotColumn[k]] = Complex.Zero;
+            if (p == Complex.Zero || !double.IsFinite(p.Real) || !double.IsFinite(p.Imaginary)) return null;
+            newPivot[k] = p;
+            for (var u = upperStart[k]; u < upperStart[k + 1]; u++)
+            {
+                upper[u] = work[upperColumn[u]];
+                work[upperColumn[u]] = Complex.Zero;
+            }
+        }
+        return new SparseLu(this, newPivot, lower, upper);
+    }
+
+    /// <summary>Whether <paramref name="a"/> has the nonzero pattern of <paramref name="b"/>.</summary>
+    public static bool SamePattern(SparseRows a, SparseRows b) =>
+        a.Size == b.Size && a.Start.AsSpan().SequenceEqual(b.Start) && a.Column.AsSpan().SequenceEqual(b.Column);
 
     /// <summary>A zero pivot is taken as this small a value, so a singular matrix still yields its null direction.</summary>
     private Complex Pivot(int k) => pivot[k] == Complex.Zero ? 1e-18 * Math.Max(LargestPivot, 1) : pivot[k];

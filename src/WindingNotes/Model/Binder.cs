@@ -224,6 +224,11 @@ internal sealed partial class BindRun
             .Concat(derivedPoints)
             .Distinct()
             .ToImmutableArray();
+        // In this order, as the model's fields were: each may give messages.
+        var threePhase = ThreePhaseResult();
+        var thermal = ThermalResult();
+        // Points are bound at other values for sweeps, toleranced values, a load cycle's let, tap-changer positions and 'find'.
+        var rebound = sweeps.Count > 0 || evaluator.Tolerances.Count > 0 || thermal.Cycle?.Let is not null || !model.TapChangers.IsEmpty || model.Find is not null;
         return model with
         {
             Cores = cores.ToImmutable(),
@@ -246,12 +251,12 @@ internal sealed partial class BindRun
             Lets = lets.ToImmutableDictionary(),
             FailOn = failOn.ToImmutableDictionary(),
             Acknowledged = acknowledged.ToImmutableDictionary(),
-            ThreePhase = ThreePhaseResult(),
-            Thermal = ThermalResult(),
+            ThreePhase = threePhase,
+            Thermal = thermal,
             Diagnostics = [.. tree.Diagnostics, .. diagnostics],
             // Three-phase statements make their phase elements from what other lines declared: bound in full.
-            // Kept only where there are points to bind: sweeps or toleranced values.
-            Reach = (sweeps.Count > 0 || evaluator.Tolerances.Count > 0) && phaseCores.Count == 0 && threePhaseWindings.Count == 0 && phaseSupplies.Count == 0 && phaseLoads.Count == 0 ? reach : null,
+            // Kept only where there are points to bind.
+            Reach = rebound && phaseCores.Count == 0 && threePhaseWindings.Count == 0 && phaseSupplies.Count == 0 && phaseLoads.Count == 0 ? reach : null,
             ZigzagImpedances = [.. zigzagImpedances],
         };
     }

@@ -62,14 +62,15 @@ public static class Faults
     /// so the faulted network is linear and its loop impedance exact. Null when it does not solve.
     /// </summary>
     /// <param name="loaded">The network with its loads as their pre-fault impedance (<see cref="AsLoaded"/>), made once for all the faults of a point; made here when null.</param>
-    internal static CaseResult? Solve(Network network, FaultModel fault, Solution main, Solution? noLoad, ImmutableArray<Diagnostic>.Builder diagnostics, CancellationToken cancel, Network? loaded = null)
+    internal static CaseResult? Solve(Network network, FaultModel fault, Solution main, Solution? noLoad, ImmutableArray<Diagnostic>.Builder diagnostics, CancellationToken cancel, Network? loaded = null,
+        SymbolicFactors? kept = null)
     {
         var (a, b) = (network.Node(fault.A.Name), network.Node(fault.B.Name));
         var spec = CaseSpec.ForFault(fault);
         if (MethodOf(network.Model) == FaultMethod.AsLoaded)
         {
             // The case keeps the network as written: its loads are what the file says, their stand-ins the solver's business.
-            var solved = NetworkSolver.Solve(loaded ?? AsLoaded(network, main), spec, cancel) with { Network = network };
+            var solved = NetworkSolver.Solve(loaded ?? AsLoaded(network, main), spec, kept, cancel) with { Network = network };
             // A load the fault shorts has no voltage: that is the fault, not something to warn about.
             diagnostics.AddRange(solved.Diagnostics.Where(d => d.Code != "load-without-voltage"));
             if (!solved.Solved) return null;
@@ -83,7 +84,7 @@ public static class Faults
         var study = network.Model.FaultStudy;
         var c = FaultStudy.VoltageFactor(before.Magnitude, minimum: !study.Maximum, study.LowVoltageTolerance);
         var scaled = network with { Supplies = [.. network.Supplies.Select(s => s with { Voltage = s.Voltage * c })] };
-        var source = NetworkSolver.Solve(scaled, spec with { WithoutLoads = true }, cancel) with { Network = network };
+        var source = NetworkSolver.Solve(scaled, spec with { WithoutLoads = true }, kept, cancel) with { Network = network };
         diagnostics.AddRange(source.Diagnostics.Where(d => d.Code != "load-without-voltage"));
         if (!source.Solved) return null;
         return Results.Compute(source, null) with

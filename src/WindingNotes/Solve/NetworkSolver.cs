@@ -13,7 +13,10 @@ namespace WindingNotes.Solve;
 /// </summary>
 public static class NetworkSolver
 {
-    public static Solution Solve(Network network, CaseSpec spec, CancellationToken cancel = default)
+    public static Solution Solve(Network network, CaseSpec spec, CancellationToken cancel = default) => Solve(network, spec, null, cancel);
+
+    /// <summary>The same, refactoring on <paramref name="kept"/>'s factorisations where a part's pattern is one of them (see <see cref="SymbolicFactors"/>).</summary>
+    internal static Solution Solve(Network network, CaseSpec spec, SymbolicFactors? kept, CancellationToken cancel = default)
     {
         var diagnostics = new DiagnosticBag();
         var (a, b) = spec.Fault is { } f ? (network.Node(f.A.Name), network.Node(f.B.Name)) : (-1, -1);
@@ -33,7 +36,7 @@ public static class NetworkSolver
             // A part with no source carries no current and no voltage.
             if (group.Supplies.Count == 0) continue;
             var m = MnaSystem.Assemble(network, group, isReference, spec);
-            var x = SolveSystem(ref m, network, diagnostics, cancel);
+            var x = SolveSystem(ref m, network, diagnostics, kept, cancel);
             if (x is null) solved = false;
             else parts.Add((m, x));
         }
@@ -95,10 +98,10 @@ public static class NetworkSolver
         return new Solution(network, spec, voltages, sections, cores, supplies, loads, fault, solved, diagnostics);
     }
 
-    private static Complex[]? SolveSystem(ref MnaSystem m, Network network, DiagnosticBag diagnostics, CancellationToken cancel)
+    private static Complex[]? SolveSystem(ref MnaSystem m, Network network, DiagnosticBag diagnostics, SymbolicFactors? kept, CancellationToken cancel)
     {
         if (m.NonlinearLoads.Length > 0) m = DropDanglingLoads(m, network, diagnostics);
-        var first = LinearSolver.Solve(m.A, m.B);
+        var first = LinearSolver.Solve(m.A, m.B, kept);
         if (m.NonlinearLoads.Length == 0) return Accept(first, m, diagnostics) ? first.X : null;
 
         var scale = 0.0;
@@ -112,7 +115,7 @@ public static class NetworkSolver
             var a0 = m.A.Clone();
             var stamps = m.NonlinearLoads.Select(l => new NewtonSolver.Stamp(l.ColumnA, l.ColumnB, AdmittanceAt(l, scale))).ToList();
             foreach (var s in stamps) Stamp(a0, s);
-            if (LinearSolver.Solve(a0, m.B) is { Status: SolveStatus.Solved } loaded) (first, firstStamps) = (loaded, stamps);
+            if (LinearSolver.Solve(a0, m.B, kept) is { Status: SolveStatus.Solved } loaded) (first, firstStamps) = (loaded, stamps);
         }
         if (!Accept(first, m, diagnostics)) return null;
 
@@ -133,7 +136,7 @@ public static class NetworkSolver
         }
         // With every load dropped the part is linear, and the first solve is its solution.
         if (m.NonlinearLoads.Length == 0) return first.X;
-        var start = LinearSolver.Solve(a, m.B);
+        var start = LinearSolver.Solve(a, m.B, kept);
         // Newton's Jacobian is the system as the start factored it, or as the first solve did.
         var newton = start is { Status: SolveStatus.Solved, Factors: { } factors }
             ? NewtonSolver.Solve(m, factors, startStamps, start.X, cancel)

@@ -30,13 +30,16 @@ public static class Points
     }
 
     /// <summary>The point of a model bound at its values (the rated frequency as written set): built and solved.</summary>
-    public static PointResult Solve(Model.Model model, CaseSpec spec, bool withFaults, CancellationToken cancel)
+    public static PointResult Solve(Model.Model model, CaseSpec spec, bool withFaults, CancellationToken cancel) => Solve(model, spec, withFaults, null, cancel);
+
+    /// <summary>The same, each case's parts refactored on <paramref name="kept"/>'s factorisations where it holds one of their pattern.</summary>
+    internal static PointResult Solve(Model.Model model, CaseSpec spec, bool withFaults, SymbolicFactors? kept, CancellationToken cancel)
     {
         // As for the document itself: a point whose model did not bind completely is not solved.
         if (model.HasErrors || model.Supplies.IsEmpty) return new PointResult(null, null, [], model.Diagnostics);
         var network = NetworkBuilder.Build(model);
         if (network.Diagnostics.Any(d => d.IsError)) return new PointResult(null, null, [], [.. model.Diagnostics, .. network.Diagnostics]);
-        var solved = Solve(network, spec, withFaults, cancel);
+        var solved = Solve(network, spec, withFaults, c => NetworkSolver.Solve(network, c, kept, cancel), cancel, kept);
         return solved with { Diagnostics = [.. model.Diagnostics, .. network.Diagnostics, .. solved.Diagnostics] };
     }
 
@@ -44,7 +47,7 @@ public static class Points
         Solve(network, spec, withFaults, c => NetworkSolver.Solve(network, c, cancel), cancel);
 
     /// <summary>The same with the case and its no-load companion solved by <paramref name="solve"/>, which must give what <see cref="NetworkSolver"/> gives.</summary>
-    internal static PointResult Solve(Network network, CaseSpec spec, bool withFaults, Func<CaseSpec, Solution> solve, CancellationToken cancel)
+    internal static PointResult Solve(Network network, CaseSpec spec, bool withFaults, Func<CaseSpec, Solution> solve, CancellationToken cancel, SymbolicFactors? kept = null)
     {
         var diagnostics = ImmutableArray.CreateBuilder<Diagnostic>();
         var main = solve(spec);
@@ -66,7 +69,7 @@ public static class Points
             // One network with the loads as their pre-fault impedance serves every fault of the point.
             var loaded = Faults.MethodOf(network.Model) == FaultMethod.AsLoaded ? Faults.AsLoaded(network, main) : null;
             foreach (var fault in network.Model.Faults)
-                if (Faults.Solve(network, fault, main, noLoad, diagnostics, cancel, loaded) is { } solved) faults.Add(solved);
+                if (Faults.Solve(network, fault, main, noLoad, diagnostics, cancel, loaded, kept) is { } solved) faults.Add(solved);
         }
         return new PointResult(result, noLoadResult, faults.ToImmutable(), diagnostics.ToImmutable());
     }

@@ -19,6 +19,12 @@ internal sealed class Rebinding(SyntaxTree syntax, Model.Model nominal)
 {
     private Base? current;
 
+    /// <summary>The factorisations of the points built and solved in full, refactored for the next such point (a tolerance sample, a supply's value).</summary>
+    private readonly SymbolicFactors factors = new();
+
+    /// <summary>How many of those points' factorisations were refactorisations, and how many of them fell back to a fresh factorisation (for tests).</summary>
+    internal (int Refactored, int FellBack) Refactorisations => (factors.Refactored, factors.FellBack);
+
     /// <summary>How many points were bound again statement by statement (for tests: the path is taken).</summary>
     public int Rebound { get; private set; }
 
@@ -35,10 +41,10 @@ internal sealed class Rebinding(SyntaxTree syntax, Model.Model nominal)
         if (loadsOnly && !withFaults && current is { } b)
         {
             var moved = b.With(model);
-            var point = Points.Solve(moved, spec, withFaults: false, c => b.Solve(moved, c, cancel), cancel);
+            var point = Points.Solve(moved, spec, withFaults: false, c => b.Solve(moved, c, factors, cancel), cancel);
             return point with { Diagnostics = [.. b.Diagnostics, .. point.Diagnostics] };
         }
-        var general = Points.Solve(model, spec, withFaults, cancel);
+        var general = Points.Solve(model, spec, withFaults, factors, cancel);
         if (loadsOnly && !withFaults)
         {
             retired += current?.Updated ?? 0;
@@ -69,11 +75,11 @@ internal sealed class Rebinding(SyntaxTree syntax, Model.Model nominal)
         public Network With(Model.Model model) =>
             network with { Model = model, Loads = [.. network.Loads.Select(l => l with { Source = model.Loads[l.Index] })] };
 
-        public Solution Solve(Network changed, CaseSpec spec, CancellationToken cancel)
+        public Solution Solve(Network changed, CaseSpec spec, SymbolicFactors factors, CancellationToken cancel)
         {
             cancel.ThrowIfCancellationRequested();
             if (!updates.TryGetValue(spec.WithoutLoads, out var kept)) updates[spec.WithoutLoads] = kept = KeptFactors.Of(network, spec);
-            if (kept.Solve(changed, spec, Columns) is not { } x) return NetworkSolver.Solve(changed, spec, cancel);
+            if (kept.Solve(changed, spec, Columns) is not { } x) return NetworkSolver.Solve(changed, spec, factors, cancel);
             Updated++;
             return x;
         }

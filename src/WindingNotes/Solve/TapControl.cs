@@ -55,9 +55,16 @@ public sealed class TapPlan
     /// <summary>The positions of the normal case, once settled.</summary>
     public ImmutableArray<TapPosition> Nominal { get; private set; } = [];
 
+    /// <summary>The document as written, bound: positions bind again only the statements their lets reach (<see cref="Binder.Rebind"/>).</summary>
+    private readonly Model.Model nominal;
+
+    /// <summary>The positions' networks differ in their numbers: each refactors on the pivots of the first.</summary>
+    private readonly SymbolicFactors factors = new();
+
     private TapPlan(SyntaxTree syntax, Model.Model model)
     {
         this.syntax = syntax;
+        nominal = model;
         changers = model.TapChangers;
         written = model.TapChangers.Where(t => model.Lets.ContainsKey(t.Let)).ToDictionary(t => t.Name, t => model.Lets[t.Let]);
         windings = model.Windings.ToDictionary(w => w.Name);
@@ -81,10 +88,20 @@ public sealed class TapPlan
         return point with { Values = values };
     }
 
+    /// <summary>How many points were bound again statement by statement (for tests: the path is taken).</summary>
+    internal int Rebound { get; private set; }
+
+    /// <summary>How many of the points' factorisations were refactorisations (for tests).</summary>
+    internal int Refactored => factors.Refactored;
+
     /// <summary>The model of a point bound at these positions, its reversed windings reversed.</summary>
     public Model.Model Bind(BindOverrides point, int[] positions)
     {
-        var model = ZigzagImpedances.Bind(syntax, At(point, positions));
+        var overrides = At(point, positions);
+        // As a sweep point's: the statements the positions and the point's values reach, bound again; in full where they cannot be alone.
+        var again = Binder.Rebind(nominal, overrides)?.Model;
+        if (again is not null) Rebound++;
+        var model = again ?? ZigzagImpedances.Bind(syntax, overrides);
         var reversed = changers.Where((t, i) => t.Reversing && positions[i] < 0).Select(t => t.Winding).ToHashSet(StringComparer.Ordinal);
         return reversed.Count == 0 || model.HasErrors ? model : Reverse(model, reversed);
     }
@@ -130,7 +147,7 @@ public sealed class TapPlan
         var (model, network) = Built(point, positions);
         if (network is null) return new PointResult(null, null, [], model.Diagnostics);
         if (network.Diagnostics.Any(d => d.IsError)) return new PointResult(null, null, [], [.. model.Diagnostics, .. network.Diagnostics]);
-        var solved = Points.Solve(network, spec, withFaults, cancel);
+        var solved = Points.Solve(network, spec, withFaults, c => NetworkSolver.Solve(network, c, factors, cancel), cancel, factors);
         return solved with { Diagnostics = [.. model.Diagnostics, .. network.Diagnostics, .. solved.Diagnostics] };
     }
 

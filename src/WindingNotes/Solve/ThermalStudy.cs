@@ -65,13 +65,15 @@ public static class ThermalStudy
         var solved = new SectionHeat[points.Length][];
         var byLoad = new Dictionary<double, SectionHeat[]>();
         var scaling = new LoadScaling(network);
+        // Cycle points built in full (a let's, and no load) refactor on the first's pivots.
+        var factors = new SymbolicFactors();
         for (var i = 0; i < points.Length; i++)
         {
             cancel.ThrowIfCancellationRequested();
             var value = points[i].Load.Real;
             if (!byLoad.TryGetValue(value, out var at))
             {
-                at = SolveAt(syntax, model, scaling, normal, cycle, points[i], out var problem, cancel);
+                at = SolveAt(syntax, model, scaling, factors, normal, cycle, points[i], out var problem, cancel);
                 if (at is null)
                 {
                     diagnostics.ReportCyclePointUnsolved(points[i].Line, problem ?? "");
@@ -166,7 +168,7 @@ public static class ThermalStudy
         return result;
     }
 
-    private static SectionHeat[]? SolveAt(SyntaxTree syntax, Model.Model model, LoadScaling scaling, CaseResult normal, LoadCycleModel cycle, CyclePointModel point, out string? problem, CancellationToken cancel)
+    private static SectionHeat[]? SolveAt(SyntaxTree syntax, Model.Model model, LoadScaling scaling, SymbolicFactors factors, CaseResult normal, LoadCycleModel cycle, CyclePointModel point, out string? problem, CancellationToken cancel)
     {
         problem = null;
         Network at;
@@ -174,7 +176,9 @@ public static class ThermalStudy
         CaseSpec spec = CaseSpec.Normal;
         if (cycle.Let is { } let)
         {
-            var bound = ZigzagImpedances.Bind(syntax, new BindOverrides { Values = ImmutableDictionary<string, Quantity>.Empty.Add(let, point.Load), RatedFrequency = model.RatedFrequency }, cancel);
+            var overrides = new BindOverrides { Values = ImmutableDictionary<string, Quantity>.Empty.Add(let, point.Load), RatedFrequency = model.RatedFrequency };
+            // The statements the let reaches bound again, as a sweep point's; in full where they cannot be alone (the full bind words any message).
+            var bound = Binder.Rebind(model, overrides)?.Model ?? ZigzagImpedances.Bind(syntax, overrides, cancel);
             if (bound.Diagnostics.FirstOrDefault(d => d.IsError) is { } bindError)
             {
                 problem = bindError.Message;
@@ -199,7 +203,7 @@ public static class ThermalStudy
             problem = buildError.Message;
             return null;
         }
-        var solution = scaled ? scaling.Solve(at, cancel) : NetworkSolver.Solve(at, spec, cancel);
+        var solution = scaled ? scaling.Solve(at, cancel) : NetworkSolver.Solve(at, spec, factors, cancel);
         if (!solution.Solved)
         {
             problem = solution.Diagnostics.FirstOrDefault(d => d.IsError)?.Shown;

@@ -69,6 +69,8 @@ public class RebindingTests
         }
         Assert.Equal(count, rebinding.Rebound);
         if (updates) Assert.True(rebinding.Updated >= count - 1, $"{what}: {rebinding.Updated} of {count} points updated");
+        // Points built and solved in full refactor on the first's pivots (the sparse threshold: 42 unknowns).
+        else Assert.True(rebinding.Refactorisations.Refactored >= count - 1, $"{what}: {rebinding.Refactorisations} refactorisations for {count} points");
     }
 
     [Fact]
@@ -94,6 +96,8 @@ public class RebindingTests
             foreach (var (f, g) in full.Faults.Zip(fast.Faults)) BrushSweepTests.AssertSame(f, g, $"{sample.Where}, {f.Case.Name}");
         }
         Assert.Equal(samples.Length / 20, rebinding.Rebound);
+        // Each sample's three cases (loaded, without loads, the fault) refactor on the first sample's pivots.
+        Assert.True(rebinding.Refactorisations.Refactored >= 3 * (samples.Length / 20 - 1), $"{rebinding.Refactorisations} refactorisations");
     }
 
     [Fact]
@@ -136,6 +140,68 @@ public class RebindingTests
             }
         }
         Assert.True(rebound > 0);
+    }
+
+    /// <summary>A load cycle of a let: every cycle point's model bound again is the full bind at that load, and the study takes that path.</summary>
+    [Fact]
+    public void A_load_cycle_of_a_let_binds_its_points_again()
+    {
+        var text = """
+            frequency 50 Hz
+            let demand = 500 A
+            core T rating 100 kVA
+            winding HV on T rated 1000 V from H1 to H2
+            winding LV on T rated 100 V from X1 to X2
+            impedance HV LV 4 %
+            supply line H1 H2 1000 V
+            ground H2
+            ground X2
+            load L X1 X2 current demand pf 1
+            thermal T cooling ONAN top-oil-rise 52 K hot-spot-gradient 26 K loss-ratio 6 exponents 0.8 and 1.6
+            load-cycle of demand ambient 20 degC
+            cycle-point 0 h load 1200 A
+            cycle-point 8 h load 700 A
+            cycle-point 16 h load 300 A
+            """;
+        var syntax = Parser.Parse(text);
+        var model = Binder.Bind(syntax);
+        Assert.False(model.HasErrors, string.Join("; ", model.Diagnostics));
+        Assert.NotNull(model.Reach);
+        foreach (var point in model.Thermal.Cycle!.Points)
+        {
+            var overrides = new BindOverrides { Values = System.Collections.Immutable.ImmutableDictionary<string, Quantity>.Empty.Add("demand", point.Load), RatedFrequency = model.RatedFrequency };
+            AssertSameModel(Binder.Bind(syntax, overrides), Binder.Rebind(model, overrides)?.Model, $"cycle point of {point.Load.Value} A");
+        }
+        // The study's cycle at those models: K = 1200 A / (100 kVA / 100 V) at the first point.
+        var e = WindingNotes.Workspace.Evaluator.Evaluate(text, "cycle.wn");
+        Assert.Equal(1.2, e.Thermal!.Units[0].Windings[0].PeakLoad, 9);
+    }
+
+    /// <summary>Every example with tap changers: the positions the plan binds, bound again, are the full bind at them.</summary>
+    [Fact]
+    public void Tap_changer_positions_are_bound_again_as_the_full_bind()
+    {
+        var examples = Directory.GetFiles(Path.Combine(Snapshot.RepositoryRoot, "examples"), "*.wn").Order(StringComparer.Ordinal).ToList();
+        var (rebound, planRebound) = (0, 0);
+        foreach (var path in examples)
+        {
+            var syntax = Parser.Parse(File.ReadAllText(path).Replace("\r\n", "\n"));
+            var model = Binder.Bind(syntax);
+            if (model.HasErrors || model.TapChangers.IsEmpty || TapPlan.For(syntax, model) is not { } plan) continue;
+            foreach (var step in new[] { -2, -1, 1, 3 })
+            {
+                var positions = model.TapChangers.Select(t => Math.Clamp(step, t.Low, t.High)).ToArray();
+                var at = plan.At(BindOverrides.None, positions);
+                if (Binder.Rebind(model, at) is not { } again) continue;
+                AssertSameModel(Binder.Bind(syntax, at), again.Model, $"{Path.GetFileName(path)} at {step}");
+                rebound++;
+            }
+            // The plan's own points: the positions settled, bound again where they can be.
+            plan.SettleNominal(new DiagnosticBag(), default);
+            planRebound += plan.Rebound;
+        }
+        Assert.True(rebound > 0, "no example's positions were bound again");
+        Assert.True(planRebound > 0, "no example's settling bound its positions again");
     }
 
     private static BindOverrides Value(string name, double value, Dimension dimension) =>
