@@ -51,11 +51,11 @@ public sealed record CaseSpec(string Name, bool WithoutLoads = false, FaultModel
 public sealed record Solution(
     Network Network,
     CaseSpec Case,
-    Complex[] NodeVoltages,
-    Complex[] SectionCurrents,
-    Complex[] CoreVoltsPerTurn,
-    Complex[] SupplyCurrents,
-    Complex[] LoadCurrents,
+    Phasors NodeVoltages,
+    Phasors SectionCurrents,
+    Phasors CoreVoltsPerTurn,
+    Phasors SupplyCurrents,
+    Phasors LoadCurrents,
     Complex FaultCurrent,
     bool Solved,
     ImmutableArray<Diagnostic> Diagnostics)
@@ -79,7 +79,7 @@ public sealed record Solution(
     /// keeps fault cases and sweep points so, and a file of many units and faults, or a long sweep,
     /// then holds its results and not every unknown of every case besides.
     /// </summary>
-    public Solution Compact() => this with { NodeVoltages = [], SectionCurrents = [], CoreVoltsPerTurn = [], SupplyCurrents = [], LoadCurrents = [] };
+    public Solution Compact() => this with { NodeVoltages = default, SectionCurrents = default, CoreVoltsPerTurn = default, SupplyCurrents = default, LoadCurrents = default };
 
     /// <summary>
     /// The same solution: of that network (the instance solved, not one of equal parts), the same case,
@@ -87,11 +87,106 @@ public sealed record Solution(
     /// </summary>
     public bool Equals(Solution? other) => other is not null && (ReferenceEquals(this, other) ||
         ReferenceEquals(Network, other.Network) && Case == other.Case && FaultCurrent.Equals(other.FaultCurrent) && Solved == other.Solved && Scope == other.Scope
-        && Sequences.Equal(NodeVoltages, other.NodeVoltages) && Sequences.Equal(SectionCurrents, other.SectionCurrents)
-        && Sequences.Equal(CoreVoltsPerTurn, other.CoreVoltsPerTurn) && Sequences.Equal(SupplyCurrents, other.SupplyCurrents)
-        && Sequences.Equal(LoadCurrents, other.LoadCurrents) && Sequences.Equal(Diagnostics, other.Diagnostics));
+        && NodeVoltages.Equals(other.NodeVoltages) && SectionCurrents.Equals(other.SectionCurrents)
+        && CoreVoltsPerTurn.Equals(other.CoreVoltsPerTurn) && SupplyCurrents.Equals(other.SupplyCurrents)
+        && LoadCurrents.Equals(other.LoadCurrents) && Sequences.Equal(Diagnostics, other.Diagnostics));
 
     public override int GetHashCode() => HashCode.Combine(Case, NodeVoltages.Length, Solved);
+}
+
+/// <summary>
+/// The solved values of one kind of unknown of a case (node voltages, section currents …), indexed
+/// like the network's array of that element; zero where the case did not solve the element. A case
+/// of the whole network holds them in one array; a fault's case (one part of many) holds only its
+/// part's, so a file of n units and n faults does not allocate and clear n arrays of the whole file.
+/// </summary>
+public readonly struct Phasors : IEquatable<Phasors>
+{
+    private readonly Complex[]? values;
+    // For a part: the place in values of each element's index.
+    private readonly Dictionary<int, int>? place;
+
+    private Phasors(Complex[] values, Dictionary<int, int>? place, int length) => (this.values, this.place, Length) = (values, place, length);
+
+    /// <summary>How many elements the network has of this kind (0 once let go).</summary>
+    public int Length { get; }
+
+    public Complex this[int index]
+    {
+        get
+        {
+            if (place is null) return values![index];
+            ArgumentOutOfRangeException.ThrowIfGreaterThanOrEqual((uint)index, (uint)Length, nameof(index));
+            return place.TryGetValue(index, out var at) ? values![at] : Complex.Zero;
+        }
+    }
+
+    /// <summary>Every element's value, as one array of the network's length.</summary>
+    public Complex[] ToArray()
+    {
+        if (place is null) return values is null ? [] : (Complex[])values.Clone();
+        var all = new Complex[Length];
+        foreach (var (index, at) in place) all[index] = values![at];
+        return all;
+    }
+
+    /// <summary>Equal when every element's value is, however each holds them (a part's values or the whole network's).</summary>
+    public bool Equals(Phasors other) => Length == other.Length && ToArray().AsSpan().SequenceEqual(other.ToArray());
+
+    public override bool Equals(object? obj) => obj is Phasors other && Equals(other);
+
+    public override int GetHashCode() => Length;
+
+    /// <summary>Values set one element at a time: into an array of the whole network, or of a part only.</summary>
+    internal sealed class Builder(int length, bool partOnly)
+    {
+        private readonly Complex[]? all = partOnly ? null : new Complex[length];
+        // The whole network's: the indices set. A part's: each index's place in values.
+        private readonly List<int> set = [];
+        private readonly Dictionary<int, int>? place = partOnly ? [] : null;
+        private readonly List<Complex> values = [];
+
+        public void Set(int index, Complex value)
+        {
+            if (all is not null)
+            {
+                all[index] = value;
+                set.Add(index);
+            }
+            else if (place!.TryGetValue(index, out var at)) values[at] = value;
+            else
+            {
+                place[index] = values.Count;
+                values.Add(value);
+            }
+        }
+
+        /// <summary>The largest magnitude set (NaN passed over).</summary>
+        public double Largest()
+        {
+            var max = 0.0;
+            if (all is not null)
+                foreach (var i in set)
+                    if (all[i].Magnitude > max) max = all[i].Magnitude;
+            foreach (var v in values)
+                if (v.Magnitude > max) max = v.Magnitude;
+            return max;
+        }
+
+        /// <summary>Each part of a value set within <paramref name="limit"/> of zero made zero: rounding leaves 1e-17 where the answer is zero.</summary>
+        public void Chop(double limit)
+        {
+            if (all is not null)
+                foreach (var i in set) all[i] = Chopped(all[i], limit);
+            var span = System.Runtime.InteropServices.CollectionsMarshal.AsSpan(values);
+            for (var k = 0; k < span.Length; k++) span[k] = Chopped(span[k], limit);
+        }
+
+        private static Complex Chopped(Complex v, double limit) =>
+            new(Math.Abs(v.Real) <= limit ? 0 : v.Real, Math.Abs(v.Imaginary) <= limit ? 0 : v.Imaginary);
+
+        public Phasors Build() => all is not null ? new Phasors(all, null, length) : new Phasors([.. values], place, length);
+    }
 }
 
 /// <summary>

@@ -1,5 +1,6 @@
 using Complex = System.Numerics.Complex;
 using MathNet.Numerics.LinearAlgebra;
+using MathNet.Numerics.Providers.LinearAlgebra;
 
 namespace WindingNotes.Kernel;
 
@@ -7,17 +8,22 @@ namespace WindingNotes.Kernel;
 internal sealed class DenseFactors : IFactors
 {
     private readonly Matrix<Complex> m;
-    private readonly MathNet.Numerics.LinearAlgebra.Factorization.LU<Complex> lu;
+    // The LU factors in place of a copy of m (column by column), and the row exchanges: what MathNet's
+    // dense LU computes, by the same provider call, without the copy of U it makes to read the pivots.
+    private readonly Complex[] factors;
+    private readonly int[] pivots;
 
     private DenseFactors(Matrix<Complex> m)
     {
         this.m = m;
-        lu = m.LU();
-        var u = lu.U;
+        var n = m.RowCount;
+        factors = (Complex[])m.AsColumnMajorArray().Clone();
+        pivots = new int[n];
+        LinearAlgebraControl.Provider.LUFactor(factors, n, pivots);
         SmallestPivot = double.PositiveInfinity;
-        for (var i = 0; i < m.RowCount; i++)
+        for (var i = 0; i < n; i++)
         {
-            var pivot = u.At(i, i).Magnitude;
+            var pivot = factors[i * n + i].Magnitude;
             SmallestPivot = Math.Min(SmallestPivot, pivot);
             LargestPivot = Math.Max(LargestPivot, pivot);
         }
@@ -38,7 +44,12 @@ internal sealed class DenseFactors : IFactors
     public double SmallestPivot { get; }
     public double LargestPivot { get; }
 
-    public Complex[] Solve(Complex[] b) => lu.Solve(Vector<Complex>.Build.Dense(b)).ToArray();
+    public Complex[] Solve(Complex[] b)
+    {
+        var x = (Complex[])b.Clone();
+        LinearAlgebraControl.Provider.LUSolveFactored(1, factors, pivots.Length, pivots, x);
+        return x;
+    }
 
     public double RelativeResidual(Complex[] x, Complex[] b) =>
         LinearSolver.RelativeResidual((m * Vector<Complex>.Build.Dense(x)).ToArray(), x, b, m.InfinityNorm());

@@ -111,7 +111,7 @@ internal sealed class MnaSystem
         foreach (var n in group.Nodes.Where(n => !isReference(n)))
         {
             nodes[n] = unknowns.Count;
-            unknowns.Add(new Element(ElementKind.Node, network.Nodes[n].Name, PointSpan(network, n)));
+            unknowns.Add(new Element(ElementKind.Node, network.Nodes[n].Name, PointSpan(network, group, n)));
         }
         foreach (var k in group.Sections)
         {
@@ -243,12 +243,22 @@ internal sealed class MnaSystem
     }
 
     /// <summary>Where a node is named; a node the file does not name (a phase's, a test's) is where the first element on it is written.</summary>
-    private static TextSpan PointSpan(Network network, int node) =>
-        network.Model.Symbols.Find(network.Nodes[node].Name)?.Span
-        ?? network.Sections.Where(s => s.NodeA == node || s.NodeB == node).Select(s => (TextSpan?)network.Windings[s.Winding].Source.Line).FirstOrDefault()
-        ?? network.Supplies.Where(s => s.NodeP == node || s.NodeQ == node).Select(s => (TextSpan?)s.Source.Line).FirstOrDefault()
-        ?? network.Loads.Where(l => l.NodeA == node || l.NodeB == node).Select(l => (TextSpan?)l.Source.Line).FirstOrDefault()
-        ?? default;
+    /// <remarks>
+    /// Every section and supply on a node of the part is in the part (they link it), and its lists
+    /// ascend, so the first of its own is the first of the network's: a three-phase file of many
+    /// units does not search every element per node. A load links its node only with loads, so it
+    /// is searched for in the network, and only for a node on no section or supply.
+    /// </remarks>
+    private static TextSpan PointSpan(Network network, SolveGroup group, int node)
+    {
+        if (network.Model.Symbols.Find(network.Nodes[node].Name) is { } named) return named.Span;
+        foreach (var k in group.Sections)
+            if (network.Sections[k] is var s && (s.NodeA == node || s.NodeB == node)) return network.Windings[s.Winding].Source.Line;
+        foreach (var i in group.Supplies)
+            if (network.Supplies[i] is var s && (s.NodeP == node || s.NodeQ == node)) return s.Source.Line;
+        return network.Loads.Where(l => l.NodeA == node || l.NodeB == node).Select(l => (TextSpan?)l.Source.Line).FirstOrDefault() ?? default;
+    }
+
 }
 
 /// <summary>An independent part of the network: what is linked by wires or by a core is solved together.</summary>
@@ -260,13 +270,13 @@ internal sealed record SolveGroup(List<int> Nodes, List<int> Sections, List<int>
     /// </summary>
     public static List<SolveGroup> Find(Network network, CaseSpec spec)
     {
-        var loads = spec.WithoutLoads ? [] : network.Loads.Where(l => l.NodeA != l.NodeB).ToList();
         int faultA = -1, faultB = -1;
         if (spec.Fault is { } f) (faultA, faultB) = (network.Node(f.A.Name), network.Node(f.B.Name));
         // A fault's case is its part alone (NetworkSolver), so only that part is wanted: the parts of
         // the wiring are found once (Wiring), and a file of many units then costs each fault the size
         // of its unit, not the size of the whole file.
         if (faultA >= 0 && faultB >= 0 && Wiring.Of(network).FaultedPart(faultA, faultB, !spec.WithoutLoads) is { } part) return [part];
+        var loads = spec.WithoutLoads ? [] : network.Loads.Where(l => l.NodeA != l.NodeB).ToList();
         var sets = Islands.Parts(network, !spec.WithoutLoads, faultA >= 0 ? [(faultA, faultB)] : []);
         var faulted = faultA >= 0 && Islands.Anchor(network, faultA, faultB) is var anchor and >= 0 ? sets.Find(anchor) : -1;
         var groups = Gather(network, sets, loads, faulted);

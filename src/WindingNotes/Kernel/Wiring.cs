@@ -38,7 +38,17 @@ internal sealed class Wiring
     /// <summary>Whether <paramref name="other"/> is wired as the network this was found from.</summary>
     private bool Fits(Network other)
     {
-        if (other == network) return true;
+        if (other == network || other == fitted) return true;
+        if (!FitsWiring(other)) return false;
+        // The networks of one point (loads as impedances, supplies scaled) ask once per fault: compared once.
+        fitted = other;
+        return true;
+    }
+
+    private Network? fitted;
+
+    private bool FitsWiring(Network other)
+    {
         if (other.Nodes != network.Nodes || other.Cores != network.Cores || other.Couplings != network.Couplings) return false;
         if (other.Supplies.Length != network.Supplies.Length || other.Loads.Length != network.Loads.Length) return false;
         if (other.Supplies != network.Supplies)

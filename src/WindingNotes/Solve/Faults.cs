@@ -83,7 +83,12 @@ public static class Faults
         var before = pre.Voltage(a) - pre.Voltage(b);
         var study = network.Model.FaultStudy;
         var c = FaultStudy.VoltageFactor(before.Magnitude, minimum: !study.Maximum, study.LowVoltageTolerance);
-        var scaled = network with { Supplies = [.. network.Supplies.Select(s => s with { Voltage = s.Voltage * c })] };
+        // Every supply's EMF scaled; only the fault's part is solved, so only its supplies need new records (a file of many units and faults made every supply again per fault).
+        var supplies = network.Supplies.ToBuilder();
+        var part = a >= 0 && b >= 0 ? Wiring.Of(network).FaultedPart(a, b, loads: false) : null;
+        foreach (var i in part?.Supplies ?? Enumerable.Range(0, supplies.Count))
+            supplies[i] = supplies[i] with { Voltage = supplies[i].Voltage * c };
+        var scaled = network with { Supplies = supplies.ToImmutable() };
         var source = NetworkSolver.Solve(scaled, spec with { WithoutLoads = true }, kept, cancel) with { Network = network };
         diagnostics.AddRange(source.Diagnostics.Where(d => d.Code != "load-without-voltage"));
         if (!source.Solved) return null;

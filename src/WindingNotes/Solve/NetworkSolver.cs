@@ -42,7 +42,7 @@ public static class NetworkSolver
         }
         // Every message of a case other than the file as written belongs to that case.
         var found = spec == CaseSpec.Normal ? diagnostics.ToImmutable() : [.. diagnostics.Select(d => d with { Case = spec.Name })];
-        var solution = Collect(network, spec, parts, solved, found);
+        var solution = Collect(network, spec, parts, solved, found, partOnly: faulted.Count > 0);
         return faulted.Count > 0 ? solution with { Scope = ScopeOf(network, spec, faulted) } : solution;
     }
 
@@ -61,41 +61,39 @@ public static class NetworkSolver
         return new CaseScope(points, sections, groups.SelectMany(g => g.Cores).ToHashSet(), supplies, loads);
     }
 
-    /// <summary>The solution from the solved unknowns of each part (parts not listed carry nothing).</summary>
-    internal static Solution Collect(Network network, CaseSpec spec, IEnumerable<(MnaSystem System, Complex[] X)> parts, bool solved, ImmutableArray<Diagnostic> diagnostics)
+    /// <summary>
+    /// The solution from the solved unknowns of each part (parts not listed carry nothing).
+    /// <paramref name="partOnly"/>: the solution holds the values of these parts only (a fault's case).
+    /// </summary>
+    internal static Solution Collect(Network network, CaseSpec spec, IEnumerable<(MnaSystem System, Complex[] X)> parts, bool solved, ImmutableArray<Diagnostic> diagnostics, bool partOnly = false)
     {
-        var voltages = new Complex[network.Nodes.Length];
-        var sections = new Complex[network.Sections.Length];
-        var cores = new Complex[network.Cores.Length];
-        var supplies = new Complex[network.Supplies.Length];
-        var loads = new Complex[network.Loads.Length];
+        var voltages = new Phasors.Builder(network.Nodes.Length, partOnly);
+        var sections = new Phasors.Builder(network.Sections.Length, partOnly);
+        var cores = new Phasors.Builder(network.Cores.Length, partOnly);
+        var supplies = new Phasors.Builder(network.Supplies.Length, partOnly);
+        var loads = new Phasors.Builder(network.Loads.Length, partOnly);
         var fault = Complex.Zero;
-        // What the parts set, by array: only those entries can need chopping (a fault's case is one part of many).
-        List<int> nodesSet = [], sectionsSet = [], coresSet = [], suppliesSet = [], loadsSet = [];
         foreach (var (m, x) in parts)
         {
-            foreach (var (node, column) in m.NodeColumn) { voltages[node] = x[column]; nodesSet.Add(node); }
-            foreach (var (k, column) in m.SectionColumn) { sections[k] = x[column]; sectionsSet.Add(k); }
-            foreach (var (c, column) in m.CoreColumn) { cores[c] = x[column]; coresSet.Add(c); }
-            foreach (var (s, column) in m.SupplyColumn) { supplies[s] = x[column]; suppliesSet.Add(s); }
+            foreach (var (node, column) in m.NodeColumn) voltages.Set(node, x[column]);
+            foreach (var (k, column) in m.SectionColumn) sections.Set(k, x[column]);
+            foreach (var (c, column) in m.CoreColumn) cores.Set(c, x[column]);
+            foreach (var (s, column) in m.SupplyColumn) supplies.Set(s, x[column]);
             if (m.FaultColumn >= 0) fault = x[m.FaultColumn];
             Complex At(int column) => column >= 0 ? x[column] : Complex.Zero;
             foreach (var (load, a, b) in m.LinearLoads)
             {
                 var l = network.Loads[load].Source;
-                loads[load] = Complex.Conjugate(l.S0) / (l.V0 * l.V0) * (At(a) - At(b));
-                loadsSet.Add(load);
+                loads.Set(load, Complex.Conjugate(l.S0) / (l.V0 * l.V0) * (At(a) - At(b)));
             }
             foreach (var load in m.NonlinearLoads)
-            {
-                loads[load.Load] = NewtonSolver.LoadCurrent(load, NewtonSolver.Across(load, x));
-                loadsSet.Add(load.Load);
-            }
+                loads.Set(load.Load, NewtonSolver.LoadCurrent(load, NewtonSolver.Across(load, x)));
         }
-        Chop((voltages, nodesSet));
-        Chop((sections, sectionsSet), (supplies, suppliesSet), (loads, loadsSet));
-        Chop((cores, coresSet));
-        return new Solution(network, spec, voltages, sections, cores, supplies, loads, fault, solved, diagnostics);
+        // Only the values set can need chopping: the others are zero, so the largest set is the largest of all.
+        Chop(voltages);
+        Chop(sections, supplies, loads);
+        Chop(cores);
+        return new Solution(network, spec, voltages.Build(), sections.Build(), cores.Build(), supplies.Build(), loads.Build(), fault, solved, diagnostics);
     }
 
     private static Complex[]? SolveSystem(ref MnaSystem m, Network network, DiagnosticBag diagnostics, SymbolicFactors? kept, CancellationToken cancel)
@@ -213,19 +211,11 @@ public static class NetworkSolver
     }
 
     /// <summary>Rounding leaves values like 1e-17 where the answer is zero; they would print as noise.</summary>
-    /// <remarks>The entries given are the only ones not zero, so the largest is the largest of all.</remarks>
-    private static void Chop(params (Complex[] Values, List<int> Set)[] groups)
+    private static void Chop(params Phasors.Builder[] groups)
     {
         var max = 0.0;
-        foreach (var (values, set) in groups)
-            foreach (var i in set)
-                if (values[i].Magnitude > max) max = values[i].Magnitude;
-        var limit = 1e-12 * max;
-        foreach (var (values, set) in groups)
-            foreach (var i in set)
-            {
-                var v = values[i];
-                values[i] = new Complex(Math.Abs(v.Real) <= limit ? 0 : v.Real, Math.Abs(v.Imaginary) <= limit ? 0 : v.Imaginary);
-            }
+        foreach (var values in groups)
+            if (values.Largest() is var largest && largest > max) max = largest;
+        foreach (var values in groups) values.Chop(1e-12 * max);
     }
 }

@@ -233,7 +233,7 @@ public static class Results
             var i = s.Turns > 0 ? solution.SectionCurrents[s.Index] : Complex.Zero;
             var v = solution.SectionVoltage(s);
             var loading = w.RatedCurrent is { } rated ? i.Magnitude / rated : (double?)null;
-            return new SectionResult(s, w, i, v, v.Magnitude * i.Magnitude, loading, losses[s.Index])
+            return new SectionResult(s, w, i, v, v.Magnitude * i.Magnitude, loading, losses(s.Index))
             {
                 CurrentDensity = w.Source.Conductor is { } conductor ? i.Magnitude / conductor.Area : null,
             };
@@ -383,14 +383,17 @@ public static class Results
         var network = solution.Network;
         var losses = SectionLosses(network, solution, solution.Scope);
         return [.. InScope(network.Sections, solution.Scope?.Sections)
-            .Select(s => new SectionHeat(s.Winding, s.Turns > 0 ? solution.SectionCurrents[s.Index].Magnitude : 0, losses[s.Index]))];
+            .Select(s => new SectionHeat(s.Winding, s.Turns > 0 ? solution.SectionCurrents[s.Index].Magnitude : 0, losses(s.Index)))];
     }
 
     public static SectionHeat[] Heat(CaseResult c) => [.. c.Sections.Select(s => new SectionHeat(s.Winding.Index, s.Current.Magnitude, s.Loss))];
 
-    private static double[] SectionLosses(Network network, Solution solution, CaseScope? scope)
+    /// <remarks>By section index: of every section, or of a scope's only (a fault's case: not an array of the whole file per fault).</remarks>
+    private static Func<int, double> SectionLosses(Network network, Solution solution, CaseScope? scope)
     {
-        var result = new double[network.Sections.Length];
+        var all = scope is null ? new double[network.Sections.Length] : null;
+        var part = scope is null ? null : new Dictionary<int, double>(scope.Sections.Count);
+        Func<int, double> result = all is not null ? k => all[k] : k => part!.GetValueOrDefault(k);
         if (!solution.HasVectors) return result;
         foreach (var core in InScope(network.Cores, scope?.Cores))
         {
@@ -414,7 +417,12 @@ public static class Results
                 for (var p = 0; p < n; p++) own[p] = Math.Max(core.Impedance[p, p].Real, 0) * currents[p].Magnitude * currents[p].Magnitude;
             var weight = own.Sum();
             if (weight <= 0) continue;
-            for (var p = 0; p < n; p++) result[core.Sections[p]] = total * own[p] / weight;
+            for (var p = 0; p < n; p++)
+            {
+                var loss = total * own[p] / weight;
+                if (all is not null) all[core.Sections[p]] = loss;
+                else part![core.Sections[p]] = loss;
+            }
         }
         return result;
     }

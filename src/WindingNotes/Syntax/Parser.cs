@@ -120,26 +120,36 @@ public static class Parser
     }
 
     /// <summary>Clauses once each, groups exclusive, required clauses and groups present.</summary>
+    /// <remarks>A statement has a handful of clauses: they are compared in place, not put in tables (this runs for every line).</remarks>
     private static void CheckClauses(StatementSyntax statement, DiagnosticBag diagnostics)
     {
-        var seen = new Dictionary<string, ClauseSyntax>();
-        var groups = new Dictionary<string, ClauseSyntax>();
-        foreach (var clause in statement.Clauses)
+        var given = statement.Clauses;
+        for (var c = 0; c < given.Length; c++)
         {
-            var form = clause.Form!;
-            if (seen.TryGetValue(form.Keyword, out var first))
-                diagnostics.ReportDuplicateClause(clause.Keyword!, first.Keyword!);
-            else if (form.Group is not null && groups.TryGetValue(form.Group, out var other))
-                diagnostics.ReportExclusiveClauses(clause.Keyword!, other.Keyword!);
-            seen.TryAdd(form.Keyword, clause);
-            if (form.Group is not null) groups.TryAdd(form.Group, clause);
+            var form = given[c].Form!;
+            if (First(given, c, form.Keyword, null) is { } first)
+                diagnostics.ReportDuplicateClause(given[c].Keyword!, first.Keyword!);
+            else if (form.Group is not null && First(given, c, null, form.Group) is { } other)
+                diagnostics.ReportExclusiveClauses(given[c].Keyword!, other.Keyword!);
         }
+        List<string>? clauses = null;
+        List<IReadOnlyList<string>>? missingGroups = null;
+        foreach (var c in statement.Form.Clauses)
+            if (c.Required && First(given, given.Length, c.Keyword, null) is null) (clauses ??= []).Add(c.Keyword);
+        foreach (var g in statement.Form.RequiredGroups ?? [])
+            if (First(given, given.Length, null, g) is null) (missingGroups ??= []).Add([.. statement.Form.Clauses.Where(c => c.Group == g).Select(c => c.Keyword)]);
         // One mistake, one message: every clause and group the line lacks, said together.
-        var clauses = statement.Form.Clauses.Where(c => c.Required && !seen.ContainsKey(c.Keyword)).Select(c => c.Keyword).ToList();
-        var missingGroups = (statement.Form.RequiredGroups ?? []).Where(g => !groups.ContainsKey(g))
-            .Select(g => (IReadOnlyList<string>)statement.Form.Clauses.Where(c => c.Group == g).Select(c => c.Keyword).ToList()).ToList();
-        if (clauses.Count + missingGroups.Count > 1) diagnostics.ReportMissingClauses(statement, clauses, missingGroups);
-        else if (clauses.Count == 1) diagnostics.ReportMissingClause(statement, clauses[0]);
-        else if (missingGroups.Count == 1) diagnostics.ReportMissingGroup(statement, "", missingGroups[0]);
+        var (clauseCount, groupCount) = (clauses?.Count ?? 0, missingGroups?.Count ?? 0);
+        if (clauseCount + groupCount > 1) diagnostics.ReportMissingClauses(statement, clauses ?? [], missingGroups ?? []);
+        else if (clauseCount == 1) diagnostics.ReportMissingClause(statement, clauses![0]);
+        else if (groupCount == 1) diagnostics.ReportMissingGroup(statement, "", missingGroups![0]);
+
+        // The first clause before the one at `before` of that keyword, or else of that group.
+        static ClauseSyntax? First(ImmutableArray<ClauseSyntax> clauses, int before, string? keyword, string? group)
+        {
+            for (var i = 0; i < before; i++)
+                if (keyword is not null ? clauses[i].Form!.Keyword == keyword : clauses[i].Form!.Group == group) return clauses[i];
+            return null;
+        }
     }
 }

@@ -59,12 +59,28 @@ public sealed record ClauseSyntax(ClauseForm? Form, Token? Keyword, ImmutableArr
 
     public IEnumerable<ValueSyntax> Values => Elements.OfType<ValueSyntax>();
 
-    public NameSyntax? Name(int index) => Names.ElementAtOrDefault(index);
+    // The look-ups below run for every statement the binder reads: loops, not chains of iterators.
+    public NameSyntax? Name(int index)
+    {
+        foreach (var e in Elements)
+            if (e is NameSyntax n && index-- == 0) return n;
+        return null;
+    }
 
-    public ValueSyntax? Value(int index = 0) => Values.ElementAtOrDefault(index);
+    public ValueSyntax? Value(int index = 0)
+    {
+        foreach (var e in Elements)
+            if (e is ValueSyntax v && index-- == 0) return v;
+        return null;
+    }
 
     /// <summary>The word chosen where the form offers a choice or an optional word.</summary>
-    public WordSyntax? Word(Func<string, bool> predicate) => Elements.OfType<WordSyntax>().FirstOrDefault(w => predicate(w.Text));
+    public WordSyntax? Word(Func<string, bool> predicate)
+    {
+        foreach (var e in Elements)
+            if (e is WordSyntax w && predicate(w.Text)) return w;
+        return null;
+    }
 }
 
 /// <summary>A parsed statement: its form, its keyword, its head and its clauses in the order written.</summary>
@@ -74,12 +90,27 @@ public sealed record StatementSyntax(StatementForm Form, Token Keyword, ClauseSy
 
     public TextSpan Span => Clauses.IsEmpty ? Keyword.Span.Cover(Head.Span) : Keyword.Span.Cover(Clauses[^1].Span);
 
-    public ClauseSyntax? Clause(string keyword) => Clauses.FirstOrDefault(c => c.Keyword?.Text == keyword);
+    public ClauseSyntax? Clause(string keyword)
+    {
+        foreach (var c in Clauses)
+            if (c.Keyword?.Text == keyword) return c;
+        return null;
+    }
 
     public ValueSyntax? Value(string keyword) => Clause(keyword)?.Value();
 
     /// <summary>Every name in the statement, in the order written.</summary>
-    public IEnumerable<NameSyntax> AllNames => Head.Names.Concat(Clauses.SelectMany(c => c.Names));
+    public IEnumerable<NameSyntax> AllNames
+    {
+        get
+        {
+            foreach (var e in Head.Elements)
+                if (e is NameSyntax n) yield return n;
+            foreach (var c in Clauses)
+                foreach (var e in c.Elements)
+                    if (e is NameSyntax n) yield return n;
+        }
+    }
 }
 
 /// <summary>

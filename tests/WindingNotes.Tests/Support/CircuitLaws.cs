@@ -15,7 +15,7 @@ public static class CircuitLaws
     public static void Hold(Network network, CaseResult c, string context, double tolerance = 1e-9)
     {
         var s = c.Solution;
-        var scale = s.SectionCurrents.Concat(s.SupplyCurrents).Concat(s.LoadCurrents).Max(i => i.Magnitude);
+        var scale = s.SectionCurrents.ToArray().Concat(s.SupplyCurrents.ToArray()).Concat(s.LoadCurrents.ToArray()).Max(i => i.Magnitude);
         var leaving = new Complex[network.Nodes.Length];
         foreach (var k in network.Sections) { leaving[k.NodeA] += s.SectionCurrents[k.Index]; leaving[k.NodeB] -= s.SectionCurrents[k.Index]; }
         foreach (var p in network.Supplies) { leaving[p.NodeP] -= s.SupplyCurrents[p.Index]; leaving[p.NodeQ] += s.SupplyCurrents[p.Index]; }
@@ -23,7 +23,7 @@ public static class CircuitLaws
         for (var n = 0; n < leaving.Length; n++)
             Assert.True(leaving[n].Magnitude <= tolerance * scale, $"KCL at {network.Nodes[n].Name}: {leaving[n]} ({context})");
 
-        var vScale = s.NodeVoltages.Max(v => v.Magnitude);
+        var vScale = s.NodeVoltages.ToArray().Max(v => v.Magnitude);
         foreach (var core in network.Cores)
         {
             var e = s.CoreVoltsPerTurn[core.Index];
