@@ -38,20 +38,11 @@ public sealed class FuzzTarget(FuzzInput input, TimeSpan timeLimit, TimeSpan giv
         cancel = watch.Token;
         try
         {
-            // A file taken as is was evaluated already as a base to diff against: the same text, the same
-            // evaluation. Everything but the editor's features depends on the text alone (the library
-            // keeps no state), so it is checked once a process; the editor's features run at this
-            // input's own positions, with its own rename, on the evaluation shared between threads as
-            // the server shares one.
-            var shared = Do("evaluate", () => Repeats.Shared(input, timeLimit, cancel));
-            var evaluation = shared?.Evaluation ?? Do("evaluate", () => Evaluator.Evaluate(input.Text, "fuzz.wn", cancel, timeLimit: timeLimit));
+            var evaluation = Do("evaluate", () => Evaluator.Evaluate(input.Text, "fuzz.wn", cancel, timeLimit: timeLimit));
             if (evaluation is null) return;
-            if (shared is not { First: false })
-            {
-                Diagnostics(evaluation);
-                Reports(evaluation);
-                Formatting(evaluation);
-            }
+            Diagnostics(evaluation);
+            Reports(evaluation);
+            Formatting(evaluation);
             Editor(evaluation);
         }
         finally
@@ -295,30 +286,6 @@ public sealed class FuzzTarget(FuzzInput input, TimeSpan timeLimit, TimeSpan giv
     }
 
     private static string Quote(string text) => FormatProperty.Quote(text);
-}
-
-/// <summary>
-/// Inputs that are a file of the corpus taken as is (a sixth of those made from a file, and among the
-/// costliest: the examples' studies take up to seconds): their evaluation is the base's, and only the
-/// first of them in a process goes through the stages that depend on the text alone. <c>WN_FUZZ_REPEATS=1</c>
-/// takes every such input through every stage again, to measure what this saves.
-/// </summary>
-internal static class Repeats
-{
-    private static readonly bool Off = Environment.GetEnvironmentVariable("WN_FUZZ_REPEATS") == "1";
-    private static readonly System.Collections.Concurrent.ConcurrentDictionary<string, byte> Checked = new();
-
-    /// <summary>How many inputs used an evaluation made before them, in this process.</summary>
-    public static int Count;
-
-    public static (Evaluation Evaluation, bool First)? Shared(FuzzInput input, TimeSpan limit, CancellationToken cancel)
-    {
-        if (Off || input.Text != input.Base || !input.BaseName.EndsWith(".wn", StringComparison.Ordinal)) return null;
-        if (Baselines.Of(input, limit, cancel) is not { } evaluation) return null;
-        var first = Checked.TryAdd(input.Text, 0);
-        if (!first) Interlocked.Increment(ref Count);
-        return (evaluation, first);
-    }
 }
 
 /// <summary>
