@@ -85,8 +85,8 @@ public static class InlayHints
     private sealed class ResultIndex(Evaluation evaluation)
     {
         private readonly CaseResult? normal = evaluation.Normal;
-        // One check a line: two expects can stand at one offset (fuzzer seed 5007049), and a line shows one hint.
-        public Dictionary<int, CheckResult> Checks { get; } = evaluation.Checks.DistinctBy(c => c.Expect.Line.Start).ToDictionary(c => c.Expect.Line.Start);
+        // One check an expect line, each at its statement's start (a bare 'expect' spans its own word: Data/fuzz/input-5007049.wn).
+        public Dictionary<int, CheckResult> Checks { get; } = evaluation.Checks.ToDictionary(c => c.Expect.Line.Start);
         public Dictionary<string, CaseResult> Faults { get; } = evaluation.Cases.Where(c => c.Case.Fault is not null).DistinctBy(c => c.Case.Fault!.Name).ToDictionary(c => c.Case.Fault!.Name);
         public Dictionary<string, SupplyResult> Supplies => field ??= normal?.Supplies.ToDictionary(x => x.Supply.Name) ?? [];
         public Dictionary<string, LoadResult> Loads => field ??= normal?.Loads.ToDictionary(x => x.Load.Name) ?? [];

@@ -368,7 +368,9 @@ internal sealed partial class BindRun
             // A word after a number is its unit, not a name.
             var unit = before is { Kind: TokenKind.Number or TokenKind.Imaginary };
             before = t;
-            if (unit || !ValueParser.IsName(t) || held.Contains(t.Span.Start)) continue;
+            // A word spelt as an imaginary number (j0) is a value here, as it makes the next word its unit:
+            // taken as a name, a rename to a plain word made that unit a name too (fuzz seed 6025273).
+            if (unit || t.Kind != TokenKind.Word || !ValueParser.IsName(t) || held.Contains(t.Span.Start)) continue;
             if (symbols.Find(t.Text) is not { } symbol)
             {
                 // Most names a line writes are points; one named nowhere else is a free node there.

@@ -88,7 +88,9 @@ public sealed record StatementSyntax(StatementForm Form, Token Keyword, ClauseSy
 {
     public StatementKind Kind => Form.Kind;
 
-    public TextSpan Span => Clauses.IsEmpty ? Keyword.Span.Cover(Head.Span) : Keyword.Span.Cover(Clauses[^1].Span);
+    // An empty head has no place in the text (its span is the default, at offset 0): a bare keyword's
+    // statement is the keyword alone, not everything from the file's start to it.
+    public TextSpan Span => !Clauses.IsEmpty ? Keyword.Span.Cover(Clauses[^1].Span) : Head.Elements.IsEmpty && Head.Keyword is null ? Keyword.Span : Keyword.Span.Cover(Head.Span);
 
     public ClauseSyntax? Clause(string keyword)
     {

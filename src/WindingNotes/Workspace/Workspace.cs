@@ -17,10 +17,12 @@ public sealed record Document(string Uri, string Path, int Version, string Text)
 public sealed class DocumentWorkspace(long keptText = DocumentWorkspace.DefaultKeptText)
 {
     /// <summary>
-    /// Eight documents of a megabyte, or all of a few hundred of a thousand lines: a 1 MB document's
-    /// evaluation held about 52 MB (RESULTS.md), so this keeps about 420 MB of evaluations.
+    /// Three or four documents of a megabyte, or all of about a hundred of a thousand lines: a 1 MB
+    /// document's evaluation held about 52 MB (RESULTS.md), so this keeps about 210 MB of evaluations.
+    /// Eight (420 MB) took the server of 50 open 1 MB documents to 1.47 GB: what the collector lets
+    /// the heap reach grows with what stays live.
     /// </summary>
-    public const long DefaultKeptText = 8_000_000;
+    public const long DefaultKeptText = 4_000_000;
 
     /// <summary>
     /// A version and its one evaluation, shared by every caller that asks for it (the publisher of

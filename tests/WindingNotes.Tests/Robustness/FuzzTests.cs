@@ -29,6 +29,7 @@ public class FuzzTests(ITestOutputHelper output)
         // WN_FUZZ_HUGE=1 turns them on for a replay of one (seeds 4999, 9999, …).
         var huge = Setting("WN_FUZZ_HUGE", count > 5000 ? 1 : 0) == 1;
         var clock = Stopwatch.StartNew();
+        var processor = Process.GetCurrentProcess().TotalProcessorTime;
         Parallel.For(first, first + count, new ParallelOptions { MaxDegreeOfParallelism = Environment.ProcessorCount }, seed =>
         {
             var input = FuzzInputs.Make(seed, huge);
@@ -36,7 +37,7 @@ public class FuzzTests(ITestOutputHelper output)
             if (FuzzRunner.Run(input) is { } report) failures.Add((seed, report));
             slowest.Add((Stopwatch.GetElapsedTime(started), seed, $"{input.BaseName}: {input.Recipe}"));
         });
-        output.WriteLine($"{count} inputs from seed {first} in {clock.Elapsed.TotalSeconds:F1} s; slowest:");
+        output.WriteLine($"{count} inputs from seed {first} in {clock.Elapsed.TotalSeconds:F1} s, {(Process.GetCurrentProcess().TotalProcessorTime - processor).TotalSeconds:F1} s of processor time; slowest:");
         foreach (var (time, seed, recipe) in slowest.OrderByDescending(s => s.Time).Take(8))
             output.WriteLine($"  {time.TotalMilliseconds,8:F0} ms  seed {seed}  {(recipe.Length > 160 ? recipe[..160] + "…" : recipe)}");
         var sorted = failures.OrderBy(f => f.Seed).ToList();

@@ -8,6 +8,20 @@ namespace WindingNotes.Tests.Syntax;
 public class ParserTests
 {
     [Fact]
+    public void A_bare_keyword_spans_its_own_word_not_the_text_before_it()
+    {
+        // Fuzz seed 5007049: the second of two bare 'expect' lines covered offsets 0 to 14 (its empty
+        // head has the default span), so two checks stood at one offset and the hints keyed by it threw.
+        const string text = "expect \nexpect \nfrequency 50 Hz\n";
+        var tree = Parser.Parse(text);
+        var expects = tree.Statements.Where(s => s.Kind == StatementKind.Expect).ToList();
+        Assert.Equal([new TextSpan(0, 6), new TextSpan(8, 6)], expects.Select(s => s.Span));
+        var evaluation = WindingNotes.Workspace.Evaluator.Evaluate(text, "bare.wn");
+        Assert.Equal([1, 2], evaluation.Checks.Select(c => evaluation.Text.GetPosition(c.Expect.Line.Start).Line + 1));
+        Assert.Equal(["expect", "expect"], evaluation.Checks.Select(c => c.Expect.Text));
+    }
+
+    [Fact]
     public void Every_statement_of_the_notation_parses()
     {
         foreach (var form in Grammar.Statements)
