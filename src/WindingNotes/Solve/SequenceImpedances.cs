@@ -98,7 +98,9 @@ public static class SequenceImpedances
         var test = TestModel(model, core, kind, energised, shorted, neutral);
         var network = NetworkBuilder.Build(test);
         var solution = NetworkSolver.Solve(network, CaseSpec.Normal);
-        if (!solution.Solved) return null;
+        // A join of the file's between the unit's terminals (a line to another winding's line) can put a
+        // test source across a short, which the builder leaves out: that test cannot be made.
+        if (!solution.Solved || network.Supplies.Length != test.Supplies.Length) return null;
         var currents = network.Supplies.Select(s => solution.SupplyCurrents[s.Index]).ToArray();
         Complex z;
         if (kind == SequenceKind.Positive)
