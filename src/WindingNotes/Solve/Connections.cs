@@ -109,6 +109,11 @@ public static class Connections
                 set.Add(s.Core);
             }
         var supplyPoints = network.Supplies.Where(s => s.Source.IsSource).SelectMany(s => new[] { s.NodeP, s.NodeQ }).ToHashSet();
+        // The lines: supply points other than earth and a three-phase supply's star point. A load is fed
+        // from a line wherever one reaches it, from the neutral only where none does, so the answer does
+        // not hang on which end of a winding is written first.
+        var neutrals = network.Supplies.Where(s => s.Source.IsSource && network.Model.ThreePhase.IsSupplyOrLoad(s.Source.Line)).Select(s => s.NodeQ).Append(earth).ToHashSet();
+        var lines = supplyPoints.Where(p => !neutrals.Contains(p)).ToHashSet();
         var touching = network.Sections.SelectMany(s => new[] { (Node: s.NodeA, Section: s), (Node: s.NodeB, Section: s) }).ToLookup(x => x.Node, x => x.Section);
         var result = ImmutableArray.CreateBuilder<Connection>();
         foreach (var load in network.Loads)
@@ -117,8 +122,13 @@ public static class Connections
             var candidates = new SortedSet<int>(loadNodes.Where(a => a != earth).SelectMany(a => suppliesIn.GetValueOrDefault(sets.Find(a)) ?? []));
             if (candidates.Count == 0) continue;
             // The supply points the load's terminals are fed from, and the series winding between.
-            var fedB = FedFrom(touching, earth, load.NodeB, load.NodeA, supplyPoints);
-            var fedA = FedFrom(touching, earth, load.NodeA, fedB.Point, supplyPoints);
+            var fedB = FedFrom(touching, earth, load.NodeB, load.NodeA, supplyPoints, lines);
+            var fedA = FedFrom(touching, earth, load.NodeA, fedB.Point, supplyPoints, lines);
+            // Where supplies stand across the two points the load is fed from (a phase and its star point),
+            // they are what feeds it: another phase that shares no more than the star point with the load
+            // makes no connection with it. Else each supply with a terminal in reach does (two lines, two legs).
+            int[] fedPoints = [fedA.Point, fedB.Point];
+            var across = fedA.Point != fedB.Point && candidates.Any(i => fedPoints.All(p => network.Supplies[i].NodeP == p || network.Supplies[i].NodeQ == p));
             foreach (var supply in candidates.Select(i => network.Supplies[i]))
             {
                 int[] supplyNodes = [supply.NodeP, supply.NodeQ];
@@ -128,6 +138,7 @@ public static class Connections
                 // Sharing a supply terminal counts when the load's own terminal is on a winding, not a dead end.
                 var shared = loadNodes.Any(a => a != earth && supplyNodes.Contains(a)) && !loadNodes.All(supplyNodes.Contains) && coresIn.ContainsKey(sets.Find(own));
                 if (fed < 0 && !shared) continue;
+                if (across && !fedPoints.All(supplyNodes.Contains)) continue;
                 var island = sets.Find(fed >= 0 ? loadNodes[fed] : own);
                 var cores = (coresIn.GetValueOrDefault(island) ?? []).ToImmutableArray();
                 var common = loadNodes.Intersect(supplyNodes).ToImmutableArray();
@@ -150,11 +161,21 @@ public static class Connections
     /// winding): the terminal itself and none when a supply ends there, else the supply point fewest
     /// sections away along the windings (not through earth), other than <paramref name="other"/>
     /// (the point of the load's other terminal), so that a brush between two supply points is
-    /// compared with the voltage between them.
+    /// compared with the voltage between them. A line (<paramref name="lines"/>) is sought first: earth
+    /// and a star point are the feed only where no line is reached.
     /// </summary>
-    private static (int Point, ImmutableArray<int> Series) FedFrom(ILookup<int, Section> touching, int earth, int terminal, int other, HashSet<int> supplyPoints)
+    private static (int Point, ImmutableArray<int> Series) FedFrom(ILookup<int, Section> touching, int earth, int terminal, int other, HashSet<int> supplyPoints, HashSet<int> lines)
     {
         if (supplyPoints.Contains(terminal) || terminal == earth) return (terminal, []);
+        return Nearest(touching, earth, terminal, other, lines, supplyPoints) ?? Nearest(touching, earth, terminal, other, supplyPoints, supplyPoints) ?? (other, []);
+    }
+
+    /// <summary>
+    /// The one of <paramref name="points"/> fewest sections from the terminal, other than <paramref name="other"/>,
+    /// and the sections between; null if none is reached. The way goes on past no supply point but <paramref name="other"/>.
+    /// </summary>
+    private static (int Point, ImmutableArray<int> Series)? Nearest(ILookup<int, Section> touching, int earth, int terminal, int other, HashSet<int> points, HashSet<int> supplyPoints)
+    {
         var via = new Dictionary<int, Section?> { [terminal] = null };
         var frontier = new List<int> { terminal };
         while (frontier.Count > 0)
@@ -165,12 +186,12 @@ public static class Connections
                 {
                     var far = s.NodeA == node ? s.NodeB : s.NodeA;
                     if (!via.TryAdd(far, s)) continue;
-                    if (supplyPoints.Contains(far) && far != other) return (far, Path(far));
-                    if (far != earth) next.Add(far);
+                    if (points.Contains(far) && far != other) return (far, Path(far));
+                    if (far != earth && (far == other || !supplyPoints.Contains(far))) next.Add(far);
                 }
             frontier = next;
         }
-        return (other, []);
+        return null;
 
         ImmutableArray<int> Path(int end)
         {
