@@ -40,13 +40,7 @@ public class RefactorTests
         {
             var random = new Random(seed);
             var n = random.Next(2, 80);
-            var a = new SystemMatrix(n);
-            var permutation = Enumerable.Range(0, n).OrderBy(_ => random.Next()).ToArray();
-            for (var i = 0; i < n; i++)
-            {
-                a[i, permutation[i]] = new Complex(random.NextDouble() + 1, random.NextDouble());
-                for (var e = random.Next(0, 4); e > 0; e--) a[i, random.Next(n)] += new Complex(random.NextDouble() - 0.5, random.NextDouble() - 0.5);
-            }
+            var a = SparseLuTests.RandomRegular(random, n);
             var ones = Enumerable.Repeat(1.0, n).ToArray();
             var m = SparseRows.Of(a, ones, ones);
             var kept = new SymbolicFactors();

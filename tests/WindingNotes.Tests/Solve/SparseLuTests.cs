@@ -52,6 +52,19 @@ public class SparseLuTests
         Assert.True(large > 5, $"only {large} systems above the sparse threshold");
     }
 
+    /// <summary>A random sparse n × n matrix, regular by a permuted diagonal (zeros on the diagonal itself make pivoting needed), with up to three more entries a row.</summary>
+    internal static SystemMatrix RandomRegular(Random random, int n)
+    {
+        var a = new SystemMatrix(n);
+        var permutation = Enumerable.Range(0, n).OrderBy(_ => random.Next()).ToArray();
+        for (var i = 0; i < n; i++)
+        {
+            a[i, permutation[i]] = new Complex(random.NextDouble() + 1, random.NextDouble());
+            for (var e = random.Next(0, 4); e > 0; e--) a[i, random.Next(n)] += new Complex(random.NextDouble() - 0.5, random.NextDouble() - 0.5);
+        }
+        return a;
+    }
+
     [Fact]
     public void Random_sparse_matrices_and_their_adjoints_solve_to_rounding()
     {
@@ -59,14 +72,7 @@ public class SparseLuTests
         {
             var random = new Random(seed);
             var n = random.Next(1, 80);
-            var a = new SystemMatrix(n);
-            // A permuted diagonal keeps it regular; zeros on the diagonal itself make pivoting needed.
-            var permutation = Enumerable.Range(0, n).OrderBy(_ => random.Next()).ToArray();
-            for (var i = 0; i < n; i++)
-            {
-                a[i, permutation[i]] = new Complex(random.NextDouble() + 1, random.NextDouble());
-                for (var e = random.Next(0, 4); e > 0; e--) a[i, random.Next(n)] += new Complex(random.NextDouble() - 0.5, random.NextDouble() - 0.5);
-            }
+            var a = RandomRegular(random, n);
             var ones = Enumerable.Repeat(1.0, n).ToArray();
             var m = SparseRows.Of(a, ones, ones);
             var lu = SparseLu.Factor(m);
