@@ -184,9 +184,19 @@ internal sealed partial class BindRun
                 var said = line.Statement ?? line.Partial;
                 if (said is not null) broken.Add(said);
                 // A line of no known statement (or one refused as too long) gives no names: what
-                // its words are is unknown, and a rename could not keep them in step.
+                // its words are is unknown, and a rename could not keep them in step. A word after a
+                // number is its unit, not a name, as for the line's stray names: taken as a name, it
+                // hid an error about that name elsewhere that a rename (which leaves units) brought
+                // back (fuzz seed 6025812).
                 if (said is not null)
-                    foreach (var t in line.Tokens.Where(t => t.Kind is TokenKind.Word or TokenKind.Imaginary)) brokenWords.Add(t.Text);
+                {
+                    Token? before = null;
+                    foreach (var t in line.Tokens.Where(t => !t.IsTrivia))
+                    {
+                        if (before is not { Kind: TokenKind.Number or TokenKind.Imaginary } && t.Kind is TokenKind.Word or TokenKind.Imaginary) brokenWords.Add(t.Text);
+                        before = t;
+                    }
+                }
             }
             else if (line.Statement is { } statement) statements.Add(statement);
         }
