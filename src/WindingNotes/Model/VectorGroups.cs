@@ -40,7 +40,8 @@ public static class VectorGroups
         var windingIndex = new Dictionary<string, int>(StringComparer.Ordinal);
         foreach (var w in network.Windings) windingIndex.TryAdd(w.Name, w.Index);
         var windingsOn = three.Windings.ToLookup(w => w.Core, StringComparer.Ordinal);
-        var sectionsOn = network.Sections.ToLookup(s => network.Cores[s.Core].Name, StringComparer.Ordinal);
+        // A winding on a core the file does not declare has its sections on none (core -1).
+        var sectionsOn = network.Sections.Where(s => s.Core >= 0).ToLookup(s => network.Cores[s.Core].Name, StringComparer.Ordinal);
         foreach (var core in three.Cores)
         {
             var onCore = windingsOn[core.Name].Where(w => w.PhaseWindings.All(windingIndex.ContainsKey)).ToList();
@@ -92,7 +93,7 @@ public static class VectorGroups
     {
         if (network.Model.ThreePhase.Cores.FirstOrDefault(c => c.Name == core) is not { } three) return null;
         var limbOf = three.Limbs.Select((l, k) => (l, k)).ToDictionary(x => x.l, x => x.k, StringComparer.Ordinal);
-        var sections = network.Sections.Where(s => limbOf.ContainsKey(network.Cores[s.Core].Name)).ToList();
+        var sections = network.Sections.Where(s => s.Core >= 0 && limbOf.ContainsKey(network.Cores[s.Core].Name)).ToList();
         var (potential, conflict) = Walk(network, sections, s => Complex.Pow(Phases.A, -limbOf[network.Cores[s.Core].Name]), []);
         return conflict is null ? potential : null;
     }
