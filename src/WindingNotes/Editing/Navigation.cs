@@ -44,8 +44,9 @@ public static class Navigation
             return new RenameResult([], $"'{newName}' is a unit symbol: after a number it reads as the unit, not as a name");
         if (evaluation.Model.Symbols.Find(newName) is { } taken)
             return new RenameResult([], $"'{newName}' is already {taken.Describe()}");
-        // A use of the new name that binds to nothing yet would bind to the renamed symbol.
-        if (evaluation.Diagnostics.Any(d => d.Code == "unknown-name" && evaluation.Text[d.Span] == newName))
+        // A word the document writes that names nothing yet (a use not bound, a word on a line with an
+        // error, which hides errors about that name) would come to name the renamed symbol (fuzz seed 6022889).
+        if (evaluation.Syntax.Lines.Any(l => l.Tokens.Any(t => t.Kind == TokenKind.Word && t.Text == newName)))
             return new RenameResult([], $"'{newName}' is already used in the document, where it names nothing yet");
         // A three-phase element's phase elements (HV_a of HV) are renamed with it wherever they are written.
         var phases = evaluation.Model.Symbols.Symbols.Where(s => s.Derived && s.Owner == symbol.Name).ToList();

@@ -78,6 +78,18 @@ public class NavigationTests
     }
 
     [Fact]
+    public void Rename_refuses_a_name_a_line_with_an_error_writes()
+    {
+        // 'T9' stands only on a broken line, which hides errors about that name; renaming K1 to it made
+        // an error about the core disappear (fuzz seed 6022889).
+        var (evaluation, position) = Cursor.Parse(Boost("core K$01") + "core core 3 + j4 T9 rating 5 kVA\n");
+        Assert.Contains(evaluation.Diagnostics, d => d.Code == "syntax");
+        var result = Navigation.Rename(evaluation, position, "T9");
+        Assert.Empty(result.Edits);
+        Assert.Equal("'T9' is already used in the document, where it names nothing yet", result.Error);
+    }
+
+    [Fact]
     public void Rename_refuses_a_name_used_where_it_names_nothing_yet()
     {
         // 'K9' is an unknown core in the last line; renaming K1 to it would bind that use too.
