@@ -146,23 +146,10 @@ public class RebindingTests
     [Fact]
     public void A_load_cycle_of_a_let_binds_its_points_again()
     {
-        var text = """
-            frequency 50 Hz
-            let demand = 500 A
-            core T rating 100 kVA
-            winding HV on T rated 1000 V from H1 to H2
-            winding LV on T rated 100 V from X1 to X2
-            impedance HV LV 4 %
-            supply line H1 H2 1000 V
-            ground H2
-            ground X2
-            load L X1 X2 current demand pf 1
-            thermal T cooling ONAN top-oil-rise 52 K hot-spot-gradient 26 K loss-ratio 6 exponents 0.8 and 1.6
-            load-cycle of demand ambient 20 degC
-            cycle-point 0 h load 1200 A
-            cycle-point 8 h load 700 A
-            cycle-point 16 h load 300 A
-            """;
+        // The thermal tests' 100 kVA unit with its load's current a let.
+        var text = "let demand = 500 A\n" + ThermalTests.Unit("current demand pf 1",
+            "thermal T cooling ONAN top-oil-rise 52 K hot-spot-gradient 26 K loss-ratio 6 exponents 0.8 and 1.6",
+            "load-cycle of demand ambient 20 degC\ncycle-point 0 h load 1200 A\ncycle-point 8 h load 700 A\ncycle-point 16 h load 300 A");
         var syntax = Parser.Parse(text);
         var model = Binder.Bind(syntax);
         Assert.False(model.HasErrors, string.Join("; ", model.Diagnostics));

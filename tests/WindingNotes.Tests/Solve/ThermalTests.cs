@@ -14,7 +14,7 @@ public class ThermalTests
 {
     // An ideal 100 kVA, 1000/100 V unit without magnetising branch, feeding a constant-current load:
     // every winding's current is exactly known, so each winding's K is.
-    private static string Unit(string load, string thermal, string cycle) => $"""
+    internal static string Unit(string load, string thermal, string cycle) => $"""
         frequency 50 Hz
         core T rating 100 kVA
         winding HV on T rated 1000 V from H1 to H2
