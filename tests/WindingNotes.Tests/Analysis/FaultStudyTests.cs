@@ -26,14 +26,19 @@ public class FaultStudyTests
 
     internal static Complex Polar(double magnitude, double xr) => magnitude * new Complex(1, xr) / Math.Sqrt(1 + xr * xr);
 
-    // A delta-wye bank (Dyn11): 1500 kVA, 11 kV / 415 V, 6 % at X/R 8, on a 250 MVA source at X/R 10.
-    private const string DeltaWye = """
+    // A delta-wye bank (Dyn11): 1500 kVA, 11 kV / 415 V, 6 % at X/R 8, on a 250 MVA source at X/R 10,
+    // its neutral X0 not yet earthed.
+    internal const string DeltaWyeBank = """
         frequency 50 Hz
         core T1 construction bank rating 1500 kVA
         winding HV on T1 rated 11 kV delta H1 H2 H3
         winding LV on T1 rated 415 V wye X1 X2 X3 neutral X0
         impedance HV LV 6 % xr 8
         three-phase-supply grid H1 H2 H3 11 kV fault-level 250 MVA xr 10
+
+        """;
+
+    private const string DeltaWye = DeltaWyeBank + """
         ground X0
         bus-fault F3 X1 X2 X3 three-phase
         bus-fault LG X1 X2 X3 line-to-ground

@@ -16,14 +16,8 @@ namespace WindingNotes.Tests.Solve;
 public class GroundingTests
 {
     // A delta-wye bank (Dyn11): 1500 kVA, 11 kV / 415 V, 6 % at X/R 8, on a 250 MVA source at X/R 10;
-    // the wye's neutral earthed through 0.2 ohm (a resistor) unless a test says otherwise.
-    private const string Unit = """
-        frequency 50 Hz
-        core T1 construction bank rating 1500 kVA
-        winding HV on T1 rated 11 kV delta H1 H2 H3
-        winding LV on T1 rated 415 V wye X1 X2 X3 neutral X0
-        impedance HV LV 6 % xr 8
-        three-phase-supply grid H1 H2 H3 11 kV fault-level 250 MVA xr 10
+    // the wye's neutral earthed through 0.2 ohm (a resistor) unless a test says otherwise: the fault-study tests' bank.
+    private const string Unit = Analysis.FaultStudyTests.DeltaWyeBank + """
         ground X0 impedance 0.2 ohm
         bus-fault LG X1 X2 X3 line-to-ground
         fault-study equivalent-source
