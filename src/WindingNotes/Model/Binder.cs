@@ -530,7 +530,9 @@ internal sealed partial class BindRun
     /// </summary>
     private void CheckLonelyNodes()
     {
-        bool Real(Symbol s) => s.IsConnectionPoint && (s.Kind != SymbolKind.Node || nodeUses.GetValueOrDefault(s)?.Count > 1);
+        // A point a statement makes (a three-phase supply's star point `grid_n`) is touched by its maker.
+        bool Made(Symbol s) => s.Kind != SymbolKind.Node || s.Derived;
+        bool Real(Symbol s) => s.IsConnectionPoint && (Made(s) || nodeUses.GetValueOrDefault(s)?.Count > 1);
         var real = symbols.Symbols.Where(Real).Select(s => s.Name).ToList();
         // Each suggestion compares with every point: the first slips get one, up to about 100,000
         // comparisons in all, so a file of many thousand points stays linear in its length.
@@ -538,11 +540,11 @@ internal sealed partial class BindRun
         string? Nearest(string name) => suggestions-- > 0 ? Spelling.Nearest(name, real) : null;
         foreach (var (symbol, uses) in nodeUses)
         {
-            if (symbol.Kind != SymbolKind.Node || uses.Count > 1 || brokenUses.Contains(symbol) || MissingPoints) continue;
+            if (Made(symbol) || uses.Count > 1 || brokenUses.Contains(symbol) || MissingPoints) continue;
             diagnostics.ReportLonelyNode(symbol.Span, symbol.Name, Nearest(symbol.Name));
         }
         foreach (var (symbol, name) in observed)
-            if (symbol.Kind == SymbolKind.Node && !nodeUses.ContainsKey(symbol) && !brokenUses.Contains(symbol) && !MissingPoints)
+            if (!Made(symbol) && !nodeUses.ContainsKey(symbol) && !brokenUses.Contains(symbol) && !MissingPoints)
                 diagnostics.ReportUnknownName(name.Name, "terminal or node", Nearest(symbol.Name));
     }
 

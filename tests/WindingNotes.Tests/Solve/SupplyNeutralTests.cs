@@ -51,6 +51,37 @@ public class SupplyNeutralTests
         Assert.Equal(0, total.Imaginary);
     }
 
+    [Fact]
+    public void The_star_point_of_a_supply_is_a_point_a_load_and_a_check_may_name()
+    {
+        // 'grid_n' is the star point the supply statement makes; a lamp from line A to it was refused
+        // as a lonely node (the maker's own touch was not counted), and a check naming it alone as an
+        // unknown name. By hand: Z = 0, so the lamp sees the phase EMF 400/√3 = 230.94 V and draws
+        // 230.94/23.094 = 10 A, all of which returns through the star point.
+        var e = Wn.Solved("""
+            frequency 50 Hz
+            three-phase-supply grid A B C 400 V
+            load lamp A grid_n impedance 23.094 ohm
+            load motor B C impedance 40 ohm
+            expect voltage A grid_n between 225 V and 235 V
+
+            """);
+        var normal = e.Normal!;
+        Wn.Near(400 / Math.Sqrt(3), normal.Load("lamp").Voltage.Magnitude, 1e-9, "lamp voltage");
+        Wn.Near(400 / Math.Sqrt(3) / 23.094, normal.Load("lamp").Current.Magnitude, 1e-9, "lamp current");
+        Assert.True(Assert.Single(e.Checks).Passed);
+        var alone = Wn.Solved("""
+            frequency 50 Hz
+            three-phase-supply grid A B C 400 V
+            load motor B C impedance 40 ohm
+            load heater C A impedance 40 ohm
+            load fan A B impedance 40 ohm
+            expect voltage A grid_n between 225 V and 235 V
+
+            """);
+        Assert.True(Assert.Single(alone.Checks).Passed);
+    }
+
     // A single-phase booster fed from line H1 to earth of a supply earthed through its neutral
     // impedance: 230 turns from line to earth, 23 turns in series joined at H1, so the output stands
     // about 1 + 23/230 = 1.1 times the input. H2 and H3 feed a load of their own.
