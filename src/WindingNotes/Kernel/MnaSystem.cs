@@ -61,9 +61,9 @@ internal sealed class MnaSystem
         b = new Complex[Size];
     }
 
-    private MnaSystem(MnaSystem other, SystemMatrix a, ImmutableArray<NonlinearLoad> nonlinear)
+    private MnaSystem(MnaSystem other, SystemMatrix a, ImmutableArray<NonlinearLoad> nonlinear, Complex[]? rhs = null)
     {
-        (group, spec, nodeColumn, b) = (other.group, other.spec, other.nodeColumn, other.b);
+        (group, spec, nodeColumn, b) = (other.group, other.spec, other.nodeColumn, rhs ?? other.b);
         (SectionColumn, SupplyColumn, CoreColumn, FaultColumn, Unknowns, Size) = (other.SectionColumn, other.SupplyColumn, other.CoreColumn, other.FaultColumn, other.Unknowns, other.Size);
         (LinearLoads, HasSource) = (other.LinearLoads, other.HasSource);
         A = a;
@@ -166,6 +166,22 @@ internal sealed class MnaSystem
         a.Clear();
         Array.Clear(rhs);
         Stamp(network, a, rhs);
+    }
+
+    /// <summary>
+    /// This system with the numbers of <paramref name="network"/>, a network restamped on the wiring of
+    /// the one it was assembled for (<see cref="NetworkBuilder.Restamp"/>): the unknowns, their names,
+    /// the parts and the matrix's pattern stay; the values are stamped afresh into a copy, in the order
+    /// <see cref="Assemble"/> stamps them, so every entry is the number assembly would give.
+    /// </summary>
+    public MnaSystem Restamped(Network network)
+    {
+        var a = A.Clone();
+        var rhs = new Complex[Size];
+        a.Clear();
+        var (nonlinear, linear, hasSource) = Stamp(network, a, rhs);
+        a.Freeze();
+        return new MnaSystem(this, a, nonlinear, rhs) { LinearLoads = linear, HasSource = hasSource };
     }
 
     private (ImmutableArray<NonlinearLoad>, ImmutableArray<LinearLoad>, bool) Stamp(Network network, SystemMatrix A, Complex[] B)
