@@ -103,6 +103,36 @@ public class RebindingTests
     }
 
     /// <summary>
+    /// The bands kept number by number in the nominal's order (<see cref="BandSet"/>) are those of every
+    /// number's path written out and looked up, the minimum and maximum over the samples: here over
+    /// the Monte Carlo's samples, and over a case of another shape (the fault's: its numbers at other
+    /// places, found by their paths).
+    /// </summary>
+    [Fact]
+    public void Bands_kept_by_place_are_those_kept_by_path()
+    {
+        var syntax = Parser.Parse(MonteCarlo());
+        var model = Binder.Bind(syntax);
+        var rebinding = new Rebinding(syntax, model);
+        var nominal = Points.Solve(syntax, new BindOverrides { RatedFrequency = model.Frequency }, CaseSpec.Normal, withFaults: true, default);
+        var points = Tolerances.Plan(model, new DiagnosticBag()).Take(30)
+            .Select(s => rebinding.Solve(new BindOverrides { Deviations = s.Deviations, RatedFrequency = model.Frequency }, CaseSpec.Normal, withFaults: true, default)).ToList();
+        var cases = points.Select(p => p.Case!).Append(points[0].Faults[0]).ToList();
+        var bands = new BandSet(nominal.Case!);
+        foreach (var c in cases) bands.Add(c);
+        // By path: the nominal's numbers (the first of a path twice written), widened by each sample's of the same path.
+        var byPath = new Dictionary<string, (double Min, double Max)>();
+        foreach (var v in CaseValues.Of(nominal.Case!)) byPath.TryAdd(v.Path, (v.Value, v.Value));
+        foreach (var c in cases)
+            foreach (var v in CaseValues.Of(c))
+                if (byPath.TryGetValue(v.Path, out var r)) byPath[v.Path] = (Math.Min(r.Min, v.Value), Math.Max(r.Max, v.Value));
+        var expected = byPath.Where(r => r.Value.Max - r.Value.Min > 1e-9 * Math.Max(Math.Abs(r.Value.Min), Math.Abs(r.Value.Max))).ToList();
+        var got = bands.ToBands();
+        Assert.True(got.Length > 20, $"{got.Length} bands");
+        Assert.Equal(expected.Select(r => (r.Key, r.Value.Min, r.Value.Max)), got.Select(b => (b.Path, b.Min, b.Max)));
+    }
+
+    /// <summary>
     /// A let that moves tap P10 (at 260 turns between P9 at 234 and P11 at 286) from 200 to 300 turns:
     /// inside the stretch between two neighbouring taps only numbers change, and the point is restamped
     /// on the network of the point before; passing a neighbour (P8 at 208, P9, P11) changes which
