@@ -202,6 +202,8 @@ internal sealed class MnaSystem
             if (Column(b) is var cb and >= 0) A.Add(row, cb, -1);
         }
 
+        // The columns of a core's sections, found once per core (a part's sections go core by core) instead of once per entry of its matrix.
+        var (lastCore, coreSections) = (-1, Array.Empty<int>());
         foreach (var k in group.Sections)
         {
             var s = network.Sections[k];
@@ -211,9 +213,10 @@ internal sealed class MnaSystem
             var core = network.Cores[s.Core];
             A.Add(row, CoreColumn[s.Core], -s.Turns);
             A.Add(CoreColumn[s.Core], row, s.Turns);
+            if (s.Core != lastCore) (lastCore, coreSections) = (s.Core, [.. core.Sections.Select(q => SectionColumn[q])]);
             var r = core.Sections.IndexOf(k);
-            for (var c = 0; c < core.Sections.Length; c++)
-                A.Add(row, SectionColumn[core.Sections[c]], -core.Impedance[r, c]);
+            for (var c = 0; c < coreSections.Length; c++)
+                A.Add(row, coreSections[c], -core.Impedance[r, c]);
         }
         foreach (var c in group.Cores)
             A.Add(CoreColumn[c], CoreColumn[c], -network.Cores[c].Admittance);
