@@ -58,6 +58,16 @@ public static class Profile
             var bands = new BandSet(nominal.Case!);
             foreach (var p in sampled) bands.Add(p.Case!);
         });
+        Report("  the same by paths written out and looked up (BandSet before wn-restamp)", () =>
+        {
+            var index = new Dictionary<string, int>(StringComparer.Ordinal);
+            var ranges = new List<(double Min, double Max)>();
+            foreach (var v in CaseValues.Of(nominal.Case!))
+                if (index.TryAdd(v.Path, ranges.Count)) ranges.Add((v.Value, v.Value));
+            foreach (var p in sampled)
+                foreach (var v in CaseValues.Of(p.Case!))
+                    if (index.TryGetValue(v.Path, out var i)) ranges[i] = (Math.Min(ranges[i].Min, v.Value), Math.Max(ranges[i].Max, v.Value));
+        });
         Report("the checks of a sample (CheckTally.Observe)", () =>
         {
             var checks = new CheckTally([.. model.Expects]);
