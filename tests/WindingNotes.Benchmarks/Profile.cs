@@ -48,6 +48,32 @@ public static class Profile
             var r = new Rebinding(syntax, model);
             foreach (var o in overrides) r.Solve(o, CaseSpec.Normal, withFaults: true, default);
         });
+        Report("  of which: the network restamped on the first sample's (NetworkBuilder.Restamp)", () => { foreach (var m in models) NetworkBuilder.Restamp(networks[0], m); });
+        var loadedSystems = NetworkSolver.Systems(networks[0], CaseSpec.Normal);
+        Report("  of which: the loaded system restamped (MnaSystem.Restamped)", () => { foreach (var n in networks) foreach (var m in loadedSystems) m.Restamped(n); });
+        var nominal = Points.Solve(networks[0], CaseSpec.Normal, withFaults: false, default);
+        var sampled = networks.Select(n => Points.Solve(n, CaseSpec.Normal, withFaults: false, default)).ToArray();
+        Report("the bands over every number of the loaded case (BandSet.Add)", () =>
+        {
+            var bands = new BandSet(nominal.Case!);
+            foreach (var p in sampled) bands.Add(p.Case!);
+        });
+        Report("  the same by paths written out and looked up (BandSet before wn-restamp)", () =>
+        {
+            var index = new Dictionary<string, int>(StringComparer.Ordinal);
+            var ranges = new List<(double Min, double Max)>();
+            foreach (var v in CaseValues.Of(nominal.Case!))
+                if (index.TryAdd(v.Path, ranges.Count)) ranges.Add((v.Value, v.Value));
+            foreach (var p in sampled)
+                foreach (var v in CaseValues.Of(p.Case!))
+                    if (index.TryGetValue(v.Path, out var i)) ranges[i] = (Math.Min(ranges[i].Min, v.Value), Math.Max(ranges[i].Max, v.Value));
+        });
+        Report("the checks of a sample (CheckTally.Observe)", () =>
+        {
+            var checks = new CheckTally([.. model.Expects]);
+            checks.BeginPoint(nominal.Case!.Case.Where);
+            foreach (var p in sampled) checks.Observe(p.Case!, "in a sample");
+        });
         var system = MnaSystem.Assemble(networks[0], SolveGroup.Find(networks[0], CaseSpec.Normal).Single(g => g.Supplies.Count > 0), Islands.References(networks[0], []), CaseSpec.Normal);
         var ones = Enumerable.Repeat(1.0, system.Size).ToArray();
         var rows = SparseRows.Of(system.A, ones, ones);

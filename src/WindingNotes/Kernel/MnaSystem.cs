@@ -61,9 +61,9 @@ internal sealed class MnaSystem
         b = new Complex[Size];
     }
 
-    private MnaSystem(MnaSystem other, SystemMatrix a, ImmutableArray<NonlinearLoad> nonlinear)
+    private MnaSystem(MnaSystem other, SystemMatrix a, ImmutableArray<NonlinearLoad> nonlinear, Complex[]? rhs = null)
     {
-        (group, spec, nodeColumn, b) = (other.group, other.spec, other.nodeColumn, other.b);
+        (group, spec, nodeColumn, b) = (other.group, other.spec, other.nodeColumn, rhs ?? other.b);
         (SectionColumn, SupplyColumn, CoreColumn, FaultColumn, Unknowns, Size) = (other.SectionColumn, other.SupplyColumn, other.CoreColumn, other.FaultColumn, other.Unknowns, other.Size);
         (LinearLoads, HasSource) = (other.LinearLoads, other.HasSource);
         A = a;
@@ -168,6 +168,22 @@ internal sealed class MnaSystem
         Stamp(network, a, rhs);
     }
 
+    /// <summary>
+    /// This system with the numbers of <paramref name="network"/>, a network restamped on the wiring of
+    /// the one it was assembled for (<see cref="NetworkBuilder.Restamp"/>): the unknowns, their names,
+    /// the parts and the matrix's pattern stay; the values are stamped afresh into a copy, in the order
+    /// <see cref="Assemble"/> stamps them, so every entry is the number assembly would give.
+    /// </summary>
+    public MnaSystem Restamped(Network network)
+    {
+        var a = A.Clone();
+        var rhs = new Complex[Size];
+        a.Clear();
+        var (nonlinear, linear, hasSource) = Stamp(network, a, rhs);
+        a.Freeze();
+        return new MnaSystem(this, a, nonlinear, rhs) { LinearLoads = linear, HasSource = hasSource };
+    }
+
     private (ImmutableArray<NonlinearLoad>, ImmutableArray<LinearLoad>, bool) Stamp(Network network, SystemMatrix A, Complex[] B)
     {
         var nonlinear = ImmutableArray.CreateBuilder<NonlinearLoad>();
@@ -186,6 +202,8 @@ internal sealed class MnaSystem
             if (Column(b) is var cb and >= 0) A.Add(row, cb, -1);
         }
 
+        // The columns of a core's sections, found once per core (a part's sections go core by core) instead of once per entry of its matrix.
+        var (lastCore, coreSections) = (-1, Array.Empty<int>());
         foreach (var k in group.Sections)
         {
             var s = network.Sections[k];
@@ -195,9 +213,10 @@ internal sealed class MnaSystem
             var core = network.Cores[s.Core];
             A.Add(row, CoreColumn[s.Core], -s.Turns);
             A.Add(CoreColumn[s.Core], row, s.Turns);
+            if (s.Core != lastCore) (lastCore, coreSections) = (s.Core, [.. core.Sections.Select(q => SectionColumn[q])]);
             var r = core.Sections.IndexOf(k);
-            for (var c = 0; c < core.Sections.Length; c++)
-                A.Add(row, SectionColumn[core.Sections[c]], -core.Impedance[r, c]);
+            for (var c = 0; c < coreSections.Length; c++)
+                A.Add(row, coreSections[c], -core.Impedance[r, c]);
         }
         foreach (var c in group.Cores)
             A.Add(CoreColumn[c], CoreColumn[c], -network.Cores[c].Admittance);

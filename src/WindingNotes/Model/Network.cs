@@ -103,6 +103,9 @@ public sealed record Network(
     /// <summary>The limbs of three-phase cores linked through their yokes.</summary>
     public ImmutableArray<MagneticCoupling> Couplings { get; init; } = [];
 
+    /// <summary>How many of <see cref="Diagnostics"/>, first, come of the values (turns, leakage, supplies); the rest come of the wiring (<see cref="NetworkBuilder.Restamp"/> keeps those).</summary>
+    internal int ValueDiagnostics { get; init; }
+
     /// <summary>The vector group of each three-phase core with two or more three-phase windings, from the wiring.</summary>
     public ImmutableArray<VectorGroup> VectorGroups { get; init; } = [];
 }

@@ -13,6 +13,18 @@ public static class NetworkBuilder
 {
     public static Network Build(Model model) => new BuildRun(model).Run();
 
+    /// <summary>
+    /// The network of <paramref name="model"/> restamped on <paramref name="built"/>'s wiring, without
+    /// building it afresh: for a model that differs from <paramref name="built"/>'s only in values (a
+    /// tolerance sample, a let). Turns, sections, resistances, leakage, supplies and loads are computed
+    /// as <see cref="Build"/> computes them, with their messages; the nodes, and the messages that
+    /// depend on the wiring alone (islands without a ground or a source), are the built network's.
+    /// Null, and the caller builds in full, where the values change the wiring (a tap passing another,
+    /// a supply or a winding left out, a leakage member of other sections), where they give an error,
+    /// and for three-phase units (their vector groups follow the turns).
+    /// </summary>
+    public static Network? Restamp(Network built, Model model) => new BuildRun(model).Restamp(built);
+
     /// <summary>A tap's place on its winding in turns from the from end; NaN where volts are given and the winding has no rating.</summary>
     internal static double Turns(TapModel tap, WindingNet w) => tap.Unit switch
     {
@@ -27,7 +39,8 @@ public static class NetworkBuilder
     private sealed class BuildRun(Model model)
     {
         private readonly DiagnosticBag diagnostics = new();
-        private readonly Dictionary<string, int> nodeOf = new(StringComparer.Ordinal);
+        /// <summary>The node of each point: found by <see cref="BuildNodes"/>, or the built network's when restamping.</summary>
+        private IDictionary<string, int> nodeOf = new Dictionary<string, int>(StringComparer.Ordinal);
         private ImmutableArray<NetworkNode> nodes = [];
         private readonly Dictionary<string, WindingNet> windingNamed = new(StringComparer.Ordinal);
         private readonly ILookup<string, NoLoadModel> noLoadsOf = model.NoLoads.ToLookup(n => n.Core, StringComparer.Ordinal);
@@ -47,10 +60,78 @@ public static class NetworkBuilder
             var network = new Network(model, nodes, nodeOf.ToImmutableDictionary(), windings, sections, cores, supplies, loads, [])
             {
                 Couplings = MagneticCircuit.Couplings(model, windings, cores, diagnostics),
+                ValueDiagnostics = diagnostics.Count,
             };
             WarnIslands(network);
             network = network with { VectorGroups = VectorGroups.Find(network, diagnostics) };
             return network with { Diagnostics = diagnostics.ToImmutable() };
+        }
+
+        public Network? Restamp(Network built)
+        {
+            if (!model.ThreePhase.Cores.IsEmpty || !built.VectorGroups.IsEmpty) return null;
+            (nodes, nodeOf) = (built.Nodes, built.NodeOfPoint);
+            var windings = BuildWindings();
+            if (!SameWindings(built.Windings, windings)) return null;
+            var sections = BuildSections(windings);
+            if (!SameSections(built.Sections, sections)) return null;
+            var sectionsOf = sections.ToLookup(s => s.Core);
+            foreach (var w in windings) windingNamed.TryAdd(w.Name, w);
+            var linesOf = model.Impedances.ToLookup(l => windingNamed.GetValueOrDefault(l.First.Winding)?.Core ?? -1);
+            var cores = model.Cores.Select((c, i) => BuildCore(c, i, windings, [.. sectionsOf[i]], linesOf[i])).ToImmutableArray();
+            if (!SameCores(built.Cores, cores)) return null;
+            var supplies = BuildSupplies();
+            if (!SameSupplies(built.Supplies, supplies)) return null;
+            var loads = model.Loads.Select((l, i) => new LoadNet(i, l, nodeOf[l.A.Name], nodeOf[l.B.Name])).ToImmutableArray();
+            var couplings = MagneticCircuit.Couplings(model, windings, cores, diagnostics);
+            if (diagnostics.HasErrors || couplings.Length != built.Couplings.Length) return null;
+            // The values' messages are this model's, in the builder's order; those of the wiring follow them.
+            return built with
+            {
+                Model = model, Windings = windings, Sections = sections, Cores = cores, Supplies = supplies, Loads = loads, Couplings = couplings,
+                Diagnostics = [.. diagnostics, .. built.Diagnostics.AsSpan()[built.ValueDiagnostics..]], ValueDiagnostics = diagnostics.Count,
+            };
+        }
+
+        private static bool SameWindings(ImmutableArray<WindingNet> built, ImmutableArray<WindingNet> now)
+        {
+            if (built.Length != now.Length) return false;
+            for (var i = 0; i < now.Length; i++)
+                if (built[i].Core != now[i].Core || built[i].Name != now[i].Name) return false;
+            return true;
+        }
+
+        private static bool SameSections(ImmutableArray<Section> built, ImmutableArray<Section> now)
+        {
+            if (built.Length != now.Length) return false;
+            for (var k = 0; k < now.Length; k++)
+            {
+                var (a, b) = (built[k], now[k]);
+                if (a.Winding != b.Winding || a.Core != b.Core || a.NodeA != b.NodeA || a.NodeB != b.NodeB
+                    || a.FromPoint != b.FromPoint || a.ToPoint != b.ToPoint || a.Name != b.Name) return false;
+            }
+            return true;
+        }
+
+        /// <summary>The same sections on each core in the same leakage members, and the same open-circuit test winding.</summary>
+        private static bool SameCores(ImmutableArray<CoreNet> built, ImmutableArray<CoreNet> now)
+        {
+            if (built.Length != now.Length) return false;
+            for (var c = 0; c < now.Length; c++)
+            {
+                var (a, b) = (built[c], now[c]);
+                if (!a.Sections.SequenceEqual(b.Sections) || a.NoLoadWinding != b.NoLoadWinding
+                    || a.Coupling is null || b.Coupling is null || !a.Coupling.MemberOf.AsSpan().SequenceEqual(b.Coupling.MemberOf)) return false;
+            }
+            return true;
+        }
+
+        private static bool SameSupplies(ImmutableArray<SupplyNet> built, ImmutableArray<SupplyNet> now)
+        {
+            if (built.Length != now.Length) return false;
+            for (var i = 0; i < now.Length; i++)
+                if (built[i].NodeP != now[i].NodeP || built[i].NodeQ != now[i].NodeQ || built[i].Source.IsSource != now[i].Source.IsSource) return false;
+            return true;
         }
 
         private void BuildNodes()

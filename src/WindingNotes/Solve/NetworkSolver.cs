@@ -46,6 +46,35 @@ public static class NetworkSolver
         return faulted.Count > 0 ? solution with { Scope = ScopeOf(network, spec, faulted) } : solution;
     }
 
+    /// <summary>The systems of the parts with a source of a case without a fault, assembled as <see cref="Solve(Network, CaseSpec, SymbolicFactors?, CancellationToken)"/> assembles them.</summary>
+    internal static List<MnaSystem> Systems(Network network, CaseSpec spec)
+    {
+        var wiring = Wiring.Of(network);
+        Func<int, bool> isReference = n => wiring.IsReference(n, -1, -1);
+        return [.. SolveGroup.Find(network, spec).Where(g => g.Supplies.Count > 0).Select(g => MnaSystem.Assemble(network, g, isReference, spec))];
+    }
+
+    /// <summary>
+    /// A case without a fault solved on its parts' systems already assembled (restamped on a kept
+    /// network's: <see cref="MnaSystem.Restamped"/>), as <see cref="Solve(Network, CaseSpec, SymbolicFactors?, CancellationToken)"/> solves them.
+    /// </summary>
+    internal static Solution Solve(Network network, CaseSpec spec, IEnumerable<MnaSystem> systems, SymbolicFactors? kept, CancellationToken cancel)
+    {
+        var diagnostics = new DiagnosticBag();
+        var parts = new List<(MnaSystem, Complex[])>();
+        var solved = true;
+        foreach (var system in systems)
+        {
+            cancel.ThrowIfCancellationRequested();
+            var m = system;
+            var x = SolveSystem(ref m, network, diagnostics, kept, cancel);
+            if (x is null) solved = false;
+            else parts.Add((m, x));
+        }
+        var found = spec == CaseSpec.Normal ? diagnostics.ToImmutable() : [.. diagnostics.Select(d => d with { Case = spec.Name })];
+        return Collect(network, spec, parts, solved, found);
+    }
+
     /// <summary>The elements of the parts, and their points: those on their nodes, and at earth those their elements name.</summary>
     private static CaseScope ScopeOf(Network network, CaseSpec spec, List<SolveGroup> groups)
     {

@@ -13,7 +13,13 @@ namespace WindingNotes.Solve;
 /// the one built for an earlier such point (the base) with the new loads, solved by updating the
 /// base's factors in the columns of the loads' nodes, loaded and without loads (as
 /// <see cref="LoadScaling"/> does for a load cycle); an update refused is a full solve. Anything
-/// else is built and solved in full. Whatever cannot be bound again alone is bound in full.
+/// else (a tolerance sample, a let of a supply, a winding, a tap or the leakage) is restamped on the
+/// network of an earlier point built in full (<see cref="NetworkBuilder.Restamp"/>): the nodes, the
+/// parts and their systems' unknowns and patterns are that network's, only the numbers are stamped
+/// again (<see cref="MnaSystem.Restamped"/>), and each case is solved in full on them, refactored
+/// on the kept pivots; where the values change the wiring or give a message of their own, the point
+/// is built and solved in full (and becomes the network restamped on). Whatever cannot be bound
+/// again alone is bound in full.
 /// </summary>
 internal sealed class Rebinding(SyntaxTree syntax, Model.Model nominal)
 {
@@ -33,6 +39,11 @@ internal sealed class Rebinding(SyntaxTree syntax, Model.Model nominal)
 
     private int retired;
 
+    private Stamped? stamped;
+
+    /// <summary>How many points were restamped on a network built for an earlier point (for tests: the path is taken).</summary>
+    public int Restamped { get; private set; }
+
     public PointResult Solve(BindOverrides overrides, CaseSpec spec, bool withFaults, CancellationToken cancel)
     {
         if (Binder.Rebind(nominal, overrides) is not var (model, loadsOnly)) return Points.Solve(syntax, overrides, spec, withFaults, cancel);
@@ -44,13 +55,40 @@ internal sealed class Rebinding(SyntaxTree syntax, Model.Model nominal)
             var point = Points.Solve(moved, spec, withFaults: false, c => b.Solve(moved, c, factors, cancel), cancel);
             return point with { Diagnostics = [.. b.Diagnostics, .. point.Diagnostics] };
         }
+        // A let sweep of loads keeps to its update (above); a point of it built in full is its next base.
+        if (!(loadsOnly && !withFaults) && !model.HasErrors && !model.Supplies.IsEmpty && stamped is { } s && NetworkBuilder.Restamp(s.Network, model) is { } network)
+        {
+            Restamped++;
+            var point = Points.Solve(network, spec, withFaults, c => s.Solve(network, c, factors, cancel), cancel, factors);
+            return point with { Diagnostics = [.. model.Diagnostics, .. network.Diagnostics, .. point.Diagnostics] };
+        }
         var general = Points.Solve(model, spec, withFaults, factors, cancel);
         if (loadsOnly && !withFaults)
         {
             retired += current?.Updated ?? 0;
             current = Base.Of(general);
         }
+        else stamped = Stamped.Of(general) ?? stamped;
         return general;
+    }
+
+    /// <summary>A network built in full and solved, and its cases' systems without a fault, to restamp.</summary>
+    private sealed class Stamped(Network network)
+    {
+        private readonly Dictionary<bool, List<MnaSystem>> systems = [];
+
+        public Network Network => network;
+
+        public static Stamped? Of(PointResult p) => p.Case?.Solution.Network is { } n ? new Stamped(n) : null;
+
+        /// <summary>A case of <paramref name="changed"/>, restamped from this network: solved on this network's systems with its numbers.</summary>
+        public Solution Solve(Network changed, CaseSpec spec, SymbolicFactors factors, CancellationToken cancel)
+        {
+            cancel.ThrowIfCancellationRequested();
+            if (spec.Fault is not null) return NetworkSolver.Solve(changed, spec, factors, cancel);
+            if (!systems.TryGetValue(spec.WithoutLoads, out var kept)) systems[spec.WithoutLoads] = kept = NetworkSolver.Systems(network, spec);
+            return NetworkSolver.Solve(changed, spec, kept.Select(m => m.Restamped(changed)), factors, cancel);
+        }
     }
 
     /// <summary>A network solved the general way with no message from its solves, and its factors, loaded and without loads.</summary>

@@ -49,29 +49,68 @@ public static class Tolerances
     }
 }
 
-/// <summary>The range of every number of a case over the tolerance samples, kept by the paths of the case as written.</summary>
-internal sealed class BandSet
+/// <summary>
+/// The range of every number of a case over the tolerance samples, kept by the paths of the case as
+/// written. A sample's numbers come in the nominal's order (<see cref="CaseValues.Walk"/>): each is
+/// matched to the nominal's number at its place by comparing its path's parts with that number's path,
+/// without writing the path out; a number whose path differs there (a sample of another shape) is
+/// found by its path written out, as a number the nominal lacks is left out.
+/// </summary>
+internal sealed class BandSet : CaseValues.ISink
 {
     private readonly Dictionary<string, int> index = new(StringComparer.Ordinal);
     private readonly List<(string Path, string Unit, double Min, double Max)> ranges = [];
+
+    /// <summary>The range each of the nominal's numbers goes to, by its place (a path written twice goes to its first range).</summary>
+    private readonly List<int> order = [];
+
+    private readonly List<string> parts = [];
+    private int place;
 
     public BandSet(CaseResult nominal)
     {
         foreach (var v in CaseValues.Of(nominal))
         {
-            if (!index.TryAdd(v.Path, ranges.Count)) continue;
-            ranges.Add((v.Path, v.Unit, v.Value, v.Value));
+            if (index.TryAdd(v.Path, ranges.Count)) ranges.Add((v.Path, v.Unit, v.Value, v.Value));
+            order.Add(index[v.Path]);
         }
     }
 
     public void Add(CaseResult sample)
     {
-        foreach (var v in CaseValues.Of(sample))
+        place = 0;
+        parts.Clear();
+        CaseValues.Walk(sample, this);
+    }
+
+    void CaseValues.ISink.Enter(string part) => parts.Add(part);
+
+    void CaseValues.ISink.Leave() => parts.RemoveAt(parts.Count - 1);
+
+    void CaseValues.ISink.Here(double value, string unit)
+    {
+        var at = place < order.Count && IsPath(ranges[order[place]].Path) ? order[place] : index.GetValueOrDefault(string.Join(".", parts), -1);
+        place++;
+        if (at < 0) return;
+        var r = ranges[at];
+        ranges[at] = r with { Min = Math.Min(r.Min, value), Max = Math.Max(r.Max, value) };
+    }
+
+    /// <summary>Whether the parts entered, joined by dots, are <paramref name="path"/>.</summary>
+    private bool IsPath(string path)
+    {
+        var rest = path.AsSpan();
+        for (var i = 0; i < parts.Count; i++)
         {
-            if (!index.TryGetValue(v.Path, out var i)) continue;
-            var r = ranges[i];
-            ranges[i] = r with { Min = Math.Min(r.Min, v.Value), Max = Math.Max(r.Max, v.Value) };
+            if (i > 0)
+            {
+                if (rest.IsEmpty || rest[0] != '.') return false;
+                rest = rest[1..];
+            }
+            if (!rest.StartsWith(parts[i], StringComparison.Ordinal)) return false;
+            rest = rest[parts[i].Length..];
         }
+        return rest.IsEmpty;
     }
 
     /// <summary>The results that vary by more than rounding.</summary>

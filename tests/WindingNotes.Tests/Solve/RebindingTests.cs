@@ -96,8 +96,113 @@ public class RebindingTests
             foreach (var (f, g) in full.Faults.Zip(fast.Faults)) BrushSweepTests.AssertSame(f, g, $"{sample.Where}, {f.Case.Name}");
         }
         Assert.Equal(samples.Length / 20, rebinding.Rebound);
+        // The first sample is built in full; every other is restamped on its network (no value changes the wiring).
+        Assert.Equal(samples.Length / 20 - 1, rebinding.Restamped);
         // Each sample's three cases (loaded, without loads, the fault) refactor on the first sample's pivots.
         Assert.True(rebinding.Refactorisations.Refactored >= 3 * (samples.Length / 20 - 1), $"{rebinding.Refactorisations} refactorisations");
+    }
+
+    /// <summary>
+    /// The bands kept number by number in the nominal's order (<see cref="BandSet"/>) are those of every
+    /// number's path written out and looked up, the minimum and maximum over the samples: here over
+    /// the Monte Carlo's samples, and over a case of another shape (the fault's: its numbers at other
+    /// places, found by their paths).
+    /// </summary>
+    [Fact]
+    public void Bands_kept_by_place_are_those_kept_by_path()
+    {
+        var syntax = Parser.Parse(MonteCarlo());
+        var model = Binder.Bind(syntax);
+        var rebinding = new Rebinding(syntax, model);
+        var nominal = Points.Solve(syntax, new BindOverrides { RatedFrequency = model.Frequency }, CaseSpec.Normal, withFaults: true, default);
+        var points = Tolerances.Plan(model, new DiagnosticBag()).Take(30)
+            .Select(s => rebinding.Solve(new BindOverrides { Deviations = s.Deviations, RatedFrequency = model.Frequency }, CaseSpec.Normal, withFaults: true, default)).ToList();
+        var cases = points.Select(p => p.Case!).Append(points[0].Faults[0]).ToList();
+        var bands = new BandSet(nominal.Case!);
+        foreach (var c in cases) bands.Add(c);
+        // By path: the nominal's numbers (the first of a path twice written), widened by each sample's of the same path.
+        var byPath = new Dictionary<string, (double Min, double Max)>();
+        foreach (var v in CaseValues.Of(nominal.Case!)) byPath.TryAdd(v.Path, (v.Value, v.Value));
+        foreach (var c in cases)
+            foreach (var v in CaseValues.Of(c))
+                if (byPath.TryGetValue(v.Path, out var r)) byPath[v.Path] = (Math.Min(r.Min, v.Value), Math.Max(r.Max, v.Value));
+        var expected = byPath.Where(r => r.Value.Max - r.Value.Min > 1e-9 * Math.Max(Math.Abs(r.Value.Min), Math.Abs(r.Value.Max))).ToList();
+        var got = bands.ToBands();
+        Assert.True(got.Length > 20, $"{got.Length} bands");
+        Assert.Equal(expected.Select(r => (r.Key, r.Value.Min, r.Value.Max)), got.Select(b => (b.Path, b.Min, b.Max)));
+    }
+
+    /// <summary>
+    /// A let that moves tap P10 (at 260 turns between P9 at 234 and P11 at 286) from 200 to 300 turns:
+    /// inside the stretch between two neighbouring taps only numbers change, and the point is restamped
+    /// on the network of the point before; passing a neighbour (P8 at 208, P9, P11) changes which
+    /// points the sections run between, and the point is built in full. Every point equals the full solve.
+    /// </summary>
+    [Fact]
+    public void A_tap_that_passes_another_is_built_in_full_and_the_others_are_restamped()
+    {
+        var text = BrushSweepTests.TwentySections(sweep: "sweep t from 200 turns to 300 turns points 21")
+            .Replace("tap P10 on P at 260 turns", "tap P10 on P at t").Replace("frequency 60 Hz", "frequency 60 Hz\nlet t = 260 turns");
+        var syntax = Parser.Parse(text);
+        var model = Binder.Bind(syntax);
+        Assert.False(model.HasErrors, string.Join("; ", model.Diagnostics));
+        var axes = Sweeps.Plan(model, new DiagnosticBag());
+        Assert.Equal(21, Sweeps.Count(axes));
+        var rebinding = new Rebinding(syntax, model);
+        // Between which neighbours the tap lies: 182 (P7) 208 (P8) 234 (P9) 286 (P11) 312 (P12).
+        static int Stretch(double turns) => new[] { 208.0, 234, 286 }.Count(b => turns > b);
+        var previous = -1;
+        for (long k = 0; k < 21; k++)
+        {
+            var (overrides, labels) = Sweeps.Point(axes, k);
+            overrides = overrides with { RatedFrequency = model.Frequency };
+            var spec = CaseSpec.ForSweep(labels);
+            var before = rebinding.Restamped;
+            AssertSamePoint(Points.Solve(syntax, overrides, spec, withFaults: false, default), rebinding.Solve(overrides, spec, withFaults: false, default), spec.Where);
+            var stretch = Stretch(200 + 5 * k);
+            Assert.Equal(stretch == previous, rebinding.Restamped == before + 1);
+            previous = stretch;
+        }
+        // Four stretches: 200–205, 210–230, 235–285, 290–300 turns.
+        Assert.Equal(21 - 4, rebinding.Restamped);
+
+        // The builder's own test, directly: built at 260 turns, the same wiring at 240, another at 230 (P9 passed).
+        WindingNotes.Model.Model At(long k) => Binder.Rebind(model, Sweeps.Point(axes, k).Overrides with { RatedFrequency = model.Frequency })!.Value.Model;
+        var built = NetworkBuilder.Build(At(12));
+        Assert.NotNull(NetworkBuilder.Restamp(built, built.Model));
+        Assert.NotNull(NetworkBuilder.Restamp(built, At(8)));
+        Assert.Null(NetworkBuilder.Restamp(built, At(6)));
+    }
+
+    /// <summary>Every example with tolerances: its samples through <see cref="Rebinding"/> (restamped where they can be) equal the full bind, build and solve.</summary>
+    [Fact]
+    public void Every_example_tolerance_sample_equals_the_full_solve()
+    {
+        var examples = Directory.GetFiles(Path.Combine(Snapshot.RepositoryRoot, "examples"), "*.wn").Order(StringComparer.Ordinal).ToList();
+        var (samplesSeen, restamped) = (0, 0);
+        foreach (var path in examples)
+        {
+            var syntax = Parser.Parse(File.ReadAllText(path).Replace("\r\n", "\n"));
+            var model = Binder.Bind(syntax);
+            if (model.HasErrors) continue;
+            var samples = Tolerances.Plan(model, new DiagnosticBag());
+            if (samples.IsEmpty) continue;
+            var rebinding = new Rebinding(syntax, model);
+            foreach (var sample in samples.Take(40))
+            {
+                var overrides = new BindOverrides { Deviations = sample.Deviations, RatedFrequency = model.Frequency };
+                var where = $"{Path.GetFileName(path)} {sample.Where}";
+                var full = Points.Solve(syntax, overrides, CaseSpec.Normal, withFaults: true, default);
+                var fast = rebinding.Solve(overrides, CaseSpec.Normal, withFaults: true, default);
+                AssertSamePoint(full, fast, where);
+                Assert.Equal(full.Faults.Length, fast.Faults.Length);
+                foreach (var (f, g) in full.Faults.Zip(fast.Faults)) BrushSweepTests.AssertSame(f, g, $"{where}, {f.Case.Name}");
+                samplesSeen++;
+            }
+            restamped += rebinding.Restamped;
+        }
+        Assert.True(samplesSeen > 0);
+        Assert.True(restamped > 0);
     }
 
     [Fact]
