@@ -339,20 +339,55 @@ public static class Results
         // Phase elements too: the co-ratio and the rating needed are taken from the series windings' own
         // V·I, never from one phase element's voltage against another's, so a three-phase statement
         // gets the figures of the same network written phase by phase.
-        var connections = Solve.Connections.Find(network).ToList();
-        var carried = connections.GroupBy(c => c.Island).ToDictionary(g => g.Key,
-            g => g.SelectMany(c => c.Series).Distinct().Sum(s => solution.SectionVoltage(network.Sections[s]).Magnitude * solution.SectionCurrents[s].Magnitude));
-        // A load fed from several islands shares its throughput among them equally, so the co-ratio of
-        // each is its series windings' V·I over its part (three units in grounded wye under a delta load).
-        var islands = connections.GroupBy(c => c.Load.Index).ToDictionary(g => g.Key, g => g.Select(c => c.Island).Distinct().Count());
-        var throughput = connections.DistinctBy(c => (c.Island, c.Load.Index)).GroupBy(c => c.Island)
-            .ToDictionary(g => g.Key, g => g.Sum(c => loads[c.Load.Index].Power.Magnitude / islands[c.Load.Index]));
-        return [.. connections.Select(c =>
+        var connections = Solve.Connections.Find(network);
+        if (connections.IsEmpty) return [];
+        var shape = ConnectionShape.Of(connections);
+        var carried = new double[shape.Islands.Length];
+        var throughput = new double[shape.Islands.Length];
+        for (var g = 0; g < carried.Length; g++)
         {
-            double? coRatio = throughput[c.Island] > 0 ? carried[c.Island] / throughput[c.Island] : null;
+            var (series, shared) = shape.Islands[g];
+            carried[g] = series.Sum(s => solution.SectionVoltage(network.Sections[s]).Magnitude * solution.SectionCurrents[s].Magnitude);
+            throughput[g] = shared.Sum(x => loads[x.Load].Power.Magnitude / x.Islands);
+        }
+        var results = ImmutableArray.CreateBuilder<ConnectionResult>(connections.Length);
+        for (var i = 0; i < connections.Length; i++)
+        {
+            var (c, g) = (connections[i], shape.IslandOf[i]);
+            double? coRatio = throughput[g] > 0 ? carried[g] / throughput[g] : null;
             var s = loads[c.Load.Index].Power.Magnitude;
-            return new ConnectionResult(c, coRatio, s, s * coRatio ?? 0);
-        })];
+            results.Add(new ConnectionResult(c, coRatio, s, s * coRatio ?? 0));
+        }
+        return results.MoveToImmutable();
+    }
+
+    /// <summary>
+    /// What the co-ratios of a network's connections add up, which the wiring alone fixes: found once
+    /// per list of connections (the same at every point of a sweep) instead of grouped at every case.
+    /// Each island of a connection, in order of first use: its series sections, each once, and its
+    /// loads, each once, with the number of islands each is fed from. A load fed from several islands
+    /// shares its throughput among them equally, so the co-ratio of each is its series windings' V·I
+    /// over its part (three units in grounded wye under a delta load).
+    /// </summary>
+    private sealed class ConnectionShape
+    {
+        private static readonly ConditionalWeakTable<Connection[], ConnectionShape> Known = new();
+
+        public readonly (int[] Series, (int Load, int Islands)[] Loads)[] Islands;
+        public readonly int[] IslandOf;
+
+        private ConnectionShape(ImmutableArray<Connection> connections)
+        {
+            var islands = connections.GroupBy(c => c.Load.Index).ToDictionary(g => g.Key, g => g.Select(c => c.Island).Distinct().Count());
+            var groups = connections.GroupBy(c => c.Island).ToList();
+            Islands = [.. groups.Select(g => (
+                g.SelectMany(c => c.Series).Distinct().ToArray(),
+                g.DistinctBy(c => c.Load.Index).Select(c => (c.Load.Index, islands[c.Load.Index])).ToArray()))];
+            IslandOf = [.. connections.Select(c => groups.FindIndex(g => g.Key == c.Island))];
+        }
+
+        public static ConnectionShape Of(ImmutableArray<Connection> connections) =>
+            Known.GetValue(ImmutableCollectionsMarshal.AsArray(connections)!, static a => new ConnectionShape(ImmutableCollectionsMarshal.AsImmutableArray(a)));
     }
 
     /// <summary>A product of phasors carries rounding of 1e-16 of its size; a part that small is zero.</summary>
