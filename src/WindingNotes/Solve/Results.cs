@@ -220,7 +220,7 @@ public static class Results
         var network = solution.Network;
         var model = network.Model;
         var scope = solution.Scope;
-        var points = PointsOf(model, scope)
+        var points = scope is null ? AllPoints(network, solution) : PointsOf(model, scope)
             .Select(p => (p.Name, solution.Voltage(network.Node(p.Name)))).ToImmutableArray();
 
         var losses = SectionLosses(network, solution, scope);
@@ -293,6 +293,25 @@ public static class Results
     /// </summary>
     internal static IEnumerable<T> InScope<T>(ImmutableArray<T> all, IReadOnlySet<int>? scope) =>
         scope is null ? all : scope.Order().Select(i => all[i]);
+
+    /// <summary>Every point of the model with its voltage, its node found once per list of points and nodes (the same at every point of a sweep).</summary>
+    private static ImmutableArray<(string Point, Complex Voltage)> AllPoints(Network network, Solution solution)
+    {
+        var points = network.Model.Points;
+        var key = ImmutableCollectionsMarshal.AsArray(points)!;
+        if (!PointNodes.TryGetValue(key, out var known) || known.Nodes != network.NodeOfPoint)
+        {
+            known = new NodesOfPoints(network.NodeOfPoint, [.. points.Select(p => network.Node(p.Name))]);
+            PointNodes.AddOrUpdate(key, known);
+        }
+        var result = ImmutableArray.CreateBuilder<(string, Complex)>(points.Length);
+        for (var i = 0; i < points.Length; i++) result.Add((points[i].Name, solution.Voltage(known.Of[i])));
+        return result.MoveToImmutable();
+    }
+
+    private sealed record NodesOfPoints(ImmutableDictionary<string, int> Nodes, int[] Of);
+
+    private static readonly ConditionalWeakTable<Symbol[], NodesOfPoints> PointNodes = new();
 
     /// <summary>The model's points a scope names, in the model's order; all of them without one.</summary>
     private static IEnumerable<Symbol> PointsOf(Model.Model model, CaseScope? scope)
