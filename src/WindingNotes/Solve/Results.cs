@@ -346,7 +346,8 @@ public static class Results
         }
         // The difference of two equal currents through a tap is zero, not the solver's rounding (picoamperes of kiloamperes).
         var taps = network.Model.Taps;
-        var order = Order.Of(taps, t => t.Name, firstOnly: true);
+        // Found by the network's nodes, which a moved brush keeps, not by its list of taps, which it makes again.
+        var order = Order.Of(taps, t => t.Name, firstOnly: true, ImmutableCollectionsMarshal.AsArray(network.Nodes)!);
         // A tap's first line names it: those of the sections' points, in the model's order.
         return [.. (order is null ? taps.DistinctBy(t => t.Name).Where(t => at.ContainsKey(t.Name)) : order.Pick(taps, at.Keys))
             .Select(t => new TapResult(t.Name, network.Windings[at[t.Name].Winding], Numbers.Clean(at[t.Name].Current, at[t.Name].Scale)))];
@@ -510,6 +511,30 @@ internal sealed class Order
         for (var i = 0; i < list.Length; i++)
             if (!position.TryAdd(name(list[i]), i) && !firstOnly) return null;
         return kept[slot] = new Order(position);
+    }
+
+    private static readonly ConditionalWeakTable<object, Named?[]> Owned = new();
+
+    private sealed record Named(string[] Names, Order? Order);
+
+    /// <summary>
+    /// The same, kept with <paramref name="owner"/> for any list of the same names in the same order:
+    /// a sweep point's network has a list of taps of its own (a brush moved), with the names of the
+    /// one before, and its order is not found again nor kept for every point's list.
+    /// </summary>
+    public static Order? Of<T>(ImmutableArray<T> list, Func<T, string> name, bool firstOnly, object owner)
+    {
+        var kept = Owned.GetValue(owner, static _ => new Named?[2]);
+        var slot = firstOnly ? 0 : 1;
+        if (kept[slot] is { } known && known.Names.Length == list.Length)
+        {
+            var same = true;
+            for (var i = 0; i < list.Length && same; i++) same = known.Names[i] == name(list[i]);
+            if (same) return known.Order;
+        }
+        var order = Of(list, name, firstOnly);
+        kept[slot] = new Named([.. list.Select(name)], order);
+        return order;
     }
 
     /// <summary>The entries of <paramref name="list"/> (the list this order is of) that <paramref name="names"/> name, in the list's order.</summary>
