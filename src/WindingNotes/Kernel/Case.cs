@@ -27,7 +27,20 @@ public sealed record CaseSpec(string Name, bool WithoutLoads = false, FaultModel
     public bool IsSweepPoint => !Sweep.IsEmpty;
 
     /// <summary>How messages name the case: "BR=25 %" for a sweep point, "as written" for the normal case.</summary>
-    public string Where => IsSweepPoint ? string.Join(" ", Sweep) : Fault is not null ? Name : "as written";
+    public string Where => IsSweepPoint ? SweepWords() : Fault is not null ? Name : "as written";
+
+    /// <summary>A sweep point's values worded once (the checks, the ratings and the cautions each ask where it is), kept with the list they word, so a copy with other values words its own.</summary>
+    private string SweepWords()
+    {
+        if (words is { } w && w.Of == Sweep) return w.Text;
+        var text = string.Join(" ", Sweep);
+        words = new Words(Sweep, text);
+        return text;
+    }
+
+    private Words? words;
+
+    private sealed record Words(ImmutableArray<SweepValue> Of, string Text);
 
     public static CaseSpec ForFault(FaultModel fault) => new($"fault {fault.Name}", Fault: fault);
 

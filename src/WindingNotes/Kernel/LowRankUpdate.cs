@@ -36,6 +36,9 @@ internal sealed class LowRankUpdate
     private readonly Complex[][] work;
     private Complex[,] small = new Complex[0, 0];
     private readonly Dictionary<string, Complex[][]> solves = [];
+    private int[] lastS = [];
+    private Complex[][]? lastW;
+    private readonly Complex[] scaledB, product;
 
     private LowRankUpdate(MnaSystem first, double[] rows, double[] columns, SparseLu lu)
     {
@@ -46,6 +49,7 @@ internal sealed class LowRankUpdate
         z = lu.Solve(firstB);
         inS = new bool[first.Size];
         work = [new Complex[first.Size], new Complex[first.Size]];
+        (scaledB, product) = (new Complex[first.Size], new Complex[first.Size]);
     }
 
     public MnaSystem System => first;
@@ -80,12 +84,14 @@ internal sealed class LowRankUpdate
         Array.Clear(inS);
         foreach (var i in s) inS[i] = true;
         var k = s.Length;
-        var b = Scaled(scratchB);
+        var b = scaledB;
+        for (var i = 0; i < n; i++) b[i] = scratchB[i] * rows[i];
         var zb = b.AsSpan().SequenceEqual(firstB) ? z : lu.Solve(b);
         // W = A⁻¹·[E_S C]: the unit solves are kept for the next point that changes the same S,
-        // and so are the arrays for A⁻¹·C.
-        var key = string.Join(",", s);
-        if (!solves.TryGetValue(key, out var w))
+        // and so are the arrays for A⁻¹·C (a sweep's points change the same S one after another).
+        Complex[][] w;
+        if (lastW is not null && s.AsSpan().SequenceEqual(lastS)) w = lastW;
+        else if (!solves.TryGetValue(string.Join(",", s), out w!))
         {
             w = new Complex[2 * k][];
             for (var t = 0; t < k; t++)
@@ -95,8 +101,9 @@ internal sealed class LowRankUpdate
                 w[t] = lu.Solve(e);
                 w[k + t] = new Complex[n];
             }
-            solves[key] = w;
+            solves[string.Join(",", s)] = w;
         }
+        (lastS, lastW) = (s, w);
         // Column s_t of Δ outside S: the stamps are structurally symmetric, so its rows are the
         // columns of row s_t (the new matrix has the first one's entries and perhaps more). An entry
         // missed where that does not hold would show in the residual below and refuse the point.
@@ -147,7 +154,8 @@ internal sealed class LowRankUpdate
     private double Residual(SystemMatrix a, Complex[] x, Complex[] b)
     {
         var n = b.Length;
-        var ax = new Complex[n];
+        var ax = product;
+        Array.Clear(ax);
         double norm = 0;
         for (var i = 0; i < n; i++)
         {

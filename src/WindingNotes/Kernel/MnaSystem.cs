@@ -165,7 +165,7 @@ internal sealed class MnaSystem
     {
         a.Clear();
         Array.Clear(rhs);
-        Stamp(network, a, rhs);
+        Stamp(network, a, rhs, collect: false);
     }
 
     /// <summary>
@@ -184,10 +184,11 @@ internal sealed class MnaSystem
         return new MnaSystem(this, a, nonlinear, rhs) { LinearLoads = linear, HasSource = hasSource };
     }
 
-    private (ImmutableArray<NonlinearLoad>, ImmutableArray<LinearLoad>, bool) Stamp(Network network, SystemMatrix A, Complex[] B)
+    /// <param name="collect">Whether to list the loads (assembly does; a restamp keeps the first system's lists).</param>
+    private (ImmutableArray<NonlinearLoad>, ImmutableArray<LinearLoad>, bool) Stamp(Network network, SystemMatrix A, Complex[] B, bool collect = true)
     {
-        var nonlinear = ImmutableArray.CreateBuilder<NonlinearLoad>();
-        var linear = ImmutableArray.CreateBuilder<LinearLoad>();
+        var nonlinear = collect ? ImmutableArray.CreateBuilder<NonlinearLoad>() : null;
+        var linear = collect ? ImmutableArray.CreateBuilder<LinearLoad>() : null;
         var hasSource = false;
         // Branch current leaving node a and entering node b.
         void Branch(int column, int a, int b)
@@ -202,21 +203,19 @@ internal sealed class MnaSystem
             if (Column(b) is var cb and >= 0) A.Add(row, cb, -1);
         }
 
-        // The columns of a core's sections, found once per core (a part's sections go core by core) instead of once per entry of its matrix.
-        var (lastCore, coreSections) = (-1, Array.Empty<int>());
-        foreach (var k in group.Sections)
+        // The same entries as Branch, Across and the core's row for each section, in the same order.
+        foreach (var (k, row, ca, cb, coreColumn, r, columns) in SectionPlaces(network))
         {
             var s = network.Sections[k];
-            var row = SectionColumn[k];
-            Branch(row, s.NodeA, s.NodeB);
-            Across(row, s.NodeA, s.NodeB);
+            if (ca >= 0) A.Add(ca, row, 1);
+            if (cb >= 0) A.Add(cb, row, -1);
+            if (ca >= 0) A.Add(row, ca, 1);
+            if (cb >= 0) A.Add(row, cb, -1);
             var core = network.Cores[s.Core];
-            A.Add(row, CoreColumn[s.Core], -s.Turns);
-            A.Add(CoreColumn[s.Core], row, s.Turns);
-            if (s.Core != lastCore) (lastCore, coreSections) = (s.Core, [.. core.Sections.Select(q => SectionColumn[q])]);
-            var r = core.Sections.IndexOf(k);
-            for (var c = 0; c < coreSections.Length; c++)
-                A.Add(row, coreSections[c], -core.Impedance[r, c]);
+            A.Add(row, coreColumn, -s.Turns);
+            A.Add(coreColumn, row, s.Turns);
+            for (var c = 0; c < columns.Length; c++)
+                A.Add(row, columns[c], -core.Impedance[r, c]);
         }
         foreach (var c in group.Cores)
             A.Add(CoreColumn[c], CoreColumn[c], -network.Cores[c].Admittance);
@@ -254,11 +253,47 @@ internal sealed class MnaSystem
                 var y = Complex.Conjugate(l.Source.S0) / (l.Source.V0 * l.Source.V0);
                 if (ca >= 0) { A.Add(ca, ca, y); if (cb >= 0) A.Add(ca, cb, -y); }
                 if (cb >= 0) { A.Add(cb, cb, y); if (ca >= 0) A.Add(cb, ca, -y); }
-                linear.Add(new LinearLoad(i, ca, cb));
+                linear?.Add(new LinearLoad(i, ca, cb));
             }
-            else nonlinear.Add(new NonlinearLoad(i, ca, cb, l.Source.S0, l.Source.V0, l.Source.Exponent));
+            else nonlinear?.Add(new NonlinearLoad(i, ca, cb, l.Source.S0, l.Source.V0, l.Source.Exponent));
         }
-        return (nonlinear.ToImmutable(), linear.ToImmutable(), hasSource);
+        return (nonlinear?.ToImmutable() ?? [], linear?.ToImmutable() ?? [], hasSource);
+    }
+
+    /// <summary>Where each section of the part is stamped: its row, its nodes' columns, its core's column, its place among the core's sections and their columns.</summary>
+    private readonly record struct SectionPlace(int Section, int Row, int ColumnA, int ColumnB, int CoreColumn, int Position, int[] CoreSections);
+
+    private sealed record Places(ImmutableArray<Section> Sections, SectionPlace[] Found);
+
+    private Places? places;
+
+    /// <summary>
+    /// The section places of this part, found once from the network's sections (a network of the
+    /// same shape, a brush moved, has the same list when its turns are all that changed, or a list
+    /// of the same wiring): every stamp of a sweep point would otherwise look each up by dictionary.
+    /// </summary>
+    private SectionPlace[] SectionPlaces(Network network)
+    {
+        if (places is { } p && (p.Sections == network.Sections || SameWiring(p.Sections, network.Sections))) return p.Found;
+        var found = new SectionPlace[group.Sections.Count];
+        for (var i = 0; i < found.Length; i++)
+        {
+            var k = group.Sections[i];
+            var s = network.Sections[k];
+            var core = network.Cores[s.Core];
+            found[i] = new SectionPlace(k, SectionColumn[k], Column(s.NodeA), Column(s.NodeB), CoreColumn[s.Core], core.Sections.IndexOf(k),
+                [.. core.Sections.Select(c => SectionColumn[c])]);
+        }
+        places = new Places(network.Sections, found);
+        return found;
+
+        static bool SameWiring(ImmutableArray<Section> a, ImmutableArray<Section> b)
+        {
+            if (a.Length != b.Length) return false;
+            for (var i = 0; i < a.Length; i++)
+                if (a[i].NodeA != b[i].NodeA || a[i].NodeB != b[i].NodeB || a[i].Core != b[i].Core) return false;
+            return true;
+        }
     }
 
     /// <summary>Where a node is named; a node the file does not name (a phase's, a test's) is where the first element on it is written.</summary>

@@ -24,7 +24,10 @@ internal sealed class BrushSweep(SyntaxTree syntax, Model.Model model)
 
     /// <summary>Whether the overrides move only brushes, the one change this path knows.</summary>
     public bool Covers(BindOverrides overrides) =>
-        overrides.Deviations.IsEmpty && overrides.Values.Keys.All(name => model.Taps.Any(t => t.IsBrush && t.Name == name));
+        overrides.Deviations.IsEmpty && overrides.Values.Keys.All(brushes.Contains);
+
+    /// <summary>The names of the model's brushes, found once for every point.</summary>
+    private readonly HashSet<string> brushes = [.. model.Taps.Where(t => t.IsBrush).Select(t => t.Name)];
 
     public PointResult Solve(BindOverrides overrides, CaseSpec spec, CancellationToken cancel)
     {
@@ -51,8 +54,8 @@ internal sealed class BrushSweep(SyntaxTree syntax, Model.Model model)
 
         public static Base? Of(PointResult p)
         {
-            if (p.Case is not { } c || !c.Solution.Diagnostics.IsEmpty || p.NoLoad is { } n && !n.Solution.Diagnostics.IsEmpty) return null;
-            if (c.Solution.Network.Loads.Length > 0 && p.NoLoad is null) return null;
+            if (p.Case is not { } c || !c.Solution.Diagnostics.IsEmpty || p.NoLoadSolution is { } n && !n.Diagnostics.IsEmpty) return null;
+            if (c.Solution.Network.Loads.Length > 0 && p.NoLoadSolution is null) return null;
             return new Base(c.Solution.Network, p.Diagnostics);
         }
 
@@ -66,14 +69,19 @@ internal sealed class BrushSweep(SyntaxTree syntax, Model.Model model)
         /// <summary>The unknowns whose rows and columns a move can change: the sections whose turns differ, and their cores.</summary>
         private int[] Changed(MnaSystem m, Network moved)
         {
-            var changed = new SortedSet<int>();
+            var changed = new List<int>(4);
             foreach (var (k, column) in m.SectionColumn)
                 if (moved.Sections[k].Turns != network.Sections[k].Turns)
                 {
                     changed.Add(column);
                     changed.Add(m.CoreColumn[moved.Sections[k].Core]);
                 }
-            return [.. changed];
+            changed.Sort();
+            // In increasing order, each once.
+            var distinct = 0;
+            for (var i = 0; i < changed.Count; i++)
+                if (i == 0 || changed[i] != changed[distinct - 1]) changed[distinct++] = changed[i];
+            return [.. changed.Take(distinct)];
         }
     }
 }

@@ -10,9 +10,25 @@ namespace WindingNotes.Solve;
 /// The document solved at one set of values: its case (normal or a sweep point), the same network
 /// without loads (for regulation and excitation at no load), and the fault cases when asked for.
 /// </summary>
-public sealed record PointResult(CaseResult? Case, CaseResult? NoLoad, ImmutableArray<CaseResult> Faults, ImmutableArray<Diagnostic> Diagnostics)
+public sealed record PointResult(CaseResult? Case, Solution? NoLoadSolution, ImmutableArray<CaseResult> Faults, ImmutableArray<Diagnostic> Diagnostics)
 {
     public bool Solved => Case is not null;
+
+    /// <summary>
+    /// The results of the network without loads (the case itself where it has none), made when first
+    /// asked for: a sweep point's regulation and excitation read only the no-load solution, so most
+    /// points never make them.
+    /// </summary>
+    public CaseResult? NoLoad => noLoad ??= Case is { } c && c.Solution.Network.Loads.IsEmpty ? c
+        : NoLoadSolution is { } s ? Results.Compute(s, null) : null;
+
+    private CaseResult? noLoad;
+
+    /// <summary>Equal points: the same case, no-load solution, faults and messages (the results made on first use are no part of it).</summary>
+    public bool Equals(PointResult? other) => other is not null && (ReferenceEquals(this, other) ||
+        Case == other.Case && NoLoadSolution == other.NoLoadSolution && Sequences.Equal(Faults, other.Faults) && Sequences.Equal(Diagnostics, other.Diagnostics));
+
+    public override int GetHashCode() => HashCode.Combine(Case, NoLoadSolution);
 }
 
 /// <summary>
@@ -61,8 +77,6 @@ public static class Points
             if (solved.Solved) noLoad = solved;
         }
         var result = Results.Compute(main, noLoad);
-        // Without loads the case itself is the no-load condition.
-        var noLoadResult = network.Loads.IsEmpty ? result : noLoad is null ? null : Results.Compute(noLoad, null);
         var faults = ImmutableArray.CreateBuilder<CaseResult>();
         if (withFaults && !network.Model.Faults.IsEmpty)
         {
@@ -71,6 +85,6 @@ public static class Points
             foreach (var fault in network.Model.Faults)
                 if (Faults.Solve(network, fault, main, noLoad, diagnostics, cancel, loaded, kept) is { } solved) faults.Add(solved);
         }
-        return new PointResult(result, noLoadResult, faults.ToImmutable(), diagnostics.ToImmutable());
+        return new PointResult(result, noLoad, faults.ToImmutable(), diagnostics.ToImmutable());
     }
 }

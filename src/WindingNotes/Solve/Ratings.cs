@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using System.Numerics;
+using WindingNotes.Kernel;
 using WindingNotes.Model;
 using WindingNotes.Text;
 
@@ -22,7 +23,10 @@ public sealed class RatingTally
     private readonly Dictionary<(string Code, string Key), Finding> findings = [];
     private readonly List<(string Code, string Key)> order = [];
     private int points;
-    private string point = "";
+    private string? point;
+    private CaseSpec pointCase = CaseSpec.Normal;
+    private readonly HashSet<(string, string)> seen = [];
+    private (ImmutableArray<WindingNet> Windings, ILookup<int, WindingNet> RatedOn) rated;
 
     private sealed record Finding(string Code, TextSpan Span, string Name, double Value, double Limit, string Where, int Count, string Detail);
 
@@ -30,12 +34,14 @@ public sealed class RatingTally
     {
         if (p.Case is not { } c) return;
         points++;
-        point = c.Case.Where == "as written" ? "" : $"at {c.Case.Where}";
-        var seen = new HashSet<(string, string)>();
+        // Where the point is, worded only when something there is over its rating.
+        (point, pointCase) = (null, c.Case);
+        seen.Clear();
         void Found(string code, string key, TextSpan span, string name, double value, double limit, string detail = "")
         {
             var id = (code, key);
             if (!seen.Add(id)) return;
+            point ??= pointCase.Where == "as written" ? "" : $"at {pointCase.Where}";
             if (!findings.TryGetValue(id, out var f))
             {
                 order.Add(id);
@@ -66,12 +72,22 @@ public sealed class RatingTally
         foreach (var (t, r) in regulators)
             if (r!.Current > r.CurrentRating!.Value * (1 + 1e-9))
                 Found("regulator-current-high", t.Name, t.NameSpan, t.Name, r.Current, r.CurrentRating.Value, DiagnosticBag.RegulatorLimitText(r));
-        Excitation(c, network, c.Loads.Length > 0 && !c.Case.WithoutLoads, Found);
-        if (p.NoLoad is { } noLoad && noLoad != c) Excitation(noLoad, network, false, Found);
-        var carried = c.Taps.ToDictionary(t => t.Point, t => t.Current.Magnitude);
-        foreach (var brush in network.Model.Taps.Where(t => t.IsBrush && t.CurrentLimit is not null))
+        // The windings that state a rated voltage, by core: the network's wiring, the same at every point of a sweep.
+        if (rated.Windings != network.Windings)
+            rated = (network.Windings, network.Windings.Where(w => w.Source.Rated is not null && w.Turns > 0).ToLookup(w => w.Core));
+        Excitation(c.Solution, network, rated.RatedOn, c.Loads.Length > 0 && !c.Case.WithoutLoads, Found);
+        if (p.NoLoadSolution is { } noLoad) Excitation(noLoad, network, rated.RatedOn, false, Found);
+        foreach (var brush in network.Model.Taps)
         {
-            var current = carried.GetValueOrDefault(brush.Name);
+            if (!brush.IsBrush || brush.CurrentLimit is null) continue;
+            // The current of the tap result of its name (each name once in a case's taps).
+            var current = 0.0;
+            foreach (var t in c.Taps)
+                if (t.Point == brush.Name)
+                {
+                    current = t.Current.Magnitude;
+                    break;
+                }
             if (current > brush.CurrentLimit!.Value * (1 + 1e-9)) Found("brush-current-high", brush.Name, brush.NameSpan, brush.Name, current, brush.CurrentLimit.Value);
         }
         var islands = c.Connections.GroupBy(x => x.Connection.Load.Index).ToDictionary(g => g.Key, g => g.Select(x => x.Connection.Island).Distinct().Count());
@@ -99,15 +115,14 @@ public sealed class RatingTally
     /// voltage below its rated frequency is over-excited: at 50 Hz a 60 Hz core at rated voltage is
     /// at 120 %.
     /// </summary>
-    private static void Excitation(CaseResult c, Network network, bool onLoad, Action<string, string, TextSpan, string, double, double, string> found)
+    private static void Excitation(Solution solution, Network network, ILookup<int, WindingNet> ratedOn, bool onLoad, Action<string, string, TextSpan, string, double, double, string> found)
     {
         var limit = onLoad ? OnLoadExcitation : NoLoadExcitation;
-        var ratedOn = network.Windings.Where(w => w.Source.Rated is not null && w.Turns > 0).ToLookup(w => w.Core);
         foreach (var core in network.Cores)
         {
             var rated = ratedOn[core.Index].FirstOrDefault();
             if (rated is null) continue;
-            var ratio = c.Solution.CoreVoltsPerTurn[core.Index].Magnitude / (rated.Source.Rated!.Value / rated.Turns)
+            var ratio = solution.CoreVoltsPerTurn[core.Index].Magnitude / (rated.Source.Rated!.Value / rated.Turns)
                 * network.Model.RatedFrequencyOf(core.Source) / network.Model.Frequency;
             if (ratio > limit * (1 + 1e-9))
                 found("overexcited", $"{core.Name}/{(onLoad ? "load" : "no-load")}", core.Source.NameSpan, core.Name, ratio, limit, onLoad ? "on load" : "at no load");

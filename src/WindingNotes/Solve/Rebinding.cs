@@ -104,8 +104,8 @@ internal sealed class Rebinding(SyntaxTree syntax, Model.Model nominal)
 
         public static Base? Of(PointResult p)
         {
-            if (p.Case is not { } c || !c.Solution.Diagnostics.IsEmpty || p.NoLoad is { } n && !n.Solution.Diagnostics.IsEmpty) return null;
-            if (c.Solution.Network.Loads.Length > 0 && p.NoLoad is null) return null;
+            if (p.Case is not { } c || !c.Solution.Diagnostics.IsEmpty || p.NoLoadSolution is { } n && !n.Diagnostics.IsEmpty) return null;
+            if (c.Solution.Network.Loads.Length > 0 && p.NoLoadSolution is null) return null;
             return new Base(c.Solution.Network, p.Diagnostics);
         }
 

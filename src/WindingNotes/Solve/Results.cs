@@ -220,7 +220,7 @@ public static class Results
         var network = solution.Network;
         var model = network.Model;
         var scope = solution.Scope;
-        var points = PointsOf(model, scope)
+        var points = scope is null ? AllPoints(network, solution) : PointsOf(model, scope)
             .Select(p => (p.Name, solution.Voltage(network.Node(p.Name)))).ToImmutableArray();
 
         var losses = SectionLosses(network, solution, scope);
@@ -294,6 +294,25 @@ public static class Results
     internal static IEnumerable<T> InScope<T>(ImmutableArray<T> all, IReadOnlySet<int>? scope) =>
         scope is null ? all : scope.Order().Select(i => all[i]);
 
+    /// <summary>Every point of the model with its voltage, its node found once per list of points and nodes (the same at every point of a sweep).</summary>
+    private static ImmutableArray<(string Point, Complex Voltage)> AllPoints(Network network, Solution solution)
+    {
+        var points = network.Model.Points;
+        var key = ImmutableCollectionsMarshal.AsArray(points)!;
+        if (!PointNodes.TryGetValue(key, out var known) || known.Nodes != network.NodeOfPoint)
+        {
+            known = new NodesOfPoints(network.NodeOfPoint, [.. points.Select(p => network.Node(p.Name))]);
+            PointNodes.AddOrUpdate(key, known);
+        }
+        var result = ImmutableArray.CreateBuilder<(string, Complex)>(points.Length);
+        for (var i = 0; i < points.Length; i++) result.Add((points[i].Name, solution.Voltage(known.Of[i])));
+        return result.MoveToImmutable();
+    }
+
+    private sealed record NodesOfPoints(ImmutableDictionary<string, int> Nodes, int[] Of);
+
+    private static readonly ConditionalWeakTable<Symbol[], NodesOfPoints> PointNodes = new();
+
     /// <summary>The model's points a scope names, in the model's order; all of them without one.</summary>
     private static IEnumerable<Symbol> PointsOf(Model.Model model, CaseScope? scope)
     {
@@ -327,7 +346,8 @@ public static class Results
         }
         // The difference of two equal currents through a tap is zero, not the solver's rounding (picoamperes of kiloamperes).
         var taps = network.Model.Taps;
-        var order = Order.Of(taps, t => t.Name, firstOnly: true);
+        // Found by the network's nodes, which a moved brush keeps, not by its list of taps, which it makes again.
+        var order = Order.Of(taps, t => t.Name, firstOnly: true, ImmutableCollectionsMarshal.AsArray(network.Nodes)!);
         // A tap's first line names it: those of the sections' points, in the model's order.
         return [.. (order is null ? taps.DistinctBy(t => t.Name).Where(t => at.ContainsKey(t.Name)) : order.Pick(taps, at.Keys))
             .Select(t => new TapResult(t.Name, network.Windings[at[t.Name].Winding], Numbers.Clean(at[t.Name].Current, at[t.Name].Scale)))];
@@ -339,20 +359,55 @@ public static class Results
         // Phase elements too: the co-ratio and the rating needed are taken from the series windings' own
         // V·I, never from one phase element's voltage against another's, so a three-phase statement
         // gets the figures of the same network written phase by phase.
-        var connections = Solve.Connections.Find(network).ToList();
-        var carried = connections.GroupBy(c => c.Island).ToDictionary(g => g.Key,
-            g => g.SelectMany(c => c.Series).Distinct().Sum(s => solution.SectionVoltage(network.Sections[s]).Magnitude * solution.SectionCurrents[s].Magnitude));
-        // A load fed from several islands shares its throughput among them equally, so the co-ratio of
-        // each is its series windings' V·I over its part (three units in grounded wye under a delta load).
-        var islands = connections.GroupBy(c => c.Load.Index).ToDictionary(g => g.Key, g => g.Select(c => c.Island).Distinct().Count());
-        var throughput = connections.DistinctBy(c => (c.Island, c.Load.Index)).GroupBy(c => c.Island)
-            .ToDictionary(g => g.Key, g => g.Sum(c => loads[c.Load.Index].Power.Magnitude / islands[c.Load.Index]));
-        return [.. connections.Select(c =>
+        var connections = Solve.Connections.Find(network);
+        if (connections.IsEmpty) return [];
+        var shape = ConnectionShape.Of(connections);
+        var carried = new double[shape.Islands.Length];
+        var throughput = new double[shape.Islands.Length];
+        for (var g = 0; g < carried.Length; g++)
         {
-            double? coRatio = throughput[c.Island] > 0 ? carried[c.Island] / throughput[c.Island] : null;
+            var (series, shared) = shape.Islands[g];
+            carried[g] = series.Sum(s => solution.SectionVoltage(network.Sections[s]).Magnitude * solution.SectionCurrents[s].Magnitude);
+            throughput[g] = shared.Sum(x => loads[x.Load].Power.Magnitude / x.Islands);
+        }
+        var results = ImmutableArray.CreateBuilder<ConnectionResult>(connections.Length);
+        for (var i = 0; i < connections.Length; i++)
+        {
+            var (c, g) = (connections[i], shape.IslandOf[i]);
+            double? coRatio = throughput[g] > 0 ? carried[g] / throughput[g] : null;
             var s = loads[c.Load.Index].Power.Magnitude;
-            return new ConnectionResult(c, coRatio, s, s * coRatio ?? 0);
-        })];
+            results.Add(new ConnectionResult(c, coRatio, s, s * coRatio ?? 0));
+        }
+        return results.MoveToImmutable();
+    }
+
+    /// <summary>
+    /// What the co-ratios of a network's connections add up, which the wiring alone fixes: found once
+    /// per list of connections (the same at every point of a sweep) instead of grouped at every case.
+    /// Each island of a connection, in order of first use: its series sections, each once, and its
+    /// loads, each once, with the number of islands each is fed from. A load fed from several islands
+    /// shares its throughput among them equally, so the co-ratio of each is its series windings' V·I
+    /// over its part (three units in grounded wye under a delta load).
+    /// </summary>
+    private sealed class ConnectionShape
+    {
+        private static readonly ConditionalWeakTable<Connection[], ConnectionShape> Known = new();
+
+        public readonly (int[] Series, (int Load, int Islands)[] Loads)[] Islands;
+        public readonly int[] IslandOf;
+
+        private ConnectionShape(ImmutableArray<Connection> connections)
+        {
+            var islands = connections.GroupBy(c => c.Load.Index).ToDictionary(g => g.Key, g => g.Select(c => c.Island).Distinct().Count());
+            var groups = connections.GroupBy(c => c.Island).ToList();
+            Islands = [.. groups.Select(g => (
+                g.SelectMany(c => c.Series).Distinct().ToArray(),
+                g.DistinctBy(c => c.Load.Index).Select(c => (c.Load.Index, islands[c.Load.Index])).ToArray()))];
+            IslandOf = [.. connections.Select(c => groups.FindIndex(g => g.Key == c.Island))];
+        }
+
+        public static ConnectionShape Of(ImmutableArray<Connection> connections) =>
+            Known.GetValue(ImmutableCollectionsMarshal.AsArray(connections)!, static a => new ConnectionShape(ImmutableCollectionsMarshal.AsImmutableArray(a)));
     }
 
     /// <summary>A product of phasors carries rounding of 1e-16 of its size; a part that small is zero.</summary>
@@ -456,6 +511,30 @@ internal sealed class Order
         for (var i = 0; i < list.Length; i++)
             if (!position.TryAdd(name(list[i]), i) && !firstOnly) return null;
         return kept[slot] = new Order(position);
+    }
+
+    private static readonly ConditionalWeakTable<object, Named?[]> Owned = new();
+
+    private sealed record Named(string[] Names, Order? Order);
+
+    /// <summary>
+    /// The same, kept with <paramref name="owner"/> for any list of the same names in the same order:
+    /// a sweep point's network has a list of taps of its own (a brush moved), with the names of the
+    /// one before, and its order is not found again nor kept for every point's list.
+    /// </summary>
+    public static Order? Of<T>(ImmutableArray<T> list, Func<T, string> name, bool firstOnly, object owner)
+    {
+        var kept = Owned.GetValue(owner, static _ => new Named?[2]);
+        var slot = firstOnly ? 0 : 1;
+        if (kept[slot] is { } known && known.Names.Length == list.Length)
+        {
+            var same = true;
+            for (var i = 0; i < list.Length && same; i++) same = known.Names[i] == name(list[i]);
+            if (same) return known.Order;
+        }
+        var order = Of(list, name, firstOnly);
+        kept[slot] = new Named([.. list.Select(name)], order);
+        return order;
     }
 
     /// <summary>The entries of <paramref name="list"/> (the list this order is of) that <paramref name="names"/> name, in the list's order.</summary>

@@ -205,7 +205,8 @@ public static class Study
                 : !withFaults && spec.IsSweepPoint && brushes.Covers(overrides)
                 ? brushes.Solve(overrides, spec, cancel)
                 : values.Solve(overrides, spec, withFaults, cancel);
-            var where = $"{(spec.IsSweepPoint ? $"at {spec.Where}" : "")} {sample}".Trim();
+            // Worded only for a message not seen before: most points have none.
+            string? where = null;
             foreach (var d in p.Diagnostics)
             {
                 // Known where the file as written or the same case said it.
@@ -214,7 +215,7 @@ public static class Study
                 if (fresh.TryGetValue(key, out var f)) fresh[key] = f with { More = f.More + 1 };
                 else
                 {
-                    fresh[key] = (d, where, 0);
+                    fresh[key] = (d, where ??= $"{(spec.IsSweepPoint ? $"at {spec.Where}" : "")} {sample}".Trim(), 0);
                     order.Add(key);
                 }
             }
