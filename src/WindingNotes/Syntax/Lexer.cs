@@ -25,7 +25,7 @@ public static class Lexer
     internal struct Reader(string text)
     {
         // Short texts (spaces, keywords, units, names) repeat: each is held once, which halves what the tokens of an open document keep.
-        private readonly Dictionary<string, string>.AlternateLookup<ReadOnlySpan<char>> pool = new Dictionary<string, string>(StringComparer.Ordinal).GetAlternateLookup<ReadOnlySpan<char>>();
+        private readonly Dictionary<string, string>.AlternateLookup<ReadOnlySpan<char>> pool = new Dictionary<string, string>(256, StringComparer.Ordinal).GetAlternateLookup<ReadOnlySpan<char>>();
         private int i;
 
         /// <summary>The next token, or null at the end of the text.</summary>
