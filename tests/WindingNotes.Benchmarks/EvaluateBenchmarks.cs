@@ -1,4 +1,7 @@
 using BenchmarkDotNet.Attributes;
+using WindingNotes.Model;
+using WindingNotes.Solve;
+using WindingNotes.Syntax;
 using WindingNotes.Workspace;
 
 namespace WindingNotes.Benchmarks;
@@ -8,6 +11,8 @@ namespace WindingNotes.Benchmarks;
 public class EvaluateBenchmarks
 {
     private string boost = "", connected = "";
+    private SyntaxTree thousandTree = null!;
+    private Model.Model thousandModel = null!;
 
     [GlobalSetup]
     public void Setup()
@@ -25,6 +30,8 @@ public class EvaluateBenchmarks
             expect voltage X1 H2 between 225 V and 235 V
             """;
         connected = Documents.Connected(100);
+        thousandTree = Parser.Parse(Documents.ThousandLines);
+        thousandModel = ZigzagImpedances.Bind(thousandTree);
     }
 
     [Benchmark]
@@ -37,6 +44,14 @@ public class EvaluateBenchmarks
     /// <summary>Forty-three such units: 1,000 lines, 43 faults.</summary>
     [Benchmark]
     public Evaluation ThousandLines() => Evaluator.Evaluate(Documents.ThousandLines, "thousand.wn");
+
+    /// <summary>A stage of <see cref="ThousandLines"/> alone: binding its parsed tree (its parse is <see cref="ParseBenchmarks.ThousandLines"/>).</summary>
+    [Benchmark]
+    public Model.Model ThousandLinesBind() => ZigzagImpedances.Bind(thousandTree);
+
+    /// <summary>A stage of <see cref="ThousandLines"/> alone: building the network of its bound model.</summary>
+    [Benchmark]
+    public Network ThousandLinesBuild() => NetworkBuilder.Build(thousandModel);
 
     /// <summary>One connected network of 300 sections (about 600 unknowns, sparse LU), loaded and without loads.</summary>
     [Benchmark]

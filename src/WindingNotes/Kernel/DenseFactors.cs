@@ -31,14 +31,16 @@ internal sealed class DenseFactors : IFactors
 
     public static DenseFactors Of(SystemMatrix a, double[] rowScale, double[] columnScale)
     {
-        var m = Matrix<Complex>.Build.Dense(a.Size, a.Size);
-        for (var i = 0; i < a.Size; i++)
+        // Written straight into the column-major array the matrix binds to: MathNet's indexer checks and dispatches per entry.
+        var n = a.Size;
+        var data = new Complex[n * n];
+        for (var i = 0; i < n; i++)
         {
             var columns = a.Columns(i);
             var values = a.Values(i);
-            for (var e = 0; e < columns.Length; e++) m[i, columns[e]] = values[e] * rowScale[i] * columnScale[columns[e]];
+            for (var e = 0; e < columns.Length; e++) data[columns[e] * n + i] = values[e] * rowScale[i] * columnScale[columns[e]];
         }
-        return new DenseFactors(m);
+        return new DenseFactors(Matrix<Complex>.Build.Dense(n, n, data));
     }
 
     public double SmallestPivot { get; }

@@ -106,8 +106,9 @@ internal sealed class MnaSystem
     /// <param name="isReference">Whether a node is its island's reference (no unknown of its own).</param>
     public static MnaSystem Assemble(Network network, SolveGroup group, Func<int, bool> isReference, CaseSpec spec)
     {
-        var unknowns = new List<Element>();
-        var (nodes, sections, supplies, cores) = (new Dictionary<int, int>(), new Dictionary<int, int>(), new Dictionary<int, int>(), new Dictionary<int, int>());
+        // Sized once (a part is assembled per case and per fault): the tables keep the order they are filled in.
+        var unknowns = new List<Element>(group.Nodes.Count + group.Sections.Count + group.Supplies.Count + group.Cores.Count + 1);
+        var (nodes, sections, supplies, cores) = (new Dictionary<int, int>(group.Nodes.Count), new Dictionary<int, int>(group.Sections.Count), new Dictionary<int, int>(group.Supplies.Count), new Dictionary<int, int>(group.Cores.Count));
         foreach (var n in group.Nodes.Where(n => !isReference(n)))
         {
             nodes[n] = unknowns.Count;

@@ -92,7 +92,8 @@ internal sealed class SystemMatrix
         var count = counts[row];
         if (count == columns[row].Length)
         {
-            var capacity = Math.Max(4, 2 * count);
+            // Eight at first: a section's row has its two nodes, its core and the core's other sections, so four was outgrown at once.
+            var capacity = Math.Max(8, 2 * count);
             Array.Resize(ref columns[row], capacity);
             Array.Resize(ref values[row], capacity);
         }

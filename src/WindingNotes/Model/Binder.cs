@@ -275,8 +275,9 @@ internal sealed partial class BindRun
     {
         var owner = Owner(statement);
         var defined = new List<string>();
-        foreach (var name in statement.AllNames.Where(n => n.Role.Defines))
+        foreach (var name in statement.AllNames)
         {
+            if (!name.Role.Defines) continue;
             var symbol = new Symbol(name.Text, name.Role.Kinds[0], name.Name.Span, statement.Span, owner);
             if (symbols.TryDefine(symbol, out var existing))
             {
@@ -416,7 +417,8 @@ internal sealed partial class BindRun
         tainted = false;
         Bind(statement);
         if (!tainted) return;
-        foreach (var name in statement.AllNames.Where(n => n.Role.Defines)) brokenNames.Add(name.Text);
+        foreach (var name in statement.AllNames)
+            if (name.Role.Defines) brokenNames.Add(name.Text);
     }
 
     /// <summary>Every word on a line with an error: a name among them may be one that line meant to define or use.</summary>

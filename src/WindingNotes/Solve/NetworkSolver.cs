@@ -78,16 +78,23 @@ public static class NetworkSolver
     /// <summary>The elements of the parts, and their points: those on their nodes, and at earth those their elements name.</summary>
     private static CaseScope ScopeOf(Network network, CaseSpec spec, List<SolveGroup> groups)
     {
-        var nodes = groups.SelectMany(g => g.Nodes).ToHashSet();
-        var sections = groups.SelectMany(g => g.Sections).ToHashSet();
-        var supplies = groups.SelectMany(g => g.Supplies).ToHashSet();
-        var loads = groups.SelectMany(g => g.Loads).ToHashSet();
-        var points = nodes.SelectMany(n => network.Nodes[n].Points).ToHashSet(StringComparer.Ordinal);
-        foreach (var k in sections) points.UnionWith([network.Sections[k].FromPoint, network.Sections[k].ToPoint]);
-        foreach (var i in supplies) points.UnionWith([network.Supplies[i].Source.Positive.Name, network.Supplies[i].Source.Negative.Name]);
-        foreach (var i in loads) points.UnionWith([network.Loads[i].Source.A.Name, network.Loads[i].Source.B.Name]);
-        if (spec.Fault is { } f) points.UnionWith([f.A.Name, f.B.Name]);
-        return new CaseScope(points, sections, groups.SelectMany(g => g.Cores).ToHashSet(), supplies, loads);
+        // Loops into sets, in the order the parts list them (a set keeps the order it was filled in): once per fault.
+        HashSet<int> Gather(Func<SolveGroup, List<int>> of)
+        {
+            var set = new HashSet<int>();
+            foreach (var g in groups)
+                foreach (var i in of(g)) set.Add(i);
+            return set;
+        }
+        var (nodes, sections, supplies, loads) = (Gather(g => g.Nodes), Gather(g => g.Sections), Gather(g => g.Supplies), Gather(g => g.Loads));
+        var points = new HashSet<string>(StringComparer.Ordinal);
+        foreach (var n in nodes)
+            foreach (var p in network.Nodes[n].Points) points.Add(p);
+        foreach (var k in sections) { points.Add(network.Sections[k].FromPoint); points.Add(network.Sections[k].ToPoint); }
+        foreach (var i in supplies) { points.Add(network.Supplies[i].Source.Positive.Name); points.Add(network.Supplies[i].Source.Negative.Name); }
+        foreach (var i in loads) { points.Add(network.Loads[i].Source.A.Name); points.Add(network.Loads[i].Source.B.Name); }
+        if (spec.Fault is { } f) { points.Add(f.A.Name); points.Add(f.B.Name); }
+        return new CaseScope(points, sections, Gather(g => g.Cores), supplies, loads);
     }
 
     /// <summary>

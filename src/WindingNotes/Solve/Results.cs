@@ -336,7 +336,8 @@ public static class Results
     /// <summary>The current out of each tap and brush of the sections given, by Kirchhoff's current law at the point.</summary>
     private static ImmutableArray<TapResult> TapsOf(Network network, Solution solution, List<Section> sections)
     {
-        var at = new Dictionary<string, (int Winding, Complex Current, double Scale)>(StringComparer.Ordinal);
+        // Sized once: a case of the whole file has thousands of points, and a growing table is made again at each doubling.
+        var at = new Dictionary<string, (int Winding, Complex Current, double Scale)>(sections.Count + 1, StringComparer.Ordinal);
         foreach (var s in sections)
         {
             var i = solution.SectionCurrents[s.Index];

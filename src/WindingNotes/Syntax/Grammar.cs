@@ -44,7 +44,13 @@ public sealed record StatementForm(
     string Summary,
     string[]? RequiredGroups = null)
 {
-    public ClauseForm? FindClause(string keyword) => Array.Find(Clauses, c => c.Keyword == keyword);
+    public ClauseForm? FindClause(string keyword)
+    {
+        // A loop, not Array.Find: a closure per call, and the reader asks for every clause keyword.
+        foreach (var c in Clauses)
+            if (c.Keyword == keyword) return c;
+        return null;
+    }
 }
 
 /// <summary>

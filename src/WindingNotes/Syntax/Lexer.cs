@@ -12,11 +12,26 @@ public static class Lexer
     public static List<Token> Lex(string text)
     {
         var tokens = new List<Token>(text.Length / 3);
+        var reader = new Reader(text);
+        while (reader.Next() is { } token) tokens.Add(token);
+        return tokens;
+    }
+
+    /// <summary>
+    /// The tokens one at a time, so the parser keeps a line's tokens, not the document's: a list of
+    /// every token of a large document is an array in the large-object heap, allocated afresh and
+    /// cleared on every parse.
+    /// </summary>
+    internal struct Reader(string text)
+    {
         // Short texts (spaces, keywords, units, names) repeat: each is held once, which halves what the tokens of an open document keep.
-        var pool = new Dictionary<string, string>(StringComparer.Ordinal).GetAlternateLookup<ReadOnlySpan<char>>();
-        var i = 0;
-        while (i < text.Length)
+        private readonly Dictionary<string, string>.AlternateLookup<ReadOnlySpan<char>> pool = new Dictionary<string, string>(256, StringComparer.Ordinal).GetAlternateLookup<ReadOnlySpan<char>>();
+        private int i;
+
+        /// <summary>The next token, or null at the end of the text.</summary>
+        public Token? Next()
         {
+            if (i >= text.Length) return null;
             var start = i;
             var c = text[i];
             TokenKind kind;
@@ -71,9 +86,8 @@ public static class Lexer
                 i += char.IsSurrogatePair(text, i) ? 2 : 1;
                 kind = TokenKind.Bad;
             }
-            tokens.Add(new Token(kind, TextSpan.FromBounds(start, i), Shared(pool, text.AsSpan(start, i - start))) { Number = number });
+            return new Token(kind, TextSpan.FromBounds(start, i), Shared(pool, text.AsSpan(start, i - start))) { Number = number };
         }
-        return tokens;
     }
 
     private static string Shared(Dictionary<string, string>.AlternateLookup<ReadOnlySpan<char>> pool, ReadOnlySpan<char> text)

@@ -21,18 +21,19 @@ public static class Parser
         var source = new SourceText(text);
         var diagnostics = new DiagnosticBag();
         var lines = ImmutableArray.CreateBuilder<LineSyntax>();
-        var tokens = Lexer.Lex(text);
-        var start = 0;
-        for (var i = 0; i <= tokens.Count; i++)
+        // A line's tokens at a time (the lexer's list of a whole document would be a large array made and cleared per parse).
+        var reader = new Lexer.Reader(text);
+        var line = new List<Token>(64);
+        while (reader.Next() is { } token)
         {
-            if (i < tokens.Count && tokens[i].Kind != TokenKind.Newline) continue;
-            var end = Math.Min(i + 1, tokens.Count);
-            if (end > start || lines.Count == 0 || i == tokens.Count && start < tokens.Count)
-                lines.Add(ParseLine(lines.Count, CollectionsMarshal.AsSpan(tokens)[start..end], diagnostics));
-            start = end;
+            line.Add(token);
+            if (token.Kind != TokenKind.Newline) continue;
+            lines.Add(ParseLine(lines.Count, CollectionsMarshal.AsSpan(line), diagnostics));
+            line.Clear();
         }
-        if (lines.Count == 0 || tokens is [.., { Kind: TokenKind.Newline }])
-            lines.Add(ParseLine(lines.Count, [], diagnostics, text.Length));
+        // The last line without its line break; an empty text is one empty line; after a final line break, an empty line at the end.
+        if (line.Count > 0 || lines.Count == 0) lines.Add(ParseLine(lines.Count, CollectionsMarshal.AsSpan(line), diagnostics));
+        else lines.Add(ParseLine(lines.Count, [], diagnostics, text.Length));
         return new SyntaxTree(source, lines.ToImmutable(), diagnostics.ToImmutable());
     }
 
