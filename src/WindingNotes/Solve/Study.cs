@@ -157,9 +157,9 @@ public static class Study
             checks.Observe(at, null);
             ratings.Observe(p);
             outputs.Observe(at);
-            columns.Add(k, labels, at);
             if (!bandsAtPoints)
             {
+                columns.Add(k, labels, at);
                 kept.Add(k, Kept(at));
                 return;
             }
@@ -174,7 +174,9 @@ public static class Study
                     bands.Add(s.Case);
                 }
             }
-            kept.Add(k, Kept(at) with { Bands = bands.ToBands() });
+            var pointBands = bands.ToBands();
+            columns.Add(k, labels, at, pointBands);
+            kept.Add(k, Kept(at) with { Bands = pointBands });
         }
     }
 
