@@ -33,8 +33,13 @@ public static class CaseLeaves
     /// <summary>The groups of a case, in the report's order.</summary>
     public static readonly ImmutableArray<ResultGroup> Groups = [.. ResultTable.Case.Concat(StudyResultTable.CaseParts)];
 
-    /// <summary>Every leaf of <paramref name="c"/>; with <paramref name="banded"/>, only the leaves kept over the tolerances (and the objects holding them).</summary>
-    public static void Walk(CaseResult c, ICaseLeaves sink, bool banded = false)
+    /// <summary>
+    /// Every leaf of <paramref name="c"/>; with <paramref name="banded"/>, only the leaves kept over
+    /// the tolerances (and the objects holding them); with <paramref name="shown"/>, each element's
+    /// values of its sweep tables' own columns too (a tap changer's position with its state), as
+    /// leaves the JSON report does not write (<see cref="IsShown"/>).
+    /// </summary>
+    public static void Walk(CaseResult c, ICaseLeaves sink, bool banded = false, bool shown = false)
     {
         for (var g = 0; g < Groups.Length; g++)
         {
@@ -45,14 +50,19 @@ public static class CaseLeaves
             {
                 if (!opened) sink.Open(group.Key, false);
                 opened = true;
-                if (name is null)
-                {
-                    Fields(group.Fields, item, sink, banded);
-                    continue;
-                }
-                sink.Open(name, false);
+                if (name is not null) sink.Open(name, false);
                 Fields(group.Fields, item, sink, banded);
-                sink.Close();
+                if (shown)
+                    foreach (var field in Shown[g])
+                        switch (field.Read(item))
+                        {
+                            case double v: sink.Number(field.Key, field, v); break;
+                            case Complex v: sink.Phasor(field.Key, field, v); break;
+                            case int v: sink.Integer(field.Key, field, v); break;
+                            case string v: sink.Word(field.Key, field, v); break;
+                            case bool v: sink.Boolean(field.Key, field, v); break;
+                        }
+                if (name is not null) sink.Close();
             }
             if (!opened && !group.OmitWhenEmpty)
             {
@@ -127,6 +137,17 @@ public static class CaseLeaves
 
     /// <summary>An array element's key: its index.</summary>
     private static string Index(int i) => i < Indices.Length ? Indices[i] : i.ToString(System.Globalization.CultureInfo.InvariantCulture);
+
+    /// <summary>Whether a leaf is a sweep table's own value, not written in the JSON report.</summary>
+    public static bool IsShown(string key) => key.StartsWith('\u0001');
+
+    /// <summary>The key of the leaf of a group's sweep table <paramref name="table"/>, column <paramref name="column"/>, where the column has its own value.</summary>
+    public static string ShownKey(int table, int column) => $"\u0001{table}.{column}";
+
+    /// <summary>Each group's sweep tables' own columns (<see cref="ResultColumn.Read"/>), as fields keyed by <see cref="ShownKey"/>.</summary>
+    private static readonly ImmutableArray<ResultField>[] Shown = [.. Groups.Select(g => g.Sweep.SelectMany((table, t) => table.Columns
+        .Select((column, i) => (column, i)).Where(x => x.column.Read is not null)
+        .Select(x => new ResultField(ShownKey(t, x.i), ResultKind.Word, x.column.Unit, "", x.column.Read!))).ToImmutableArray())];
 
     /// <summary>The groups with a field kept over the tolerances.</summary>
     private static readonly bool[] Banded = [.. Groups.Select(g => g.Fields.Any(HasBand))];

@@ -33,8 +33,8 @@ public sealed record SweepColumns(long Solved, ImmutableArray<ImmutableArray<Swe
     /// <summary>The case's name of kept point <paramref name="point"/> ("sweep BR=25 %").</summary>
     public string Name(int point) => CaseSpec.ForSweep(Points[point]).Name;
 
-    /// <summary>Every leaf of kept point <paramref name="point"/>, told as <see cref="CaseLeaves.Walk"/> told them of its case.</summary>
-    public void Walk(int point, ICaseLeaves sink) => Leaves.Walk(point, sink);
+    /// <summary>Every leaf of kept point <paramref name="point"/>, told as <see cref="CaseLeaves.Walk"/> told them of its case (with the sweep tables' own values where <paramref name="shown"/>).</summary>
+    public void Walk(int point, ICaseLeaves sink, bool shown = false) => Leaves.Walk(point, sink, shown);
 
     /// <summary>The bands of kept point <paramref name="point"/>, where the study kept bands at sweep points.</summary>
     public ImmutableArray<Band> Bands(int point) => Leaves.Bands(point);
@@ -70,7 +70,7 @@ internal sealed class SweepLeaves
         (this.bandPaths, this.bandShapes, this.bandMin, this.bandMax) = (bandPaths, bandShapes, bandMin, bandMax);
     }
 
-    public void Walk(int point, ICaseLeaves sink)
+    public void Walk(int point, ICaseLeaves sink, bool shown)
     {
         foreach (var id in shapes[point])
         {
@@ -80,6 +80,7 @@ internal sealed class SweepLeaves
                 continue;
             }
             var n = nodes[id];
+            if (n.IsShown && !shown) continue;
             switch (n.Kind)
             {
                 case LeafKind.Object or LeafKind.Array: sink.Open(n.Key, n.Kind == LeafKind.Array); break;
@@ -112,6 +113,8 @@ internal sealed class SweepLeavesNode(int id, string key, LeafKind kind, string 
     public readonly ResultField? Field = field;
     /// <summary>A second leaf of one path at a point: kept and written, but the first is the one reduced (as reports show it).</summary>
     public readonly bool IsTwin = twin;
+    /// <summary>A sweep table's own value (<see cref="CaseLeaves.IsShown"/>): not written in the JSON report.</summary>
+    public readonly bool IsShown = CaseLeaves.IsShown(key);
     public Dictionary<(string, LeafKind), SweepLeavesNode>? Children;
     public SweepLeavesNode? Twin;
     public int Column = -1;
@@ -210,7 +213,7 @@ internal sealed class SweepColumnsBuilder(int capacity) : ICaseLeaves
             Array.Fill(phasorRow, new Complex(double.NaN, double.NaN));
             Array.Fill(wordRow, null);
         }
-        CaseLeaves.Walk(c, this, banded: !whole);
+        CaseLeaves.Walk(c, this, banded: !whole, shown: whole);
     }
 
     private void Keep(long k, ImmutableArray<SweepValue> labels, ImmutableArray<Band> bands)
