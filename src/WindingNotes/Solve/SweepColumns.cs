@@ -161,6 +161,15 @@ internal sealed class SweepColumnsBuilder(int capacity) : ICaseLeaves
     private ImmutableArray<SweepValue> labels = [];
     private string? where;
 
+    /// <summary>One point kept in every so many.</summary>
+    public long Stride => stride;
+
+    /// <summary>The points given, kept or not.</summary>
+    public long Solved => solved;
+
+    /// <summary>The points kept so far, with the last one given.</summary>
+    public int Count => keptK.Count + (pending is null ? 0 : 1);
+
     /// <summary>Point <paramref name="k"/> of the sweep, solved, with its swept values, results and bands (where kept at sweep points).</summary>
     public void Add(long k, ImmutableArray<SweepValue> labels, CaseResult c, ImmutableArray<Band> bands = default)
     {
