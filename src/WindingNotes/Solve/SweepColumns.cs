@@ -229,14 +229,19 @@ internal sealed class SweepColumnsBuilder(int capacity) : ICaseLeaves
     {
         keptK.Add(k);
         keptLabels.Add(labels);
-        var s = shape.ToArray();
-        if (shapesSeen.TryGetValue(s, out var seen)) s = seen;
-        else shapesSeen[s] = s;
-        keptShapes.Add(s);
+        // Most points have the shape of the one before: compared in place, an array is made only for a new shape.
+        if (keptShapes.Count > 0 && CollectionsMarshal.AsSpan(shape).SequenceEqual(keptShapes[^1])) keptShapes.Add(keptShapes[^1]);
+        else
+        {
+            var s = shape.ToArray();
+            if (shapesSeen.TryGetValue(s, out var seen)) s = seen;
+            else shapesSeen[s] = s;
+            keptShapes.Add(s);
+        }
         for (var i = 0; i < numbers.Count; i++) numbers[i].Add(numberRow[i]);
         for (var i = 0; i < phasors.Count; i++) phasors[i].Add(phasorRow[i]);
         for (var i = 0; i < words.Count; i++) words[i].Add(wordRow[i]);
-        var ids = new int[bands.IsDefault ? 0 : bands.Length];
+        int[] ids = bands.IsDefault || bands.IsEmpty ? [] : new int[bands.Length];
         foreach (var column in bandMin) column.Add(double.NaN);
         foreach (var column in bandMax) column.Add(double.NaN);
         for (var b = 0; b < ids.Length; b++)
@@ -253,8 +258,7 @@ internal sealed class SweepColumnsBuilder(int capacity) : ICaseLeaves
             bandMin[i][^1] = band.Min;
             bandMax[i][^1] = band.Max;
         }
-        if (shapesSeen.TryGetValue(ids, out var sameBands)) ids = sameBands;
-        else shapesSeen[ids] = ids;
+        if (ids.Length > 0 && !shapesSeen.TryAdd(ids, ids)) ids = shapesSeen[ids];
         keptBandShapes.Add(ids);
     }
 
