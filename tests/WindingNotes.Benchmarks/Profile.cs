@@ -135,15 +135,10 @@ public static class Profile
         {
             foreach (var r in results) Results.Compute(r.Case!.Solution, r.NoLoad!.Solution);
         });
-        Report("the columns: every number of a point's case, reduced and kept (SweepColumnsBuilder)", () =>
+        Report("the columns: every leaf of a kept point's case, the banded numbers of every point reduced (SweepColumnsBuilder)", () =>
         {
             var c = new SweepColumnsBuilder(kept);
             for (var k = 0; k < results.Length; k++) c.Add(k, brushPoints[k].Labels, results[k].Case!);
-        });
-        Report("the kept cases, compacted (KeptPoints)", () =>
-        {
-            var c = new KeptPoints(kept);
-            for (var k = 0; k < results.Length; k++) c.Add(k, results[k].Case! with { Solution = results[k].Case!.Solution.Compact() });
         });
         Report("the checks over every point (CheckTally)", () =>
         {

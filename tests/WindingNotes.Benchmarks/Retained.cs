@@ -21,8 +21,8 @@ public static class Retained
             var evaluation = Evaluator.Evaluate(text, "retained.wn");
             clock.Stop();
             var after = GC.GetTotalMemory(forceFullCollection: true);
-            var kept = evaluation.Cases.Length;
-            Console.WriteLine($"{what}, {points} points: retained {(after - before) / 1e6:F1} MB, {kept} cases kept, {clock.Elapsed.TotalMilliseconds / points * 1000:F1} µs a point (wall), {evaluation.Diagnostics.Count(d => d.IsError)} errors");
+            var kept = evaluation.SweepColumns?.Count ?? 0;
+            Console.WriteLine($"{what}, {points} points: retained {(after - before) / 1e6:F1} MB, {kept} points kept ({evaluation.Cases.Length} cases), {clock.Elapsed.TotalMilliseconds / points * 1000:F1} µs a point (wall), {evaluation.Diagnostics.Count(d => d.IsError)} errors");
             GC.KeepAlive(evaluation);
         }
     }

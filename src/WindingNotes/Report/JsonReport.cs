@@ -1,5 +1,6 @@
 using WindingNotes.Kernel;
 using WindingNotes.Model;
+using System.Collections.Immutable;
 using System.Numerics;
 using System.Text;
 using System.Text.Json;
@@ -30,10 +31,14 @@ public static class JsonReport
             foreach (var d in evaluation.Diagnostics) WriteDiagnostic(w, evaluation.Text, d);
             w.WriteEndArray();
             w.WriteStartArray("cases");
-            foreach (var c in evaluation.Cases) WriteCase(w, evaluation, c);
+            // A sweep's points from its columns, where the evaluation has them; they follow the other cases.
+            var sweep = evaluation.SweepColumns;
+            foreach (var c in evaluation.Cases)
+                if (sweep is null || !c.Case.IsSweepPoint) WriteCase(w, evaluation, c);
+            for (var i = 0; i < (sweep?.Count ?? 0); i++) WritePoint(w, sweep!, i);
             w.WriteEndArray();
             var study = new StudyResult(evaluation.Cases, evaluation.Checks) { Thermal = evaluation.Thermal, SequenceImpedances = evaluation.SequenceImpedances, Parallel = evaluation.Parallel };
-            WriteFields(w, StudyResultTable.Study, study);
+            CaseLeaves.Fields(StudyResultTable.Study, study, new JsonLeaves(w));
             if (evaluation.Checks.Any(c => !c.Evaluated))
             {
                 w.WriteStartArray("notEvaluated");
@@ -94,7 +99,7 @@ public static class JsonReport
             foreach (var v in c.Case.Sweep) Number(w, v.Name, v.Value);
             w.WriteEndObject();
         }
-        foreach (var group in ResultTable.Case.Concat(StudyResultTable.CaseParts)) WriteGroup(w, group, c);
+        CaseLeaves.Walk(c, new JsonLeaves(w));
         if (c.Case == CaseSpec.Normal)
         {
             w.WriteStartArray("checks");
@@ -126,100 +131,87 @@ public static class JsonReport
             }
             w.WriteEndArray();
         }
-        WriteBands(w, c);
+        WriteBands(w, c.Bands);
         w.WriteEndObject();
     }
 
-    /// <summary>One group of the results table, by its elements' names (or one object), where the case has it.</summary>
-    private static void WriteGroup(Utf8JsonWriter w, ResultGroup group, CaseResult c)
+    /// <summary>Kept point <paramref name="point"/> of a sweep, from its columns, as <see cref="WriteCase"/> writes its case.</summary>
+    private static void WritePoint(Utf8JsonWriter w, SweepColumns sweep, int point)
     {
-        if (!group.When(c)) return;
-        var items = group.Items(c).ToList();
-        if (group.OmitWhenEmpty && items.Count == 0) return;
-        w.WriteStartObject(group.Key);
-        foreach (var (name, item) in items)
-        {
-            if (name is null)
-            {
-                WriteFields(w, group.Fields, item);
-                continue;
-            }
-            w.WriteStartObject(name);
-            WriteFields(w, group.Fields, item);
-            w.WriteEndObject();
-        }
+        w.WriteStartObject();
+        w.WriteString("name", sweep.Name(point));
+        w.WriteStartObject("sweep");
+        foreach (var v in sweep.Points[point]) Number(w, v.Name, v.Value);
+        w.WriteEndObject();
+        sweep.Walk(point, new JsonLeaves(w));
+        WriteBands(w, sweep.Bands(point));
         w.WriteEndObject();
     }
 
-    /// <summary>An element's fields by their kind; a field the element lacks is absent (null where its kind says so).</summary>
-    private static void WriteFields(Utf8JsonWriter w, IEnumerable<ResultField> fields, object item)
+    /// <summary>The leaves of a case (or of the study) written as JSON: objects and arrays by their keys, a phasor as {rms, deg}.</summary>
+    private sealed class JsonLeaves(Utf8JsonWriter w) : ICaseLeaves
     {
-        foreach (var f in fields)
-        {
-            var value = f.Read(item);
-            if (value is null)
-            {
-                if (f.Kind == ResultKind.NumberOrNull) w.WriteNull(f.Key);
-                continue;
-            }
-            w.WritePropertyName(f.Key);
-            WriteValue(w, f, value);
-        }
-    }
+        // Whether each object or array open is an array: its elements are written without keys.
+        private readonly Stack<bool> arrays = new();
 
-    /// <summary>A value as its field's kind says.</summary>
-    private static void WriteValue(Utf8JsonWriter w, ResultField f, object value)
-    {
-        switch (f.Kind)
+        private void Key(string key)
         {
-            case ResultKind.Number or ResultKind.NumberOrNull: w.WriteRawValue(Numbers.Json((double)value)); break;
-            case ResultKind.Phasor: PhasorValue(w, (Complex)value); break;
-            case ResultKind.Integer: w.WriteNumberValue((int)value); break;
-            case ResultKind.Word or ResultKind.Choice: w.WriteStringValue((string)value); break;
-            case ResultKind.Boolean: w.WriteBooleanValue((bool)value); break;
-            case ResultKind.Names:
-                w.WriteStartArray();
-                foreach (var n in (IEnumerable<string>)value) w.WriteStringValue(n);
-                w.WriteEndArray();
-                break;
-            case ResultKind.Sequence:
-                var s = (Sequence)value;
-                w.WriteStartObject();
-                Phasor(w, "zero", s.Zero);
-                Phasor(w, "positive", s.Positive);
-                Phasor(w, "negative", s.Negative);
-                w.WriteEndObject();
-                break;
-            case ResultKind.Object:
-                w.WriteStartObject();
-                WriteFields(w, f.Nested, value);
-                w.WriteEndObject();
-                break;
-            case ResultKind.Map:
-                w.WriteStartObject();
-                foreach (var (name, element) in (IEnumerable<(string, object)>)value)
-                {
-                    if (f.Item!.Read(element) is not { } v) continue;
-                    w.WritePropertyName(name);
-                    WriteValue(w, f.Item, v);
-                }
-                w.WriteEndObject();
-                break;
-            case ResultKind.List:
-                w.WriteStartArray();
-                foreach (var element in (IEnumerable<object>)value)
-                    if (f.Item!.Read(element) is { } v) WriteValue(w, f.Item, v);
-                w.WriteEndArray();
-                break;
+            if (arrays.Count == 0 || !arrays.Peek()) w.WritePropertyName(key);
+        }
+
+        public void Open(string key, bool array)
+        {
+            Key(key);
+            if (array) w.WriteStartArray();
+            else w.WriteStartObject();
+            arrays.Push(array);
+        }
+
+        public void Close()
+        {
+            if (arrays.Pop()) w.WriteEndArray();
+            else w.WriteEndObject();
+        }
+
+        public void Number(string key, ResultField field, double value)
+        {
+            Key(key);
+            w.WriteRawValue(Numbers.Json(value));
+        }
+
+        public void Null(string key, ResultField field) => w.WriteNull(key);
+
+        public void Integer(string key, ResultField field, int value)
+        {
+            Key(key);
+            w.WriteNumberValue(value);
+        }
+
+        public void Word(string key, ResultField field, string value)
+        {
+            Key(key);
+            w.WriteStringValue(value);
+        }
+
+        public void Boolean(string key, ResultField field, bool value)
+        {
+            Key(key);
+            w.WriteBooleanValue(value);
+        }
+
+        public void Phasor(string key, ResultField field, Complex value)
+        {
+            Key(key);
+            PhasorValue(w, value);
         }
     }
 
     /// <summary>Each result that varies over the tolerances, by its path in this case, to its range.</summary>
-    private static void WriteBands(Utf8JsonWriter w, CaseResult c)
+    private static void WriteBands(Utf8JsonWriter w, ImmutableArray<Band> bands)
     {
-        if (c.Bands.IsEmpty) return;
+        if (bands.IsEmpty) return;
         w.WriteStartObject("bands");
-        foreach (var b in c.Bands)
+        foreach (var b in bands)
         {
             w.WriteStartObject(b.Path);
             Number(w, "min", b.Min);

@@ -36,7 +36,7 @@ public static class MarkdownReport
         }
         if (evaluation.Cases.IsEmpty) o.Append("\nNo results: the network was not solved.\n");
         foreach (var c in evaluation.Cases.Where(c => !c.Case.IsSweepPoint)) WriteCase(o, c);
-        WriteSweep(o, [.. evaluation.Cases.Where(c => c.Case.IsSweepPoint)]);
+        WriteSweep(o, evaluation.SweepColumns);
         ThermalReport.Markdown(o, evaluation.Thermal);
         ThreePhaseReport.SequenceMarkdown(o, evaluation.SequenceImpedances);
         ThreePhaseReport.ParallelMarkdown(o, evaluation.Parallel);
@@ -148,12 +148,12 @@ public static class MarkdownReport
         Table(o, 1, ["result", "lowest", "highest"], c.Bands.Select(b => new[] { Code(b.Path), TextReport.Value(b.Min, b.Unit), TextReport.Value(b.Max, b.Unit) }));
     }
 
-    private static void WriteSweep(StringBuilder o, IReadOnlyList<CaseResult> points)
+    private static void WriteSweep(StringBuilder o, SweepColumns? sweep)
     {
-        if (points.Count == 0) return;
-        o.Append("\n### Sweep ").Append(SweepTables.Heading(points)).Append('\n');
-        var axes = points[0].Case.Sweep.Length;
-        foreach (var table in SweepTables.Tables(points))
+        if (sweep is not { Count: > 0 }) return;
+        o.Append("\n### Sweep ").Append(SweepTables.Heading(sweep)).Append('\n');
+        var axes = sweep.Points[0].Length;
+        foreach (var table in SweepTables.Tables(sweep))
         {
             o.Append('\n').Append(table.Title).Append(":\n\n");
             Table(o, axes, [.. table.Header], table.Rows.Select(r => r.ToArray()));

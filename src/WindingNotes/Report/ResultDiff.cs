@@ -90,9 +90,9 @@ public sealed record ResultDiff(
     {
         var before = ResultValues.Of(old);
         var after = ResultValues.Of(@new);
-        var oldCases = old.Cases.Select(c => c.Case.Name).ToHashSet();
-        var newCases = @new.Cases.Select(c => c.Case.Name).ToHashSet();
-        var sweepPoints = @new.Cases.Where(c => c.Case.IsSweepPoint).Select(c => c.Case.Name).ToHashSet();
+        var oldCases = CaseNames(old).ToHashSet();
+        var newCases = CaseNames(@new).ToHashSet();
+        var sweepPoints = SweepPoints(@new).ToHashSet();
         var scale = Scales(before.Concat(after));
 
         var values = new List<ValueChange>();
@@ -127,10 +127,17 @@ public sealed record ResultDiff(
             [.. rest.Where(v => !v.Element.StartsWith(ResultValues.BandOf))],
             [.. sweeps],
             [.. bands],
-            [.. @new.Cases.Select(c => c.Case.Name).Where(n => !oldCases.Contains(n))],
-            [.. old.Cases.Select(c => c.Case.Name).Where(n => !newCases.Contains(n))],
+            [.. CaseNames(@new).Where(n => !oldCases.Contains(n))],
+            [.. CaseNames(old).Where(n => !newCases.Contains(n))],
             CompareDiagnostics(old, @new));
     }
+
+    /// <summary>Every case's name in the report's order: the sweep's kept points from its columns, after the others.</summary>
+    private static IEnumerable<string> CaseNames(Evaluation e) =>
+        e.Cases.Where(c => e.SweepColumns is null || !c.Case.IsSweepPoint).Select(c => c.Case.Name).Concat(e.SweepColumns is null ? [] : SweepPoints(e));
+
+    private static IEnumerable<string> SweepPoints(Evaluation e) =>
+        e.SweepColumns is { } sweep ? Enumerable.Range(0, sweep.Count).Select(sweep.Name) : e.Cases.Where(c => c.Case.IsSweepPoint).Select(c => c.Case.Name);
 
     private static ValueChange Change(ResultValue v, double? old, double? @new) => new(v.Case, v.Element, v.Label, v.Unit, old, @new);
 

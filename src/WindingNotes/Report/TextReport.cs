@@ -31,7 +31,7 @@ public static class TextReport
         if (evaluation.Cases.IsEmpty)
             o.Append(evaluation.Model.HasErrors ? "\nNo results: the file has errors, so it was not solved.\n" : "\nNo results: the network was not solved.\n");
         foreach (var c in evaluation.Cases.Where(c => !c.Case.IsSweepPoint)) WriteCase(o, c);
-        SweepTables.Write(o, [.. evaluation.Cases.Where(c => c.Case.IsSweepPoint)]);
+        SweepTables.Write(o, evaluation.SweepColumns);
         ThermalReport.Text(o, evaluation.Thermal);
         ThreePhaseReport.SequenceText(o, evaluation.SequenceImpedances);
         ThreePhaseReport.ParallelText(o, evaluation.Parallel);

@@ -9,7 +9,7 @@ namespace WindingNotes.Solve;
 /// <summary>How far a long evaluation has come: solves done of the total planned.</summary>
 public readonly record struct StudyProgress(long Done, long Total);
 
-/// <summary>Every case of a document (normal, faults, sweep points, in that order) and the checks over them.</summary>
+/// <summary>Every case of a document (normal, faults, short circuits, in that order) and the checks over them; a sweep's points are in <see cref="SweepColumns"/>.</summary>
 public sealed record StudyResult(ImmutableArray<CaseResult> Cases, ImmutableArray<CheckResult> Checks)
 {
     /// <summary>The load cycle through the units' thermal data, where the file gives both.</summary>
@@ -28,7 +28,8 @@ public sealed record StudyResult(ImmutableArray<CaseResult> Cases, ImmutableArra
 /// <summary>
 /// Everything solved for one document: the normal case and its faults, each sweep point, and for
 /// each of those the tolerance samples that give its bands; then the checks, the ratings and the
-/// cautions over all of them. Points are solved one at a time and only their results are kept.
+/// cautions over all of them. Points are solved one at a time; a sweep point's results are kept only
+/// in the sweep's columns (<see cref="SweepColumnsBuilder"/>), no case of it.
 /// When the time budget runs out after the normal case, the study stops with a diagnostic and keeps
 /// what is whole: the cases solved so far (with bands only where all their samples were solved), and
 /// the checks and ratings over them.
@@ -36,7 +37,7 @@ public sealed record StudyResult(ImmutableArray<CaseResult> Cases, ImmutableArra
 public static class Study
 {
     public static StudyResult Run(SyntaxTree syntax, Model.Model model, Network network, DiagnosticBag diagnostics,
-        TimeBudget budget, Action<StudyProgress>? progress = null, TapPlan? taps = null)
+        TimeBudget budget, Action<StudyProgress>? progress = null, TapPlan? taps = null, Action<CaseResult>? sweepPoint = null)
     {
         var cancel = budget.Token;
         var nominal = Points.Solve(network, CaseSpec.Normal, withFaults: true, cancel);
@@ -61,7 +62,6 @@ public static class Study
         var ratings = new RatingTally();
         var outputs = new OutputTally(network);
         var cases = ImmutableArray.CreateBuilder<CaseResult>();
-        var kept = new KeptPoints(Sweeps.KeptFor(normal));
         var columns = new SweepColumnsBuilder(Sweeps.KeptFor(normal));
 
         checks.BeginPoint(normal.Case.Where);
@@ -88,9 +88,8 @@ public static class Study
             }
         }
 
-        cases.AddRange(kept.Cases);
         var all = cases.ToImmutable();
-        if (kept.Stride > 1) diagnostics.ReportSweepThinned(model.Sweeps[0].Line, kept.Solved, kept.Count, kept.Stride);
+        if (columns.Stride > 1) diagnostics.ReportSweepThinned(model.Sweeps[0].Line, columns.Solved, columns.Count, columns.Stride);
         var checkResults = FaultChecks.Merge(studied, checks.Finish(diagnostics), all, diagnostics);
         ThermalResult? thermal = null;
         if (!stopped && (!model.Thermal.IsEmpty || model.Expects.Any(ThermalStudy.IsThermal)))
@@ -157,10 +156,10 @@ public static class Study
             checks.Observe(at, null);
             ratings.Observe(p);
             outputs.Observe(at);
-            columns.Add(k, labels, at);
             if (!bandsAtPoints)
             {
-                kept.Add(k, Kept(at));
+                columns.Add(k, labels, at);
+                sweepPoint?.Invoke(at);
                 return;
             }
             var bands = new BandSet(at);
@@ -174,11 +173,13 @@ public static class Study
                     bands.Add(s.Case);
                 }
             }
-            kept.Add(k, Kept(at) with { Bands = bands.ToBands() });
+            var pointBands = bands.ToBands();
+            columns.Add(k, labels, at, pointBands);
+            sweepPoint?.Invoke(at with { Bands = pointBands });
         }
     }
 
-    /// <summary>A fault case or a sweep point as the study keeps it: its results, not its solver's vectors.</summary>
+    /// <summary>A fault case as the study keeps it: its results, not its solver's vectors.</summary>
     private static CaseResult Kept(CaseResult c) => c with { Solution = c.Solution.Compact() };
 
     /// <summary>

@@ -79,7 +79,8 @@ public static class Evaluator
     /// </summary>
     /// <param name="progress">Told how far a long run (sweeps, tolerance samples) has come; the front end decides how to show it.</param>
     /// <param name="timeLimit">Budget of processor time on the calling thread (wall-clock time where the platform cannot tell it, <see cref="TimeBudget"/>); <see cref="DefaultTimeLimit"/> when null, none with <see cref="Timeout.InfiniteTimeSpan"/>.</param>
-    public static Evaluation Evaluate(string text, string path = "", CancellationToken cancel = default, Action<StudyProgress>? progress = null, TimeSpan? timeLimit = null)
+    /// <param name="sweepPoint">Told each sweep point's case as it is solved, for a caller that wants the whole case: the evaluation keeps a sweep's points only in its columns.</param>
+    public static Evaluation Evaluate(string text, string path = "", CancellationToken cancel = default, Action<StudyProgress>? progress = null, TimeSpan? timeLimit = null, Action<CaseResult>? sweepPoint = null)
     {
         using var budget = new TimeBudget(timeLimit ?? DefaultTimeLimit, cancel);
         Stages? stages = null;
@@ -87,7 +88,7 @@ public static class Evaluator
         {
             // Parsing always runs to the end: it is linear, and every editor feature needs its tree.
             stages = new Stages(Parser.Parse(text));
-            return Run(stages, path, budget, progress);
+            return Run(stages, path, budget, progress, sweepPoint);
         }
         catch (OperationCanceledException) when (budget.Exceeded && stages is not null)
         {
@@ -134,7 +135,7 @@ public static class Evaluator
         }
     }
 
-    private static Evaluation Run(Stages stages, string path, TimeBudget budget, Action<StudyProgress>? progress)
+    private static Evaluation Run(Stages stages, string path, TimeBudget budget, Action<StudyProgress>? progress, Action<CaseResult>? sweepPoint)
     {
         var cancel = budget.Token;
         cancel.ThrowIfCancellationRequested();
@@ -166,7 +167,7 @@ public static class Evaluator
 
         stages.Doing = "solving the normal case";
         stages.At = model.Supplies[0].Line;
-        stages.Study = Study.Run(stages.Syntax, model, network, diagnostics, budget, progress, plan);
+        stages.Study = Study.Run(stages.Syntax, model, network, diagnostics, budget, progress, plan, sweepPoint);
         return Finish(path, stages);
     }
 

@@ -12,7 +12,7 @@ namespace WindingNotes.Tests.Analysis;
 public class FrequencyTests
 {
     private static CaseResult At(WindingNotes.Workspace.Evaluation e, double hertz) =>
-        e.Cases.Single(c => c.Case.IsSweepPoint && Math.Abs(c.Case.Sweep.Single().Value - hertz) < 1e-9);
+        Wn.Points(e).Single(c => Math.Abs(c.Case.Sweep.Single().Value - hertz) < 1e-9);
 
     [Fact]
     public void A_60_Hz_core_at_rated_voltage_and_50_Hz_is_over_excited_by_20_percent()

@@ -25,7 +25,7 @@ public class SweepTableTests
         """;
 
     private static CaseResult At(Evaluation e, double position) =>
-        e.Cases.Single(c => c.Case.IsSweepPoint && Math.Abs(c.Case.Sweep.Single().Value - position) < 1e-9);
+        Wn.Points(e).Single(c => Math.Abs(c.Case.Sweep.Single().Value - position) < 1e-9);
 
     [Fact]
     public void A_section_of_no_turns_carries_nothing_and_is_not_loaded()

@@ -25,7 +25,7 @@ public class SweepTests
 
         """;
 
-    private static List<CaseResult> SweepCases(Evaluation e) => [.. e.Cases.Where(c => c.Case.IsSweepPoint)];
+    private static List<CaseResult> SweepCases(Evaluation e) => Wn.Points(e);
 
     [Fact]
     public void R27_a_swept_variable_autotransformer_reports_0_to_140_4_volts()

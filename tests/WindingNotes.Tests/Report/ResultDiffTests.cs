@@ -180,10 +180,11 @@ public class ResultDiffTests
         Assert.DoesNotContain(diff.Values, v => v.Case.StartsWith("sweep "));
         var heater = Assert.Single(diff.Sweeps, s => s.Label == "load heater voltage");
         // By hand from the two evaluations: the relative change of the heater's voltage at each point.
-        var moves = old.Cases.Where(c => c.Case.IsSweepPoint).Select(c =>
+        var newPoints = Wn.Points(@new);
+        var moves = Wn.Points(old).Select(c =>
         {
             var before = c.Load("heater").Voltage.Magnitude;
-            var after = @new.Cases.Single(n => n.Case.Name == c.Case.Name).Load("heater").Voltage.Magnitude;
+            var after = newPoints.Single(n => n.Case.Name == c.Case.Name).Load("heater").Voltage.Magnitude;
             return (c.Case.Name, Move: Math.Abs(after - before) / before);
         }).ToList();
         Assert.Equal(11, heater.Points);

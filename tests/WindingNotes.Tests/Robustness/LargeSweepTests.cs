@@ -23,18 +23,14 @@ public class LargeSweepTests
         var e = Wn.Eval(SweepTests.Variable("sweep BR from 0 % to 100 % points 4001\nexpect voltage BR A below 70.2 V"));
         var d = e.Single("sweep-thinned");
         Assert.Equal("4,001 sweep points solved: checks, ratings and cautions cover every one; the results of 2,001 are kept, one point in every 2 and the last", d.Message);
-        var points = e.Cases.Where(c => c.Case.IsSweepPoint).ToList();
-        Assert.Equal(2001, points.Count);
-        Assert.Equal("sweep BR=0 %", points[0].Case.Name);
-        Assert.Equal("sweep BR=100 %", points[^1].Case.Name);
-        Assert.All(points, p => Assert.False(p.Solution.HasVectors));
-        Wn.Near(140.4 * 2 / 4000, points[1].V("BR", "A").Magnitude, 1e-9, "the second kept point is the third of the sweep");
-
-        // The columns hold the kept points; their reductions and the sweep line's hint cover all 4,001.
+        // No case of a point is kept: the columns hold the kept points; their reductions and the sweep line's hint cover all 4,001.
+        Assert.DoesNotContain(e.Cases, c => c.Case.IsSweepPoint);
         var columns = e.SweepColumns!;
+        Assert.Equal("sweep BR=0 %", columns.Name(0));
+        Assert.Equal("sweep BR=100 %", columns.Name(columns.Count - 1));
         Assert.Equal(4001, columns.Solved);
         Assert.Equal(2001, columns.Points.Length);
-        Wn.Near(140.4 * 2 / 4000, columns["loads.bench.v.rms"]!.Values[1], 1e-9, "the second kept point's column");
+        Wn.Near(140.4 * 2 / 4000, columns["loads.bench.v.rms"]!.Values[1], 1e-9, "the second kept point is the third of the sweep");
         Assert.Equal("BR=100 %", columns["loads.bench.v.rms"]!.AtMax);
         Assert.Contains(WindingNotes.Editing.InlayHints.For(e), h => h.Label.StartsWith("4001 points: bench ", StringComparison.Ordinal));
 
@@ -61,24 +57,26 @@ public class LargeSweepTests
         Assert.Equal("20,001 sweep points solved: checks, ratings and cautions cover every one; the results of 1,251 are kept, one point in every 16 and the last",
             e.Single("sweep-thinned").Message);
         Assert.Equal(20_002, Assert.Single(e.Checks).Points);
-        var points = e.Cases.Where(c => c.Case.IsSweepPoint).ToList();
-        Assert.Equal(1251, points.Count);
-        Assert.All(points, p => Assert.False(p.Solution.HasVectors));
-        // Point k of the sweep gives 140.4 V·k/20,000: the kept ones are every sixteenth, the last one among them.
-        for (var i = 1; i < points.Count; i++)
-            Wn.Near(140.4 * i * 16 / 20_000, points[i].V("BR", "A").Magnitude, 1e-9, $"kept point {i}");
+        var columns = e.SweepColumns!;
+        Assert.Equal(1251, columns.Count);
+        Assert.DoesNotContain(e.Cases, c => c.Case.IsSweepPoint);
+        // Point k of the sweep gives 140.4 V·k/20,000 at the bench: the kept ones are every sixteenth, the last one among them.
+        var bench = columns["loads.bench.v.rms"]!.Values;
+        for (var i = 1; i < columns.Count; i++)
+            Wn.Near(140.4 * i * 16 / 20_000, bench[i], 1e-9, $"kept point {i}");
     }
 
     [Fact]
     public void Past_its_capacity_the_step_doubles_and_the_last_point_is_kept_besides()
     {
         var normal = Wn.Solved(SweepTests.Variable("")).Normal!;
-        var kept = new KeptPoints(4);
-        for (var k = 0; k <= 20; k++) kept.Add(k, normal with { Case = CaseSpec.ForSweep([new SweepValue("k", k, $"{k}")]) });
+        var kept = new SweepColumnsBuilder(4);
+        for (var k = 0; k <= 20; k++) kept.Add(k, [new SweepValue("k", k, $"{k}")], normal);
         Assert.Equal(8, kept.Stride);
         Assert.Equal(21, kept.Solved);
-        Assert.Equal(["0", "8", "16", "20"], kept.Cases.Select(c => c.Case.Sweep[0].Text));
         Assert.Equal(4, kept.Count);
+        var columns = kept.Finish();
+        Assert.Equal(["0", "8", "16", "20"], columns.Points.Select(p => p[0].Text));
     }
 
     [Fact]
@@ -94,7 +92,7 @@ public class LargeSweepTests
     public void A_sweep_within_the_kept_points_keeps_them_all()
     {
         var e = Wn.Solved(SweepTests.Variable("sweep BR from 0 % to 100 % points 2001"));
-        Assert.Equal(2001, e.Cases.Count(c => c.Case.IsSweepPoint));
+        Assert.Equal(2001, e.SweepColumns!.Count);
         Assert.DoesNotContain(e.Diagnostics, d => d.Code == "sweep-thinned");
     }
 }

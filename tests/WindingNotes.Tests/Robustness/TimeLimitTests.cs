@@ -28,7 +28,7 @@ public class TimeLimitTests
         Assert.NotNull(e.Normal);
         // The check covers the normal case and every point solved; the points kept are at most the sweep's share.
         Assert.Equal(1 + solved, Assert.Single(e.Checks).Points);
-        Assert.InRange(e.Cases.Count(c => c.Case.IsSweepPoint), 1, WindingNotes.Solve.Sweeps.Kept + 1);
+        Assert.InRange(e.SweepColumns!.Count, 1, WindingNotes.Solve.Sweeps.Kept + 1);
     }
 
     [Fact]

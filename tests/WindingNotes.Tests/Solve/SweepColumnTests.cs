@@ -3,6 +3,7 @@ using WindingNotes.Kernel;
 using WindingNotes.Solve;
 using WindingNotes.Tests.Analysis;
 using WindingNotes.Tests.Support;
+using WindingNotes.Workspace;
 using Xunit;
 
 namespace WindingNotes.Tests.Solve;
@@ -26,7 +27,7 @@ public class SweepColumnTests
     public void Each_kept_point_holds_its_case_numbers(string what, string text)
     {
         var e = Wn.Solved(text);
-        var points = e.Cases.Where(c => c.Case.IsSweepPoint).ToList();
+        var points = Wn.Points(e);
         var sweep = e.SweepColumns!;
         Assert.True(points.Count > 1, what);
         Assert.Equal(points.Count, sweep.Solved);
@@ -55,17 +56,11 @@ public class SweepColumnTests
     {
         // 41 points fed with room for 4: one in every 16 is kept (0, 16, 32) and the last (40).
         var e = Wn.Solved(BrushSweepTests.TwentySections("sweep BR from 1 % to 99 % points 41"));
-        var points = e.Cases.Where(c => c.Case.IsSweepPoint).ToList();
+        var points = Wn.Points(e);
         var builder = new SweepColumnsBuilder(4);
-        var kept = new KeptPoints(4);
-        for (var k = 0; k < points.Count; k++)
-        {
-            builder.Add(k, points[k].Case.Sweep, points[k]);
-            kept.Add(k, points[k]);
-        }
+        for (var k = 0; k < points.Count; k++) builder.Add(k, points[k].Case.Sweep, points[k]);
         var sweep = builder.Finish();
         Assert.Equal(41, sweep.Solved);
-        Assert.Equal(kept.Cases.Select(c => c.Case.Where), sweep.Points.Select(p => string.Join(" ", p)));
         Assert.Equal(["BR=1 %", "BR=40.2 %", "BR=79.4 %", "BR=99 %"], sweep.Points.Select(p => string.Join(" ", p)));
         var keptWhere = sweep.Points.Select(p => string.Join(" ", p)).ToHashSet();
         var elsewhere = 0;
@@ -93,6 +88,61 @@ public class SweepColumnTests
         Assert.True(v.Min < 1e-9);
         Assert.Equal("BR=0 %", v.AtMin);
         Assert.Contains(InlayHints.For(e), h => h.Label.StartsWith("11 points: bench ", StringComparison.Ordinal));
+    }
+
+    /// <summary>The sweeps above, and the examples with a sweep: tap changers (integers, words, a regulator's object), a core loss that is null, bands at the points.</summary>
+    public static TheoryData<string, string> Leaves()
+    {
+        var data = new TheoryData<string, string>();
+        foreach (var row in Sweeps) data.Add((string)row[0], (string)row[1]);
+        foreach (var file in Directory.GetFiles(Path.Combine(Snapshot.RepositoryRoot, "examples"), "*.wn").OrderBy(f => f))
+            if (File.ReadAllText(file) is var text && text.Contains("\nsweep ", StringComparison.Ordinal)) data.Add(Path.GetFileName(file), text);
+        return data;
+    }
+
+    [Theory]
+    [MemberData(nameof(Leaves))]
+    public void Each_kept_point_gives_back_every_leaf_of_its_case(string what, string text)
+    {
+        var e = Evaluator.Evaluate(text, what);
+        var points = Wn.Points(e);
+        Assert.DoesNotContain(e.Cases, c => c.Case.IsSweepPoint);
+        var sweep = e.SweepColumns!;
+        Assert.True(points.Count > 1, what);
+        Assert.Equal(points.Count, sweep.Count);
+        for (var i = 0; i < points.Count; i++)
+        {
+            var want = new Recorder();
+            CaseLeaves.Walk(points[i], want);
+            var got = new Recorder();
+            sweep.Walk(i, got);
+            Assert.Equal(want.Leaves, got.Leaves);
+            Assert.Equal(points[i].Case.Name, sweep.Name(i));
+            Assert.Equal(points[i].Bands.ToArray(), sweep.Bands(i).ToArray());
+        }
+    }
+
+    /// <summary>Every leaf told, written out with its kind and its value's exact bits.</summary>
+    private sealed class Recorder : ICaseLeaves
+    {
+        public List<string> Leaves { get; } = [];
+
+        public void Open(string key, bool array) => Leaves.Add($"{(array ? "[" : "{")} {key}");
+
+        public void Close() => Leaves.Add("}");
+
+        public void Number(string key, ResultField field, double value) => Leaves.Add($"number {key} {field.Key} {BitConverter.DoubleToInt64Bits(value)}");
+
+        public void Null(string key, ResultField field) => Leaves.Add($"null {key} {field.Key}");
+
+        public void Integer(string key, ResultField field, int value) => Leaves.Add($"integer {key} {field.Key} {value}");
+
+        public void Word(string key, ResultField field, string value) => Leaves.Add($"word {key} {field.Key} {value}");
+
+        public void Boolean(string key, ResultField field, bool value) => Leaves.Add($"boolean {key} {field.Key} {value}");
+
+        public void Phasor(string key, ResultField field, System.Numerics.Complex value) =>
+            Leaves.Add($"phasor {key} {field.Key} {BitConverter.DoubleToInt64Bits(value.Real)} {BitConverter.DoubleToInt64Bits(value.Imaginary)}");
     }
 
     /// <summary>A case's numbers by path, the first of a path as reports show it.</summary>

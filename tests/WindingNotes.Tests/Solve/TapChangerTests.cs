@@ -55,7 +55,7 @@ public class TapChangerTests
         Wn.Near(7900 * 0.96875, e.Normal!.V("R", "N").Magnitude, 1e-9, "bucked output");
         // The series winding is in circuit reversed: the selector is 5/16 of it from S1, and S1 is above R.
         Wn.Near(7900 * 5 * 0.00625, e.Normal!.V("S1", "R").Magnitude, 1e-9, "series winding voltage");
-        var points = e.Cases.Where(c => c.Case.IsSweepPoint).ToList();
+        var points = Wn.Points(e);
         // At 7000 V the same control boosts: 1 + 0.00625·k ≥ 119·63.5/7000 = 1.07950 → k = +13 (relay 119.2 V).
         Assert.Equal([13, -5], points.Select(c => Position(c).Position));
         Wn.Near(7000 * (1 + 13 * 0.00625), points[0].V("R", "N").Magnitude, 1e-9, "boosted output");

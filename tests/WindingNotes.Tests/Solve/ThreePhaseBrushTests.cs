@@ -28,7 +28,7 @@ public class ThreePhaseBrushTests
         foreach (var (line, brush) in new[] { ("X1", "B_a"), ("X2", "B_b"), ("X3", "B_c") })
             Assert.True((c.V(brush, "X0") / c.V(line, "X0") - 0.6).Magnitude < 1e-9, brush);
         // The sweep moves all three: at 20 %, 50 % and 80 % each brush stands at 80 %, 50 % and 20 %.
-        var points = e.Cases.Where(x => x.Case.IsSweepPoint).ToList();
+        var points = Wn.Points(e);
         Assert.Equal(3, points.Count);
         foreach (var (point, expected) in points.Zip(new[] { 0.8, 0.5, 0.2 }))
             foreach (var (line, brush) in new[] { ("X1", "B_a"), ("X2", "B_b"), ("X3", "B_c") })

@@ -11,6 +11,17 @@ public static class Wn
 {
     public static Evaluation Eval(string text) => Evaluator.Evaluate(text.Replace("\r\n", "\n"), "test.wn");
 
+    /// <summary>
+    /// Every sweep point's case of an evaluation, as it was solved, by evaluating its text again and
+    /// keeping each point's case as it comes: the evaluation keeps a sweep's points only in its columns.
+    /// </summary>
+    public static List<CaseResult> Points(Evaluation e)
+    {
+        var points = new List<CaseResult>();
+        Evaluator.Evaluate(e.Text.Text, e.Path, sweepPoint: points.Add);
+        return points;
+    }
+
     /// <summary>Evaluates and fails the test on any error diagnostic, so a reference check never passes on a half-read file.</summary>
     public static Evaluation Solved(string text)
     {
