@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using System.Numerics;
 using WindingNotes.Model;
 using WindingNotes.Text;
 
@@ -51,12 +52,12 @@ public static class Tolerances
 
 /// <summary>
 /// The range of every number of a case over the tolerance samples, kept by the paths of the case as
-/// written. A sample's numbers come in the nominal's order (<see cref="CaseValues.Walk"/>): each is
+/// written. A sample's numbers come in the nominal's order (<see cref="CaseLeaves.Walk"/>): each is
 /// matched to the nominal's number at its place by comparing its path's parts with that number's path,
 /// without writing the path out; a number whose path differs there (a sample of another shape) is
 /// found by its path written out, as a number the nominal lacks is left out.
 /// </summary>
-internal sealed class BandSet : CaseValues.ISink
+internal sealed class BandSet : ICaseLeaves
 {
     private readonly Dictionary<string, int> index = new(StringComparer.Ordinal);
     private readonly List<(string Path, string Unit, double Min, double Max)> ranges = [];
@@ -80,16 +81,34 @@ internal sealed class BandSet : CaseValues.ISink
     {
         place = 0;
         parts.Clear();
-        CaseValues.Walk(sample, this);
+        CaseLeaves.Walk(sample, this, banded: true);
     }
 
-    void CaseValues.ISink.Enter(string part) => parts.Add(part);
+    void ICaseLeaves.Open(string key, bool array) => parts.Add(key);
 
-    void CaseValues.ISink.Leave() => parts.RemoveAt(parts.Count - 1);
+    void ICaseLeaves.Close() => parts.RemoveAt(parts.Count - 1);
 
-    void CaseValues.ISink.Here(double value, string unit)
+    void ICaseLeaves.Number(string key, ResultField field, double value) => Here(field, value, key);
+
+    void ICaseLeaves.Integer(string key, ResultField field, int value) => Here(field, value, key);
+
+    // A phasor's band is of its rms value, "….v.rms" (CaseValues).
+    void ICaseLeaves.Phasor(string key, ResultField field, Complex value) => Here(field, value.Magnitude, key, "rms");
+
+    void ICaseLeaves.Null(string key, ResultField field) { }
+
+    void ICaseLeaves.Word(string key, ResultField field, string value) { }
+
+    void ICaseLeaves.Boolean(string key, ResultField field, bool value) { }
+
+    private void Here(ResultField field, double value, string key, string? rms = null)
     {
+        if (!field.Band) return;
+        var depth = parts.Count;
+        parts.Add(key);
+        if (rms is not null) parts.Add(rms);
         var at = place < order.Count && IsPath(ranges[order[place]].Path) ? order[place] : index.GetValueOrDefault(string.Join(".", parts), -1);
+        parts.RemoveRange(depth, parts.Count - depth);
         place++;
         if (at < 0) return;
         var r = ranges[at];
