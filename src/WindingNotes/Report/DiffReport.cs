@@ -200,12 +200,12 @@ public static class DiffReport
     private static string Message(DiagnosticChange d, string arrow)
     {
         if (d.Old is null || d.New is null) return d.New ?? d.Old ?? "";
-        var old = ResultDiff.Number.Matches(d.Old);
+        var old = ResultDiff.NumbersIn(d.Old);
         var i = 0;
-        return ResultDiff.Number.Replace(d.New, m =>
+        return ResultDiff.ReplaceNumbers(d.New, number =>
         {
-            var was = i < old.Count ? old[i++].Value : m.Value;
-            return was == m.Value ? m.Value : $"{was} {arrow} {m.Value}";
+            var was = i < old.Count ? old[i++] : number;
+            return was == number ? number : $"{was} {arrow} {number}";
         });
     }
 

@@ -1,5 +1,4 @@
 using System.Collections.Immutable;
-using System.Text.RegularExpressions;
 using WindingNotes.Kernel;
 using WindingNotes.Solve;
 using WindingNotes.Syntax;
@@ -291,9 +290,63 @@ public sealed record ResultDiff(
         return [.. changes];
     }
 
-    /// <summary>A number as messages write it: "227.9", "-0.04", "1.2E-05".</summary>
-    public static readonly Regex Number = new(@"-?\d+(?:\.\d+)?(?:E[+-]?\d+)?", RegexOptions.CultureInvariant);
+    /// <summary>
+    /// Each number of a message, as messages write it ("227.9", "-0.04", "1.2E-05": the regular expression
+    /// <c>-?\d+(?:\.\d+)?(?:E[+-]?\d+)?</c>, leftmost first), replaced by what <paramref name="replace"/>
+    /// gives for it. Scanned by hand: a regular expression would bring .NET's regular expression engines
+    /// into the native command, whose start-up writes out every type it carries.
+    /// </summary>
+    public static string ReplaceNumbers(string message, Func<string, string> replace)
+    {
+        var o = new System.Text.StringBuilder(message.Length);
+        var i = 0;
+        while (i < message.Length)
+        {
+            var end = NumberEnd(message, i);
+            if (end < 0) o.Append(message[i++]);
+            else
+            {
+                o.Append(replace(message[i..end]));
+                i = end;
+            }
+        }
+        return o.ToString();
+    }
+
+    /// <summary>The numbers of a message, in order (as <see cref="ReplaceNumbers"/> finds them).</summary>
+    public static List<string> NumbersIn(string message)
+    {
+        var found = new List<string>();
+        ReplaceNumbers(message, n => { found.Add(n); return n; });
+        return found;
+    }
+
+    /// <summary>Where a number starting at <paramref name="start"/> ends, or -1 if none starts there.</summary>
+    private static int NumberEnd(string s, int start)
+    {
+        var i = start;
+        if (i < s.Length && s[i] == '-') i++;
+        var digits = Digits(s, i);
+        if (digits == i) return -1;
+        i = digits;
+        // A fraction or an exponent only with digits after it; else the number ends before it.
+        if (i < s.Length && s[i] == '.' && Digits(s, i + 1) > i + 1) i = Digits(s, i + 1);
+        if (i < s.Length && s[i] == 'E')
+        {
+            var j = i + 1;
+            if (j < s.Length && (s[j] == '+' || s[j] == '-')) j++;
+            if (Digits(s, j) > j) i = Digits(s, j);
+        }
+        return i;
+    }
+
+    // char.IsDigit is the regular expression's \d: a Unicode decimal digit.
+    private static int Digits(string s, int i)
+    {
+        while (i < s.Length && char.IsDigit(s[i])) i++;
+        return i;
+    }
 
     /// <summary>A message with its numbers taken out: what it says, whatever the values.</summary>
-    private static string Wording(string message) => Number.Replace(message, "#");
+    private static string Wording(string message) => ReplaceNumbers(message, _ => "#");
 }

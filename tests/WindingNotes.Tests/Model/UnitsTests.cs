@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text;
+using UnitsNet;
 using WindingNotes.Model;
 using WindingNotes.Tests.Support;
 using Xunit;
@@ -9,19 +10,47 @@ namespace WindingNotes.Tests.Model;
 public class UnitsTests
 {
     /// <summary>
-    /// The table is built from the 14 quantities alone (start-up reads no other); it must hold what
-    /// UnitsNet's default abbreviation cache and its untyped conversion give for them: every
-    /// abbreviation, the first quantity and unit to claim it winning, with the same factor and offset
-    /// to the quantity's base unit, bit for bit.
+    /// UnitsNet's quantities the table is made of, in priority order (the first quantity and unit to
+    /// claim an abbreviation keep it: 'A' is the ampere, not the ångström), each with its dimension and
+    /// its value in SI units of a value in any of its units (typed, as UnitsNet converts a quantity).
+    /// </summary>
+    private static readonly Kind[] Kinds =
+    [
+        Kind.Of(ElectricPotential.Info, nameof(Dimension.Voltage), (v, u) => ElectricPotential.From(v, u).Volts),
+        Kind.Of(ElectricCurrent.Info, nameof(Dimension.CurrentDim), (v, u) => ElectricCurrent.From(v, u).Amperes),
+        Kind.Of(Power.Info, nameof(Dimension.ActivePower), (v, u) => (double)Power.From(v, u).Watts),
+        Kind.Of(ElectricApparentPower.Info, nameof(Dimension.ApparentPower), (v, u) => ElectricApparentPower.From(v, u).Voltamperes),
+        Kind.Of(ElectricReactivePower.Info, nameof(Dimension.ReactivePower), (v, u) => ElectricReactivePower.From(v, u).VoltamperesReactive),
+        Kind.Of(ElectricResistance.Info, nameof(Dimension.Impedance), (v, u) => ElectricResistance.From(v, u).Ohms),
+        Kind.Of(Frequency.Info, nameof(Dimension.Frequency), (v, u) => Frequency.From(v, u).Hertz),
+        Kind.Of(MagneticField.Info, nameof(Dimension.FluxDensity), (v, u) => MagneticField.From(v, u).Teslas),
+        Kind.Of(ElectricInductance.Info, nameof(Dimension.Inductance), (v, u) => ElectricInductance.From(v, u).Henries),
+        Kind.Of(Area.Info, nameof(Dimension.Area), (v, u) => Area.From(v, u).SquareMeters),
+        Kind.Of(Length.Info, nameof(Dimension.LengthDim), (v, u) => Length.From(v, u).Meters),
+        Kind.Of(Temperature.Info, nameof(Dimension.TemperatureDim), (v, u) => Temperature.From(v, u).Kelvins),
+        Kind.Of(Duration.Info, nameof(Dimension.TimeDim), (v, u) => Duration.From(v, u).Seconds),
+        Kind.Of(Angle.Info, nameof(Dimension.AngleDim), (v, u) => Angle.From(v, u).Radians),
+    ];
+
+    private sealed record Kind(QuantityInfo Info, string Dimension, Func<double, Enum, double> ToSi)
+    {
+        public static Kind Of<TUnit>(QuantityInfo<TUnit> info, string dimension, Func<double, TUnit, double> toSi) where TUnit : struct, Enum =>
+            new(info, dimension, (value, unit) => toSi(value, (TUnit)unit));
+    }
+
+    /// <summary>
+    /// Every abbreviation of the table's quantities must be in it as UnitsNet's default abbreviation
+    /// cache and its untyped conversion give them, the first quantity and unit to claim it winning,
+    /// with the same factor and offset to the quantity's SI unit, bit for bit.
     /// </summary>
     [Fact]
     public void The_table_holds_what_UnitsNet_gives_for_its_quantities()
     {
-        var cache = UnitsNet.UnitsNetSetup.Default.UnitAbbreviations;
+        var cache = UnitsNetSetup.Default.UnitAbbreviations;
         // "h" is the hour here (times of day in load cycles), not UnitsNet's hand.
         var claimed = new HashSet<string>(StringComparer.Ordinal) { "ohm", "mohm", "kohm", "Mohm", "mm2", "cm2", "m2", "degC", "kcmil", "%", "pu", "turns", "turn", "h" };
         var compared = 0;
-        foreach (var info in Units.Quantities)
+        foreach (var info in Kinds.Select(k => k.Info))
         {
             foreach (Enum unit in Enum.GetValues(info.UnitType))
             {
@@ -47,34 +76,53 @@ public class UnitsTests
     }
 
     /// <summary>
-    /// <c>Model/UnitSymbols.cs</c> holds UnitsNet's abbreviations of every unit of the table's quantities,
-    /// as the empty cache the table read them from gave them (invariant culture), so that start-up
-    /// does not read UnitsNet's resources. UPDATE_EXPECTED=1 rewrites it after a UnitsNet update or a
-    /// new quantity.
+    /// <c>Model/UnitTable.cs</c> holds what the table takes from UnitsNet (every abbreviation of its 14
+    /// quantities as UnitsNet's resources give it in the invariant culture, and each unit's factor and
+    /// offset to SI as UnitsNet's typed conversion gives them), written as code so that the command
+    /// carries none of UnitsNet: its ~130 quantities' types and tables were most of the native binary's
+    /// data, which the runtime writes out at every start. Doubles are written round-trip ("R"), so the
+    /// table is UnitsNet's bit for bit. UPDATE_EXPECTED=1 rewrites it after a UnitsNet update or a new
+    /// quantity.
     /// </summary>
     [Fact]
-    public void UnitSymbols_holds_the_abbreviations_UnitsNet_gives()
+    public void UnitTable_holds_what_UnitsNet_gives()
     {
-        var cache = UnitsNet.UnitAbbreviationsCache.CreateEmpty();
+        var cache = UnitAbbreviationsCache.CreateEmpty();
         var o = new StringBuilder();
-        o.Append("// Generated by UnitsTests.UnitSymbols_holds_the_abbreviations_UnitsNet_gives from UnitsNet's abbreviations\n");
-        o.Append("// (invariant culture) of the units of the quantities Units reads; UPDATE_EXPECTED=1 dotnet test rewrites it.\n");
+        o.Append("// Generated by UnitsTests.UnitTable_holds_what_UnitsNet_gives from UnitsNet's abbreviations (invariant\n");
+        o.Append("// culture) and typed conversions of the quantities the notation reads; UPDATE_EXPECTED=1 dotnet test rewrites it.\n");
         o.Append("namespace WindingNotes.Model;\n\n");
         o.Append("/// <summary>\n");
-        o.Append("/// UnitsNet's abbreviations of each unit, by quantity and unit name. Reading them from UnitsNet's resources\n");
-        o.Append("/// (its resource manager, by reflection) took about a tenth of the native command's time for a report\n");
-        o.Append("/// of 1,000 lines.\n");
+        o.Append("/// UnitsNet's units of the quantities the notation reads, by abbreviation, in priority order (the first to\n");
+        o.Append("/// claim an abbreviation keeps it): factor and offset to SI. As code, the command carries none of UnitsNet.\n");
         o.Append("/// </summary>\n");
-        o.Append("internal static class UnitSymbols\n{\n");
-        o.Append("    public static IReadOnlyList<string>? Of(string quantity, string unit) => ByUnit.GetValueOrDefault(quantity + \".\" + unit);\n\n");
-        o.Append("    private static readonly Dictionary<string, string[]> ByUnit = new(StringComparer.Ordinal)\n    {\n");
-        foreach (var info in Units.Quantities)
+        o.Append("internal static class UnitTable\n{\n");
+        o.Append("    public static readonly UnitInfo[] Units =\n    [\n");
+        foreach (var (info, dimension, toSi) in Kinds)
+        {
+            o.Append("        // ").Append(info.Name).Append('\n');
+            // In the order of the unit enumeration, so the first unit to claim a shared abbreviation keeps it.
             foreach (var unit in info.UnitInfos.OrderBy(u => Convert.ToInt32(u.Value)))
             {
-                var symbols = cache.GetAbbreviations(unit, CultureInfo.InvariantCulture).Select(a => "\"" + a.Replace("\\", "\\\\").Replace("\"", "\\\"") + "\"");
-                o.Append("        [\"").Append(info.Name).Append('.').Append(unit.Name).Append("\"] = [").Append(string.Join(", ", symbols)).Append("],\n");
+                var offset = toSi(0, unit.Value);
+                var factor = toSi(1, unit.Value) - offset;
+                foreach (var symbol in cache.GetAbbreviations(unit, CultureInfo.InvariantCulture))
+                {
+                    o.Append("        new(\"").Append(symbol.Replace("\\", "\\\\").Replace("\"", "\\\"")).Append("\", ")
+                        .Append(Literal(factor)).Append(", Dimension.").Append(dimension);
+                    if (offset != 0) o.Append(", ").Append(Literal(offset));
+                    o.Append("), // ").Append(unit.Name).Append('\n');
+                }
             }
-        o.Append("    };\n}\n");
-        Snapshot.Match(o.ToString(), Path.Combine("..", "..", "src", "WindingNotes", "Model", "UnitSymbols.cs"));
+        }
+        o.Append("    ];\n}\n");
+        Snapshot.Match(o.ToString(), Path.Combine("..", "..", "src", "WindingNotes", "Model", "UnitTable.cs"));
+    }
+
+    private static string Literal(double value)
+    {
+        var text = value.ToString("R", CultureInfo.InvariantCulture);
+        Assert.Equal(value, double.Parse(text, CultureInfo.InvariantCulture));
+        return text + "d";
     }
 }

@@ -1,5 +1,4 @@
 using System.Collections.Immutable;
-using System.Text.RegularExpressions;
 using WindingNotes.Kernel;
 using WindingNotes.Solve;
 using WindingNotes.Text;
@@ -49,7 +48,7 @@ public static class SweepPlot
         foreach (var pattern in patterns)
         {
             var match = Glob(pattern);
-            var found = paths.Where(p => match.IsMatch(p)).ToList();
+            var found = paths.Where(match).ToList();
             if (found.Count == 0 && explicitly)
             {
                 problem = $"no result of the sweep matches '{pattern}'; results are named as in the JSON report, such as {string.Join(", ", paths.Take(3))}";
@@ -57,7 +56,7 @@ public static class SweepPlot
             }
             chosen.AddRange(found.Where(f => !chosen.Contains(f)));
         }
-        if (chosen.Count == 0) chosen.AddRange(paths.Where(p => Glob("nodes.*.v.rms").IsMatch(p)));
+        if (chosen.Count == 0) chosen.AddRange(paths.Where(Glob("nodes.*.v.rms")));
 
         // A further sweep axis makes a line per value of it.
         string Group(ImmutableArray<SweepValue> point) => string.Join(" ", point.Skip(1));
@@ -118,8 +117,30 @@ public static class SweepPlot
             "time of day (h)", "h", series, marks: false);
     }
 
-    private static Regex Glob(string pattern) =>
-        new("^" + string.Join("[^.]*", pattern.Split('*').Select(Regex.Escape)) + "$", RegexOptions.CultureInvariant);
+    /// <summary>
+    /// Whether a result's path matches a pattern whose '*' stands for any characters but '.' (one part of
+    /// the path or a piece of it); the rest compares exactly. Matched by hand: a regular expression would
+    /// bring .NET's regular expression engines into the native command, whose start-up writes out every
+    /// type it carries.
+    /// </summary>
+    internal static Func<string, bool> Glob(string pattern)
+    {
+        var parts = pattern.Split('*');
+        return path => Matches(path, 0, parts, 0);
+    }
+
+    private static bool Matches(string path, int at, string[] parts, int part)
+    {
+        if (!path.AsSpan(at).StartsWith(parts[part], StringComparison.Ordinal)) return false;
+        at += parts[part].Length;
+        if (part == parts.Length - 1) return at == path.Length;
+        // The '*' after this part takes the characters before a '.', as few or as many as the rest needs.
+        for (var end = at; ; end++)
+        {
+            if (Matches(path, end, parts, part + 1)) return true;
+            if (end == path.Length || path[end] == '.') return false;
+        }
+    }
 
     private static Drawing Plot(string title, string note, string axisLabel, string xUnit, List<Series> series, bool marks)
     {
