@@ -1,5 +1,6 @@
 using System.CommandLine;
 using WindingNotes.Report.Diagrams;
+using WindingNotes.Solve;
 using WindingNotes.Workspace;
 
 namespace WindingNotes.Cli;
@@ -19,7 +20,7 @@ internal static class DiagramCommand
         var kind = new Option<string>("--kind", "-k") { Description = "network, one-line, phasors, phase-sets or sweep", DefaultValueFactory = _ => "network" };
         kind.AcceptOnlyFromAmong("network", "one-line", "phasors", "phase-sets", "sweep");
         var output = new Option<string?>("--output", "-o") { Description = "the SVG file to write (standard output when left out)" };
-        var @case = new Option<string>("--case", "-c") { Description = "for phasors and phase-sets: the case to draw, such as 'normal' or 'fault F1'", DefaultValueFactory = _ => "normal" };
+        var @case = new Option<string>("--case", "-c") { Description = "for phasors and phase-sets: the case to draw, such as 'normal', 'fault F1' or a sweep point 'sweep BR=25 %'", DefaultValueFactory = _ => "normal" };
         var results = new Option<string[]>("--result", "-r")
         {
             Description = "for a sweep: a result to plot, by its path in the JSON report with '*' for any name (repeat for more); load voltages and winding loadings when left out",
@@ -33,12 +34,15 @@ internal static class DiagramCommand
     {
         var text = io.Read(path);
         if (text is null) return Cli.Usage;
-        var evaluation = Evaluator.Evaluate(text, ConsoleIo.DisplayName(path));
+        // An evaluation keeps a sweep's points only in columns: a point to draw is taken as it is solved.
+        CaseResult? point = null;
+        Action<CaseResult>? take = kind is "phasors" or "phase-sets" ? c => point ??= c.Case.Name == caseName ? c : null : null;
+        var evaluation = Evaluator.Evaluate(text, ConsoleIo.DisplayName(path), sweepPoint: take);
         string svg;
         switch (kind)
         {
             case "phasors" or "phase-sets":
-                if (evaluation.Cases.FirstOrDefault(c => c.Case.Name == caseName) is not { } chosen)
+                if ((evaluation.Cases.FirstOrDefault(c => c.Case.Name == caseName) ?? point) is not { } chosen)
                 {
                     var known = evaluation.Cases.IsEmpty ? "the network was not solved" : "cases: " + string.Join(", ", evaluation.Cases.Select(c => $"'{c.Case.Name}'"));
                     io.Error.WriteLine($"windingnotes: no case '{caseName}' to draw ({known})");

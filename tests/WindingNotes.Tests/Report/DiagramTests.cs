@@ -433,4 +433,15 @@ public class DiagramTests
         Assert.Contains(">load heater P</text>", output);
         Assert.Equal(2, Command.Run("", "diagram", "/no/such.wn").Code);
     }
+
+    [Fact]
+    public void A_sweep_point_is_drawn_by_its_name_though_the_evaluation_keeps_it_only_in_columns()
+    {
+        var (code, svg, error) = InRepository("diagram", "examples/cedar-hollow-bench-sweep.wn", "--kind", "phasors", "--case", "sweep BR=20 %");
+        Assert.True(code == 0, error);
+        Assert.Equal("Phasors of examples/cedar-hollow-bench-sweep.wn, case sweep BR=20 %", Parse(svg).Descendants(SvgNs + "text").Single(t => t.Attribute("class")?.Value == "title").Value);
+        (code, _, error) = InRepository("diagram", "examples/cedar-hollow-bench-sweep.wn", "--kind", "phasors", "--case", "sweep BR=21 %");
+        Assert.Equal(1, code);
+        Assert.Contains("no case 'sweep BR=21 %' to draw", error);
+    }
 }
