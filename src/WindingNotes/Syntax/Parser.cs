@@ -107,14 +107,24 @@ public static class Parser
             .ToHashSet();
     }
 
-    private static Diagnostic? TooComplex(Token[] tokens, DiagnosticBag diagnostics)
+    private static Diagnostic? TooComplex(Token[] tokens, DiagnosticBag diagnostics) =>
+        TooComplex(tokens) is not { } refused ? null
+        : refused.Nesting ? diagnostics.ReportNestingTooDeep(tokens[refused.At], MaxNesting)
+        : diagnostics.ReportStatementTooLong(tokens[refused.At], MaxTokens);
+
+    /// <summary>
+    /// Where a statement's tokens are more than <see cref="MaxTokens"/> or nest deeper than
+    /// <see cref="MaxNesting"/>: the token it is refused at. Whatever reads a statement checks this first.
+    /// </summary>
+    internal static (int At, bool Nesting)? TooComplex(IReadOnlyList<Token> tokens)
     {
-        if (tokens.Length > MaxTokens) return diagnostics.ReportStatementTooLong(tokens[MaxTokens], MaxTokens);
+        if (tokens.Count > MaxTokens) return (MaxTokens, false);
         var depth = 0;
-        foreach (var t in tokens)
+        for (var i = 0; i < tokens.Count; i++)
         {
+            var t = tokens[i];
             if (t.Kind != TokenKind.Symbol) continue;
-            if (t.Text == "(" && ++depth > MaxNesting) return diagnostics.ReportNestingTooDeep(t, MaxNesting);
+            if (t.Text == "(" && ++depth > MaxNesting) return (i, true);
             if (t.Text == ")") depth--;
         }
         return null;

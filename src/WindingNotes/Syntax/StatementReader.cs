@@ -57,6 +57,8 @@ internal sealed class StatementReader
     {
         if (tokens.Count == 0) return new ExpectedNext { Statements = true };
         if (tokens[0].Kind != TokenKind.Word || !Grammar.ByKeyword.TryGetValue(tokens[0].Text, out var form)) return null;
+        // The reader recurses: a statement the parser refuses as too deep or too long offers nothing.
+        if (Parser.TooComplex(tokens) is not null) return null;
         var reader = new StatementReader(form, [.. tokens], new ExpectedNext());
         reader.Statement(form);
         return reader.collect;
