@@ -14,6 +14,13 @@ internal sealed partial class BindRun
     {
         if (s.Kind != StatementKind.Ground || s.Clause("impedance") is null || rejected.Contains(s) || s.Head.Name(0) is not { } node) return;
         var (element, earth) = GroundingModel.Names(node.Text);
+        // A second impedance on the node would be a second element of the same name: one line grounds it.
+        if (symbols.Find(element) is { Derived: true, Kind: SymbolKind.Supply } first)
+        {
+            diagnostics.ReportGroundedTwice(node.Name, first.Span);
+            rejected.Add(s);
+            return;
+        }
         Derive(element, SymbolKind.Supply, node, s);
         Derive(earth, SymbolKind.Node, node, s);
     }

@@ -72,6 +72,10 @@ public static partial class ModelMessages
             bag.Amend(bag.Error("duplicate-statement", keyword.Span, $"'{keyword.Text}' is given twice"),
                 d => d with { Related = [new RelatedSpan("first given here", first)] });
 
+        public Diagnostic ReportGroundedTwice(Token node, TextSpan first) =>
+            bag.Amend(bag.Error("duplicate-statement", node.Span, $"'{node.Text}' is already earthed through an impedance, its element '{node.Text}_ground': one 'ground {node.Text} impedance' line gives it"),
+                d => d with { Related = [new RelatedSpan("first earthed here", first)] });
+
         public Diagnostic ReportLonelyNode(TextSpan span, string name, string? suggestion) =>
             bag.WithSuggestion(bag.Error("lonely-node", span, $"node '{name}' connects nothing else: no winding, tap, join or other element touches it"), suggestion, span);
 

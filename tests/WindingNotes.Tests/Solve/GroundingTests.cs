@@ -123,6 +123,18 @@ public class GroundingTests
     }
 
     [Fact]
+    public void A_node_earthed_through_two_impedance_lines_is_one_error_at_the_second()
+    {
+        // Both lines would make the element 'X0_ground': the second ended in an internal error (fuzz seed 7027072).
+        var e = Wn.Eval(Unit.Replace("ground X0 impedance 0.2 ohm", "ground X0 impedance 0.2 ohm\nground X0 impedance 0.3 ohm"));
+        var error = Assert.Single(e.Errors());
+        Assert.Equal("duplicate-statement", error.Code);
+        var first = Assert.Single(error.Related).Span;
+        Assert.Equal(("X0", "X0"), (e.TextAt(error.Span), e.TextAt(first)));
+        Assert.Equal(e.Text.GetPosition(first.Start).Line + 1, e.Text.GetPosition(error.Span.Start).Line);
+    }
+
+    [Fact]
     public void A_winding_below_the_through_fault_curves_has_no_time_allowed_and_is_not_judged_on_them()
     {
         // IEEE C57.109 (from memory: verify any figure used), R41: the curves start at 2 times rated
