@@ -41,14 +41,17 @@ public class SweepColumnTests
             Assert.All(values.Keys, path => Assert.NotNull(sweep[path]));
         }
         // Every point is kept here: the reductions are those of the kept cases.
-        foreach (var column in sweep.Columns)
-        {
-            var at = points.Select(p => (p.Case.Where, Value: First(p).TryGetValue(column.Path, out var v) ? v.Value : double.NaN)).Where(x => !double.IsNaN(x.Value)).ToList();
-            Assert.Equal(at.Min(x => x.Value), column.Min);
-            Assert.Equal(at.Max(x => x.Value), column.Max);
-            Assert.Equal(at.First(x => x.Value == column.Min).Where, column.AtMin);
-            Assert.Equal(at.First(x => x.Value == column.Max).Where, column.AtMax);
-        }
+        foreach (var column in sweep.Columns) AssertExtremesOver(points, column);
+    }
+
+    /// <summary>The column's least and greatest, and the first point each occurs at, by a pass over every point.</summary>
+    private static void AssertExtremesOver(IReadOnlyList<CaseResult> points, SweepColumn column)
+    {
+        var at = points.Select(p => (p.Case.Where, Value: First(p).TryGetValue(column.Path, out var v) ? v.Value : double.NaN)).Where(x => !double.IsNaN(x.Value)).ToList();
+        Assert.Equal(at.Min(x => x.Value), column.Min);
+        Assert.Equal(at.Max(x => x.Value), column.Max);
+        Assert.Equal(at.First(x => x.Value == column.Min).Where, column.AtMin);
+        Assert.Equal(at.First(x => x.Value == column.Max).Where, column.AtMax);
     }
 
     [Fact]
@@ -66,11 +69,7 @@ public class SweepColumnTests
         var elsewhere = 0;
         foreach (var column in sweep.Columns)
         {
-            var all = points.Select(p => (p.Case.Where, Value: First(p).TryGetValue(column.Path, out var v) ? v.Value : double.NaN)).Where(x => !double.IsNaN(x.Value)).ToList();
-            Assert.Equal(all.Min(x => x.Value), column.Min);
-            Assert.Equal(all.Max(x => x.Value), column.Max);
-            Assert.Equal(all.First(x => x.Value == column.Min).Where, column.AtMin);
-            Assert.Equal(all.First(x => x.Value == column.Max).Where, column.AtMax);
+            AssertExtremesOver(points, column);
             if (!keptWhere.Contains(column.AtMin) || !keptWhere.Contains(column.AtMax)) elsewhere++;
         }
         // The test bites: some results reach their least or greatest between the kept points.
