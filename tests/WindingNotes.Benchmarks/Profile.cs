@@ -140,6 +140,20 @@ public static class Profile
             var c = new SweepColumnsBuilder(kept);
             for (var k = 0; k < results.Length; k++) c.Add(k, brushPoints[k].Labels, results[k].Case!);
         });
+        Report("the point's values and name (Sweeps.Point, CaseSpec.ForSweep)", () =>
+        {
+            for (var k = 0; k < 1000; k++) CaseSpec.ForSweep(Sweeps.Point(brushAxes, k).Labels);
+        });
+        var baseNetwork = results[0].Case!.Solution.Network;
+        Report("the brush moved on the built network (BrushMoves.Move)", () =>
+        {
+            foreach (var (o, _, _) in brushPoints) BrushMoves.Move(baseNetwork, o.Values);
+        });
+        Report("the ratings over every point (RatingTally.Observe)", () =>
+        {
+            var ratings = new RatingTally();
+            foreach (var r in results) ratings.Observe(r);
+        });
         Report("the checks over every point (CheckTally)", () =>
         {
             var checks = new CheckTally([.. brush.Expects]);

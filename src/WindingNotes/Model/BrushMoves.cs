@@ -38,7 +38,18 @@ public static class BrushMoves
         }
         var built = network.Cores.ToBuilder();
         foreach (var c in cores)
-            built[c] = built[c] with { Impedance = built[c].Coupling!.Matrix([.. built[c].Sections.Select(k => sections[k].Turns)]) };
+        {
+            var core = built[c];
+            var turns = new double[core.Sections.Length];
+            var changed = new bool[turns.Length];
+            for (var p = 0; p < turns.Length; p++)
+            {
+                turns[p] = sections[core.Sections[p]].Turns;
+                changed[p] = turns[p] != network.Sections[core.Sections[p]].Turns;
+            }
+            // Only the moved sections' rows and columns are computed again (SectionCoupling.Matrix, the same numbers).
+            built[c] = core with { Impedance = core.Coupling!.Matrix(turns, core.Impedance, changed) };
+        }
         return network with { Model = network.Model with { Taps = taps.ToImmutable() }, Sections = sections.ToImmutable(), Cores = built.ToImmutable() };
     }
 

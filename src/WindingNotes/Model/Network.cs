@@ -61,6 +61,30 @@ public sealed record SectionCoupling(int[] MemberOf, Complex[,] PerTurn, double[
         }
         return z;
     }
+
+    /// <summary>
+    /// <see cref="Matrix"/> of <paramref name="turns"/>, from the matrix <paramref name="before"/> of turns that differ
+    /// only where <paramref name="changed"/> says: each entry is a product of its two sections' turns,
+    /// so only the rows and columns of those sections are computed again, each as <see cref="Matrix"/> computes it
+    /// (the same numbers, bit for bit); a moved brush changes two sections of a core of many.
+    /// </summary>
+    public Complex[,] Matrix(IReadOnlyList<double> turns, Complex[,] before, bool[] changed)
+    {
+        var n = turns.Count;
+        var z = (Complex[,])before.Clone();
+        for (var p = 0; p < n; p++)
+        {
+            if (changed[p])
+            {
+                for (var q = 0; q < n; q++) z[p, q] = turns[p] * turns[q] * PerTurn[MemberOf[p], MemberOf[q]];
+                z[p, p] += Series[MemberOf[p]] * turns[p];
+                continue;
+            }
+            for (var q = 0; q < n; q++)
+                if (changed[q]) z[p, q] = turns[p] * turns[q] * PerTurn[MemberOf[p], MemberOf[q]];
+        }
+        return z;
+    }
 }
 
 public sealed record SupplyNet(int Index, SupplyModel Source, int NodeP, int NodeQ, Complex Voltage, Complex Impedance)

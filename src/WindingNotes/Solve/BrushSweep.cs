@@ -35,7 +35,8 @@ internal sealed class BrushSweep(SyntaxTree syntax, Model.Model model)
         {
             var point = Points.Solve(moved, spec, withFaults: false, c => b.Solve(moved, c, cancel), cancel);
             Moved++;
-            return point with { Diagnostics = [.. b.Diagnostics, .. point.Diagnostics] };
+            // Most bases have no message of their own: the point is then given as solved, not copied.
+            return b.Diagnostics.IsEmpty ? point : point with { Diagnostics = [.. b.Diagnostics, .. point.Diagnostics] };
         }
         var general = Points.Solve(syntax, overrides, spec, withFaults: false, cancel);
         current = Base.Of(general);

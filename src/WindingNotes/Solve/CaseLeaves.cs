@@ -46,7 +46,18 @@ public static class CaseLeaves
             var group = Groups[g];
             if (banded && !Banded[g] || !group.When(c)) continue;
             var opened = false;
-            foreach (var (name, item) in group.Items(c))
+            // The group's elements as it gives them (not through ResultGroup.Items' projection: this walk runs at every sweep point).
+            if (group.Single is { } single) Element(null, single(c));
+            else
+                foreach (var (name, item) in group.Elements!(c)) Element(name, item);
+            if (!opened && !group.OmitWhenEmpty)
+            {
+                sink.Open(group.Key, false);
+                opened = true;
+            }
+            if (opened) sink.Close();
+
+            void Element(string? name, object item)
             {
                 if (!opened) sink.Open(group.Key, false);
                 opened = true;
@@ -64,12 +75,6 @@ public static class CaseLeaves
                         }
                 if (name is not null) sink.Close();
             }
-            if (!opened && !group.OmitWhenEmpty)
-            {
-                sink.Open(group.Key, false);
-                opened = true;
-            }
-            if (opened) sink.Close();
         }
     }
 
@@ -79,6 +84,7 @@ public static class CaseLeaves
         foreach (var f in fields)
         {
             if (banded && !HasBand(f)) continue;
+            if (Typed(f.Key, f, item, sink)) continue;
             var value = f.Read(item);
             if (value is null)
             {
@@ -120,17 +126,46 @@ public static class CaseLeaves
             case ResultKind.Map:
                 sink.Open(key, false);
                 foreach (var (name, element) in (IEnumerable<(string, object)>)value)
-                    if (f.Item!.Read(element) is { } v) Value(name, f.Item, v, sink, banded);
+                    if (!Typed(name, f.Item!, element, sink) && f.Item!.Read(element) is { } v) Value(name, f.Item, v, sink, banded);
                 sink.Close();
                 break;
             case ResultKind.List:
                 sink.Open(key, true);
                 var k = 0;
                 foreach (var element in (IEnumerable<object>)value)
-                    if (f.Item!.Read(element) is { } v) Value(Index(k++), f.Item, v, sink, banded);
+                {
+                    if (f.Item!.ReadNumber is not null || f.Item.ReadPhasor is not null)
+                    {
+                        // Told with the next index only where it has a value, as below.
+                        if (f.Item.ReadNumber?.Invoke(element) is { } number) sink.Number(Index(k++), f.Item, number);
+                        else if (f.Item.ReadPhasor?.Invoke(element) is { } phasor) sink.Phasor(Index(k++), f.Item, phasor);
+                        continue;
+                    }
+                    if (f.Item.Read(element) is { } v) Value(Index(k++), f.Item, v, sink, banded);
+                }
                 sink.Close();
                 break;
         }
+    }
+
+    /// <summary>
+    /// A number or phasor told by its typed read (<see cref="ResultField.ReadNumber"/>), nothing boxed;
+    /// false for a field without one. A value the element lacks is left out, as by <see cref="ResultField.Read"/>.
+    /// </summary>
+    private static bool Typed(string key, ResultField f, object item, ICaseLeaves sink)
+    {
+        if (f.ReadNumber is { } number)
+        {
+            if (number(item) is { } v) sink.Number(key, f, v);
+            else if (f.Kind == ResultKind.NumberOrNull) sink.Null(key, f);
+            return true;
+        }
+        if (f.ReadPhasor is { } phasor)
+        {
+            if (phasor(item) is { } v) sink.Phasor(key, f, v);
+            return true;
+        }
+        return false;
     }
 
     private static readonly string[] Indices = [.. Enumerable.Range(0, 64).Select(i => i.ToString(System.Globalization.CultureInfo.InvariantCulture))];

@@ -26,6 +26,8 @@ public sealed class RatingTally
     private string? point;
     private CaseSpec pointCase = CaseSpec.Normal;
     private readonly HashSet<(string, string)> seen = [];
+    private readonly Dictionary<string, int> windingAt = new(StringComparer.Ordinal);
+    private readonly List<(WindingNet Winding, double Worst)> worstLoading = [];
     private (ImmutableArray<WindingNet> Windings, ILookup<int, WindingNet> RatedOn) rated;
 
     private sealed record Finding(string Code, TextSpan Span, string Name, double Value, double Limit, string Where, int Count, string Detail);
@@ -56,16 +58,30 @@ public sealed class RatingTally
         var network = c.Solution.Network;
         // A regulator's series winding may carry more than its rated current at a narrower range of
         // regulation: it is checked against that rating below, not against its rated current here.
-        var regulators = network.Model.TapChangers.Select(t => (Changer: t, Rating: Regulators.Rating(t, c)))
+        var regulators = network.Model.TapChangers.IsEmpty ? [] : network.Model.TapChangers.Select(t => (Changer: t, Rating: Regulators.Rating(t, c)))
             .Where(r => r.Rating?.CurrentRating is not null).ToList();
-        var series = regulators.Select(r => r.Rating!.Series).ToHashSet(StringComparer.Ordinal);
-        foreach (var winding in c.Sections.Where(s => s.Loading is not null && !series.Contains(s.Winding.Name)).GroupBy(s => s.Winding.Name))
+        var series = regulators.Count == 0 ? null : regulators.Select(r => r.Rating!.Series).ToHashSet(StringComparer.Ordinal);
+        // Each winding's worst loading, the windings in order of their first section (as a grouping by
+        // name gives them), the greatest as Enumerable.Max takes it (NaN below every number); in kept
+        // tables, since every sweep point passes here.
+        windingAt.Clear();
+        worstLoading.Clear();
+        foreach (var s in c.Sections)
         {
-            var worst = winding.Max(s => s.Loading!.Value);
-            if (worst > 1 + 1e-9) Found("loading-high", winding.Key, winding.First().Winding.Source.NameSpan, winding.Key, worst, 1);
+            if (s.Loading is not { } loading || series?.Contains(s.Winding.Name) == true) continue;
+            if (!windingAt.TryGetValue(s.Winding.Name, out var at))
+            {
+                windingAt[s.Winding.Name] = worstLoading.Count;
+                worstLoading.Add((s.Winding, loading));
+            }
+            else if (double.IsNaN(worstLoading[at].Worst) || loading > worstLoading[at].Worst) worstLoading[at] = (worstLoading[at].Winding, loading);
         }
-        foreach (var (span, winding, density) in CurrentDensity.AboveBand(c))
-            Found("current-density-high", winding, span, winding, density, CurrentDensity.CopperHigh);
+        foreach (var (winding, worst) in worstLoading)
+            if (worst > 1 + 1e-9) Found("loading-high", winding.Name, winding.Source.NameSpan, winding.Name, worst, 1);
+        // Only a copper conductor has a usual band: without one there is nothing to group.
+        if (c.Sections.Any(static s => s.Winding.Source.Conductor is { Material: ConductorMaterial.Copper }))
+            foreach (var (span, winding, density) in CurrentDensity.AboveBand(c))
+                Found("current-density-high", winding, span, winding, density, CurrentDensity.CopperHigh);
         foreach (var k in c.Cores)
             if (k.Flux is { } flux && k.Core.FluxLimit is { } limit && flux > limit * (1 + 1e-9))
                 Found("flux-high", k.Core.Name, k.Core.Source.NameSpan, k.Core.Name, flux, limit);
@@ -90,6 +106,7 @@ public sealed class RatingTally
                 }
             if (current > brush.CurrentLimit!.Value * (1 + 1e-9)) Found("brush-current-high", brush.Name, brush.NameSpan, brush.Name, current, brush.CurrentLimit.Value);
         }
+        if (c.Connections.IsEmpty) return;
         var islands = c.Connections.GroupBy(x => x.Connection.Load.Index).ToDictionary(g => g.Key, g => g.Select(x => x.Connection.Island).Distinct().Count());
         foreach (var island in c.Connections.GroupBy(x => x.Connection.Island))
         {

@@ -56,6 +56,15 @@ public sealed record ResultField(string Key, ResultKind Kind, string Unit, strin
     /// <summary>Each element of a <see cref="ResultKind.Map"/> or <see cref="ResultKind.List"/>, read from the element (its key unused). A map's <see cref="Choices"/> are the names it may have, where they are fixed.</summary>
     public ResultField? Item { get; init; }
 
+    /// <summary>
+    /// A <see cref="ResultKind.Number"/> field's <see cref="Read"/> without boxing (null where the element lacks it): the
+    /// walk of a case (<see cref="CaseLeaves"/>) reads every number of every kept sweep point by it.
+    /// </summary>
+    public Func<object, double?>? ReadNumber { get; init; }
+
+    /// <summary>The same for a <see cref="ResultKind.Phasor"/> field.</summary>
+    public Func<object, Complex?>? ReadPhasor { get; init; }
+
     /// <summary>An integer's bounds, for the schema.</summary>
     public int? Minimum { get; init; }
 
@@ -161,10 +170,10 @@ public static class ResultTable
         new(key, kind, unit, description, x => read((T)x)) { Band = band, Required = required };
 
     private static ResultField Number<T>(string key, string unit, Func<T, double?> read, string description = "", bool band = false, bool required = false) =>
-        Field<T>(key, ResultKind.Number, unit, x => read(x), description, band, required);
+        Field<T>(key, ResultKind.Number, unit, x => read(x), description, band, required) with { ReadNumber = x => read((T)x) };
 
     private static ResultField Phasor<T>(string key, string unit, Func<T, Complex?> read, string description = "", bool band = false, bool required = false) =>
-        Field<T>(key, ResultKind.Phasor, unit, x => read(x), description, band, required);
+        Field<T>(key, ResultKind.Phasor, unit, x => read(x), description, band, required) with { ReadPhasor = x => read((T)x) };
 
     private static ResultField Word<T>(string key, Func<T, string?> read, string description = "", bool required = false) =>
         Field<T>(key, ResultKind.Word, "", read, description, required: required);

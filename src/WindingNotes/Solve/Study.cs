@@ -62,7 +62,7 @@ public static class Study
         var ratings = new RatingTally();
         var outputs = new OutputTally(network);
         var cases = ImmutableArray.CreateBuilder<CaseResult>();
-        var columns = new SweepColumnsBuilder(Sweeps.KeptFor(normal));
+        var columns = new SweepColumnsBuilder(Sweeps.KeptFor(normal), points);
 
         checks.BeginPoint(normal.Case.Where);
         checks.Observe(normal, null);

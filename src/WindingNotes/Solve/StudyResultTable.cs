@@ -17,10 +17,10 @@ public static class StudyResultTable
         new(key, kind, unit, description, x => read((T)x)) { Required = required };
 
     private static ResultField Number<T>(string key, string unit, Func<T, double?> read, string description = "", bool required = false) =>
-        Field<T>(key, ResultKind.Number, unit, x => read(x), description, required);
+        Field<T>(key, ResultKind.Number, unit, x => read(x), description, required) with { ReadNumber = x => read((T)x) };
 
     private static ResultField Phasor<T>(string key, string unit, Func<T, Complex?> read, string description = "", bool required = false) =>
-        Field<T>(key, ResultKind.Phasor, unit, x => read(x), description, required);
+        Field<T>(key, ResultKind.Phasor, unit, x => read(x), description, required) with { ReadPhasor = x => read((T)x) };
 
     private static ResultField Word<T>(string key, Func<T, string?> read, string description = "", bool required = false) =>
         Field<T>(key, ResultKind.Word, "", read, description, required);

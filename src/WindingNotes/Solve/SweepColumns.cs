@@ -117,6 +117,8 @@ internal sealed class SweepLeavesNode(int id, string key, LeafKind kind, string 
     public readonly bool IsShown = CaseLeaves.IsShown(key);
     public Dictionary<(string, LeafKind), SweepLeavesNode>? Children;
     public SweepLeavesNode? Twin;
+    /// <summary>The object or array holding it (null at the root), and for a twin the node it is the twin of.</summary>
+    public SweepLeavesNode? Parent, Before;
     public int Column = -1;
     public int Reduction = -1;
     public long Seen = -1;
@@ -129,8 +131,11 @@ internal sealed class SweepLeavesNode(int id, string key, LeafKind kind, string 
 /// into the columns. The last point solved, when not kept at its step, is walked at <see cref="Finish"/>:
 /// only its case is held meanwhile, until the next point replaces it.
 /// </summary>
-internal sealed class SweepColumnsBuilder(int capacity) : ICaseLeaves
+internal sealed class SweepColumnsBuilder(int capacity, long expected = 0) : ICaseLeaves
 {
+    /// <summary>Each column's room, made once: the points kept at most (all of a short sweep), not grown by doubling as they come.</summary>
+    private readonly int room = (int)Math.Min(Math.Max(expected, 0), capacity + 2L);
+
     private readonly List<(SweepLeavesNode Node, string Unit, double Min, string AtMin, double Max, string AtMax)> reductions = [];
     private readonly List<long> keptK = [];
     private readonly List<ImmutableArray<SweepValue>> keptLabels = [];
@@ -158,6 +163,10 @@ internal sealed class SweepColumnsBuilder(int capacity) : ICaseLeaves
     private readonly List<int> shape = [];
     private readonly SweepLeavesNode root = new(-1, "", LeafKind.Object, "", null, false);
     private readonly List<SweepLeavesNode> stack = [];
+    /// <summary>The nodes the last walk of each kind (banded, whole) met, in order: a point is most often told as the one before.</summary>
+    private readonly List<SweepLeavesNode>[] trails = [[], []];
+    private List<SweepLeavesNode> trail = [];
+    private int step;
     private ImmutableArray<SweepValue> labels = [];
     private string? where;
 
@@ -215,6 +224,7 @@ internal sealed class SweepColumnsBuilder(int capacity) : ICaseLeaves
         stamp++;
         stack.Clear();
         stack.Add(root);
+        (trail, step) = (trails[whole ? 1 : 0], 0);
         if (whole)
         {
             shape.Clear();
@@ -266,10 +276,30 @@ internal sealed class SweepColumnsBuilder(int capacity) : ICaseLeaves
     private SweepLeavesNode Place(string key, LeafKind kind, ResultField? field)
     {
         var parent = stack[^1];
-        parent.Children ??= [];
-        if (!parent.Children.TryGetValue((key, kind), out var node))
-            parent.Children[(key, kind)] = node = New(key, kind, parent, field, parent.IsTwin);
-        while (node.Seen == stamp) node = node.Twin ??= New(key, kind, parent, field, true);
+        SweepLeavesNode? node;
+        // The node the last walk met at this step, where it is the one the look-up below would give:
+        // of this key, kind and parent, not met yet at this point, and the first of its twins not met.
+        if (step < trail.Count && trail[step] is var guess && guess.Parent == parent && guess.Kind == kind && guess.Seen != stamp
+            && (guess.Before is null || guess.Before.Seen == stamp) && string.Equals(guess.Key, key, StringComparison.Ordinal))
+            node = guess;
+        else
+        {
+            parent.Children ??= [];
+            if (!parent.Children.TryGetValue((key, kind), out node))
+                parent.Children[(key, kind)] = node = New(key, kind, parent, field, parent.IsTwin);
+            while (node.Seen == stamp)
+            {
+                if (node.Twin is null)
+                {
+                    node.Twin = New(key, kind, parent, field, true);
+                    node.Twin.Before = node;
+                }
+                node = node.Twin;
+            }
+            if (step < trail.Count) trail[step] = node;
+            else trail.Add(node);
+        }
+        step++;
         node.Seen = stamp;
         if (whole) shape.Add(node.Id);
         return node;
@@ -277,7 +307,7 @@ internal sealed class SweepColumnsBuilder(int capacity) : ICaseLeaves
 
     private SweepLeavesNode New(string key, LeafKind kind, SweepLeavesNode parent, ResultField? field, bool twin)
     {
-        var node = new SweepLeavesNode(nodes.Count, key, kind, parent == root ? key : $"{parent.Path}.{key}", field, twin);
+        var node = new SweepLeavesNode(nodes.Count, key, kind, parent == root ? key : $"{parent.Path}.{key}", field, twin) { Parent = parent };
         nodes.Add(node);
         return node;
     }
@@ -290,18 +320,18 @@ internal sealed class SweepColumnsBuilder(int capacity) : ICaseLeaves
         {
             case LeafKind.Phasor:
                 n.Column = phasors.Count;
-                phasors.Add([.. Enumerable.Repeat(new Complex(double.NaN, double.NaN), keptK.Count)]);
+                phasors.Add(Fresh(new Complex(double.NaN, double.NaN)));
                 Array.Resize(ref phasorRow, phasors.Count);
                 phasorRow[^1] = new Complex(double.NaN, double.NaN);
                 break;
             case LeafKind.Word:
                 n.Column = words.Count;
-                words.Add([.. Enumerable.Repeat<string?>(null, keptK.Count)]);
+                words.Add(Fresh<string?>(null));
                 Array.Resize(ref wordRow, words.Count);
                 break;
             default:
                 n.Column = numbers.Count;
-                numbers.Add([.. Enumerable.Repeat(double.NaN, keptK.Count)]);
+                numbers.Add(Fresh(double.NaN));
                 Array.Resize(ref numberRow, numbers.Count);
                 numberRow[^1] = double.NaN;
                 break;
@@ -372,6 +402,14 @@ internal sealed class SweepColumnsBuilder(int capacity) : ICaseLeaves
         if (!(value >= r.Min)) r = r with { Min = value, AtMin = where ??= string.Join(" ", labels) };
         if (!(value <= r.Max)) r = r with { Max = value, AtMax = where ??= string.Join(" ", labels) };
         reductions[i] = r;
+    }
+
+    /// <summary>A new column: <paramref name="missing"/> at each point kept before it, with room for the points to come.</summary>
+    private List<T> Fresh<T>(T missing)
+    {
+        var column = new List<T>(Math.Max(room, keptK.Count + 1));
+        for (var i = 0; i < keptK.Count; i++) column.Add(missing);
+        return column;
     }
 
     private static void Thin<T>(List<T> list, bool[] keep)
