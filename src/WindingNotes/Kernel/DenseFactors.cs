@@ -5,19 +5,27 @@ using MathNet.Numerics.Providers.LinearAlgebra;
 namespace WindingNotes.Kernel;
 
 /// <summary>Dense LU (MathNet.Numerics) of an equilibrated matrix; its weakest direction from the SVD.</summary>
+/// <remarks>
+/// The equilibrated matrix is not kept dense beside its factors: the residual is taken on the
+/// system's own rows, scaled entry by entry as the dense copy was, each row summed in the order of
+/// its columns as MathNet's dense product sums it (a zero entry adds nothing to a sum), so it is the
+/// same number to the last bit (DenseFactorsTests holds the two equal); the SVD, wanted only where
+/// the pivots call for it, makes its dense matrix then.
+/// </remarks>
 internal sealed class DenseFactors : IFactors
 {
-    private readonly Matrix<Complex> m;
-    // The LU factors in place of a copy of m (column by column), and the row exchanges: what MathNet's
-    // dense LU computes, by the same provider call, without the copy of U it makes to read the pivots.
+    private readonly SystemMatrix a;
+    private readonly double[] rowScale, columnScale;
+    // The LU factors, column by column, in place of the equilibrated matrix, and the row exchanges:
+    // what MathNet's dense LU computes, by the same provider call, without the copy of U it makes to read the pivots.
     private readonly Complex[] factors;
     private readonly int[] pivots;
 
-    private DenseFactors(Matrix<Complex> m)
+    private DenseFactors(SystemMatrix a, double[] rowScale, double[] columnScale)
     {
-        this.m = m;
-        var n = m.RowCount;
-        factors = (Complex[])m.AsColumnMajorArray().Clone();
+        (this.a, this.rowScale, this.columnScale) = (a, rowScale, columnScale);
+        var n = a.Size;
+        factors = Equilibrated(a, rowScale, columnScale);
         pivots = new int[n];
         LinearAlgebraControl.Provider.LUFactor(factors, n, pivots);
         SmallestPivot = double.PositiveInfinity;
@@ -29,9 +37,11 @@ internal sealed class DenseFactors : IFactors
         }
     }
 
-    public static DenseFactors Of(SystemMatrix a, double[] rowScale, double[] columnScale)
+    public static DenseFactors Of(SystemMatrix a, double[] rowScale, double[] columnScale) => new(a, rowScale, columnScale);
+
+    /// <summary>The equilibrated matrix, column-major (the array MathNet's dense matrix binds to; its indexer checks and dispatches per entry).</summary>
+    private static Complex[] Equilibrated(SystemMatrix a, double[] rowScale, double[] columnScale)
     {
-        // Written straight into the column-major array the matrix binds to: MathNet's indexer checks and dispatches per entry.
         var n = a.Size;
         var data = new Complex[n * n];
         for (var i = 0; i < n; i++)
@@ -40,7 +50,7 @@ internal sealed class DenseFactors : IFactors
             var values = a.Values(i);
             for (var e = 0; e < columns.Length; e++) data[columns[e] * n + i] = values[e] * rowScale[i] * columnScale[columns[e]];
         }
-        return new DenseFactors(Matrix<Complex>.Build.Dense(n, n, data));
+        return data;
     }
 
     public double SmallestPivot { get; }
@@ -53,12 +63,44 @@ internal sealed class DenseFactors : IFactors
         return x;
     }
 
-    public double RelativeResidual(Complex[] x, Complex[] b) =>
-        LinearSolver.RelativeResidual((m * Vector<Complex>.Build.Dense(x)).ToArray(), x, b, m.InfinityNorm());
+    public double RelativeResidual(Complex[] x, Complex[] b)
+    {
+        // Where x is not finite, a zero entry times it is not zero: the dense product itself, as it always was.
+        foreach (var v in x)
+            if (!double.IsFinite(v.Real) || !double.IsFinite(v.Imaginary)) return DenseResidual(x, b);
+        var n = a.Size;
+        var ax = new Complex[n];
+        double norm = 0;
+        for (var i = 0; i < n; i++)
+        {
+            var columns = a.Columns(i);
+            var values = a.Values(i);
+            var sum = Complex.Zero;
+            double row = 0;
+            for (var e = 0; e < columns.Length; e++)
+            {
+                var entry = values[e] * rowScale[i] * columnScale[columns[e]];
+                sum += entry * x[columns[e]];
+                row += entry.Magnitude;
+            }
+            ax[i] = sum;
+            norm = Math.Max(norm, row);
+        }
+        return LinearSolver.RelativeResidual(ax, x, b, norm);
+    }
+
+    /// <summary>The residual by MathNet's dense product and norm (the reference of the one above).</summary>
+    internal double DenseResidual(Complex[] x, Complex[] b)
+    {
+        var m = Dense();
+        return LinearSolver.RelativeResidual((m * Vector<Complex>.Build.Dense(x)).ToArray(), x, b, m.InfinityNorm());
+    }
+
+    private Matrix<Complex> Dense() => Matrix<Complex>.Build.Dense(a.Size, a.Size, Equilibrated(a, rowScale, columnScale));
 
     public Weakest Weakest()
     {
-        var svd = m.Svd(computeVectors: true);
+        var svd = Dense().Svd(computeVectors: true);
         var last = svd.S.Count - 1;
         return WindingNotes.Kernel.Weakest.Of(svd.S[last].Magnitude, svd.S[0].Magnitude, svd.VT.Row(last).ToArray(), svd.U.Column(last).ToArray());
     }

@@ -110,14 +110,17 @@ internal static class NewtonSolver
             d[k + i, j] += alpha.Imaginary + beta.Imaginary;
             d[k + i, k + j] += alpha.Real - beta.Real;
         }
+        // Rows a then b, in each columns a then b (no arrays of the pairs: this runs for every load at every step).
         void Pair(int a, int b, Complex alpha, Complex beta)
         {
-            foreach (var (row, rowSign) in new[] { (a, 1), (b, -1) })
-            {
-                if (row < 0) continue;
-                foreach (var (column, columnSign) in new[] { (a, 1), (b, -1) })
-                    if (column >= 0) Add(row, column, rowSign * columnSign * alpha, rowSign * columnSign * beta);
-            }
+            Row(a, 1, a, b, alpha, beta);
+            Row(b, -1, a, b, alpha, beta);
+        }
+        void Row(int row, int rowSign, int a, int b, Complex alpha, Complex beta)
+        {
+            if (row < 0) return;
+            if (a >= 0) Add(row, a, rowSign * 1 * alpha, rowSign * 1 * beta);
+            if (b >= 0) Add(row, b, rowSign * -1 * alpha, rowSign * -1 * beta);
         }
         foreach (var load in m.NonlinearLoads)
         {
@@ -127,7 +130,7 @@ internal static class NewtonSolver
             var (alpha, beta) = load.Exponent == 0 ? (0.0, -1.0) : (0.5, -0.5);
             Pair(load.ColumnA, load.ColumnB, alpha * i / v, beta * i / Complex.Conjugate(v));
         }
-        foreach (var s in stamped) Pair(s.ColumnA, s.ColumnB, -s.Y, Complex.Zero);
+        for (var e = 0; e < stamped.Count; e++) Pair(stamped[e].ColumnA, stamped[e].ColumnB, -stamped[e].Y, Complex.Zero);
 
         // (I + D·G)·y = D·w_P
         var size = 2 * k;

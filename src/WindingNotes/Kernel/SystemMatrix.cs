@@ -33,8 +33,9 @@ internal sealed class SystemMatrix
     private SystemMatrix(SystemMatrix other)
     {
         Size = other.Size;
-        columns = [.. other.columns.Select(c => (int[])c.Clone())];
-        values = [.. other.values.Select(v => (Complex[])v.Clone())];
+        columns = new int[Size][];
+        values = new Complex[Size][];
+        for (var i = 0; i < Size; i++) (columns[i], values[i]) = ((int[])other.columns[i].Clone(), (Complex[])other.values[i].Clone());
         counts = (int[])other.counts.Clone();
         next = new int[Size];
     }

@@ -116,13 +116,15 @@ internal sealed class ValueEvaluator(
 
     private Quantity? Literal(Token number, Token? unitToken, bool imaginary)
     {
+        // Read from the text once (a token keeps no value).
+        var read = number.Number;
         // 1e-400 reads as zero: a number written with a digit other than 0 before its exponent is not zero.
-        if (number.Number == 0 && number.Text.TakeWhile(c => c is not ('e' or 'E')).Any(c => c is >= '1' and <= '9'))
+        if (read == 0 && number.Text.TakeWhile(c => c is not ('e' or 'E')).Any(c => c is >= '1' and <= '9'))
         {
             diagnostics.ReportOutOfRange(number.Span);
             return null;
         }
-        var value = imaginary ? new Complex(0, number.Number) : new Complex(number.Number, 0);
+        var value = imaginary ? new Complex(0, read) : new Complex(read, 0);
         if (unitToken is null) return new Quantity(value, Dimension.None);
         var unit = Unit(unitToken);
         if (unit is null) return null;

@@ -35,7 +35,6 @@ public static class Lexer
             var start = i;
             var c = text[i];
             TokenKind kind;
-            double number = 0;
             if (c is '\r' or '\n')
             {
                 i += c == '\r' && i + 1 < text.Length && text[i + 1] == '\n' ? 2 : 1;
@@ -58,12 +57,12 @@ public static class Lexer
             }
             else if (char.IsAsciiDigit(c) || (c == '.' && i + 1 < text.Length && char.IsAsciiDigit(text[i + 1])))
             {
-                i = ScanNumber(text, i, out number);
+                i = ScanNumber(text, i);
                 kind = TokenKind.Number;
             }
             else if (c == 'j' && i + 1 < text.Length && (char.IsAsciiDigit(text[i + 1]) || text[i + 1] == '.'))
             {
-                i = ScanNumber(text, i + 1, out number);
+                i = ScanNumber(text, i + 1);
                 kind = TokenKind.Imaginary;
             }
             else if (IsWordStart(c))
@@ -86,7 +85,9 @@ public static class Lexer
                 i += char.IsSurrogatePair(text, i) ? 2 : 1;
                 kind = TokenKind.Bad;
             }
-            return new Token(kind, TextSpan.FromBounds(start, i), Shared(pool, text.AsSpan(start, i - start))) { Number = number };
+            // A run longer than a token holds goes on as the next token (of the same kind, but for a number or word cut in two).
+            if (i - start > Token.MaxLength) i = start + Token.MaxLength;
+            return new Token(kind, TextSpan.FromBounds(start, i), Shared(pool, text.AsSpan(start, i - start)));
         }
     }
 
@@ -119,7 +120,7 @@ public static class Lexer
         return i;
     }
 
-    private static int ScanNumber(string text, int i, out double value)
+    private static int ScanNumber(string text, int i)
     {
         var start = i;
         while (i < text.Length && (char.IsAsciiDigit(text[i]) || text[i] == '_')) i++;
@@ -138,10 +139,14 @@ public static class Lexer
                 while (i < text.Length && char.IsAsciiDigit(text[i])) i++;
             }
         }
-        var digits = text.AsSpan(start, i - start);
-        if (digits.Contains('_')) digits = digits.ToString().Replace("_", "");
-        if (!double.TryParse(digits, NumberStyles.Float, CultureInfo.InvariantCulture, out value)) value = double.NaN;
         return i;
+    }
+
+    /// <summary>The value of a number's digits as scanned (underscores between digits ignored); NaN where they do not read.</summary>
+    internal static double ReadNumber(ReadOnlySpan<char> digits)
+    {
+        if (digits.Contains('_')) digits = digits.ToString().Replace("_", "");
+        return double.TryParse(digits, NumberStyles.Float, CultureInfo.InvariantCulture, out var value) ? value : double.NaN;
     }
 
     /// <summary>A backslash continues the line when only spaces stand between it and the line break.</summary>

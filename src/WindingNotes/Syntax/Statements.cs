@@ -102,15 +102,46 @@ public sealed record StatementSyntax(StatementForm Form, Token Keyword, ClauseSy
     public ValueSyntax? Value(string keyword) => Clause(keyword)?.Value();
 
     /// <summary>Every name in the statement, in the order written.</summary>
-    public IEnumerable<NameSyntax> AllNames
+    /// <remarks>A struct the binder's loops read without an iterator object (it reads every statement's names twice); LINQ reads it as any sequence.</remarks>
+    public StatementNames AllNames => new(this);
+}
+
+/// <summary>The names of a statement in the order written (<see cref="StatementSyntax.AllNames"/>).</summary>
+public readonly struct StatementNames(StatementSyntax statement) : IEnumerable<NameSyntax>
+{
+    public Enumerator GetEnumerator() => new(statement);
+
+    IEnumerator<NameSyntax> IEnumerable<NameSyntax>.GetEnumerator() => Names(statement).GetEnumerator();
+
+    System.Collections.IEnumerator System.Collections.IEnumerable.GetEnumerator() => Names(statement).GetEnumerator();
+
+    private static IEnumerable<NameSyntax> Names(StatementSyntax statement)
     {
-        get
+        var names = new Enumerator(statement);
+        while (names.MoveNext()) yield return names.Current;
+    }
+
+    /// <summary>Clause −1 is the head; the next name after element <see cref="element"/> of clause <see cref="clause"/>.</summary>
+    public struct Enumerator(StatementSyntax statement)
+    {
+        private int clause = -1, element = -1;
+
+        public NameSyntax Current { get; private set; } = null!;
+
+        public bool MoveNext()
         {
-            foreach (var e in Head.Elements)
-                if (e is NameSyntax n) yield return n;
-            foreach (var c in Clauses)
-                foreach (var e in c.Elements)
-                    if (e is NameSyntax n) yield return n;
+            while (clause < statement.Clauses.Length)
+            {
+                var elements = clause < 0 ? statement.Head.Elements : statement.Clauses[clause].Elements;
+                while (++element < elements.Length)
+                    if (elements[element] is NameSyntax n)
+                    {
+                        Current = n;
+                        return true;
+                    }
+                (clause, element) = (clause + 1, -1);
+            }
+            return false;
         }
     }
 }

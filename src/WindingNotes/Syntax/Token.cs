@@ -23,9 +23,34 @@ public enum TokenKind
 }
 
 /// <summary>A token with its span in the document. Numbers carry their value.</summary>
+/// <remarks>
+/// A document's tokens live as long as its tree (an open document's, a whole evaluation's), so a
+/// token is kept to 32 bytes: its kind packed with its length, the number read from the text when
+/// asked for (the lexer's reading of it, so the value is the same).
+/// </remarks>
 public sealed record Token(TokenKind Kind, TextSpan Span, string Text)
 {
-    public double Number { get; init; }
+    /// <summary>The longest text one token holds; the lexer splits a longer run (a 256 MB comment) into several.</summary>
+    public const int MaxLength = (1 << LengthBits) - 1;
+
+    private const int LengthBits = 28;
+
+    private readonly int start = Span.Start;
+    private readonly int kindAndLength = (int)Kind << LengthBits | (Span.Length is >= 0 and <= MaxLength ? Span.Length : throw new ArgumentOutOfRangeException(nameof(Span), "a token's text is at most Token.MaxLength long"));
+
+    public TokenKind Kind => (TokenKind)(kindAndLength >>> LengthBits);
+
+    public TextSpan Span => new(start, kindAndLength & MaxLength);
+
+    public string Text { get; } = Text;
+
+    /// <summary>The value of a number, or of an imaginary number without its j; zero for other tokens, NaN where the digits do not read.</summary>
+    public double Number => Kind switch
+    {
+        TokenKind.Number => Lexer.ReadNumber(Text),
+        TokenKind.Imaginary => Lexer.ReadNumber(Text.AsSpan(1)),
+        _ => 0,
+    };
 
     public bool IsTrivia => Kind is TokenKind.Comment or TokenKind.Continuation or TokenKind.Whitespace or TokenKind.Newline;
 
