@@ -68,7 +68,12 @@ public class RebindingTests
             AssertSamePoint(Points.Solve(syntax, overrides, spec, withFaults: false, default), rebinding.Solve(overrides, spec, withFaults: false, default), $"{what} at {spec.Where}");
         }
         Assert.Equal(count, rebinding.Rebound);
-        if (updates) Assert.True(rebinding.Updated >= count - 1, $"{what}: {rebinding.Updated} of {count} points updated");
+        if (updates)
+        {
+            Assert.True(rebinding.Updated >= count - 1, $"{what}: {rebinding.Updated} of {count} points updated");
+            // Their loads are all the points change: the case without loads is the base's, solved once.
+            Assert.True(rebinding.NoLoadKept >= count - 1, $"{what}: {rebinding.NoLoadKept} of {count} points kept the base's case without loads");
+        }
         // Points built and solved in full refactor on the first's pivots (the sparse threshold: 42 unknowns).
         else Assert.True(rebinding.Refactorisations.Refactored >= count - 1, $"{what}: {rebinding.Refactorisations} refactorisations for {count} points");
     }
