@@ -50,7 +50,13 @@ public static class Profile
         });
         Report("  of which: the network restamped on the first sample's (NetworkBuilder.Restamp)", () => { foreach (var m in models) NetworkBuilder.Restamp(networks[0], m); });
         var loadedSystems = NetworkSolver.Systems(networks[0], CaseSpec.Normal);
-        Report("  of which: the loaded system restamped (MnaSystem.Restamped)", () => { foreach (var n in networks) foreach (var m in loadedSystems) m.Restamped(n); });
+        Report("  of which: the loaded system restamped (MnaSystem.Restamped, a matrix made for it)", () => { foreach (var n in networks) foreach (var m in loadedSystems) m.Restamped(n); });
+        var scratch = loadedSystems.Select(m => (m.A.Clone(), new System.Numerics.Complex[m.Size])).ToArray();
+        Report("  of which: the loaded system restamped into a kept matrix (MnaSystem.RestampedInto, as Rebinding does)", () =>
+        {
+            foreach (var n in networks)
+                for (var i = 0; i < loadedSystems.Count; i++) loadedSystems[i].RestampedInto(n, scratch[i].Item1, scratch[i].Item2);
+        });
         var nominal = Points.Solve(networks[0], CaseSpec.Normal, withFaults: false, default);
         var sampled = networks.Select(n => Points.Solve(n, CaseSpec.Normal, withFaults: false, default)).ToArray();
         Report("the bands over every number of the loaded case (BandSet.Add)", () =>

@@ -22,11 +22,16 @@ public static class Program
     /// <summary>
     /// One benchmark document evaluated over and over for so many seconds, for a sampling profiler
     /// (perf with DOTNET_PerfMapEnabled=1): `-- spin brush 30` (the 1,000-point brush sweep on twenty
-    /// sections) or `-- spin let 30` (the let sweep of a load).
+    /// sections), `-- spin let 30` (the let sweep of a load) or `-- spin mc 30` (the Monte Carlo of 1,000 tolerance samples).
     /// </summary>
     private static void Spin(string what, double seconds)
     {
-        var text = what == "let" ? Documents.TwentySectionsLoadSweep(1000) : Documents.TwentySections(1000);
+        var text = what switch
+        {
+            "let" => Documents.TwentySectionsLoadSweep(1000),
+            "mc" => Documents.TwentySectionsMonteCarlo(),
+            _ => Documents.TwentySections(1000),
+        };
         // A few evaluations first, so the code measured is the optimised one.
         for (var i = 0; i < 5; i++) Workspace.Evaluator.Evaluate(text, "spin.wn");
         var process = System.Diagnostics.Process.GetCurrentProcess();
@@ -41,6 +46,6 @@ public static class Program
         process.Refresh();
         var points = runs * 1000.0;
         // Processor time (every thread: the collector's too) depends less on the machine's load than the wall clock.
-        Console.WriteLine($"{what}: {runs} evaluations of 1,000 points, wall {clock.Elapsed.TotalMilliseconds * 1000 / points:F1} µs a point, processor {(process.TotalProcessorTime - cpu).TotalMilliseconds * 1000 / points:F1} µs a point, {(GC.GetTotalAllocatedBytes(precise: true) - allocated) / points / 1024:F1} KB a point");
+        Console.WriteLine($"{what}: {runs} evaluations of 1,000 {(what == "mc" ? "samples" : "points")}, wall {clock.Elapsed.TotalMilliseconds * 1000 / points:F1} µs a point, processor {(process.TotalProcessorTime - cpu).TotalMilliseconds * 1000 / points:F1} µs a point, {(GC.GetTotalAllocatedBytes(precise: true) - allocated) / points / 1024:F1} KB a point");
     }
 }

@@ -62,18 +62,24 @@ internal static class LinearSolver
         for (var i = 0; i < n; i++) rhs[i] = b[i] * rowScale[i];
         IFactors factors = sparse ? SparseFactors.Of(a, rowScale, columnScale, symbolic) : DenseFactors.Of(a, rowScale, columnScale);
         // A refactorisation on kept pivots stands only where it is as sound as a fresh one would be: else the pivots are chosen afresh.
-        if (factors is SparseFactors { Refactored: true } refactored && !refactored.Sound(rhs))
-            factors = SparseFactors.Of(a, rowScale, columnScale, symbolic, afresh: true);
+        // Where it is, the check's solve and residual are the solve's: the same factors and right-hand side.
+        Complex[]? sound = null;
+        var soundResidual = double.NaN;
+        if (factors is SparseFactors { Refactored: true } refactored)
+        {
+            if (refactored.Sound(rhs, out var checkedY, out var checkedResidual)) (sound, soundResidual) = (checkedY, checkedResidual);
+            else factors = SparseFactors.Of(a, rowScale, columnScale, symbolic, afresh: true);
+        }
         Weakest? weakest = null;
         if (!(factors.SmallestPivot > PivotRatio * factors.LargestPivot))
         {
             weakest = factors.Weakest();
             if (weakest.Singular) return new Result(SolveStatus.Singular, new Complex[n], double.PositiveInfinity, double.PositiveInfinity, weakest.Unknowns, weakest.Equations);
         }
-        var y = factors.Solve(rhs);
+        var y = sound ?? factors.Solve(rhs);
         var x = new Complex[n];
         for (var j = 0; j < n; j++) x[j] = y[j] * columnScale[j];
-        var residual = factors.RelativeResidual(y, rhs);
+        var residual = sound is null ? factors.RelativeResidual(y, rhs) : soundResidual;
         var condition = weakest?.Condition ?? double.NaN;
         var kept = new Factored(factors, rowScale, columnScale);
         if (!double.IsFinite(residual) || x.Any(v => !double.IsFinite(v.Real) || !double.IsFinite(v.Imaginary)))

@@ -48,11 +48,14 @@ internal sealed class SparseFactors : IFactors
     /// spread is well clear of calling for the weakest direction, and a residual to rounding. The
     /// pivot check of <see cref="SparseLu.Refactor"/> bounds the growth; this catches what it lets through.
     /// </summary>
-    public bool Sound(Complex[] b)
+    /// <param name="x">The solution the check found, and <paramref name="residual"/> its relative residual: where sound, the solve's own (the solver does not solve again).</param>
+    public bool Sound(Complex[] b, out Complex[]? x, out double residual)
     {
+        (x, residual) = (null, double.NaN);
         if (!(SmallestPivot > PivotMargin * LinearSolver.PivotRatio * LargestPivot)) return false;
-        var x = lu.Solve(b);
-        return RelativeResidual(x, b) <= RefactoredResidual;
+        x = lu.Solve(b);
+        residual = RelativeResidual(x, b);
+        return residual <= RefactoredResidual;
     }
 
     public double SmallestPivot => lu.SmallestPivot;

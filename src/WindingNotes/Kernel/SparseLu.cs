@@ -15,8 +15,13 @@ internal sealed class SparseRows(int size, int[] start, int[] column, Complex[] 
     {
         var n = a.Size;
         var start = new int[n + 1];
-        var columns = new int[a.Entries];
-        var values = new Complex[columns.Length];
+        // Counted first, so the arrays are made once at their size (a matrix stamped again keeps its zeros' places).
+        var nonzero = 0;
+        for (var i = 0; i < n; i++)
+            foreach (var v in a.Values(i))
+                if (v != Complex.Zero) nonzero++;
+        var columns = new int[nonzero];
+        var values = new Complex[nonzero];
         var count = 0;
         for (var i = 0; i < n; i++)
         {
@@ -30,7 +35,7 @@ internal sealed class SparseRows(int size, int[] start, int[] column, Complex[] 
                 }
             start[i + 1] = count;
         }
-        return new SparseRows(n, start, columns[..count], values[..count]);
+        return new SparseRows(n, start, columns, values);
     }
 
     public Complex[] Times(Complex[] x)

@@ -53,11 +53,15 @@ public sealed record SectionCoupling(int[] MemberOf, Complex[,] PerTurn, double[
     {
         var n = turns.Count;
         var z = new Complex[n, n];
+        // The turns once into an array: every sample and brush move builds this, and the list's reads were an interface call each.
+        var t = new double[n];
+        for (var p = 0; p < n; p++) t[p] = turns[p];
         for (var p = 0; p < n; p++)
         {
+            var (tp, mp) = (t[p], MemberOf[p]);
             for (var q = 0; q < n; q++)
-                z[p, q] = turns[p] * turns[q] * PerTurn[MemberOf[p], MemberOf[q]];
-            z[p, p] += Series[MemberOf[p]] * turns[p];
+                z[p, q] = tp * t[q] * PerTurn[mp, MemberOf[q]];
+            z[p, p] += Series[mp] * tp;
         }
         return z;
     }

@@ -243,8 +243,12 @@ public static class NetworkBuilder
                     else points.Add((tap.Name, Math.Clamp(position, 0, w.Turns)));
                 }
                 points.Add((w.Source.To.Name, w.Turns));
-                // Stable: taps at one position keep their source order.
-                var ordered = points.Select((p, i) => (p, i)).OrderBy(x => x.p.Position).ThenBy(x => x.i).Select(x => x.p).ToList();
+                // Stable: taps at one position keep their source order (the order is total, so an unstable sort keeps it).
+                var order = new int[points.Count];
+                for (var i = 0; i < order.Length; i++) order[i] = i;
+                Array.Sort(order, (x, y) => points[x].Position.CompareTo(points[y].Position) is var c and not 0 ? c : x.CompareTo(y));
+                var ordered = new List<(string Name, double Position)>(order.Length);
+                foreach (var i in order) ordered.Add(points[i]);
                 for (var k = 0; k + 1 < ordered.Count; k++)
                 {
                     var (a, b) = (ordered[k], ordered[k + 1]);

@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using System.Numerics;
 using WindingNotes.Kernel;
 using WindingNotes.Model;
 using WindingNotes.Syntax;
@@ -39,6 +40,11 @@ internal sealed class Rebinding(SyntaxTree syntax, Model.Model nominal)
 
     private int retired;
 
+    /// <summary>How many let points of loads took their base's solution without loads, which their loads do not reach (for tests).</summary>
+    public int NoLoadKept => (current?.NoLoadKept ?? 0) + retiredNoLoad;
+
+    private int retiredNoLoad;
+
     private Stamped? stamped;
 
     /// <summary>How many points were restamped on a network built for an earlier point (for tests: the path is taken).</summary>
@@ -66,16 +72,21 @@ internal sealed class Rebinding(SyntaxTree syntax, Model.Model nominal)
         if (loadsOnly && !withFaults)
         {
             retired += current?.Updated ?? 0;
+            retiredNoLoad += current?.NoLoadKept ?? 0;
             current = Base.Of(general);
         }
         else stamped = Stamped.Of(general) ?? stamped;
         return general;
     }
 
-    /// <summary>A network built in full and solved, and its cases' systems without a fault, to restamp.</summary>
+    /// <summary>
+    /// A network built in full and solved, and its cases' systems without a fault, to restamp: each
+    /// into a matrix and right-hand side of its own kept here (<see cref="MnaSystem.RestampedInto"/>),
+    /// since a case's systems are solved before the next case or point stamps them again.
+    /// </summary>
     private sealed class Stamped(Network network)
     {
-        private readonly Dictionary<bool, List<MnaSystem>> systems = [];
+        private readonly Dictionary<bool, List<(MnaSystem System, SystemMatrix Matrix, Complex[] Rhs)>> systems = [];
 
         public Network Network => network;
 
@@ -86,18 +97,26 @@ internal sealed class Rebinding(SyntaxTree syntax, Model.Model nominal)
         {
             cancel.ThrowIfCancellationRequested();
             if (spec.Fault is not null) return NetworkSolver.Solve(changed, spec, factors, cancel);
-            if (!systems.TryGetValue(spec.WithoutLoads, out var kept)) systems[spec.WithoutLoads] = kept = NetworkSolver.Systems(network, spec);
-            return NetworkSolver.Solve(changed, spec, kept.Select(m => m.Restamped(changed)), factors, cancel);
+            if (!systems.TryGetValue(spec.WithoutLoads, out var kept))
+                systems[spec.WithoutLoads] = kept = [.. NetworkSolver.Systems(network, spec).Select(m => (m, m.A.Clone(), new Complex[m.Size]))];
+            return NetworkSolver.Solve(changed, spec, kept.Select(k => k.System.RestampedInto(changed, k.Matrix, k.Rhs)), factors, cancel);
         }
     }
 
-    /// <summary>A network solved the general way with no message from its solves, and its factors, loaded and without loads.</summary>
-    private sealed class Base(Network network, ImmutableArray<Diagnostic> diagnostics)
+    /// <summary>
+    /// A network solved the general way with no message from its solves, and its factors, loaded and
+    /// without loads. A point on it changes only loads, which the case without loads leaves out: its
+    /// solution there is the base's own (<paramref name="noLoad"/>), given for the point's network and case, not solved again.
+    /// </summary>
+    private sealed class Base(Network network, ImmutableArray<Diagnostic> diagnostics, Solution? noLoad)
     {
         private readonly Dictionary<bool, KeptFactors> updates = [];
         private readonly Dictionary<MnaSystem, int[]> loadColumns = [];
 
         public int Updated { get; private set; }
+
+        /// <summary>How many points took the base's solution without loads as their own (for tests).</summary>
+        public int NoLoadKept { get; private set; }
 
         /// <summary>The model's and the builder's messages, which every point on this base shares.</summary>
         public ImmutableArray<Diagnostic> Diagnostics => diagnostics;
@@ -106,7 +125,7 @@ internal sealed class Rebinding(SyntaxTree syntax, Model.Model nominal)
         {
             if (p.Case is not { } c || !c.Solution.Diagnostics.IsEmpty || p.NoLoadSolution is { } n && !n.Diagnostics.IsEmpty) return null;
             if (c.Solution.Network.Loads.Length > 0 && p.NoLoadSolution is null) return null;
-            return new Base(c.Solution.Network, p.Diagnostics);
+            return new Base(c.Solution.Network, p.Diagnostics, p.NoLoadSolution);
         }
 
         /// <summary>The base's network with the loads of <paramref name="model"/>, which differs from the base's only in its loads and lets.</summary>
@@ -116,6 +135,11 @@ internal sealed class Rebinding(SyntaxTree syntax, Model.Model nominal)
         public Solution Solve(Network changed, CaseSpec spec, SymbolicFactors factors, CancellationToken cancel)
         {
             cancel.ThrowIfCancellationRequested();
+            if (spec.WithoutLoads && spec.Fault is null && noLoad is { Scope: null } same)
+            {
+                NoLoadKept++;
+                return same with { Network = changed, Case = spec };
+            }
             if (!updates.TryGetValue(spec.WithoutLoads, out var kept)) updates[spec.WithoutLoads] = kept = KeptFactors.Of(network, spec);
             if (kept.Solve(changed, spec, Columns) is not { } x) return NetworkSolver.Solve(changed, spec, factors, cancel);
             Updated++;

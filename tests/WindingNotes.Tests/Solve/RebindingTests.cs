@@ -68,7 +68,12 @@ public class RebindingTests
             AssertSamePoint(Points.Solve(syntax, overrides, spec, withFaults: false, default), rebinding.Solve(overrides, spec, withFaults: false, default), $"{what} at {spec.Where}");
         }
         Assert.Equal(count, rebinding.Rebound);
-        if (updates) Assert.True(rebinding.Updated >= count - 1, $"{what}: {rebinding.Updated} of {count} points updated");
+        if (updates)
+        {
+            Assert.True(rebinding.Updated >= count - 1, $"{what}: {rebinding.Updated} of {count} points updated");
+            // Their loads are all the points change: the case without loads is the base's, solved once.
+            Assert.True(rebinding.NoLoadKept >= count - 1, $"{what}: {rebinding.NoLoadKept} of {count} points kept the base's case without loads");
+        }
         // Points built and solved in full refactor on the first's pivots (the sparse threshold: 42 unknowns).
         else Assert.True(rebinding.Refactorisations.Refactored >= count - 1, $"{what}: {rebinding.Refactorisations} refactorisations for {count} points");
     }
@@ -203,6 +208,40 @@ public class RebindingTests
         }
         Assert.True(samplesSeen > 0);
         Assert.True(restamped > 0);
+    }
+
+    /// <summary>
+    /// Every example with a sweep: its first 40 points solved through <see cref="Rebinding"/> (a let of
+    /// loads by updating a base, with the base's case without loads; anything else restamped or built in
+    /// full) equal the full bind, build and solve at the same values, in every number and message.
+    /// </summary>
+    [Fact]
+    public void Every_example_sweep_point_solved_again_equals_the_full_solve()
+    {
+        var examples = Directory.GetFiles(Path.Combine(Snapshot.RepositoryRoot, "examples"), "*.wn").Order(StringComparer.Ordinal).ToList();
+        var (pointsSeen, kept) = (0, 0);
+        foreach (var path in examples)
+        {
+            var syntax = Parser.Parse(File.ReadAllText(path).Replace("\r\n", "\n"));
+            var model = Binder.Bind(syntax);
+            if (model.HasErrors) continue;
+            var axes = Sweeps.Plan(model, new DiagnosticBag());
+            if (axes.IsEmpty) continue;
+            var rebinding = new Rebinding(syntax, model);
+            for (long k = 0; k < Math.Min(Sweeps.Count(axes), 40); k++)
+            {
+                var (overrides, labels) = Sweeps.Point(axes, k);
+                overrides = overrides with { RatedFrequency = model.Frequency };
+                var spec = CaseSpec.ForSweep(labels);
+                var where = $"{Path.GetFileName(path)} at {spec.Where}";
+                AssertSamePoint(Points.Solve(syntax, overrides, spec, withFaults: false, default), rebinding.Solve(overrides, spec, withFaults: false, default), where);
+                pointsSeen++;
+            }
+            kept += rebinding.NoLoadKept;
+        }
+        Assert.True(pointsSeen > 0);
+        // The examples' let sweeps of a load (a pumping station's demand) take the update with the base's case without loads.
+        Assert.True(kept > 0, "no example point kept its base's case without loads");
     }
 
     [Fact]
