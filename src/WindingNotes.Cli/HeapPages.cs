@@ -8,13 +8,17 @@ namespace WindingNotes.Cli;
 /// handing it out, so every 4 KB page of it was a page fault: some 2,500 for that report, about
 /// 19 µs each on a virtual machine, most of its time. The collector commits memory 64 KB at a time
 /// as it goes, too little for a 2 MB page; a region without collections (GC.TryStartNoGCRegion) is
-/// committed in one piece. So, first thing: huge pages are asked for over the collector's range
+/// committed in one piece. So huge pages are asked for over the collector's range
 /// above the heap (THP's "madvise" mode, the usual default), the region is started, and the 2 MB
 /// block the heap is already in (whose first pages the runtime's start has written) is collapsed
 /// into one huge page (MADV_COLLAPSE, Linux 6.1+). A 2 MB page is then one fault. Past the budget
 /// the collector collects as ever (the region ends by itself). A kernel or libc that knows none of
-/// this refuses it and the command runs as before; nothing it computes or writes changes.
-/// RESULTS.md ("The 1,000-line report's fresh memory") has the figures.
+/// this refuses it and the command runs as before; nothing it computes or writes changes. It is
+/// done once, before the first file of <see cref="Worthwhile"/> characters or more is evaluated, and
+/// only in the command's own process (<see cref="Allowed"/>, set by Main; never in a test's): a small
+/// file, `--version` or the language server would pay the preparation (a 2 MB page cleared, a
+/// collection, some milliseconds) for fewer faults than it saves. RESULTS.md ("The 1,000-line
+/// report's fresh memory") has the figures.
 /// </summary>
 internal static class HeapPages
 {
@@ -32,7 +36,23 @@ internal static class HeapPages
 
     private const int AdviseHugePages = 14, AdviseCollapse = 25; // MADV_HUGEPAGE, MADV_COLLAPSE
 
-    public static void Prepare()
+    /// <summary>The smallest file worth it, in characters (some 200 lines; the 1,000-line file has 44,000).</summary>
+    public const int Worthwhile = 8 << 10;
+
+    /// <summary>Whether this process is the command's own: Main says so.</summary>
+    public static bool Allowed { get; set; }
+
+    private static bool prepared;
+
+    /// <summary>Prepares the collector's memory before <paramref name="text"/> is evaluated, once, where it is worth it.</summary>
+    public static void Before(string text)
+    {
+        if (!Allowed || prepared || text.Length < Worthwhile) return;
+        prepared = true;
+        Prepare();
+    }
+
+    private static void Prepare()
     {
         if (!OperatingSystem.IsLinux() || !Environment.Is64BitProcess) return;
         try

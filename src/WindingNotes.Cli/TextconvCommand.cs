@@ -27,6 +27,7 @@ internal static class TextconvCommand
             io.Output.WriteLine();
             io.Output.WriteLine(Divider);
             // The path is left out: git hands over a temporary copy whose name changes each time.
+            HeapPages.Before(text);
             TextReport.Write(Evaluator.Evaluate(text, ConsoleIo.DisplayName(path)), io.Output, title: false);
             return Cli.Ok;
         });
