@@ -28,7 +28,8 @@ public sealed partial record ConsoleIo
             else
             {
                 if (FileStatus.Of(path) is { IsRegular: false } status) return Refuse(name, $"it is {status.TypeName}, not a calculation file");
-                using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read);
+                // Unbuffered: the file is read in large pieces (ReadAtMost), so a buffer would only be copied through.
+                using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, bufferSize: 0);
                 bytes = stream.Length > MaxInput ? null : ReadAtMost(stream);
             }
         }
@@ -57,6 +58,14 @@ public sealed partial record ConsoleIo
     /// <summary>The whole stream, or null as soon as it passes <see cref="MaxInput"/> bytes.</summary>
     private static byte[]? ReadAtMost(Stream stream)
     {
+        // A file of known length is read straight into an array of its size, if it has not grown meanwhile;
+        // a copy through a buffer and a growing stream took three times its bytes, all fresh memory.
+        if (stream.CanSeek && stream.Length is > 0 and <= MaxInput && stream.Position == 0)
+        {
+            var whole = new byte[stream.Length];
+            if (stream.ReadAtLeast(whole, whole.Length, throwOnEndOfStream: false) == whole.Length && stream.Read(stackalloc byte[1]) == 0) return whole;
+            stream.Position = 0;
+        }
         var o = new MemoryStream();
         var buffer = new byte[81920];
         int read;

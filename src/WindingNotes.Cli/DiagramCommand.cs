@@ -37,6 +37,7 @@ internal static class DiagramCommand
         // An evaluation keeps a sweep's points only in columns: a point to draw is taken as it is solved.
         CaseResult? point = null;
         Action<CaseResult>? take = kind is "phasors" or "phase-sets" ? c => point ??= c.Case.Name == caseName ? c : null : null;
+        HeapPages.Before(text);
         var evaluation = Evaluator.Evaluate(text, ConsoleIo.DisplayName(path), sweepPoint: take);
         string svg;
         switch (kind)

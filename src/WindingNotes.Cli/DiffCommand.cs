@@ -80,6 +80,7 @@ internal static class DiffCommand
                 status = Cli.Usage;
                 continue;
             }
+            HeapPages.Before(newText.Length > pair.OldText.Length ? newText : pair.OldText);
             var diff = ResultDiff.Compare(Evaluator.Evaluate(pair.OldText, pair.OldName), Evaluator.Evaluate(newText, pair.New), threshold);
             if (!first) io.Output.WriteLine();
             first = false;

@@ -19,6 +19,7 @@ internal static class ProgressDisplay
 
     public static Evaluation Evaluate(ConsoleIo io, string text, string path)
     {
+        HeapPages.Before(text);
         if (!ReferenceEquals(io.Error, Console.Error) || Console.IsErrorRedirected) return Evaluator.Evaluate(text, path);
         var clock = Stopwatch.StartNew();
         var drawnAt = -1L;

@@ -22,12 +22,9 @@ internal static class ReportCommand
         var text = io.Read(path);
         if (text is null) return Cli.Usage;
         var evaluation = ProgressDisplay.Evaluate(io, text, ConsoleIo.DisplayName(path));
-        io.Output.Write(format switch
-        {
-            "json" => JsonReport.Write(evaluation),
-            "md" => MarkdownReport.Write(evaluation),
-            _ => TextReport.Write(evaluation),
-        });
+        // The plain report goes out as it is made: a large file's is never one string.
+        if (format == "text") TextReport.Write(evaluation, io.Output);
+        else io.Output.Write(format == "json" ? JsonReport.Write(evaluation) : MarkdownReport.Write(evaluation));
         return evaluation.HasErrors || !evaluation.AllChecksPass ? Cli.Failed : Cli.Ok;
     }
 }

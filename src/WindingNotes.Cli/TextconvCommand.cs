@@ -27,7 +27,8 @@ internal static class TextconvCommand
             io.Output.WriteLine();
             io.Output.WriteLine(Divider);
             // The path is left out: git hands over a temporary copy whose name changes each time.
-            io.Output.Write(TextReport.Write(Evaluator.Evaluate(text, ConsoleIo.DisplayName(path)), title: false));
+            HeapPages.Before(text);
+            TextReport.Write(Evaluator.Evaluate(text, ConsoleIo.DisplayName(path)), io.Output, title: false);
             return Cli.Ok;
         });
         return command;

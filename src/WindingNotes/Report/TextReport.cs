@@ -1,4 +1,5 @@
 using WindingNotes.Model;
+using System.Diagnostics;
 using System.Numerics;
 using System.Text;
 using WindingNotes.Solve;
@@ -20,33 +21,71 @@ public static class TextReport
     public static string Write(Evaluation evaluation, bool title = true)
     {
         var o = new StringBuilder();
+        Write(o, null, evaluation, title);
+        return o.ToString();
+    }
+
+    /// <summary>
+    /// The report written to <paramref name="output"/> as it is made, a few thousand characters at a
+    /// time: a large file's report is never held whole (its builder's pieces, then a string of it, were
+    /// a third of what the 1,000-line report allocated, all of it fresh memory for the collector).
+    /// </summary>
+    public static void Write(Evaluation evaluation, TextWriter output, bool title = true) =>
+        Write(new StringBuilder(2 * FlushAt), output, evaluation, title);
+
+    /// <summary>How many characters gather before they are written out.</summary>
+    private const int FlushAt = 8192;
+
+    /// <summary>Writes out what has gathered once it is <see cref="FlushAt"/> characters (or with <paramref name="all"/>, whatever it is), where there is an output to write to.</summary>
+    private static void Flush(StringBuilder o, TextWriter? output, bool all = false)
+    {
+        if (output is null || (o.Length < FlushAt && !(all && o.Length > 0))) return;
+        output.Write(o);
+        o.Clear();
+    }
+
+    private static void Write(StringBuilder o, TextWriter? output, Evaluation evaluation, bool title)
+    {
         if (title) o.Append("Results for ").Append(evaluation.Path.Length == 0 ? "(standard input)" : evaluation.Path).Append('\n');
         var findings = evaluation.Diagnostics.Where(d => !d.Code.StartsWith("caution")).ToList();
         if (findings.Count > 0)
         {
             o.Append("\nDiagnostics\n");
             foreach (var d in findings)
+            {
                 o.Append("  ").Append(Location(evaluation, d)).Append(' ').Append(Severity(d.Severity)).Append(' ').Append(d.Code).Append(": ").Append(d.Shown).Append('\n');
+                Flush(o, output);
+            }
         }
         if (evaluation.Cases.IsEmpty)
             o.Append(evaluation.Model.HasErrors ? "\nNo results: the file has errors, so it was not solved.\n" : "\nNo results: the network was not solved.\n");
-        foreach (var c in evaluation.Cases.Where(c => !c.Case.IsSweepPoint)) WriteCase(o, c);
+        foreach (var c in evaluation.Cases.Where(c => !c.Case.IsSweepPoint))
+        {
+            WriteCase(o, c);
+            Flush(o, output);
+        }
         SweepTables.Write(o, evaluation.SweepColumns);
         ThermalReport.Text(o, evaluation.Thermal);
         ThreePhaseReport.SequenceText(o, evaluation.SequenceImpedances);
         ThreePhaseReport.ParallelText(o, evaluation.Parallel);
-        WriteChecks(o, evaluation);
+        Flush(o, output);
+        WriteChecks(o, output, evaluation);
         o.Append("\nCautions\n");
         foreach (var d in evaluation.Diagnostics.Where(d => d.Code.StartsWith("caution")))
+        {
             o.Append("  ").Append(Location(evaluation, d)).Append(' ').Append(d.Shown).Append(d.Acknowledged ? " (acknowledged)" : "").Append('\n');
+            Flush(o, output);
+        }
         o.Append("  ").Append(Cautions.Judgement).Append('\n');
-        return o.ToString();
+        Flush(o, output, all: true);
     }
+
+    private static readonly string[] NamedGroups = ["nodes", "sections", "windings", "taps", "tapChangers"];
 
     private static void WriteCase(StringBuilder o, CaseResult c)
     {
         o.Append("\nCase ").Append(c.Case.Name).Append('\n');
-        foreach (var key in (string[])["nodes", "sections", "windings", "taps", "tapChangers"]) WriteGroup(o, ResultTable.Named(key), c);
+        foreach (var key in NamedGroups) WriteGroup(o, ResultTable.Named(key), c);
         if (!c.Cores.IsEmpty)
         {
             Heading(o, "Cores");
@@ -103,26 +142,52 @@ public static class TextReport
         var items = group.When(c) ? group.Items(c).Where(e => group.Listed(e.Item)).ToList() : [];
         if (items.Count == 0) return;
         Heading(o, group.Heading);
-        var columns = group.Columns.Where(k => k.When(c)).ToList();
+        // Each column's field found once a group, not once a line (what ResultGroup.Shown looks up for one value).
+        var columns = group.Columns.Where(k => k.When(c)).Select(k => (Column: k, Field: k.Read is null ? FieldOf(group, k) : null)).ToList();
         var width = Width(items.Select(e => e.Name ?? ""));
         foreach (var (name, item) in items)
         {
-            var text = new StringBuilder();
-            foreach (var column in columns)
-                if (group.Shown(column, item) is ({ } value, var unit)) text.Append(column.Text.Replace("{}", Shown(value, unit)));
-            Line(o, name ?? "", text.ToString(), width);
+            NameColumn(o, "    ", name ?? "", width);
+            foreach (var (column, field) in columns)
+            {
+                var (value, unit) = field is null ? (column.Read!(item), column.Unit) : (field.Read(item), field.Unit);
+                if (value is not null) Phrase(o, column.Text, value, unit);
+            }
+            o.Append('\n');
         }
     }
 
-    /// <summary>A value of the results table in its unit: a phasor in polar form, a power factor with its sense, turns as a plain number, a name as it is.</summary>
-    public static string Shown(object value, string unit) => value switch
+    private static ResultField FieldOf(ResultGroup group, ResultColumn column)
     {
-        Complex s when unit == "pf" => PowerFactor(s),
-        Complex v => Phasor(v, unit),
-        double x when unit == "turns" => Numbers.Plain(x),
-        double x => Value(x, unit),
-        int k => k.ToString(System.Globalization.CultureInfo.InvariantCulture),
-        _ => value.ToString() ?? "",
+        foreach (var f in group.Fields)
+            if (f.Key == column.Field) return f;
+        throw new InvalidOperationException($"group '{group.Key}' has no field '{column.Field}'");
+    }
+
+    /// <summary>A column's phrase with its value in place of each <c>{}</c>.</summary>
+    private static void Phrase(StringBuilder o, string text, object value, string unit)
+    {
+        var from = 0;
+        for (var at = text.IndexOf("{}", StringComparison.Ordinal); at >= 0; at = text.IndexOf("{}", from, StringComparison.Ordinal))
+        {
+            AppendShown(o.Append(text, from, at - from), value, unit);
+            from = at + 2;
+        }
+        o.Append(text, from, text.Length - from);
+    }
+
+    /// <summary>A value of the results table in its unit: a phasor in polar form, a power factor with its sense, turns as a plain number, a name as it is.</summary>
+    public static string Shown(object value, string unit) => Made(AppendShown(Spare(), value, unit));
+
+    /// <summary><see cref="Shown"/>'s text appended.</summary>
+    public static StringBuilder AppendShown(StringBuilder o, object value, string unit) => value switch
+    {
+        Complex s when unit == "pf" => AppendPowerFactor(o, s),
+        Complex v => AppendPhasor(o, v, unit),
+        double x when unit == "turns" => Numbers.AppendPlain(o, x),
+        double x => AppendValue(o, x, unit),
+        int k => o.Append(k.ToString(System.Globalization.CultureInfo.InvariantCulture)),
+        _ => o.Append(value.ToString() ?? ""),
     };
 
     /// <summary>Why a core shows no flux density: what is missing to compute it.</summary>
@@ -141,17 +206,23 @@ public static class TextReport
     }
 
     /// <summary>A number in its unit, fractions as percent.</summary>
-    public static string Value(double value, string unit) => unit == "%" ? Percent(value) : unit.Length == 0 ? Numbers.Fixed(value) : Numbers.Format(value, unit);
+    public static string Value(double value, string unit) => Made(AppendValue(Spare(), value, unit));
 
-    private static void WriteChecks(StringBuilder o, Evaluation evaluation)
+    /// <summary><see cref="Value"/>'s text appended.</summary>
+    public static StringBuilder AppendValue(StringBuilder o, double value, string unit) =>
+        unit == "%" ? Numbers.Append(o, value * 100, "%") : unit.Length == 0 ? Numbers.AppendFixed(o, value) : Numbers.Append(o, value, unit);
+
+    private static void WriteChecks(StringBuilder o, TextWriter? output, Evaluation evaluation)
     {
         if (evaluation.Checks.IsEmpty) return;
         o.Append("\nChecks\n");
         foreach (var check in evaluation.Checks)
         {
             var line = evaluation.Text.GetPosition(check.Expect.Line.Start).Line + 1;
-            var value = CheckValue(check) is { Length: > 0 } v ? $" ({v})" : "";
-            o.Append("  ").Append(Verdict(check)).Append("  line ").Append(line).Append(": ").Append(check.Expect.Text).Append(value).Append('\n');
+            o.Append("  ").Append(Verdict(check)).Append("  line ").Append(line).Append(": ").Append(check.Expect.Text);
+            if (CheckValue(check) is { Length: > 0 } value) o.Append(" (").Append(value).Append(')');
+            o.Append('\n');
+            Flush(o, output);
         }
     }
 
@@ -198,12 +269,33 @@ public static class TextReport
     /// text. A name longer than even the widest column (a long name of the file's) stands on its own line
     /// and its text begins the next at the column, so the block's texts stay in one column.
     /// </summary>
-    internal static void Named(StringBuilder o, string indent, string name, int width, string text)
+    internal static void Named(StringBuilder o, string indent, string name, int width, string text) =>
+        NameColumn(o, indent, name, width).Append(text).Append('\n');
+
+    /// <summary>A line of a block up to its text: <see cref="Named"/> without the text and the line's end.</summary>
+    private static StringBuilder NameColumn(StringBuilder o, string indent, string name, int width)
     {
-        o.Append(indent);
-        if (name.Length > width) o.Append(name).Append('\n').Append(' ', indent.Length + width);
-        else o.Append(name.PadRight(width));
-        o.Append(' ').Append(text).Append('\n');
+        o.Append(indent).Append(name);
+        if (name.Length > width) o.Append('\n').Append(' ', indent.Length + width);
+        else o.Append(' ', width - name.Length);
+        return o.Append(' ');
+    }
+
+    /// <summary>A builder for the text of one value, kept between uses: the string made of it is the only allocation.</summary>
+    [ThreadStatic] private static StringBuilder? spare;
+
+    private static StringBuilder Spare()
+    {
+        var o = spare ?? new StringBuilder(64);
+        spare = null;
+        return o.Clear();
+    }
+
+    private static string Made(StringBuilder o)
+    {
+        var text = o.ToString();
+        if (o.Capacity <= 1024) spare = o;
+        return text;
     }
 
     public static string Location(Evaluation evaluation, Diagnostic d)
@@ -221,8 +313,17 @@ public static class TextReport
     };
 
     /// <summary>"228.1 V angle -0.04 deg": the notation's own polar form, so a reader can paste it back.</summary>
-    public static string Phasor(Complex v, string unit) =>
-        $"{Numbers.Format(v.Magnitude, unit)} angle {Degrees(v):F2} deg".Replace("angle -0.00", "angle 0.00");
+    public static string Phasor(Complex v, string unit) => Made(AppendPhasor(Spare(), v, unit));
+
+    /// <summary><see cref="Phasor"/>'s text appended.</summary>
+    public static StringBuilder AppendPhasor(StringBuilder o, Complex v, string unit)
+    {
+        Numbers.Append(o, v.Magnitude, unit).Append(" angle ");
+        Span<char> degrees = stackalloc char[40];
+        if (!Degrees(v).TryFormat(degrees, out var n, "F2", System.Globalization.CultureInfo.InvariantCulture)) throw new UnreachableException();
+        // An angle that rounds to zero is written without a sign.
+        return o.Append(degrees[..n] is "-0.00" ? "0.00" : degrees[..n]).Append(" deg");
+    }
 
     public static double Degrees(Complex v) => v == Complex.Zero ? 0 : v.Phase * 180 / Math.PI;
 
@@ -233,10 +334,13 @@ public static class TextReport
         $"P {Numbers.Format(s.Real, "W")}, Q {Numbers.Format(s.Imaginary, "var")}, S {Numbers.Format(s.Magnitude, "VA")}, pf {PowerFactor(s)}";
 
     /// <summary>"0.8200 lagging": the power factor with its sense (none at unity).</summary>
-    public static string PowerFactor(Complex s)
+    public static string PowerFactor(Complex s) => Made(AppendPowerFactor(Spare(), s));
+
+    /// <summary><see cref="PowerFactor"/>'s text appended.</summary>
+    public static StringBuilder AppendPowerFactor(StringBuilder o, Complex s)
     {
         var pf = s.Magnitude == 0 ? 1 : Math.Abs(s.Real) / s.Magnitude;
         var sense = s.Imaginary > 1e-9 * s.Magnitude ? " lagging" : s.Imaginary < -1e-9 * s.Magnitude ? " leading" : "";
-        return Numbers.Fixed(pf) + sense;
+        return Numbers.AppendFixed(o, pf).Append(sense);
     }
 }

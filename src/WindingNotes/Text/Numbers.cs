@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Numerics;
+using System.Text;
 
 namespace WindingNotes.Text;
 
@@ -30,8 +31,29 @@ public static class Numbers
     /// <summary>"228.1 V", "3.207 kW", "17.11 mA", "82.10 %".</summary>
     public static string Format(double value, string unit, int figures = Figures)
     {
-        if (Unprefixed.Contains(unit)) return Join(Fixed(value, figures), unit);
-        if (value == 0 || !double.IsFinite(value)) return Join(Fixed(value, figures), unit);
+        Span<char> number = stackalloc char[NumberChars];
+        var n = Engineering(number, value, unit, figures, out var prefix);
+        return prefix.Length + unit.Length == 0 ? new string(number[..n]) : string.Concat(number[..n], " ", prefix, unit);
+    }
+
+    /// <summary><see cref="Format"/>'s text appended, with no string made on the way: a report writes thousands.</summary>
+    public static StringBuilder Append(StringBuilder o, double value, string unit, int figures = Figures)
+    {
+        Span<char> number = stackalloc char[NumberChars];
+        var n = Engineering(number, value, unit, figures, out var prefix);
+        o.Append(number[..n]);
+        return prefix.Length + unit.Length == 0 ? o : o.Append(' ').Append(prefix).Append(unit);
+    }
+
+    /// <summary>The most characters a number (without its unit) takes: 40 significant figures and an exponent fit.</summary>
+    private const int NumberChars = 128;
+
+    /// <summary>The number of <see cref="Format"/> written into <paramref name="into"/>, its length returned, and the SI prefix its unit takes.</summary>
+    private static int Engineering(Span<char> into, double value, string unit, int figures, out string prefix)
+    {
+        prefix = "";
+        if (Unprefixed.Contains(unit)) return Fixed(into, value, figures);
+        if (value == 0 || !double.IsFinite(value)) return Fixed(into, value, figures);
         var exponent = (int)Math.Floor(Math.Log10(Math.Abs(value)));
         var group = (int)Math.Floor(exponent / 3.0);
         var mantissa = value / Math.Pow(10, 3 * group);
@@ -43,30 +65,69 @@ public static class Numbers
         }
         group = Math.Clamp(group, -4, 4);
         mantissa = value / Math.Pow(10, 3 * group);
-        var prefix = Prefixes[group + 4];
-        return Join(Fixed(mantissa, figures), prefix + unit);
+        prefix = Prefixes[group + 4];
+        return Fixed(into, mantissa, figures);
     }
 
     /// <summary>A number with the given significant figures and no prefix, trailing zeros kept.</summary>
     public static string Fixed(double value, int figures = Figures)
     {
-        if (!double.IsFinite(value)) return value.ToString(CultureInfo.InvariantCulture);
-        if (value == 0) return 0.0.ToString("F" + (figures - 1), CultureInfo.InvariantCulture);
+        Span<char> number = stackalloc char[NumberChars];
+        return new string(number[..Fixed(number, value, figures)]);
+    }
+
+    /// <summary><see cref="Fixed(double, int)"/>'s text appended.</summary>
+    public static StringBuilder AppendFixed(StringBuilder o, double value, int figures = Figures)
+    {
+        Span<char> number = stackalloc char[NumberChars];
+        return o.Append(number[..Fixed(number, value, figures)]);
+    }
+
+    private static int Fixed(Span<char> into, double value, int figures)
+    {
+        if (!double.IsFinite(value)) return Write(into, value, "");
+        if (value == 0) return Write(into, 0.0, 'F', figures - 1);
         var magnitude = Math.Abs(value);
-        if (magnitude >= 1e9 || magnitude < 1e-9) return value.ToString("E" + (figures - 1), CultureInfo.InvariantCulture);
+        if (magnitude >= 1e9 || magnitude < 1e-9) return Write(into, value, 'E', figures - 1);
         var exponent = (int)Math.Floor(Math.Log10(magnitude));
         var decimals = Math.Max(0, figures - 1 - exponent);
         var rounded = Math.Round(value, Math.Min(decimals, 15));
         if (rounded != 0 && (int)Math.Floor(Math.Log10(Math.Abs(rounded))) > exponent) decimals = Math.Max(0, decimals - 1);
-        return rounded.ToString("F" + decimals, CultureInfo.InvariantCulture);
+        return Write(into, rounded, 'F', decimals);
     }
+
+    /// <summary>The value in the format "F3" (<paramref name="kind"/> and <paramref name="digits"/>), the format itself made on the stack.</summary>
+    private static int Write(Span<char> into, double value, char kind, int digits)
+    {
+        Span<char> format = stackalloc char[12];
+        format[0] = kind;
+        digits.TryFormat(format[1..], out var length, default, CultureInfo.InvariantCulture);
+        return Write(into, value, format[..(length + 1)]);
+    }
+
+    private static int Write(Span<char> into, double value, ReadOnlySpan<char> format) =>
+        value.TryFormat(into, out var written, format, CultureInfo.InvariantCulture) ? written
+        : throw new ArgumentOutOfRangeException(nameof(value), "more figures than a number is written with");
 
     /// <summary>A number for a sentence: significant figures, trailing zeros dropped.</summary>
     public static string Plain(double value, int figures = Figures)
     {
-        var text = Fixed(value, figures);
+        Span<char> number = stackalloc char[NumberChars];
+        return new string(Plain(number, value, figures));
+    }
+
+    /// <summary><see cref="Plain(double, int)"/>'s text appended.</summary>
+    public static StringBuilder AppendPlain(StringBuilder o, double value, int figures = Figures)
+    {
+        Span<char> number = stackalloc char[NumberChars];
+        return o.Append(Plain(number, value, figures));
+    }
+
+    private static ReadOnlySpan<char> Plain(Span<char> into, double value, int figures)
+    {
+        ReadOnlySpan<char> text = into[..Fixed(into, value, figures)];
         if (text.Contains('.') && !text.Contains('E')) text = text.TrimEnd('0').TrimEnd('.');
-        return text == "-0" ? "0" : text;
+        return text is "-0" ? "0" : text;
     }
 
     /// <summary>"25 %", "1.5 kV", "208 V": engineering notation with trailing zeros dropped, for names such as sweep points.</summary>
@@ -89,5 +150,4 @@ public static class Numbers
         return text.Contains('E') ? text.Replace("E+", "e").Replace("E-", "e-") : text;
     }
 
-    private static string Join(string number, string unit) => unit.Length == 0 ? number : $"{number} {unit}";
 }
