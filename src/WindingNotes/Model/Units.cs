@@ -1,4 +1,3 @@
-using System.Collections.Frozen;
 
 namespace WindingNotes.Model;
 
@@ -13,7 +12,7 @@ public sealed record UnitInfo(string Symbol, double Factor, Dimension Dimension,
 /// </summary>
 public static class Units
 {
-    private static readonly FrozenDictionary<string, UnitInfo> BySymbol = Build();
+    private static readonly Dictionary<string, UnitInfo> BySymbol = Build();
 
     /// <summary>The symbols suggested in completion and "did you mean" hints: the ones the notation names.</summary>
     public static readonly string[] Common =
@@ -26,7 +25,7 @@ public static class Units
 
     public static string? Suggest(string symbol) => Text.Spelling.Nearest(symbol, Common);
 
-    private static FrozenDictionary<string, UnitInfo> Build()
+    private static Dictionary<string, UnitInfo> Build()
     {
         var table = new Dictionary<string, UnitInfo>(StringComparer.Ordinal);
         // UnitTable is in priority order: the first unit to claim a shared abbreviation keeps it.
@@ -43,6 +42,6 @@ public static class Units
         table["pu"] = new UnitInfo("pu", 1, Dimension.None, Flags: QuantityFlags.Percent);
         table["turns"] = new UnitInfo("turns", 1, Dimension.None, Flags: QuantityFlags.Turns);
         table["turn"] = table["turns"] with { Symbol = "turn" };
-        return table.ToFrozenDictionary(StringComparer.Ordinal);
+        return table; // not frozen: Grammar.ByKeyword says why
     }
 }

@@ -1,4 +1,3 @@
-using System.Collections.Frozen;
 
 namespace WindingNotes.Syntax;
 
@@ -406,20 +405,23 @@ public static class Grammar
             "two like single-phase two-winding units on three lines: open delta, or Scott-T (main and teaser)", ["connection", "output"]),
     ];
 
-    public static readonly FrozenDictionary<string, StatementForm> ByKeyword = Statements.ToFrozenDictionary(s => s.Keyword);
+    // Plain hashed sets and maps, not frozen ones: a frozen collection studies its keys to choose a hashing
+    // scheme when made, about a millisecond of the native command's start for a few hundred words that
+    // a ten-line file looks up a few dozen times.
+    public static readonly IReadOnlyDictionary<string, StatementForm> ByKeyword = Statements.ToDictionary(s => s.Keyword, StringComparer.Ordinal);
 
     /// <summary>Words with a fixed meaning; they cannot be used as names.</summary>
-    public static readonly FrozenSet<string> Keywords = CollectKeywords().ToFrozenSet();
+    public static readonly IReadOnlySet<string> Keywords = CollectKeywords().ToHashSet(StringComparer.Ordinal);
 
     /// <summary>Keywords written with a hyphen; the lexer reads them as one word.</summary>
-    public static readonly FrozenSet<string> HyphenatedKeywords = Keywords.Where(k => k.Contains('-')).ToFrozenSet();
+    public static readonly IReadOnlySet<string> HyphenatedKeywords = Keywords.Where(k => k.Contains('-')).ToHashSet(StringComparer.Ordinal);
 
     /// <summary>The beginnings of hyphenated keywords up to a hyphen ("caution-no" of caution-no-isolation), so the lexer reads on.</summary>
-    public static readonly FrozenSet<string> HyphenatedPrefixes =
-        HyphenatedKeywords.SelectMany(k => k.Select((c, i) => c == '-' ? k[..i] : null).OfType<string>()).ToFrozenSet();
+    public static readonly IReadOnlySet<string> HyphenatedPrefixes =
+        HyphenatedKeywords.SelectMany(k => k.Select((c, i) => c == '-' ? k[..i] : null).OfType<string>()).ToHashSet(StringComparer.Ordinal);
 
     /// <summary>Words with a fixed meaning inside values.</summary>
-    public static readonly FrozenSet<string> ValueWords = new[] { "angle", "sqrt" }.ToFrozenSet();
+    public static readonly IReadOnlySet<string> ValueWords = new HashSet<string>(["angle", "sqrt"], StringComparer.Ordinal);
 
     private static IEnumerable<string> CollectKeywords()
     {
