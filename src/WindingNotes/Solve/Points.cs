@@ -32,9 +32,11 @@ public sealed record PointResult(CaseResult? Case, Solution? NoLoadSolution, Imm
 }
 
 /// <summary>
-/// Solves points. A sweep point or tolerance sample re-binds the parsed document with overrides and
-/// builds its network afresh; points that move only brushes take the faster path of
-/// <see cref="BrushSweep"/>, which gives the same results.
+/// Solves points: from the parsed document, bound with overrides and its network built afresh, or
+/// from a network and a way to solve its cases. A study's sweep points and tolerance samples go
+/// through <see cref="Rebinding"/> (bound again only where the values reach, restamped or updated on
+/// an earlier point's network) and points that move only brushes through <see cref="BrushSweep"/>;
+/// both give the same results, and take the first way where they cannot.
 /// </summary>
 public static class Points
 {
