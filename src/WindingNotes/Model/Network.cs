@@ -57,12 +57,8 @@ public sealed record SectionCoupling(int[] MemberOf, Complex[,] PerTurn, double[
         var t = new double[n];
         for (var p = 0; p < n; p++) t[p] = turns[p];
         for (var p = 0; p < n; p++)
-        {
-            var (tp, mp) = (t[p], MemberOf[p]);
             for (var q = 0; q < n; q++)
-                z[p, q] = tp * t[q] * PerTurn[mp, MemberOf[q]];
-            z[p, p] += Series[mp] * tp;
-        }
+                z[p, q] = Entry(t[p], t[q], p, q);
         return z;
     }
 
@@ -77,17 +73,16 @@ public sealed record SectionCoupling(int[] MemberOf, Complex[,] PerTurn, double[
         var n = turns.Count;
         var z = (Complex[,])before.Clone();
         for (var p = 0; p < n; p++)
-        {
-            if (changed[p])
-            {
-                for (var q = 0; q < n; q++) z[p, q] = turns[p] * turns[q] * PerTurn[MemberOf[p], MemberOf[q]];
-                z[p, p] += Series[MemberOf[p]] * turns[p];
-                continue;
-            }
             for (var q = 0; q < n; q++)
-                if (changed[q]) z[p, q] = turns[p] * turns[q] * PerTurn[MemberOf[p], MemberOf[q]];
-        }
+                if (changed[p] || changed[q]) z[p, q] = Entry(turns[p], turns[q], p, q);
         return z;
+    }
+
+    /// <summary>The entry of sections p and q, of <paramref name="tp"/> and <paramref name="tq"/> turns: mutual by the turns' product, and on the diagonal the section's series part added.</summary>
+    private Complex Entry(double tp, double tq, int p, int q)
+    {
+        var z = tp * tq * PerTurn[MemberOf[p], MemberOf[q]];
+        return p == q ? z + Series[MemberOf[p]] * tp : z;
     }
 }
 

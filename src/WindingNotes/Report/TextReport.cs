@@ -142,26 +142,19 @@ public static class TextReport
         var items = group.When(c) ? group.Items(c).Where(e => group.Listed(e.Item)).ToList() : [];
         if (items.Count == 0) return;
         Heading(o, group.Heading);
-        // Each column's field found once a group, not once a line (what ResultGroup.Shown looks up for one value).
-        var columns = group.Columns.Where(k => k.When(c)).Select(k => (Column: k, Field: k.Read is null ? FieldOf(group, k) : null)).ToList();
+        // Each column's field found once a group, not once a line.
+        var columns = group.Columns.Where(k => k.When(c)).Select(k => (Column: k, Field: group.FieldOf(k))).ToList();
         var width = Width(items.Select(e => e.Name ?? ""));
         foreach (var (name, item) in items)
         {
             NameColumn(o, "    ", name ?? "", width);
             foreach (var (column, field) in columns)
             {
-                var (value, unit) = field is null ? (column.Read!(item), column.Unit) : (field.Read(item), field.Unit);
+                var (value, unit) = ResultGroup.Shown(column, field, item);
                 if (value is not null) Phrase(o, column.Text, value, unit);
             }
             o.Append('\n');
         }
-    }
-
-    private static ResultField FieldOf(ResultGroup group, ResultColumn column)
-    {
-        foreach (var f in group.Fields)
-            if (f.Key == column.Field) return f;
-        throw new InvalidOperationException($"group '{group.Key}' has no field '{column.Field}'");
     }
 
     /// <summary>A column's phrase with its value in place of each <c>{}</c>.</summary>

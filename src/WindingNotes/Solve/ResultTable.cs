@@ -134,12 +134,14 @@ public sealed record ResultGroup(string Key, string Description, ImmutableArray<
     public ImmutableArray<SweepTable> Sweep { get; init; } = [];
 
     /// <summary>A column's value of an element, and its unit.</summary>
-    public (object? Value, string Unit) Shown(ResultColumn column, object item)
-    {
-        if (column.Read is { } read) return (read(item), column.Unit);
-        var field = Fields.First(f => f.Key == column.Field);
-        return (field.Read(item), field.Unit);
-    }
+    public (object? Value, string Unit) Shown(ResultColumn column, object item) => Shown(column, FieldOf(column), item);
+
+    /// <summary>The field a column shows; null where the column reads its own value. Found once, it serves every element of a case.</summary>
+    public ResultField? FieldOf(ResultColumn column) => column.Read is null ? Fields.First(f => f.Key == column.Field) : null;
+
+    /// <summary>A column's value of an element and its unit, its field as <see cref="FieldOf"/> gives it.</summary>
+    public static (object? Value, string Unit) Shown(ResultColumn column, ResultField? field, object item) =>
+        field is null ? (column.Read!(item), column.Unit) : (field.Read(item), field.Unit);
 
     public IEnumerable<(string? Name, object Item)> Items(CaseResult c) =>
         Single is { } single ? [(null, single(c))] : Elements!(c).Select(e => ((string?)e.Name, e.Item));

@@ -149,5 +149,4 @@ public static class Numbers
         var text = value.ToString("G10", CultureInfo.InvariantCulture);
         return text.Contains('E') ? text.Replace("E+", "e").Replace("E-", "e-") : text;
     }
-
 }
