@@ -68,25 +68,7 @@ internal sealed class DenseFactors : IFactors
         // Where x is not finite, a zero entry times it is not zero: the dense product itself, as it always was.
         foreach (var v in x)
             if (!double.IsFinite(v.Real) || !double.IsFinite(v.Imaginary)) return DenseResidual(x, b);
-        var n = a.Size;
-        var ax = new Complex[n];
-        double norm = 0;
-        for (var i = 0; i < n; i++)
-        {
-            var columns = a.Columns(i);
-            var values = a.Values(i);
-            var sum = Complex.Zero;
-            double row = 0;
-            for (var e = 0; e < columns.Length; e++)
-            {
-                var entry = values[e] * rowScale[i] * columnScale[columns[e]];
-                sum += entry * x[columns[e]];
-                row += entry.Magnitude;
-            }
-            ax[i] = sum;
-            norm = Math.Max(norm, row);
-        }
-        return LinearSolver.RelativeResidual(ax, x, b, norm);
+        return LinearSolver.ScaledResidual(a, rowScale, columnScale, x, b, new Complex[a.Size]);
     }
 
     /// <summary>The residual by MathNet's dense product and norm (the reference of the one above).</summary>

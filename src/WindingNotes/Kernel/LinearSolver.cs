@@ -122,6 +122,34 @@ internal static class LinearSolver
         return (rows, columns);
     }
 
+    /// <summary>
+    /// <see cref="RelativeResidual(Complex[], Complex[], Complex[], double)"/> of the system <paramref name="a"/>
+    /// equilibrated by its scales, taken on its own rows (the scaled matrix is never made): each row's
+    /// entries scaled as equilibration scales them and summed in the order of their columns, as a dense
+    /// product sums them (a zero entry, which adds nothing, is passed over). A·x goes into <paramref name="ax"/>.
+    /// </summary>
+    public static double ScaledResidual(SystemMatrix a, double[] rowScale, double[] columnScale, Complex[] x, Complex[] b, Complex[] ax)
+    {
+        double norm = 0;
+        for (var i = 0; i < a.Size; i++)
+        {
+            var columns = a.Columns(i);
+            var values = a.Values(i);
+            var sum = Complex.Zero;
+            double row = 0;
+            for (var e = 0; e < columns.Length; e++)
+            {
+                if (values[e] == Complex.Zero) continue;
+                var entry = values[e] * rowScale[i] * columnScale[columns[e]];
+                sum += entry * x[columns[e]];
+                row += entry.Magnitude;
+            }
+            ax[i] = sum;
+            norm = Math.Max(norm, row);
+        }
+        return RelativeResidual(ax, x, b, norm);
+    }
+
     /// <summary>‖A·x − b‖∞ / (‖A‖∞·‖x‖∞ + ‖b‖∞).</summary>
     public static double RelativeResidual(Complex[] ax, Complex[] x, Complex[] b, double norm)
     {

@@ -151,28 +151,7 @@ internal sealed class LowRankUpdate
     }
 
     /// <summary>The relative residual of the scaled system at the scaled solution.</summary>
-    private double Residual(SystemMatrix a, Complex[] x, Complex[] b)
-    {
-        var n = b.Length;
-        var ax = product;
-        Array.Clear(ax);
-        double norm = 0;
-        for (var i = 0; i < n; i++)
-        {
-            var columns = a.Columns(i);
-            var values = a.Values(i);
-            double sum = 0;
-            for (var e = 0; e < columns.Length; e++)
-            {
-                if (values[e] == Complex.Zero) continue;
-                var entry = values[e] * rows[i] * this.columns[columns[e]];
-                ax[i] += entry * x[columns[e]];
-                sum += entry.Magnitude;
-            }
-            norm = Math.Max(norm, sum);
-        }
-        return LinearSolver.RelativeResidual(ax, x, b, norm);
-    }
+    private double Residual(SystemMatrix a, Complex[] x, Complex[] b) => LinearSolver.ScaledResidual(a, rows, columns, x, b, product);
 
     /// <summary>Gaussian elimination with partial pivoting on the small system; null where a pivot is too small.</summary>
     private static Complex[]? SolveSmall(Complex[,] m, Complex[] b)
